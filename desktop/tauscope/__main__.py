@@ -1,0 +1,5 @@
+"""Allow ``python -m tauscope``."""
+
+from tauscope.cli import main
+
+raise SystemExit(main())

@@ -1,0 +1,34 @@
+"""How numbers appear in plain-language text (DESIGN.md section 7)."""
+
+from __future__ import annotations
+
+import math
+
+
+def stat(value: float | None, decimals: int = 2) -> str:
+    """A statistic as a reader would copy it, with a true minus sign."""
+    if value is None or not math.isfinite(value):
+        return "n/a"
+    text = f"{value:.{decimals}f}"
+    if text.startswith("-"):
+        text = "\u2212" + text[1:]
+    return text
+
+
+def p_value(value: float | None, bound: str | None = None) -> str:
+    """A p-value: "0.031", "below 0.001", or a table bound said in words."""
+    if value is None or not math.isfinite(value):
+        return "not available"
+    if bound == "below":
+        return f"below {value:.2f}"
+    if bound == "above":
+        return f"above {value:.2f}"
+    if value < 0.001:
+        return "below 0.001"
+    if value > 0.999:
+        return "above 0.999"
+    return f"{value:.3f}"
+
+
+def percent(alpha: float) -> str:
+    return f"{round(alpha * 100):d}%"

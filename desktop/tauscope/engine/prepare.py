@@ -1,0 +1,93 @@
+"""Turning what the caller passes into a clean float array, or one sentence on why not."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Any
+
+import numpy as np
+import pandas as pd
+
+from tauscope.engine.errors import UntestableSeries
+
+MIN_OBSERVATIONS = 12
+
+PERIODS_PER_YEAR = {"Y": 1.0, "A": 1.0, "Q": 4.0, "M": 12.0, "W": 52.0, "D": 365.0, "B": 261.0}
+
+
+@dataclass(frozen=True)
+class PreparedSeries:
+    values: np.ndarray
+    index: pd.Index | None
+    leading_trimmed: int
+    trailing_trimmed: int
+
+    def label(self, position: int) -> str:
+        """A readable name for observation ``position`` (0-based, after trimming)."""
+        if self.index is not None and 0 <= position < len(self.index):
+            return str(self.index[position])
+        return f"observation {position + 1}"
+
+    @property
+    def periods_per_year(self) -> float | None:
+        if self.index is None:
+            return None
+        code: str | None = None
+        if isinstance(self.index, pd.PeriodIndex):
+            code = self.index.freqstr
+        elif isinstance(self.index, pd.DatetimeIndex) and len(self.index) >= 3:
+            code = self.index.freqstr or pd.infer_freq(self.index)
+        if not code:
+            return None
+        base = code.split("-")[0].lstrip("0123456789").upper()
+        for key in ("QE", "QS", "ME", "MS", "YE", "YS", "BQ", "BM"):
+            if base.startswith(key):
+                base = key[0] if key[0] != "B" else key[1]
+                break
+        return PERIODS_PER_YEAR.get(base[:1]) if base else None
+
+
+def prepare(values: Any) -> PreparedSeries:
+    """Validate and trim; raise :class:`UntestableSeries` with one sentence."""
+    index: pd.Index | None = None
+    if isinstance(values, pd.Series):
+        index = values.index
+        if not isinstance(index, pd.PeriodIndex | pd.DatetimeIndex):
+            index = None
+        raw = values.to_numpy()
+    else:
+        raw = values
+    try:
+        x = np.asarray(raw, dtype=float)
+    except (TypeError, ValueError):
+        raise UntestableSeries("it contains values that are not numbers") from None
+    if x.ndim != 1:
+        x = np.squeeze(x)
+        if x.ndim != 1:
+            raise UntestableSeries("it is not a single column of numbers")
+    if x.size == 0:
+        raise UntestableSeries("it has no observations")
+    if np.isinf(x).any():
+        where = int(np.flatnonzero(np.isinf(x))[0])
+        raise UntestableSeries(f"it contains an infinite value (observation {where + 1})")
+    present = np.flatnonzero(~np.isnan(x))
+    if present.size == 0:
+        raise UntestableSeries("every value is missing")
+    start, stop = int(present[0]), int(present[-1]) + 1
+    trimmed = x[start:stop]
+    if index is not None:
+        index = index[start:stop]
+    prepared = PreparedSeries(trimmed, index, start, x.size - stop)
+    gaps = np.flatnonzero(np.isnan(trimmed))
+    if gaps.size:
+        raise UntestableSeries(
+            f"it has {gaps.size} missing value{'s' if gaps.size > 1 else ''} inside the sample "
+            f"(first at {prepared.label(int(gaps[0]))}); fill the gap or test a gap-free stretch"
+        )
+    if trimmed.size < MIN_OBSERVATIONS:
+        raise UntestableSeries(
+            f"it has only {trimmed.size} observations; at least {MIN_OBSERVATIONS} are needed"
+        )
+    if np.ptp(trimmed) == 0:
+        raise UntestableSeries("it is constant, so there is nothing to test")
+    return prepared

@@ -1,0 +1,77 @@
+"""Testing choices shared by every part of the analysis."""
+
+from __future__ import annotations
+
+from dataclasses import asdict, dataclass
+from typing import Any
+
+LAG_RULES = ("aic", "bic", "hqc", "tsig", "maic", "fixed")
+ALPHAS = (0.01, 0.05, 0.10)
+CONFIRMATION_TESTS = ("kpss",)
+
+LAG_RULE_LABELS = {
+    "aic": "Akaike information criterion (AIC)",
+    "bic": "Schwarz-Bayes information criterion (BIC)",
+    "hqc": "Hannan-Quinn criterion (HQC)",
+    "tsig": "general-to-specific t test on the last lag at 10% (Ng & Perron 1995)",
+    "maic": "modified AIC (Ng & Perron 2001)",
+    "fixed": "fixed lag order",
+}
+
+
+@dataclass(frozen=True)
+class Settings:
+    """The choices that define one analysis.
+
+    ``lag_rule`` picks the lag order p of the ADF regression: ``"aic"``,
+    ``"bic"``, ``"hqc"`` (information criteria on a common sample, Ng & Perron
+    1995), ``"tsig"`` (general-to-specific on the last lag's t at 10%,
+    Ng & Perron 1995), ``"maic"`` (modified AIC, Ng & Perron 2001) or
+    ``"fixed"`` (use ``lags``).  ``max_lags`` bounds the search; ``None`` means
+    Schwert's (1989) rule floor(12 (T/100)^(1/4)).  ``alpha`` is the
+    significance level of every test in the sequence; ``max_difference`` is the
+    highest order of integration considered; ``confirm`` lists the
+    stationarity-null tests used as a cross-check.
+    """
+
+    lag_rule: str = "aic"
+    lags: int | None = None
+    max_lags: int | None = None
+    alpha: float = 0.05
+    max_difference: int = 2
+    confirm: tuple[str, ...] = ("kpss",)
+
+    def __post_init__(self) -> None:
+        if self.lag_rule not in LAG_RULES:
+            raise ValueError(f"lag_rule must be one of {', '.join(LAG_RULES)}, not {self.lag_rule!r}")
+        if self.lag_rule == "fixed" and (self.lags is None or self.lags < 0):
+            raise ValueError("lag_rule 'fixed' needs a lag order 'lags' of 0 or more")
+        if self.lags is not None and self.lags < 0:
+            raise ValueError("lags must be 0 or more")
+        if self.max_lags is not None and self.max_lags < 0:
+            raise ValueError("max_lags must be 0 or more")
+        if not any(abs(self.alpha - a) < 1e-12 for a in ALPHAS):
+            raise ValueError("alpha must be 0.01, 0.05 or 0.10")
+        if self.max_difference not in (0, 1, 2):
+            raise ValueError("max_difference must be 0, 1 or 2")
+        object.__setattr__(self, "confirm", tuple(self.confirm))
+        unknown = [c for c in self.confirm if c not in CONFIRMATION_TESTS]
+        if unknown:
+            raise ValueError(f"unknown confirmation test(s): {', '.join(unknown)}")
+
+    def to_dict(self) -> dict[str, Any]:
+        data = asdict(self)
+        data["confirm"] = list(self.confirm)
+        return data
+
+    @classmethod
+    def from_dict(cls, data: dict[str, Any]) -> Settings:
+        known = {k: data[k] for k in cls.__dataclass_fields__ if k in data}
+        if "confirm" in known:
+            known["confirm"] = tuple(known["confirm"])
+        return cls(**known)
+
+    @property
+    def alpha_label(self) -> str:
+        """The significance level as people write it: "5%"."""
+        return f"{round(self.alpha * 100):d}%"

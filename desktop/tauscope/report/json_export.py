@@ -1,0 +1,31 @@
+"""JSON findings (DESIGN.md §3): {"tauscope", "settings", "source", "series", ...}.
+
+Each entry of "series" is exactly ``SeriesResult.to_dict()``; where each series
+came from is kept alongside in "origins" (same order).
+"""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+from typing import Any
+
+from tauscope.report.atomic import write_text_atomic
+from tauscope.report.run import RunRecord
+
+
+def run_to_json(run: RunRecord) -> dict[str, Any]:
+    sources = [{"file": s.path, "sha256": s.sha256} for s in run.sources]
+    return {
+        "tauscope": run.version,
+        "created": run.created,
+        "settings": run.settings.to_dict(),
+        "source": sources[0] if len(sources) == 1 else None,
+        "sources": sources,
+        "series": [f.result.to_dict() for f in run.findings],
+        "origins": [f.origin() for f in run.findings],
+    }
+
+
+def write_json(path: Path, run: RunRecord) -> None:
+    write_text_atomic(path, json.dumps(run_to_json(run), indent=2, ensure_ascii=False) + "\n")

@@ -1,0 +1,37 @@
+"""Where the bundled resources live: a source checkout or a PyInstaller bundle.
+
+In a source checkout the package sits at ``<repo>/desktop/tauscope`` and the
+resources at ``<repo>/resources``; a frozen one-folder bundle unpacks them to
+``sys._MEIPASS/resources``.
+"""
+
+from __future__ import annotations
+
+import sys
+from pathlib import Path
+
+DEMO_WORKBOOK = ("demo", "harbourline_demo.xlsx")
+
+
+def resource_roots() -> list[Path]:
+    """Candidate resource folders, the frozen bundle first."""
+    roots: list[Path] = []
+    frozen = getattr(sys, "_MEIPASS", None)
+    if frozen:
+        roots.append(Path(frozen) / "resources")
+    roots.append(Path(__file__).resolve().parents[2] / "resources")
+    return roots
+
+
+def resource_path(*parts: str) -> Path | None:
+    """The first existing ``resources/<parts>``, or None when it is not there."""
+    for root in resource_roots():
+        candidate = root.joinpath(*parts)
+        if candidate.exists():
+            return candidate
+    return None
+
+
+def demo_workbook() -> Path | None:
+    """The bundled demo workbook, or None when it is missing."""
+    return resource_path(*DEMO_WORKBOOK)

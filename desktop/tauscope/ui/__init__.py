@@ -1,0 +1,1 @@
+"""Everything Qt: the main window, its panels, the analysis worker and dialogs."""

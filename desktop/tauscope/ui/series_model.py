@@ -1,0 +1,180 @@
+"""The Series panel's model: open workbooks → sheets → series (→ transformed copies)."""
+
+from __future__ import annotations
+
+from collections.abc import Iterator
+from typing import TYPE_CHECKING, Any
+
+from PySide6.QtCore import QModelIndex, QPersistentModelIndex, Qt
+from PySide6.QtGui import QStandardItem, QStandardItemModel
+
+from tauscope.ui.roles import KEY_ROLE, KIND_ROLE, SERIES_ROLE, SORT_ROLE, SPARK_ROLE, WORKBOOK_ROLE
+from tauscope.ui.sparkline import sparkline_points
+
+if TYPE_CHECKING:
+    from tauscope.data import SeriesData, Workbook
+
+COLUMNS = ("Series", "Shape", "Obs.", "Frequency", "Span", "Gaps")
+COLUMN_TIPS = (
+    "Workbooks you opened, their sheets and the series found in each. Right-click a series "
+    "to add a transformed copy (log, difference, growth, seasonal difference).",
+    "A small drawing of the series, first value on the left.",
+    "Number of observations that have a value.",
+    "How often the series is observed, as read from its dates.",
+    "First and last date (or observation number when the dates could not be read).",
+    "Stretches of missing values inside the series. A series with gaps must be cut to its "
+    "longest stretch or filled before it can be tested.",
+)
+NAME, SHAPE, OBS, FREQUENCY, SPAN, GAPS = range(6)
+
+
+def _item(text: str, tip: str = "") -> QStandardItem:
+    item = QStandardItem(text)
+    item.setEditable(False)
+    if tip:
+        item.setToolTip(tip)
+    return item
+
+
+def gaps_text(series: SeriesData) -> str:
+    missing = sum(g.count for g in series.gaps)
+    if not series.gaps:
+        return "filled" if series.filled else "none"
+    stretch = "stretch" if len(series.gaps) == 1 else "stretches"
+    return f"{missing} in {len(series.gaps)} {stretch}"
+
+
+def series_tooltip(series: SeriesData) -> str:
+    lines = [series.name]
+    src = series.source
+    lines.append(f"From {src.file}, sheet {src.sheet}, column {src.column}")
+    if series.parent:
+        lines.append(f"Derived from {series.parent}")
+    lines.append(f"{series.nobs} observations, {series.span[0]} to {series.span[1]}")
+    if series.gaps:
+        lines.append("Gaps: " + "; ".join(f"{g.start} to {g.end} ({g.count})" for g in series.gaps))
+    lines.extend(series.notes)
+    return "\n".join(lines)
+
+
+def series_row(series: SeriesData) -> list[QStandardItem]:
+    tip = series_tooltip(series)
+    name = _item(series.name, tip)
+    name.setData("series", KIND_ROLE)
+    name.setData(series.key, KEY_ROLE)
+    name.setData(series, SERIES_ROLE)
+    name.setData(series.name.lower(), SORT_ROLE)
+    shape = _item("", tip)
+    shape.setData(sparkline_points(series.values), SPARK_ROLE)
+    shape.setData(f"Drawing of {series.name}", Qt.ItemDataRole.AccessibleTextRole)
+    obs = _item(str(series.nobs), tip)
+    obs.setData(series.nobs, SORT_ROLE)
+    obs.setTextAlignment(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
+    freq = _item(series.frequency or "irregular", tip)
+    span = _item(f"{series.span[0]} – {series.span[1]}", tip)
+    gaps = _item(gaps_text(series), tip)
+    row = [name, shape, obs, freq, span, gaps]
+    for cell in row[1:]:
+        cell.setData("series", KIND_ROLE)
+        cell.setData(series.key, KEY_ROLE)
+    return row
+
+
+def _container_row(text: str, kind: str, tip: str) -> list[QStandardItem]:
+    first = _item(text, tip)
+    first.setData(kind, KIND_ROLE)
+    first.setData(text.lower(), SORT_ROLE)
+    rest = [_item("") for _ in COLUMNS[1:]]
+    for cell in rest:
+        cell.setData(kind, KIND_ROLE)
+    return [first, *rest]
+
+
+class SeriesTreeModel(QStandardItemModel):
+    """Workbooks at the top, sheets below, series below each sheet."""
+
+    def __init__(self, parent: Any = None) -> None:
+        super().__init__(0, len(COLUMNS), parent)
+        for column, (title, tip) in enumerate(zip(COLUMNS, COLUMN_TIPS, strict=True)):
+            header = QStandardItem(title)
+            header.setToolTip(tip)
+            self.setHorizontalHeaderItem(column, header)
+
+    # building -----------------------------------------------------------
+    def add_workbook(self, workbook: Workbook) -> QStandardItem:
+        """Add (or replace, when the same file is open) a workbook; returns its item."""
+        self.remove_workbook(str(workbook.path))
+        notes = "\n".join(workbook.notes)
+        tip = str(workbook.path) + (f"\n{notes}" if notes else "")
+        row = _container_row(workbook.path.name, "workbook", tip)
+        row[0].setData(workbook, WORKBOOK_ROLE)
+        row[0].setData(str(workbook.path), KEY_ROLE)
+        for sheet in workbook.sheets:
+            sheet_tip = f"Sheet {sheet.name} of {workbook.path.name}"
+            if sheet.notes:
+                sheet_tip += "\n" + "\n".join(sheet.notes)
+            sheet_row = _container_row(sheet.name, "sheet", sheet_tip)
+            sheet_row[OBS].setText(f"{len(sheet.series)}")
+            sheet_row[OBS].setToolTip("Number of series on this sheet")
+            sheet_row[OBS].setTextAlignment(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
+            for series in sheet.series:
+                sheet_row[0].appendRow(series_row(series))
+            row[0].appendRow(sheet_row)
+        self.appendRow(row)
+        return row[0]
+
+    def remove_workbook(self, path: str) -> bool:
+        for r in range(self.rowCount()):
+            if self.item(r, 0).data(KEY_ROLE) == path:
+                self.removeRow(r)
+                return True
+        return False
+
+    def add_transformed(self, parent_key: str, series: SeriesData) -> QStandardItem | None:
+        """Add a transformed copy under the series it came from (replacing an equal one)."""
+        parent = self.item_for_key(parent_key)
+        if parent is None:
+            return None
+        existing = self.item_for_key(series.key)
+        if existing is not None and existing.parent() is not None:
+            existing.parent().removeRow(existing.row())
+        row = series_row(series)
+        parent.appendRow(row)
+        return row[0]
+
+    # lookup -------------------------------------------------------------
+    def iter_series_items(self, root: QStandardItem | None = None) -> Iterator[QStandardItem]:
+        """Every series item (depth first, in display order) under root (default: all)."""
+        start = root if root is not None else self.invisibleRootItem()
+        for r in range(start.rowCount()):
+            child = start.child(r, 0)
+            if child is None:
+                continue
+            if child.data(KIND_ROLE) == "series":
+                yield child
+            yield from self.iter_series_items(child)
+
+    def item_for_key(self, key: str) -> QStandardItem | None:
+        for item in self.iter_series_items():
+            if item.data(KEY_ROLE) == key:
+                return item
+        return None
+
+    def series_for_key(self, key: str) -> SeriesData | None:
+        item = self.item_for_key(key)
+        return item.data(SERIES_ROLE) if item is not None else None
+
+    def all_series(self) -> list[SeriesData]:
+        return [item.data(SERIES_ROLE) for item in self.iter_series_items()]
+
+    def series_under(self, index: QModelIndex | QPersistentModelIndex) -> list[SeriesData]:
+        """The series an index stands for: itself, or every series of a workbook or sheet."""
+        item = self.itemFromIndex(index.siblingAtColumn(0))
+        if item is None:
+            return []
+        if item.data(KIND_ROLE) == "series":
+            return [item.data(SERIES_ROLE)]
+        return [s.data(SERIES_ROLE) for s in self.iter_series_items(item)]
+
+    def workbook_paths(self) -> list[str]:
+        return [str(self.item(r, 0).data(KEY_ROLE)) for r in range(self.rowCount())]

@@ -1,0 +1,148 @@
+"""The Series panel: filter box and the tree of workbooks, sheets and series."""
+
+from __future__ import annotations
+
+from typing import TYPE_CHECKING, Any
+
+from PySide6.QtCore import QItemSelectionModel, QModelIndex, QPoint, QSortFilterProxyModel, Qt, Signal
+from PySide6.QtGui import QAction
+from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QLineEdit, QMenu, QTreeView, QVBoxLayout, QWidget
+
+from tauscope.ui.roles import KEY_ROLE, KIND_ROLE, SORT_ROLE
+from tauscope.ui.series_model import FREQUENCY, GAPS, NAME, OBS, SHAPE, SPAN, SeriesTreeModel
+from tauscope.ui.sparkline import SparklineDelegate
+
+if TYPE_CHECKING:
+    from tauscope.data import SeriesData
+
+
+class SeriesPanel(QWidget):
+    """Shows the open workbooks; emits the series the user points at."""
+
+    current_changed = Signal(str)  # key of the current series ("" when none)
+    transform_requested = Signal(str, str)  # series key, transform key
+    run_requested = Signal()
+
+    def __init__(self, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self.model = SeriesTreeModel(self)
+        self.proxy = QSortFilterProxyModel(self)
+        self.proxy.setSourceModel(self.model)
+        self.proxy.setRecursiveFilteringEnabled(True)
+        self.proxy.setAutoAcceptChildRows(True)
+        self.proxy.setFilterCaseSensitivity(Qt.CaseSensitivity.CaseInsensitive)
+        self.proxy.setFilterKeyColumn(NAME)
+        self.proxy.setSortRole(SORT_ROLE)
+
+        self.filter_box = QLineEdit(self)
+        self.filter_box.setPlaceholderText("Filter series by name (Ctrl+F)")
+        self.filter_box.setClearButtonEnabled(True)
+        self.filter_box.setAccessibleName("Filter series")
+        self.filter_box.setToolTip("Show only the series whose name contains this text.")
+        self.filter_box.textChanged.connect(self._filter)
+
+        self.view = QTreeView(self)
+        self.view.setModel(self.proxy)
+        self.view.setAccessibleName("Series")
+        self.view.setAccessibleDescription("Open workbooks, their sheets and series")
+        self.view.setSelectionMode(QAbstractItemView.SelectionMode.ExtendedSelection)
+        self.view.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
+        self.view.setUniformRowHeights(True)
+        self.view.setAlternatingRowColors(True)
+        self.view.setSortingEnabled(False)
+        self.view.setItemDelegateForColumn(SHAPE, SparklineDelegate(self.view))
+        self.view.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
+        self.view.customContextMenuRequested.connect(self._context_menu)
+        self.view.selectionModel().currentRowChanged.connect(self._current_row_changed)
+        header = self.view.header()
+        header.setStretchLastSection(False)
+        header.setSectionResizeMode(NAME, QHeaderView.ResizeMode.Interactive)
+        for column, width in ((NAME, 150), (SHAPE, 86), (OBS, 44), (FREQUENCY, 74), (SPAN, 130),
+                              (GAPS, 60)):
+            self.view.setColumnWidth(column, width)
+
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(0, 0, 0, 0)
+        layout.setSpacing(4)
+        layout.addWidget(self.filter_box)
+        layout.addWidget(self.view)
+        self.setFocusProxy(self.view)
+
+    # selection ----------------------------------------------------------
+    def _filter(self, text: str) -> None:
+        self.proxy.setFilterFixedString(text)
+        if text:
+            self.view.expandAll()
+
+    def _current_row_changed(self, current: QModelIndex, _previous: QModelIndex) -> None:
+        key = ""
+        if current.isValid() and current.data(KIND_ROLE) == "series":
+            key = str(current.siblingAtColumn(NAME).data(KEY_ROLE))
+        self.current_changed.emit(key)
+
+    def selected_series(self) -> list[SeriesData]:
+        """Series picked by the user (a workbook or sheet stands for all its series), in order,
+        each once; all series when nothing is selected."""
+        rows = self.view.selectionModel().selectedRows(NAME)
+        if not rows:
+            return self.model.all_series()
+        wanted: dict[str, SeriesData] = {}
+        for proxy_index in rows:
+            for series in self.model.series_under(self.proxy.mapToSource(proxy_index)):
+                wanted.setdefault(series.key, series)
+        order = {s.key: i for i, s in enumerate(self.model.all_series())}
+        return sorted(wanted.values(), key=lambda s: order.get(s.key, 0))
+
+    def select_all_series(self) -> None:
+        self.view.expandAll()
+        self.view.selectAll()
+
+    def select_key(self, key: str) -> bool:
+        item = self.model.item_for_key(key)
+        if item is None:
+            return False
+        index = self.proxy.mapFromSource(item.index())
+        if not index.isValid():
+            return False
+        self.view.scrollTo(index)
+        flags = (QItemSelectionModel.SelectionFlag.ClearAndSelect
+                 | QItemSelectionModel.SelectionFlag.Rows)
+        self.view.selectionModel().setCurrentIndex(index, flags)
+        return True
+
+    def current_key(self) -> str:
+        index = self.view.currentIndex()
+        if index.isValid() and index.data(KIND_ROLE) == "series":
+            return str(index.siblingAtColumn(NAME).data(KEY_ROLE))
+        return ""
+
+    # context menu ------------------------------------------------------
+    def _context_menu(self, pos: QPoint) -> None:
+        index = self.view.indexAt(pos)
+        menu = QMenu(self)
+        if index.isValid() and index.data(KIND_ROLE) == "series":
+            key = str(index.siblingAtColumn(NAME).data(KEY_ROLE))
+            transforms = self._transform_menu(menu, key)
+            menu.addMenu(transforms)
+        run = QAction("Analyse the selected series", menu)
+        run.triggered.connect(self.run_requested.emit)
+        menu.addAction(run)
+        menu.popup(self.view.viewport().mapToGlobal(pos))
+
+    def _transform_menu(self, parent: QWidget, key: str) -> QMenu:
+        from tauscope.data import TRANSFORMS
+
+        menu = QMenu("Add a transformed copy", parent)
+        for transform_key, label in TRANSFORMS.items():
+            action = QAction(str(label), menu)
+            action.triggered.connect(
+                lambda _checked=False, k=key, t=transform_key: self.transform_requested.emit(k, t)
+            )
+            menu.addAction(action)
+        return menu
+
+    def expand_workbook(self, item: Any) -> None:
+        index = self.proxy.mapFromSource(item.index())
+        self.view.expand(index)
+        for r in range(self.proxy.rowCount(index)):
+            self.view.expand(self.proxy.index(r, 0, index))

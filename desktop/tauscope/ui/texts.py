@@ -1,0 +1,61 @@
+"""Words and number formats the window shows (numbers through tauscope.engine.formatting)."""
+
+from __future__ import annotations
+
+from tauscope.engine import formatting as fmt
+
+STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z", "kpss": "KPSS",
+                     "adf": "τ"}
+
+STATISTIC_TIPS = {
+    "tau": "τ (tau) is the t ratio on y(t−1) in the ADF regression. Strongly negative values are "
+           "evidence against a unit root. It is compared with Dickey-Fuller critical values, "
+           "not with the ordinary t table.",
+    "phi1": "Φ1 is an F test of “no constant and a unit root” together. A large value says the "
+            "constant (a drift) belongs in the regression.",
+    "phi2": "Φ2 is an F test of “no constant, no trend and a unit root” together. A large value "
+            "says some deterministic term belongs in the regression.",
+    "phi3": "Φ3 is an F test of “no trend and a unit root” together. A large value says the "
+            "trend belongs in the regression.",
+    "z": "Once a trend or a drift is known to belong, the unit-root t ratio follows the "
+         "standard normal, so it is compared with normal critical values (West 1988).",
+    "kpss": "KPSS takes stationarity as its starting point (the null). Rejecting it points to a "
+            "unit root, the opposite direction from the ADF test, so the two cross-check each other.",
+}
+
+GUIDE_ANCHORS = {"tau": "tau", "adf": "tau", "phi1": "phi", "phi2": "phi", "phi3": "phi",
+                 "z": "z", "kpss": "kpss"}
+
+DIFFERENCE_NAMES = {0: "Levels", 1: "First difference", 2: "Second difference"}
+SPEC_NAMES = {"trend": "constant and trend", "constant": "constant only",
+              "none": "no constant or trend"}
+LAG_RULE_SHORT = {"aic": "AIC", "bic": "BIC", "hqc": "HQC", "tsig": "t-sig", "maic": "MAIC",
+                  "fixed": "fixed"}
+AGREEMENT_WORDS = {"confirmed": "agrees", "conflict": "disagrees", "inconclusive": "unclear",
+                   None: "not run"}
+AGREEMENT_TIPS = {
+    "confirmed": "The KPSS cross-check points the same way as the verdict.",
+    "conflict": "The KPSS cross-check points the other way: treat the verdict with care.",
+    "inconclusive": "The KPSS cross-check neither supports nor contradicts the verdict.",
+    None: "No cross-check was run (see Settings).",
+}
+
+GUIDE_HINT = "\nPress F1 for the guide's section on this."
+
+
+def decision_text(decision: str) -> str:
+    """The engine's decision in the window's words (never "accept")."""
+    return "rejected" if decision == "reject" else "not rejected"
+
+
+def statistic_text(statistic_name: str, value: float | None) -> str:
+    return f"{STATISTIC_SYMBOLS.get(statistic_name, statistic_name)} = {fmt.stat(value)}"
+
+
+def lag_text(lags: int, rule: str) -> str:
+    rule_text = LAG_RULE_SHORT.get(rule, rule.upper()) if rule else ""
+    return f"{lags} ({rule_text})" if rule_text else str(lags)
+
+
+def where_text(difference: int, spec: str) -> str:
+    return f"{DIFFERENCE_NAMES.get(difference, f'Difference {difference}')} · {SPEC_NAMES.get(spec, spec)}"
