@@ -41,7 +41,7 @@ from typing import Any
 import numpy as np
 from openpyxl import Workbook
 
-SEED = 0  # first seed that meets the targets (see README.md, "How the seed was chosen")
+SEED = 9  # meets the targets with a margin (see README.md, "How the seed was chosen")
 
 HERE = Path(__file__).resolve().parent
 WORKBOOK_NAME = "harbourline_demo.xlsx"
