@@ -44,7 +44,10 @@ def test_always_returns_and_sets_error_when_untestable(data: list[float], run: i
         ([1.0, 2.0, math.inf] + [1.0] * 20, "infinite"),
         ([3.0] * 30, "constant"),
         (list(range(8)), "only 8 observations"),
-        ([1.0, 2.0, 3.0, math.nan] + list(np.random.default_rng(0).standard_normal(30)), "missing value inside"),
+        (
+            [1.0, 2.0, 3.0, math.nan, *np.random.default_rng(0).standard_normal(30)],
+            "missing value inside",
+        ),
         (list(np.arange(40, dtype=float)), "difference is constant"),
     ],
 )

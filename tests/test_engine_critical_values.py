@@ -8,6 +8,7 @@ as recorded in the project's reference notes).
 
 from __future__ import annotations
 
+import itertools
 import math
 
 import pytest
@@ -57,13 +58,35 @@ def test_finite_sample_tau_close_to_fuller_table() -> None:
 
 # Dickey & Fuller (1981) Tables IV-VI (from memory): (n, alpha) -> value.
 DF1981 = {
-    "phi1": {(25, 0.10): 4.12, (25, 0.05): 5.18, (25, 0.01): 7.88,
-             (50, 0.05): 4.86, (100, 0.05): 4.71, (250, 0.05): 4.63, (500, 0.05): 4.61,
-             (100, 0.01): 6.70, (100, 0.10): 3.86},
-    "phi2": {(25, 0.05): 5.68, (50, 0.05): 5.13, (100, 0.05): 4.88, (250, 0.05): 4.75,
-             (500, 0.05): 4.71, (100, 0.01): 6.50, (100, 0.10): 4.16},
-    "phi3": {(25, 0.05): 7.24, (50, 0.05): 6.73, (100, 0.05): 6.49, (250, 0.05): 6.34,
-             (500, 0.05): 6.30, (100, 0.01): 8.73, (100, 0.10): 5.47},
+    "phi1": {
+        (25, 0.10): 4.12,
+        (25, 0.05): 5.18,
+        (25, 0.01): 7.88,
+        (50, 0.05): 4.86,
+        (100, 0.05): 4.71,
+        (250, 0.05): 4.63,
+        (500, 0.05): 4.61,
+        (100, 0.01): 6.70,
+        (100, 0.10): 3.86,
+    },
+    "phi2": {
+        (25, 0.05): 5.68,
+        (50, 0.05): 5.13,
+        (100, 0.05): 4.88,
+        (250, 0.05): 4.75,
+        (500, 0.05): 4.71,
+        (100, 0.01): 6.50,
+        (100, 0.10): 4.16,
+    },
+    "phi3": {
+        (25, 0.05): 7.24,
+        (50, 0.05): 6.73,
+        (100, 0.05): 6.49,
+        (250, 0.05): 6.34,
+        (500, 0.05): 6.30,
+        (100, 0.01): 8.73,
+        (100, 0.10): 5.47,
+    },
 }
 
 
@@ -79,11 +102,16 @@ def test_phi_critical_values_move_monotonically_between_rows(name: str, alpha: f
     sizes = list(range(25, 1001, 5))
     values = [phi_critical_value(name, n, alpha) for n in sizes]
     # The tables fall with n, so the interpolation must never rise.
-    assert all(b <= a + 1e-12 for a, b in zip(values, values[1:], strict=False))
+    assert all(b <= a + 1e-12 for a, b in itertools.pairwise(values))
     assert phi_critical_value(name, 10_000_000, alpha) == pytest.approx(
-        phi_critical_value(name, math.inf, alpha), abs=1e-3)
+        phi_critical_value(name, math.inf, alpha), abs=1e-3
+    )
     # Smaller levels give larger upper-tail critical values.
-    assert phi_critical_value(name, 80, 0.01) > phi_critical_value(name, 80, 0.05) > phi_critical_value(name, 80, 0.10)
+    assert (
+        phi_critical_value(name, 80, 0.01)
+        > phi_critical_value(name, 80, 0.05)
+        > phi_critical_value(name, 80, 0.10)
+    )
 
 
 def test_normal_values() -> None:

@@ -15,7 +15,11 @@ from tauscope.engine import Settings, analyse_series
 
 def _independent_phi(x: np.ndarray, lags: int, name: str) -> float:
     dx = np.diff(x)
-    lagged = lagmat(dx[:, None], lags, trim="both", original="sep")[0] if lags else np.empty((dx.size, 0))
+    lagged = (
+        lagmat(dx[:, None], lags, trim="both", original="sep")[0]
+        if lags
+        else np.empty((dx.size, 0))
+    )
     y = dx[lags:]
     n = y.size
     ylag = x[lags:-1]
@@ -43,7 +47,9 @@ def _independent_phi(x: np.ndarray, lags: int, name: str) -> float:
 def test_phi_statistics_equal_independent_ols(column: str, rule: str) -> None:
     data = macrodata.load_pandas().data[column].to_numpy()
     x = np.log(data) if column == "realgdp" else data
-    result = analyse_series(x, Settings(lag_rule=rule, lags=2 if rule == "fixed" else None, max_difference=0))
+    result = analyse_series(
+        x, Settings(lag_rule=rule, lags=2 if rule == "fixed" else None, max_difference=0)
+    )
     for name in ("phi1", "phi2", "phi3"):
         ours = result.find(name, difference=0)
         assert ours is not None

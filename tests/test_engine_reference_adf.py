@@ -45,14 +45,17 @@ def test_level_adf_equals_statsmodels_adfuller(name: str, rule: str) -> None:
         else:
             # Same upper bound as ours (Schwert 1989: floor(12 (203/100)^(1/4)) = 14).
             assert result.max_lags == 14
-            ref = adfuller(x, maxlag=result.max_lags, regression=code, autolag=rule.upper(),
-                           result_object=True)
+            ref = adfuller(
+                x, maxlag=result.max_lags, regression=code, autolag=rule.upper(), result_object=True
+            )
         assert ours.lags == ref.lags
         assert ours.nobs == ref.nobs
         assert ours.statistic == pytest.approx(ref.statistic, abs=1e-8)
         assert ours.p_value == pytest.approx(ref.pvalue, abs=1e-8)
         for level in ("1%", "5%", "10%"):
-            assert ours.critical_values[level] == pytest.approx(ref.critical_values[level], abs=1e-8)
+            assert ours.critical_values[level] == pytest.approx(
+                ref.critical_values[level], abs=1e-8
+            )
 
 
 def test_tsig_rule_matches_statsmodels_tstat_autolag() -> None:
@@ -63,7 +66,9 @@ def test_tsig_rule_matches_statsmodels_tstat_autolag() -> None:
     for spec, code in SPEC_CODES.items():
         ours = result.find("adf", spec)
         assert ours is not None
-        ref = adfuller(x, maxlag=result.max_lags, regression=code, autolag="t-stat", result_object=True)
+        ref = adfuller(
+            x, maxlag=result.max_lags, regression=code, autolag="t-stat", result_object=True
+        )
         assert ours.lags == ref.lags
         assert ours.statistic == pytest.approx(ref.statistic, abs=1e-8)
 

@@ -52,11 +52,15 @@ def test_i2_stops_at_first_difference() -> None:
     rng = np.random.default_rng(9)
     x = np.cumsum(np.cumsum(rng.standard_normal(200)))
     result = analyse_series(x)
-    assert [s.difference for s in result.steps][0] == 2
+    assert result.steps[0].difference == 2
     assert result.verdict.order == 2
     assert all(s.difference in (1, 2) for s in result.steps)
     # Levels ADF for all three specs is always present.
-    assert {t.spec for t in result.tests if t.test == "adf" and t.difference == 0} == {"trend", "constant", "none"}
+    assert {t.spec for t in result.tests if t.test == "adf" and t.difference == 0} == {
+        "trend",
+        "constant",
+        "none",
+    }
 
 
 def test_unresolved_when_max_difference_is_zero_and_unit_root_not_rejected() -> None:
@@ -74,10 +78,29 @@ def test_to_dict_contract_keys_and_json() -> None:
     d = json.loads(json.dumps(result.to_dict()))
     assert {"name", "nobs", "error", "verdict", "steps", "tests", "notes"} <= set(d)
     assert set(d["verdict"]) >= {"order", "deterministic", "unit_root", "agreement", "text"}
-    step_keys = {"difference", "spec", "hypothesis", "statistic_name", "statistic", "critical_value",
-                 "p_value", "decision", "text"}
+    step_keys = {
+        "difference",
+        "spec",
+        "hypothesis",
+        "statistic_name",
+        "statistic",
+        "critical_value",
+        "p_value",
+        "decision",
+        "text",
+    }
     assert all(step_keys <= set(s) for s in d["steps"])
-    test_keys = {"test", "spec", "difference", "statistic", "p_value", "lags", "nobs", "critical_values", "reject"}
+    test_keys = {
+        "test",
+        "spec",
+        "difference",
+        "statistic",
+        "p_value",
+        "lags",
+        "nobs",
+        "critical_values",
+        "reject",
+    }
     assert all(test_keys <= set(t) for t in d["tests"])
     assert all(set(t["critical_values"]) >= {"1%", "5%", "10%"} for t in d["tests"])
     assert d["verdict"]["agreement"] in ("confirmed", "conflict", "inconclusive")
@@ -125,6 +148,8 @@ def test_kpss_matches_statsmodels() -> None:
     result = analyse_series(x)
     test = result.find("kpss", difference=0)
     assert test is not None
-    ref = kpss(x, regression="ct" if test.spec == "trend" else "c", nlags="auto", result_object=True)
+    ref = kpss(
+        x, regression="ct" if test.spec == "trend" else "c", nlags="auto", result_object=True
+    )
     assert test.statistic == pytest.approx(ref.statistic, abs=1e-10)
     assert test.lags == ref.lags

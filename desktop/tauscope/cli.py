@@ -1,9 +1,9 @@
 """Command line entry point.
 
-    tauscope [FILE ...]                 open the window
-    tauscope batch FILE [options]       headless analysis (tauscope.commands.batch)
-    tauscope snapshot [FILE] --out PNG  picture of the analysed window (tauscope.commands.snapshot)
-    tauscope self-test                  analyse the bundled demo data, check invariants
+tauscope [FILE ...]                 open the window
+tauscope batch FILE [options]       headless analysis (tauscope.commands.batch)
+tauscope snapshot [FILE] --out PNG  picture of the analysed window (tauscope.commands.snapshot)
+tauscope self-test                  analyse the bundled demo data, check invariants
 """
 
 from __future__ import annotations

@@ -71,7 +71,9 @@ def tau_critical_values(spec: str, nobs: int | float) -> dict[str, float]:
 
 
 def tau_critical_value(spec: str, nobs: int | float, alpha: float) -> float:
-    return float(mackinnoncrit(N=1, regression=SPEC_CODES[spec], nobs=nobs)[_ALPHA_INDEX[_alpha_key(alpha)]])
+    return float(
+        mackinnoncrit(N=1, regression=SPEC_CODES[spec], nobs=nobs)[_ALPHA_INDEX[_alpha_key(alpha)]]
+    )
 
 
 def tau_p_value(statistic: float, spec: str) -> float:
@@ -95,7 +97,10 @@ def phi_critical_value(name: str, nobs: float, alpha: float) -> float:
 
 
 def phi_critical_values(name: str, nobs: float) -> dict[str, float]:
-    return {level: phi_critical_value(name, nobs, a) for level, a in zip(LEVELS, (0.01, 0.05, 0.10), strict=True)}
+    return {
+        level: phi_critical_value(name, nobs, a)
+        for level, a in zip(LEVELS, (0.01, 0.05, 0.10), strict=True)
+    }
 
 
 def normal_lower(alpha: float) -> float:

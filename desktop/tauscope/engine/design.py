@@ -27,7 +27,9 @@ def column_names(spec: str, lags: int) -> tuple[str, ...]:
     return tuple(names)
 
 
-def adf_design(x: np.ndarray, spec: str, lags: int, first: int | None = None) -> tuple[np.ndarray, np.ndarray]:
+def adf_design(
+    x: np.ndarray, spec: str, lags: int, first: int | None = None
+) -> tuple[np.ndarray, np.ndarray]:
     """Response Δy_t and design for lag order ``lags``.
 
     ``first`` is the first usable row of Δy (default ``lags``: the longest

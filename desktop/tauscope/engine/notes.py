@@ -92,10 +92,14 @@ def build_notes(ctx: NoteContext) -> tuple[str, ...]:
             )
     decisions = {spec: t.reject for spec, t in ctx.level_adf.items()}
     if len(set(decisions.values())) > 1:
-        parts = [f"{'rejects' if r else 'does not reject'} with {SPEC_LABELS[s]} (τ = {fmt.stat(ctx.level_adf[s].statistic)})"
-                 for s, r in decisions.items()]
+        parts = [
+            f"{'rejects' if r else 'does not reject'} with {SPEC_LABELS[s]} "
+            f"(τ = {fmt.stat(ctx.level_adf[s].statistic)})"
+            for s, r in decisions.items()
+        ]
         notes.append(
-            "The deterministic terms change the answer on the levels: the ADF test " + "; ".join(parts)
+            "The deterministic terms change the answer on the levels: the ADF test "
+            + "; ".join(parts)
             + ". The testing sequence decides which terms belong, but this choice matters."
         )
     notes.extend(_lag_notes(ctx))
@@ -148,7 +152,9 @@ def _lag_notes(ctx: NoteContext) -> list[str]:
     chosen = next((p for p in ctx.lag_profile if p.lag == ctx.chosen_lag), None)
     if chosen is None:
         return []
-    near = [p for p in ctx.lag_profile if abs(p.lag - ctx.chosen_lag) <= 2 and p.lag != ctx.chosen_lag]
+    near = [
+        p for p in ctx.lag_profile if abs(p.lag - ctx.chosen_lag) <= 2 and p.lag != ctx.chosen_lag
+    ]
     changed = [p.lag for p in near if p.reject != chosen.reject]
     low, high = max(0, ctx.chosen_lag - 2), ctx.chosen_lag + 2
     if changed:

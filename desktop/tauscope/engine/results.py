@@ -131,8 +131,12 @@ class LagPoint:
     reject: bool
 
     def to_dict(self) -> dict[str, Any]:
-        return {"lag": self.lag, "statistic": _num(self.statistic),
-                "critical_value": _num(self.critical_value), "reject": self.reject}
+        return {
+            "lag": self.lag,
+            "statistic": _num(self.statistic),
+            "critical_value": _num(self.critical_value),
+            "reject": self.reject,
+        }
 
 
 @dataclass(frozen=True)

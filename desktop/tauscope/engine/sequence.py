@@ -62,36 +62,73 @@ def _tau_step(test: TestResult, alpha: float) -> Step:
         f"p = {fmt.p_value(test.p_value)}"
     )
     if test.reject:
-        text = (f"On {_where(test.difference)}, with {label}, the ADF test rejects a unit root at {a} "
-                f"({stat_text}).")
+        text = (
+            f"On {_where(test.difference)}, with {label}, the ADF test rejects a unit root at {a} "
+            f"({stat_text})."
+        )
     else:
-        text = (f"On {_where(test.difference)}, with {label}, the ADF test finds no evidence against "
-                f"a unit root at {a} ({stat_text}).")
-    return Step(test.difference, test.spec, f"unit root (γ = 0), regression with {label}", "tau",
-                test.statistic, test.critical_value, test.p_value,
-                "reject" if test.reject else "do not reject", text, test)
+        text = (
+            f"On {_where(test.difference)}, with {label}, the ADF test finds no evidence against "
+            f"a unit root at {a} ({stat_text})."
+        )
+    return Step(
+        test.difference,
+        test.spec,
+        f"unit root (γ = 0), regression with {label}",
+        "tau",
+        test.statistic,
+        test.critical_value,
+        test.p_value,
+        "reject" if test.reject else "do not reject",
+        text,
+        test,
+    )
 
 
 _PHI_WORDS = {
-    "phi1": ("no drift and a unit root (a0 = γ = 0)", "Φ1", "the constant (a drift) belongs in the regression",
-             "the constant can be dropped"),
-    "phi2": ("no constant, no trend and a unit root (a0 = a2 = γ = 0)", "Φ2",
-             "some deterministic term belongs in the regression", "the deterministic terms can be dropped"),
-    "phi3": ("no trend and a unit root (a2 = γ = 0)", "Φ3", "the trend belongs in the regression",
-             "the trend can be dropped"),
+    "phi1": (
+        "no drift and a unit root (a0 = γ = 0)",
+        "Φ1",
+        "the constant (a drift) belongs in the regression",
+        "the constant can be dropped",
+    ),
+    "phi2": (
+        "no constant, no trend and a unit root (a0 = a2 = γ = 0)",
+        "Φ2",
+        "some deterministic term belongs in the regression",
+        "the deterministic terms can be dropped",
+    ),
+    "phi3": (
+        "no trend and a unit root (a2 = γ = 0)",
+        "Φ3",
+        "the trend belongs in the regression",
+        "the trend can be dropped",
+    ),
 }
 
 
 def _phi_step(test: TestResult, alpha: float) -> Step:
     hypothesis, symbol, yes, no = _PHI_WORDS[test.test]
     a = fmt.percent(alpha)
-    numbers = f"{symbol} = {fmt.stat(test.statistic)}, {a} critical value {fmt.stat(test.critical_value)}"
+    numbers = (
+        f"{symbol} = {fmt.stat(test.statistic)}, {a} critical value {fmt.stat(test.critical_value)}"
+    )
     if test.reject:
         text = f"The joint F test of {hypothesis} rejects at {a} ({numbers}): {yes}."
     else:
         text = f"The joint F test of {hypothesis} does not reject at {a} ({numbers}): {no}."
-    return Step(test.difference, test.spec, hypothesis, test.test, test.statistic,
-                test.critical_value, None, "reject" if test.reject else "do not reject", text, test)
+    return Step(
+        test.difference,
+        test.spec,
+        hypothesis,
+        test.test,
+        test.statistic,
+        test.critical_value,
+        None,
+        "reject" if test.reject else "do not reject",
+        text,
+        test,
+    )
 
 
 def _gamma_normal_step(test: TestResult, alpha: float, why: str) -> Step:
@@ -101,13 +138,27 @@ def _gamma_normal_step(test: TestResult, alpha: float, why: str) -> Step:
     p = normal_lower_p(test.statistic)
     numbers = f"τ = {fmt.stat(test.statistic)}, {a} normal critical value {fmt.stat(critical, 3)}, p = {fmt.p_value(p)}"
     if reject:
-        text = (f"Because {why}, τ is compared with the standard normal (West 1988): it rejects a unit "
-                f"root at {a} ({numbers}).")
+        text = (
+            f"Because {why}, τ is compared with the standard normal (West 1988): it rejects a unit "
+            f"root at {a} ({numbers})."
+        )
     else:
-        text = (f"Because {why}, τ is compared with the standard normal (West 1988): no evidence "
-                f"against a unit root at {a} ({numbers}).")
-    return Step(test.difference, test.spec, "unit root (γ = 0), normal critical value", "z",
-                test.statistic, critical, p, "reject" if reject else "do not reject", text, test)
+        text = (
+            f"Because {why}, τ is compared with the standard normal (West 1988): no evidence "
+            f"against a unit root at {a} ({numbers})."
+        )
+    return Step(
+        test.difference,
+        test.spec,
+        "unit root (γ = 0), normal critical value",
+        "z",
+        test.statistic,
+        critical,
+        p,
+        "reject" if reject else "do not reject",
+        text,
+        test,
+    )
 
 
 def _term_step(test: TestResult, term: str, alpha: float) -> Step:
@@ -119,13 +170,26 @@ def _term_step(test: TestResult, term: str, alpha: float) -> Step:
     p = normal_two_sided_p(t_value)
     numbers = f"t = {fmt.stat(t_value)}, two-sided {a} normal value {fmt.stat(critical, 3)}, p = {fmt.p_value(p)}"
     if term == "trend":
-        meaning = ("the series moves around a trend" if reject
-                   else "the trend is not significant")
+        meaning = "the series moves around a trend" if reject else "the trend is not significant"
     else:
-        meaning = "the series moves around a non-zero mean" if reject else "the mean is not distinguishable from zero"
+        meaning = (
+            "the series moves around a non-zero mean"
+            if reject
+            else "the mean is not distinguishable from zero"
+        )
     text = f"With the unit root rejected, the {term}'s t is compared with the standard normal ({numbers}): {meaning}."
-    return Step(test.difference, test.spec, f"no {term} (coefficient = 0), series stationary", "z",
-                t_value, critical, p, "reject" if reject else "do not reject", text, test)
+    return Step(
+        test.difference,
+        test.spec,
+        f"no {term} (coefficient = 0), series stationary",
+        "z",
+        t_value,
+        critical,
+        p,
+        "reject" if reject else "do not reject",
+        text,
+        test,
+    )
 
 
 def run_sequence(level: LevelTests, alpha: float) -> SequenceOutcome:

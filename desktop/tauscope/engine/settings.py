@@ -43,7 +43,9 @@ class Settings:
 
     def __post_init__(self) -> None:
         if self.lag_rule not in LAG_RULES:
-            raise ValueError(f"lag_rule must be one of {', '.join(LAG_RULES)}, not {self.lag_rule!r}")
+            raise ValueError(
+                f"lag_rule must be one of {', '.join(LAG_RULES)}, not {self.lag_rule!r}"
+            )
         if self.lag_rule == "fixed" and (self.lags is None or self.lags < 0):
             raise ValueError("lag_rule 'fixed' needs a lag order 'lags' of 0 or more")
         if self.lags is not None and self.lags < 0:

@@ -30,27 +30,39 @@ def verdict_label(order: int | None, deterministic: str | None) -> str:
     return f"I({order}) \u2014 {words}"
 
 
-def verdict_sentence(order: int | None, deterministic: str | None, alpha: float, max_difference: int) -> str:
+def verdict_sentence(
+    order: int | None, deterministic: str | None, alpha: float, max_difference: int
+) -> str:
     a = fmt.percent(alpha)
     if order is None:
         if max_difference == 0:
-            return (f"A unit root in the levels is not rejected at {a}; differences were not tested "
-                    "(the highest difference allowed is 0), so the order of integration is unresolved.")
-        return (f"Even after differencing {max_difference} time{'s' if max_difference > 1 else ''} a unit "
-                f"root is not rejected at {a}, so the order of integration is unresolved; check the data.")
+            return (
+                f"A unit root in the levels is not rejected at {a}; differences were not tested "
+                "(the highest difference allowed is 0), so the order of integration is unresolved."
+            )
+        return (
+            f"Even after differencing {max_difference} time{'s' if max_difference > 1 else ''} a unit "
+            f"root is not rejected at {a}, so the order of integration is unresolved; check the data."
+        )
     det = deterministic or "none"
     if order == 0:
-        return f"The series is {_I0[det]}, I(0): the unit root is rejected at {a}; use it in levels."
+        return (
+            f"The series is {_I0[det]}, I(0): the unit root is rejected at {a}; use it in levels."
+        )
     if order == 1:
-        return (f"The series has a {_I1[det]}, I(1): a unit root is not rejected at {a} in the levels but is "
-                "rejected in the first difference; suggestion: difference once before using it in a regression.")
-    return (f"The series has {_I2[det]}, I(2): a unit root is not rejected at {a} in the first difference but "
-            "is rejected in the second; suggestion: difference twice, or check whether logs or growth rates "
-            "are the better unit.")
+        return (
+            f"The series has a {_I1[det]}, I(1): a unit root is not rejected at {a} in the levels but is "
+            "rejected in the first difference; suggestion: difference once before using it in a regression."
+        )
+    return (
+        f"The series has {_I2[det]}, I(2): a unit root is not rejected at {a} in the first difference but "
+        "is rejected in the second; suggestion: difference twice, or check whether logs or growth rates "
+        "are the better unit."
+    )
 
 
 def agreement(order: int | None, checks: list[tuple[TestResult, bool]]) -> str | None:
-    """"confirmed", "conflict" or "inconclusive" from KPSS checks.
+    """ "confirmed", "conflict" or "inconclusive" from KPSS checks.
 
     Each check is (KPSS result, whether the verdict expects it to reject).
     """
@@ -66,15 +78,18 @@ def agreement(order: int | None, checks: list[tuple[TestResult, bool]]) -> str |
     return "inconclusive"
 
 
-def agreement_note(order: int | None, status: str | None, checks: list[tuple[TestResult, bool]],
-                   alpha: float) -> str | None:
+def agreement_note(
+    order: int | None, status: str | None, checks: list[tuple[TestResult, bool]], alpha: float
+) -> str | None:
     if status is None or not checks:
         return None
     a = fmt.percent(alpha)
     parts = []
     for test, _expected in checks:
         null = "a trend" if test.spec == "trend" else "a constant mean"
-        where = {0: "the levels", 1: "the first difference", 2: "the second difference"}[test.difference]
+        where = {0: "the levels", 1: "the first difference", 2: "the second difference"}[
+            test.difference
+        ]
         outcome = "rejects" if test.reject else "does not reject"
         parts.append(
             f"on {where}, KPSS (which takes stationarity around {null} as its null) {outcome} it at {a} "
@@ -87,19 +102,31 @@ def agreement_note(order: int | None, status: str | None, checks: list[tuple[Tes
     if status == "inconclusive" and order is None:
         return f"Cross-check: {detail}. With the order unresolved, the cross-check cannot confirm anything."
     if status == "inconclusive":
-        return (f"Cross-check inconclusive: {detail}. The stationarity test agrees with the verdict on one "
-                "difference but not on the other; read the verdict as tentative.")
+        return (
+            f"Cross-check inconclusive: {detail}. The stationarity test agrees with the verdict on one "
+            "difference but not on the other; read the verdict as tentative."
+        )
     if order == 0:
-        return (f"Cross-check in conflict: {detail}. Both tests reject their null; this often means a break "
-                "in level or trend, a slowly changing mean, or long memory, and the verdict should be read "
-                "with care.")
-    return (f"Cross-check in conflict: {detail}. Neither test rejects its null; the data cannot tell a unit "
-            "root from a persistent stationary process, which is common over a short span or with a "
-            "root close to one.")
+        return (
+            f"Cross-check in conflict: {detail}. Both tests reject their null; this often means a break "
+            "in level or trend, a slowly changing mean, or long memory, and the verdict should be read "
+            "with care."
+        )
+    return (
+        f"Cross-check in conflict: {detail}. Neither test rejects its null; the data cannot tell a unit "
+        "root from a persistent stationary process, which is common over a short span or with a "
+        "root close to one."
+    )
 
 
-def build_verdict(order: int | None, deterministic: str | None, unit_root: bool | None,
-                  status: str | None, alpha: float, max_difference: int) -> Verdict:
+def build_verdict(
+    order: int | None,
+    deterministic: str | None,
+    unit_root: bool | None,
+    status: str | None,
+    alpha: float,
+    max_difference: int,
+) -> Verdict:
     return Verdict(
         order=order,
         deterministic=deterministic,
