@@ -1,30 +1,80 @@
-"""Writing findings out: JSON now; xlsx, csv, tex, html with the reports issue."""
+"""Writing findings out: JSON, CSV, Excel, LaTeX, HTML and PDF; study files.
+
+``export(path, run, charts)`` is the one entry the window and ``tauscope
+batch --out`` share; the format follows the suffix (``WRITERS``).
+"""
 
 from __future__ import annotations
 
+import importlib
+from collections.abc import Callable
 from pathlib import Path
 
 from tauscope.report.json_export import run_to_json, write_json
-from tauscope.report.run import Finding, RunRecord, SourceFile
+from tauscope.report.run import Charts, Finding, RunRecord, SourceFile
 
-WRITERS = {".json": write_json}
+Writer = Callable[[Path, RunRecord, Charts | None], None]
+
+
+def _lazy(module: str, name: str) -> Writer:
+    """A writer whose module (openpyxl, Qt, ...) is imported only when a file is written,
+    so opening the window does not pay for every format."""
+
+    def write(path: Path, run: RunRecord, charts: Charts | None = None) -> None:
+        writer: Writer = getattr(importlib.import_module(f"tauscope.report.{module}"), name)
+        writer(path, run, charts)
+
+    write.__name__ = name
+    return write
+
+
+def _json(path: Path, run: RunRecord, charts: Charts | None = None) -> None:
+    write_json(path, run)
+
+
+WRITERS: dict[str, Writer] = {
+    ".json": _json,
+    ".csv": _lazy("csv_export", "write_csv"),
+    ".xlsx": _lazy("xlsx_export", "write_xlsx"),
+    ".tex": _lazy("latex_export", "write_latex"),
+    ".html": _lazy("html_export", "write_html"),
+    ".pdf": _lazy("pdf_export", "write_pdf"),
+}
 
 
 class ExportError(Exception):
     """A findings file could not be written; the message says which and why."""
 
 
-def export(path: Path | str, run: RunRecord) -> None:
-    """Write ``run`` to ``path`` in the format its suffix names."""
+def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> None:
+    """Write ``run`` to ``path`` in the format its suffix names.
+
+    ``charts``: optional PNG bytes per series (keyed by ``Finding.key`` or series
+    name), used by .xlsx, .html and .pdf.  Raises :class:`ExportError` with one
+    sentence for an unknown suffix or a file that cannot be written.
+    """
     target = Path(path)
     writer = WRITERS.get(target.suffix.lower())
     if writer is None:
         known = ", ".join(sorted(WRITERS))
         raise ExportError(f"{target.name}: unknown output format '{target.suffix}' (known: {known})")
+    if not target.parent.is_dir():
+        raise ExportError(f"{target}: could not be written (the folder {target.parent} does not "
+                          "exist)")
     try:
-        writer(target, run)
+        writer(target, run, charts)
     except OSError as exc:
         raise ExportError(f"{target}: could not be written ({exc.strerror or exc})") from exc
 
 
-__all__ = ["WRITERS", "ExportError", "Finding", "RunRecord", "SourceFile", "export", "run_to_json", "write_json"]
+__all__ = [
+    "WRITERS",
+    "Charts",
+    "ExportError",
+    "Finding",
+    "RunRecord",
+    "SourceFile",
+    "export",
+    "run_to_json",
+    "write_json",
+]

@@ -1,0 +1,204 @@
+"""One self-contained HTML report: summary table, one section per series, methods.
+
+Charts, when supplied, are embedded as ``data:`` URIs so the single file can be
+mailed or archived.  The same markup feeds the PDF writer (Qt's rich-text
+engine), so it keeps to HTML 4 tables and simple CSS that both render.
+"""
+
+from __future__ import annotations
+
+import base64
+import html
+from collections.abc import Callable
+from pathlib import Path
+
+from tauscope.engine import formatting as fmt
+from tauscope.report.atomic import write_text_atomic
+from tauscope.report.methods import methods_for
+from tauscope.report.run import Charts, Finding, RunRecord, chart_for
+from tauscope.report.tables import (
+    MARKER_NOTE,
+    Table,
+    Value,
+    compact_table,
+    lag_rule_label,
+    path_table,
+)
+
+ImageSource = Callable[[int, bytes], str]
+"""Gives the ``src`` of chart number ``i`` (0-based, in series order) from its PNG bytes."""
+
+CHART_WIDTH = 620
+PATH_WIDTHS = {"step": 6, "on": 11, "regression": 12, "hypothesis": 24, "symbol": 9, "value": 9,
+               "critical": 9, "p_value": 9, "decision": 11}
+SUMMARY_WIDTHS = {"series": 13, "verdict": 14, "nobs": 6, "span": 12, "agreement": 11}
+
+STYLE = """
+body { font-family: 'Segoe UI', 'Helvetica Neue', Arial, sans-serif; font-size: 10.5pt;
+       color: #1d2428; margin: 2em auto; max-width: 62em; line-height: 1.4; }
+h1 { font-size: 18pt; color: #2f5d62; margin-bottom: 0.2em; }
+h2 { font-size: 14pt; color: #2f5d62; border-bottom: 1px solid #9fb8ba; margin-top: 1.6em; }
+h3 { font-size: 12pt; margin-bottom: 0.2em; margin-top: 1.4em; }
+h4 { font-size: 10.5pt; margin-bottom: 0.2em; }
+table { border-collapse: collapse; margin: 0.4em 0; font-size: 9.5pt; }
+th { font-size: 9pt; background-color: #2f5d62; color: #ffffff; font-weight: bold; text-align: left;
+     padding: 3px 8px; }
+td { padding: 3px 8px; border-bottom: 1px solid #d5dfe0; vertical-align: top; }
+td.num { text-align: right; }
+p.meta { color: #55606a; margin: 0.1em 0; }
+p.note { color: #55606a; font-style: italic; font-size: 9pt; }
+p.verdict { font-size: 11.5pt; font-weight: bold; color: #2f5d62; margin: 0.2em 0; }
+span.reject { color: #8a3b12; }
+ol.refs li { margin-bottom: 0.3em; }
+"""
+
+
+def data_uri(_index: int, png: bytes) -> str:
+    return "data:image/png;base64," + base64.b64encode(png).decode("ascii")
+
+
+def _esc(text: object) -> str:
+    return html.escape(str(text), quote=True)
+
+
+def _format(value: Value, kind: str) -> str:
+    if value is None:
+        return ""
+    if isinstance(value, str):
+        return value
+    if kind == "stat":
+        return fmt.stat(float(value), 3)
+    if kind == "p":
+        return fmt.p_value(float(value))
+    return str(value)
+
+
+def table_html(table: Table, css_class: str, widths: dict[str, int] | None = None) -> str:
+    """A table with header; numeric columns right-aligned; ``widths`` in percent by column."""
+    widths = widths or {}
+    head = "".join(
+        f'<th width="{widths[c.ident]}%">{_esc(c.header)}</th>' if c.ident in widths
+        else f"<th>{_esc(c.header)}</th>"
+        for c in table.columns
+    )
+    body = []
+    for row in table.rows:
+        cells = []
+        for column, value in zip(table.columns, row, strict=True):
+            numeric = column.kind in ("stat", "p", "int")
+            attr = ' class="num" align="right"' if numeric else ""
+            cells.append(f"<td{attr}>{_esc(_format(value, column.kind))}</td>")
+        body.append("<tr>" + "".join(cells) + "</tr>")
+    return (f'<table class="{css_class}" cellspacing="0" cellpadding="4">'
+            f"<thead><tr>{head}</tr></thead><tbody>{''.join(body)}</tbody></table>")
+
+
+def _merge_markers(table: Table) -> Table:
+    """Glue each "…_sig" and "…_spec" column onto the statistic before it: −3.51** (ct, 2)."""
+    glued = ("_sig", "_spec")
+    keep = [i for i, c in enumerate(table.columns) if not c.ident.endswith(glued)]
+    columns = tuple(table.columns[i] for i in keep)
+    rows = []
+    for row in table.rows:
+        out: list[Value] = []
+        for i in keep:
+            value = row[i]
+            column = table.columns[i]
+            if value is None or column.kind not in ("stat", "p"):
+                out.append(value)
+                continue
+            text = _format(value, column.kind)
+            for j in range(i + 1, len(row)):
+                ident = table.columns[j].ident
+                if not ident.endswith(glued):
+                    break
+                if ident.endswith("_sig"):
+                    text += str(row[j] or "")
+                elif row[j]:
+                    text += " (" + str(row[j]).replace(" ", "\u00a0") + ")"  # wraps as one
+            out.append(text)
+        rows.append(tuple(out))
+    return Table(columns, tuple(rows))
+
+
+def _origin(finding: Finding) -> str:
+    result = finding.result
+    parts = []
+    if finding.file:
+        where = finding.file_name
+        if finding.sheet:
+            where += f", sheet “{finding.sheet}”"
+        if finding.column and finding.column != finding.name:
+            where += f", column “{finding.column}”"
+        parts.append(where)
+    if finding.frequency:
+        parts.append(finding.frequency)
+    if result.span:
+        parts.append(f"{result.span[0]} to {result.span[1]}")
+    if result.ok:
+        parts.append(f"{result.nobs} observations")
+    return " · ".join(parts)
+
+
+def _series_section(number: int, finding: Finding, image: str | None) -> str:
+    result = finding.result
+    out = [f'<h3 id="series-{number}">{number}. {_esc(finding.name)}</h3>',
+           f'<p class="meta">{_esc(_origin(finding))}</p>',
+           f'<p class="verdict">{_esc(result.verdict.label)}</p>']
+    if not result.ok:
+        out.append(f"<p>{_esc(result.error)}</p>")
+        return "\n".join(out)
+    out.append("<h4>Decision path</h4>")
+    out.append(table_html(path_table(result), "path", PATH_WIDTHS))
+    if image is not None:
+        out.append("<h4>Chart</h4>")
+        out.append(f'<p><img src="{_esc(image)}" width="{CHART_WIDTH}" '
+                   f'alt="Chart of {_esc(finding.name)}"></p>')
+    out.append("<h4>Reading</h4>")
+    out.append("".join(f"<p>{_esc(note)}</p>" for note in result.notes))
+    return "\n".join(out)
+
+
+def run_to_html(run: RunRecord, charts: Charts | None = None,
+                image_source: ImageSource = data_uri) -> str:
+    """The whole report as one HTML document (charts embedded by ``image_source``)."""
+    settings = run.settings
+    sources = "; ".join(f"{s.name} (SHA-256 {s.sha256[:16]}…)" for s in run.sources)
+    meta = (f"Tauscope {run.version} · {run.created} · {len(run.findings)} series · "
+            f"significance level {fmt.percent(settings.alpha)} · lag rule: "
+            f"{lag_rule_label(settings)}")
+    parts = [
+        "<!DOCTYPE html>",
+        '<html lang="en"><head><meta charset="utf-8">',
+        "<title>Tauscope findings</title>",
+        f"<style>{STYLE}</style></head><body>",
+        "<h1>Order of integration: findings</h1>",
+        f'<p class="meta">{_esc(meta)}</p>',
+    ]
+    if sources:
+        parts.append(f'<p class="meta">Data: {_esc(sources)}</p>')
+    parts += ["<h2>Summary</h2>", table_html(_merge_markers(compact_table(run)), "summary",
+                                                SUMMARY_WIDTHS),
+              f'<p class="note">{_esc(MARKER_NOTE)} Terms: ct constant and trend, c constant, '
+              "n none; then the lag order.</p>",
+              "<h2>Series</h2>"]
+    index = 0
+    for number, finding in enumerate(run.findings, start=1):
+        png = chart_for(finding, charts)
+        image = None
+        if png is not None:
+            image = image_source(index, png)
+            index += 1
+        parts.append(_series_section(number, finding, image))
+    methods = methods_for(run)
+    parts.append("<h2>Methods</h2>")
+    parts += [f"<p>{_esc(p)}</p>" for p in methods.paragraphs]
+    parts.append("<h3>References</h3>")
+    parts.append('<ol class="refs">' + "".join(f"<li>{_esc(r)}</li>" for r in methods.references)
+                 + "</ol>")
+    parts.append("</body></html>")
+    return "\n".join(parts) + "\n"
+
+
+def write_html(path: Path, run: RunRecord, charts: Charts | None = None) -> None:
+    write_text_atomic(path, run_to_html(run, charts))

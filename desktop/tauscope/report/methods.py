@@ -1,0 +1,158 @@
+"""The methods paragraph: what was done, with which rule, bounds, sources and level.
+
+The text is built from the settings and the results actually produced, so it
+never claims a choice the run did not make.  Plain Unicode text; each writer
+escapes it for its own format.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from tauscope.engine import formatting as fmt
+from tauscope.report.run import RunRecord
+
+REFERENCES = {
+    "df1979": "Dickey, D.A. & Fuller, W.A. (1979), “Distribution of the Estimators for "
+    "Autoregressive Time Series with a Unit Root”, Journal of the American Statistical "
+    "Association 74(366), 427–431.",
+    "df1981": "Dickey, D.A. & Fuller, W.A. (1981), “Likelihood Ratio Statistics for "
+    "Autoregressive Time Series with a Unit Root”, Econometrica 49(4), 1057–1072.",
+    "dp1987": "Dickey, D.A. & Pantula, S.G. (1987), “Determining the Order of Differencing in "
+    "Autoregressive Processes”, Journal of Business & Economic Statistics 5(4), 455–461.",
+    "djs1990": "Dolado, J.J., Jenkinson, T. & Sosvilla-Rivero, S. (1990), “Cointegration and "
+    "Unit Roots”, Journal of Economic Surveys 4(3), 249–273.",
+    "hfo2004": "Hobijn, B., Franses, P.H. & Ooms, M. (2004), “Generalizations of the KPSS-test "
+    "for Stationarity”, Statistica Neerlandica 58(4), 483–502.",
+    "kpss1992": "Kwiatkowski, D., Phillips, P.C.B., Schmidt, P. & Shin, Y. (1992), “Testing the "
+    "Null Hypothesis of Stationarity against the Alternative of a Unit Root: How Sure Are We "
+    "that Economic Time Series Have a Unit Root?”, Journal of Econometrics 54(1–3), 159–178.",
+    "mk1994": "MacKinnon, J.G. (1994), “Approximate Asymptotic Distribution Functions for "
+    "Unit-Root and Cointegration Tests”, Journal of Business & Economic Statistics 12(2), "
+    "167–176.",
+    "mk1996": "MacKinnon, J.G. (1996), “Numerical Distribution Functions for Unit Root and "
+    "Cointegration Tests”, Journal of Applied Econometrics 11(6), 601–618.",
+    "mk2010": "MacKinnon, J.G. (2010), “Critical Values for Cointegration Tests”, Queen’s "
+    "Economics Department Working Paper No. 1227, Queen’s University, Kingston, Ontario.",
+    "np1995": "Ng, S. & Perron, P. (1995), “Unit Root Tests in ARMA Models with Data-Dependent "
+    "Methods for the Selection of the Truncation Lag”, Journal of the American Statistical "
+    "Association 90(429), 268–281.",
+    "np2001": "Ng, S. & Perron, P. (2001), “Lag Length Selection and the Construction of Unit "
+    "Root Tests with Good Size and Power”, Econometrica 69(6), 1519–1554.",
+    "sd1984": "Said, S.E. & Dickey, D.A. (1984), “Testing for Unit Roots in "
+    "Autoregressive-Moving Average Models of Unknown Order”, Biometrika 71(3), 599–607.",
+    "schwert1989": "Schwert, G.W. (1989), “Tests for Unit Roots: A Monte Carlo Investigation”, "
+    "Journal of Business & Economic Statistics 7(2), 147–159.",
+    "west1988": "West, K.D. (1988), “Asymptotic Normality, When Regressors Have a Unit Root”, "
+    "Econometrica 56(6), 1397–1417.",
+}
+
+_RULE_SENTENCES = {
+    "aic": "the Akaike information criterion (AIC)",
+    "bic": "the Schwarz-Bayes information criterion (BIC)",
+    "hqc": "the Hannan-Quinn criterion (HQC)",
+}
+
+CAUTION = (
+    "A unit-root test is an aid to judgement, not proof: these tests have little power against "
+    "a stationary series with a root close to one over a short span, a break in level or trend "
+    "can look like a unit root, and the data definitions and any breaks in the source series "
+    "matter as much as the statistics."
+)
+
+
+@dataclass(frozen=True)
+class Methods:
+    """``paragraphs`` of plain text and the full ``references`` they cite, alphabetical."""
+
+    paragraphs: tuple[str, ...]
+    references: tuple[str, ...]
+
+    @property
+    def text(self) -> str:
+        return "\n\n".join(self.paragraphs)
+
+
+def _lag_sentence(run: RunRecord, cited: set[str]) -> str:
+    settings = run.settings
+    tested = [f.result for f in run.findings if f.result.ok]
+    if settings.lag_rule == "fixed":
+        return (f"The number of lagged differences was fixed at {settings.lags} in every "
+                "regression (Said & Dickey 1984).")
+    cited.add("np1995")
+    if settings.lag_rule == "tsig":
+        rule = ("a general-to-specific search that starts from the maximum and drops the last "
+                "lagged difference while its t statistic is below 1.645 in absolute value "
+                "(10% two-sided; Ng & Perron 1995)")
+    elif settings.lag_rule == "maic":
+        cited.add("np2001")
+        rule = ("the modified Akaike information criterion (MAIC) of Ng & Perron (2001), "
+                "compared on a common sample (Ng & Perron 1995)")
+    else:
+        rule = (f"{_RULE_SENTENCES[settings.lag_rule]}, compared across lag orders on a common "
+                "sample (Ng & Perron 1995)")
+    bounds = sorted({r.max_lags for r in tested if r.max_lags is not None})
+    if settings.max_lags is None:
+        cited.add("schwert1989")
+        bound = ("with the maximum lag order set by Schwert’s (1989) rule, "
+                 "floor(12 (T/100)^(1/4)) for T observations")
+    else:
+        bound = f"with a maximum lag order of {settings.max_lags}"
+    if len(bounds) == 1:
+        bound += f" (here {bounds[0]} on the levels)"
+    elif bounds:
+        bound += f" (here between {bounds[0]} and {bounds[-1]} on the levels, by series length)"
+    if settings.max_lags is not None and any(b < settings.max_lags for b in bounds):
+        bound += "; it was lowered where a series was too short for it"
+    return (f"The number of lagged differences p, which absorbs serial correlation in the errors "
+            f"(Said & Dickey 1984), was chosen by {rule}, {bound}. The chosen regression was then "
+            "re-estimated on the longest sample its lag order allows.")
+
+
+def methods_for(run: RunRecord) -> Methods:
+    """The methods paragraph and reference list for this run."""
+    settings = run.settings
+    a = fmt.percent(settings.alpha)
+    cited = {"df1979", "df1981", "sd1984", "mk1994", "mk1996", "mk2010", "djs1990", "dp1987",
+             "west1988"}
+    n = len(run.findings)
+    d = settings.max_difference
+    highest = {0: "the levels only", 1: "the first difference",
+               2: "the second difference"}[d]
+    first = (
+        f"Each of the {n} series was tested for a unit root with the augmented Dickey-Fuller "
+        "test (Dickey & Fuller 1979; Said & Dickey 1984), in the regression "
+        "Δy(t) = a0 + a2·t + γ·y(t−1) + Σ βi·Δy(t−i) + e(t), with p lagged differences "
+        "(i = 1, …, p); τ is the t statistic of γ. "
+        "The deterministic terms were chosen by the testing sequence of Dolado, Jenkinson & "
+        "Sosvilla-Rivero (1990): the regression with constant and trend first; if τ does not "
+        "reject, the joint test Φ3 decides whether the trend belongs; then the regression with "
+        "a constant only, with Φ1 for the drift; then the regression without deterministic "
+        "terms. Where a trend or drift was found to belong, τ was compared with the standard "
+        "normal (West 1988)."
+    )
+    if d > 0:
+        first += (
+            f" The order of integration was found from the highest difference down (Dickey & "
+            f"Pantula 1987): testing started on {highest} and moved to the next lower "
+            "difference only while the unit root was rejected."
+        )
+    second = (
+        _lag_sentence(run, cited)
+        + " Critical values of τ are MacKinnon’s (2010) finite-sample response surfaces and its "
+        "p-values MacKinnon’s approximate distribution functions (MacKinnon 1994, 1996); critical "
+        "values of Φ1, Φ2 and Φ3 are from Dickey & Fuller (1981, Tables IV–VI), interpolated in "
+        f"the sample size. Every test in the sequence used the {a} significance level."
+    )
+    paragraphs = [first, second]
+    if "kpss" in settings.confirm:
+        cited.update({"kpss1992", "hfo2004"})
+        paragraphs.append(
+            "As a cross-check, the verdict was confronted with the KPSS test (Kwiatkowski, "
+            "Phillips, Schmidt & Shin 1992), whose null hypothesis is stationarity, with the "
+            "automatic bandwidth of Hobijn, Franses & Ooms (2004) and the Bartlett kernel, at "
+            f"the same {a} level; a verdict is “confirmed” when both kinds of test point the "
+            "same way."
+        )
+    paragraphs.append(CAUTION)
+    return Methods(tuple(paragraphs), tuple(sorted(REFERENCES[key] for key in cited)))

@@ -1,0 +1,322 @@
+"""Tables built from a run, shared by every writer.
+
+* :func:`summary_table`: one row per series (the spreadsheet summary);
+* :func:`compact_table`: the short summary for HTML, PDF and the clipboard;
+* :func:`tests_table`: every computed test in long form (CSV, xlsx);
+* :func:`path_table`: the decision path of one series, step by step.
+
+Cells hold plain values (text, int, float or None) so each writer applies its
+own formatting; floats are the engine's numbers, unrounded.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from tauscope.engine import LAG_RULE_LABELS, SeriesResult, Settings, Step, TestResult
+from tauscope.engine import formatting as fmt
+from tauscope.engine.design import SPEC_LABELS
+from tauscope.report.run import Finding, RunRecord
+
+Value = str | int | float | None
+
+DIFFERENCE_NAMES = {0: "levels", 1: "first difference", 2: "second difference"}
+DIFFERENCE_SHORT = {0: "levels", 1: "Δy", 2: "Δ²y"}
+SPEC_CODES = {"trend": "ct", "constant": "c", "none": "n"}
+STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z"}
+TEST_LABELS = {
+    "adf": "ADF τ",
+    "phi1": "Φ1 (joint F)",
+    "phi2": "Φ2 (joint F)",
+    "phi3": "Φ3 (joint F)",
+    "kpss": "KPSS",
+}
+AGREEMENT_WORDS = {
+    "confirmed": "confirmed",
+    "conflict": "in conflict",
+    "inconclusive": "inconclusive",
+}
+MARKER_LEVELS = (("1%", "***"), ("5%", "**"), ("10%", "*"))
+MARKER_NOTE = (
+    "Significance: *** 1%, ** 5%, * 10% (ADF τ below, KPSS above the critical value at that "
+    "level; τ critical values from MacKinnon 2010, KPSS from Kwiatkowski et al. 1992)."
+)
+
+
+@dataclass(frozen=True)
+class Column:
+    """``ident`` names the column in CSV; ``header`` is what a reader sees;
+    ``kind`` is ``"text"``, ``"int"``, ``"stat"`` or ``"p"``."""
+
+    ident: str
+    header: str
+    kind: str = "text"
+
+
+@dataclass(frozen=True)
+class Table:
+    columns: tuple[Column, ...]
+    rows: tuple[tuple[Value, ...], ...]
+
+    def column(self, ident: str) -> int:
+        return next(i for i, c in enumerate(self.columns) if c.ident == ident)
+
+
+def marker(test: TestResult) -> str:
+    """*** / ** / * when the test rejects at 1% / 5% / 10%, by its own critical values.
+
+    ADF τ rejects below its (lower-tail) critical value; KPSS and Φ above theirs.
+    """
+    lower_tail = test.test == "adf"
+    for level, mark in MARKER_LEVELS:
+        critical = test.critical_values.get(level)
+        if critical is None:
+            continue
+        if (test.statistic < critical) if lower_tail else (test.statistic > critical):
+            return mark
+    return ""
+
+
+def lag_rule_label(settings: Settings) -> str:
+    if settings.lag_rule == "fixed":
+        return f"fixed lag order ({settings.lags})"
+    return LAG_RULE_LABELS[settings.lag_rule]
+
+
+def where(difference: int) -> str:
+    return DIFFERENCE_NAMES.get(difference, f"difference {difference}")
+
+
+def deterministic_words(result: SeriesResult) -> str:
+    """The verdict's deterministic terms in words ("drift" for an I(1) constant)."""
+    det, order = result.verdict.deterministic, result.verdict.order
+    if det is None:
+        return ""
+    if order == 0:
+        return {"trend": "trend", "constant": "mean", "none": "none"}[det]
+    return {"trend": "drift and trend", "constant": "drift", "none": "none"}[det]
+
+
+def tau_steps(result: SeriesResult) -> tuple[Step, ...]:
+    return tuple(s for s in result.steps if s.statistic_name == "tau")
+
+
+def deciding_tau(result: SeriesResult, difference: int) -> TestResult | None:
+    """The ADF test of the last τ step the sequence took on this difference."""
+    steps = [s for s in tau_steps(result) if s.difference == difference]
+    return steps[-1].test if steps else None
+
+
+def kpss_tests(result: SeriesResult) -> dict[int, TestResult]:
+    return {t.difference: t for t in result.tests if t.test == "kpss"}
+
+
+def p_text(test: TestResult) -> Value:
+    """The p-value as a number, or as words when a table only bounds it."""
+    if test.p_value is None:
+        return None
+    if test.p_value_bound is not None:
+        return fmt.p_value(test.p_value, test.p_value_bound)
+    return test.p_value
+
+
+def step_place(step: Step) -> str:
+    return f"{where(step.difference)}, {SPEC_LABELS[step.spec]}"
+
+
+def _source_cells(finding: Finding) -> tuple[Value, ...]:
+    return (finding.name, finding.file_name, finding.sheet or "", finding.column or "")
+
+
+def summary_table(run: RunRecord) -> Table:
+    """One row per series: origin, verdict, every τ step, lags, KPSS and agreement."""
+    n_steps = max((len(tau_steps(f.result)) for f in run.findings), default=0)
+    kpss_diffs = sorted({d for f in run.findings for d in kpss_tests(f.result)})
+    columns = [
+        Column("series", "Series"),
+        Column("file", "File"),
+        Column("sheet", "Sheet"),
+        Column("column", "Column"),
+        Column("frequency", "Frequency"),
+        Column("first", "First"),
+        Column("last", "Last"),
+        Column("nobs", "Observations", "int"),
+        Column("verdict", "Verdict"),
+        Column("order", "Order of integration", "int"),
+        Column("deterministic", "Deterministic terms"),
+    ]
+    for k in range(1, n_steps + 1):
+        columns += [
+            Column(f"step{k}_on", f"Step {k} on"),
+            Column(f"step{k}_tau", f"Step {k} τ", "stat"),
+            Column(f"step{k}_p", f"Step {k} p", "p"),
+            Column(f"step{k}_sig", f"Step {k} sig."),
+        ]
+    columns += [
+        Column("lags", "Lags, deciding τ", "int"),
+        Column("lag_rule", "Lag rule"),
+        Column("max_lags", "Max lags, levels", "int"),
+    ]
+    for d in kpss_diffs:
+        name = where(d)
+        columns += [
+            Column(f"kpss{d}", f"KPSS, {name}", "stat"),
+            Column(f"kpss{d}_p", f"KPSS, {name}, p", "p"),
+            Column(f"kpss{d}_sig", f"KPSS, {name}, sig."),
+        ]
+    columns += [Column("agreement", "KPSS agreement"), Column("problem", "Problem")]
+
+    rule = lag_rule_label(run.settings)
+    rows = []
+    for finding in run.findings:
+        result = finding.result
+        first, last = result.span or ("", "")
+        row: list[Value] = [
+            *_source_cells(finding),
+            finding.frequency or "",
+            first,
+            last,
+            result.nobs if result.ok else None,
+            result.verdict.label,
+            result.verdict.order,
+            deterministic_words(result),
+        ]
+        steps = tau_steps(result)
+        for k in range(n_steps):
+            if k < len(steps):
+                step = steps[k]
+                row += [step_place(step), step.statistic, step.p_value,
+                        marker(step.test) if step.test is not None else ""]
+            else:
+                row += ["", None, None, ""]
+        deciding = steps[-1].test if steps else None
+        row += [deciding.lags if deciding is not None else None, rule if result.ok else "",
+                result.max_lags]
+        kpss = kpss_tests(result)
+        for d in kpss_diffs:
+            test = kpss.get(d)
+            row += ([test.statistic, p_text(test), marker(test)] if test is not None
+                    else [None, None, ""])
+        row += [AGREEMENT_WORDS.get(result.verdict.agreement or "", ""), result.error or ""]
+        rows.append(tuple(row))
+    return Table(tuple(columns), tuple(rows))
+
+
+def compact_table(run: RunRecord) -> Table:
+    """The short summary: verdict, deciding τ per difference (with markers), KPSS, agreement."""
+    diffs = sorted({d for f in run.findings for d in range(3) if deciding_tau(f.result, d)})
+    columns = [Column("series", "Series"), Column("verdict", "Verdict"),
+               Column("nobs", "Obs.", "int"), Column("span", "Span")]
+    for d in diffs:
+        columns += [Column(f"tau{d}", f"τ, {DIFFERENCE_SHORT[d]}", "stat"),
+                    Column(f"tau{d}_sig", "", "text"),
+                    Column(f"tau{d}_spec", f"Terms, lags ({DIFFERENCE_SHORT[d]})")]
+    columns += [Column("kpss", "KPSS"), Column("agreement", "Agreement")]
+    rows = []
+    for finding in run.findings:
+        result = finding.result
+        span = f"{result.span[0]} – {result.span[1]}" if result.span else ""
+        row: list[Value] = [finding.name, result.verdict.label,
+                            result.nobs if result.ok else None, span]
+        for d in diffs:
+            test = deciding_tau(result, d)
+            if test is None:
+                row += [None, "", ""]
+            else:
+                row += [test.statistic, marker(test), f"{SPEC_CODES[test.spec]}, {test.lags}"]
+        kpss = "; ".join(
+            f"{fmt.stat(t.statistic, 3)}{marker(t)} ({DIFFERENCE_SHORT[t.difference]})"
+            for t in kpss_tests(result).values()
+        )
+        row += [kpss, AGREEMENT_WORDS.get(result.verdict.agreement or "", "")]
+        rows.append(tuple(row))
+    return Table(tuple(columns), tuple(rows))
+
+
+TEST_COLUMNS = (
+    Column("series", "Series"),
+    Column("file", "File"),
+    Column("sheet", "Sheet"),
+    Column("column", "Column"),
+    Column("key", "Series key"),
+    Column("test", "Test"),
+    Column("spec", "Regression"),
+    Column("difference", "Difference", "int"),
+    Column("statistic", "Statistic", "stat"),
+    Column("p_value", "p-value", "p"),
+    Column("p_value_bound", "p-value bound"),
+    Column("lags", "Lags", "int"),
+    Column("lag_rule", "Lag rule"),
+    Column("nobs", "Observations", "int"),
+    Column("cv_1", "Critical value 1%", "stat"),
+    Column("cv_5", "Critical value 5%", "stat"),
+    Column("cv_10", "Critical value 10%", "stat"),
+    Column("critical_value", "Critical value used", "stat"),
+    Column("alpha", "Level", "p"),
+    Column("decision", "Decision"),
+    Column("marker", "Sig."),
+    Column("in_path", "In decision path"),
+    Column("error", "Problem"),
+)
+
+
+def tests_table(run: RunRecord) -> Table:
+    """Every test of every series, one per row (engine codes in ``test`` and ``spec``).
+
+    A series that could not be tested gets one row with its problem and no test.
+    """
+    rows = []
+    for finding in run.findings:
+        result = finding.result
+        origin = (*_source_cells(finding), finding.key or "")
+        if not result.ok:
+            rows.append((*origin, *([None] * (len(TEST_COLUMNS) - 6)), result.error))
+            continue
+        in_path = {id(s.test) for s in result.steps if s.test is not None}
+        for test in result.tests:
+            cv = test.critical_values
+            rows.append((
+                *origin,
+                test.test,
+                test.spec,
+                test.difference,
+                test.statistic,
+                test.p_value,
+                test.p_value_bound or "",
+                test.lags,
+                test.lag_rule,
+                test.nobs,
+                cv.get("1%"),
+                cv.get("5%"),
+                cv.get("10%"),
+                test.critical_value,
+                run.settings.alpha,
+                "reject" if test.reject else "do not reject",
+                marker(test),
+                "yes" if id(test) in in_path else "no",
+                "",
+            ))
+    return Table(TEST_COLUMNS, tuple(rows))
+
+
+PATH_COLUMNS = (
+    Column("step", "Step", "int"),
+    Column("on", "On"),
+    Column("regression", "Regression"),
+    Column("hypothesis", "Null hypothesis"),
+    Column("symbol", "Statistic"),
+    Column("value", "Value", "stat"),
+    Column("critical", "Critical value", "stat"),
+    Column("p_value", "p-value", "p"),
+    Column("decision", "Decision"),
+)
+
+
+def path_table(result: SeriesResult) -> Table:
+    rows = tuple(
+        (k, where(s.difference), SPEC_LABELS[s.spec], s.hypothesis,
+         STATISTIC_SYMBOLS.get(s.statistic_name, s.statistic_name), s.statistic,
+         s.critical_value, s.p_value, s.decision)
+        for k, s in enumerate(result.steps, start=1)
+    )
+    return Table(PATH_COLUMNS, rows)

@@ -1,0 +1,77 @@
+"""The methods paragraph says what this run actually did and cites it in full."""
+
+from __future__ import annotations
+
+import dataclasses
+
+import numpy as np
+import pytest
+
+from tauscope.engine import Settings, analyse_series
+from tauscope.report import Finding, RunRecord
+from tauscope.report.methods import CAUTION, methods_for
+from test_report_support import make_run
+
+
+def _with(settings: Settings) -> RunRecord:
+    return dataclasses.replace(make_run(), settings=settings)
+
+
+def test_default_run_states_sequence_rule_sources_level_and_caution() -> None:
+    run = make_run()
+    methods = methods_for(run)
+    text = methods.text
+    assert "Dolado, Jenkinson & Sosvilla-Rivero (1990)" in text
+    assert "highest difference down (Dickey & Pantula 1987)" in text
+    assert "second difference" in text  # max_difference = 2 by default
+    assert "Akaike information criterion" in text
+    assert "Schwert’s (1989) rule" in text
+    bounds = sorted({f.result.max_lags for f in run.findings if f.result.max_lags is not None})
+    assert f"between {bounds[0]} and {bounds[-1]}" in text or f"(here {bounds[0]} " in text
+    assert "MacKinnon’s (2010)" in text and "MacKinnon 1994, 1996" in text
+    assert "Dickey & Fuller (1981" in text
+    assert "Kwiatkowski" in text
+    assert "the 5% significance level" in text
+    assert methods.paragraphs[-1] == CAUTION
+    refs = " ".join(methods.references)
+    for author_year in ("Dickey, D.A. & Fuller, W.A. (1979)", "Dickey, D.A. & Fuller, W.A. (1981)",
+                        "Said, S.E. & Dickey, D.A. (1984)", "MacKinnon, J.G. (1996)",
+                        "MacKinnon, J.G. (2010)", "Ng, S. & Perron, P. (1995)",
+                        "Dolado, J.J., Jenkinson, T. & Sosvilla-Rivero, S. (1990)",
+                        "Kwiatkowski, D., Phillips, P.C.B., Schmidt, P. & Shin, Y. (1992)",
+                        "Schwert, G.W. (1989)"):
+        assert author_year in refs
+    assert "Ng, S. & Perron, P. (2001)" not in refs  # MAIC not used
+    assert list(methods.references) == sorted(methods.references)
+
+
+def test_maic_cites_ng_perron_2001() -> None:
+    methods = methods_for(_with(Settings(lag_rule="maic")))
+    assert "modified Akaike information criterion (MAIC) of Ng & Perron (2001)" in methods.text
+    assert any(r.startswith("Ng, S. & Perron, P. (2001)") for r in methods.references)
+
+
+def test_fixed_lags_and_user_bound_are_stated_without_schwert() -> None:
+    fixed = methods_for(_with(Settings(lag_rule="fixed", lags=3)))
+    assert "fixed at 3" in fixed.text
+    assert not any(r.startswith("Ng, S.") for r in fixed.references)
+    assert not any(r.startswith("Schwert") for r in fixed.references)
+    bounded = methods_for(_with(Settings(lag_rule="bic", max_lags=4)))
+    assert "maximum lag order of 4" in bounded.text
+    assert "Schwarz-Bayes" in bounded.text
+    assert "Schwert" not in bounded.text
+
+
+@pytest.mark.parametrize(("alpha", "words"), [(0.01, "1%"), (0.10, "10%")])
+def test_level_actually_used(alpha: float, words: str) -> None:
+    assert f"the {words} significance level" in methods_for(_with(Settings(alpha=alpha))).text
+
+
+def test_without_confirmation_test_kpss_is_not_claimed() -> None:
+    settings = Settings(confirm=(), max_difference=0)
+    rng = np.random.default_rng(11)
+    result = analyse_series(np.cumsum(rng.normal(size=80)), settings, "walk")
+    methods = methods_for(RunRecord(settings, (), (Finding(result),)))
+    assert "KPSS" not in methods.text
+    assert not any(r.startswith("Kwiatkowski") for r in methods.references)
+    assert "Dickey & Pantula" not in methods.text  # only the levels were tested

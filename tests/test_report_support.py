@@ -1,0 +1,66 @@
+"""Shared material for the report tests: one small run on simulated data with a fixed seed.
+
+Not a test module by itself (no tests here); the report tests import it.
+The series are built to cover the verdicts the writers must show: an I(1)
+series with drift, a stationary one, an I(2) one, one whose name looks like a
+spreadsheet formula, and one too short to test.
+"""
+
+from __future__ import annotations
+
+import functools
+import struct
+import zlib
+
+import numpy as np
+import pandas as pd
+
+from tauscope.engine import SeriesResult, Settings, analyse_series
+from tauscope.report import Finding, RunRecord, SourceFile
+
+SEED = 3
+N = 140
+FORMULA_NAME = '=HYPERLINK("http://example.invalid","x")'
+SOURCE = "/data/macro quarterly.xlsx"
+SOURCE_SHA = "0123456789abcdef" * 4
+
+
+def simulated_series() -> dict[str, pd.Series]:
+    rng = np.random.default_rng(SEED)
+    index = pd.period_range("1985Q1", periods=N, freq="Q")
+    shocks = rng.normal(size=(4, N + 30))
+    ar = np.convolve(shocks[1], 0.6 ** np.arange(30), "valid")[:N]
+    return {
+        "Real output & <prices>": pd.Series(np.cumsum(0.5 + shocks[0][:N]), index=index),
+        "Unemployment rate": pd.Series(6.0 + ar, index=index),
+        FORMULA_NAME: pd.Series(np.cumsum(np.cumsum(shocks[2][:N])), index=index),
+        "-3 too short": pd.Series([1.0, 2.0, 4.0], index=index[:3]),
+    }
+
+
+@functools.lru_cache(maxsize=2)
+def results(alpha: float = 0.05) -> tuple[SeriesResult, ...]:
+    settings = Settings(alpha=alpha)
+    return tuple(analyse_series(v, settings, name) for name, v in simulated_series().items())
+
+
+def make_run(alpha: float = 0.05) -> RunRecord:
+    findings = tuple(
+        Finding(r, file=SOURCE, sheet="Quarterly", column=r.name, frequency="quarterly",
+                key=f"macro quarterly.xlsx|Quarterly|{r.name}|")
+        for r in results(alpha)
+    )
+    return RunRecord(Settings(alpha=alpha), (SourceFile(SOURCE, SOURCE_SHA),), findings)
+
+
+def tiny_png(width: int = 4, height: int = 3) -> bytes:
+    """A valid PNG (grey pixels) built by hand, so no imaging library is needed."""
+
+    def chunk(kind: bytes, data: bytes) -> bytes:
+        body = kind + data
+        return struct.pack(">I", len(data)) + body + struct.pack(">I", zlib.crc32(body))
+
+    header = struct.pack(">IIBBBBB", width, height, 8, 0, 0, 0, 0)
+    raw = b"".join(b"\x00" + bytes([128]) * width for _ in range(height))
+    return (b"\x89PNG\r\n\x1a\n" + chunk(b"IHDR", header) + chunk(b"IDAT", zlib.compress(raw))
+            + chunk(b"IEND", b""))
