@@ -21,8 +21,11 @@ MISSING_CODES = frozenset(
 )
 
 SPACES = "\u00a0\u202f\u2009 '’"
-_NUMBER_SHAPE = re.compile(r"^[+-]?(\d[\d.,\u00a0\u202f\u2009 '’]*)?\d(%?)$|^[+-]?[.,]\d+%?$")
+_NUMBER_SHAPE = re.compile(
+    r"^[+-]?(\d[\d.,\u00a0\u202f\u2009 '’]*)?\d(\s?%)?$|^[+-]?[.,]\d+(\s?%)?$")
 _PLAIN = re.compile(r"^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$")
+# Statistical flags after a value, e.g. "12.3 p" (provisional), "13.1 e" (estimated), "7 b".
+_FLAGGED = re.compile(r"^(.*\d)\s*([bcdefinprsuz]{1,3})$")
 
 
 def is_missing_code(text: str) -> bool:
@@ -48,19 +51,27 @@ class NumberFormat:
             value = float(s)
             return value if math.isfinite(value) else None
         if not _NUMBER_SHAPE.match(s):
-            return None
-        s = s.rstrip("%")
+            flagged = _FLAGGED.match(s)
+            return self.parse(flagged.group(1)) if flagged else None
+        s = s.rstrip("%").rstrip()
         for space in SPACES:
             s = s.replace(space, "")
-        if self.thousands in ".,":
-            s = s.replace(self.thousands, "")
+        return self._grouped(s)
+
+    def _grouped(self, s: str) -> float | None:
+        """Check thousands groups of three digits before the one decimal mark, then convert."""
         if s.count(self.decimal) > 1:
             return None
-        s = s.replace(self.decimal, ".")
-        if "," in s or s.count(".") > 1:
+        whole, _, fraction = s.partition(self.decimal)
+        if self.thousands and self.thousands in fraction:
             return None
+        if self.thousands and self.thousands in whole:
+            groups = whole.lstrip("+-").split(self.thousands)
+            if not groups[0] or any(len(g) != 3 for g in groups[1:]):
+                return None
+            whole = whole.replace(self.thousands, "")
         try:
-            value = float(s)
+            value = float(f"{whole}.{fraction}" if fraction else whole)
         except ValueError:
             return None
         return value if math.isfinite(value) else None

@@ -14,11 +14,13 @@ period: annual, quarterly, monthly, weekly, business-day (only weekdays) or dail
 from __future__ import annotations
 
 import datetime as dt
+import itertools
 import re
 from collections import Counter
 from collections.abc import Sequence
 from dataclasses import dataclass
 
+import numpy as np
 import pandas as pd
 
 from tauscope.data.cells import Cell
@@ -27,7 +29,8 @@ FREQUENCY_NAMES = {
     "A": "annual", "Q": "quarterly", "M": "monthly", "W": "weekly", "B": "business-day",
     "D": "daily",
 }
-PANDAS_FREQ = {"A": "Y", "Q": "Q", "M": "M", "B": "B", "D": "D"}
+# Business-day data keep daily periods (weekdays only): pandas deprecates Period[B].
+PANDAS_FREQ = {"A": "Y", "Q": "Q", "M": "M", "B": "D", "D": "D"}
 
 MONTHS = {
     name: number
@@ -122,8 +125,8 @@ def _from_match(kind: str, g: Sequence[str]) -> Label | None:
         return ("W", int(g[0]), week, 0) if 1 <= week <= 53 else None
     if kind in ("Nm", "mN"):
         word, year_text = (g[0], g[1]) if kind == "Nm" else (g[1], g[0])
-        month = MONTHS.get(word.casefold())
-        return ("M", _year(year_text), month, 0) if month else None
+        number = MONTHS.get(word.casefold())
+        return ("M", _year(year_text), number, 0) if number else None
     if kind == "ISO":
         return _valid_day(int(g[0]), int(g[1]), int(g[2]))
     if kind == "S":
@@ -191,7 +194,7 @@ def _increasing_years(labels: Sequence[Label | None]) -> bool:
         return False
     if len(years) < 2:
         return len(years) == 1
-    steps = {b - a for a, b in zip(years, years[1:], strict=False)}
+    steps = {b - a for a, b in itertools.pairwise(years)}
     return all(s > 0 for s in steps) or all(s < 0 for s in steps)
 
 
@@ -211,7 +214,7 @@ def _excel_serials(cells: Sequence[Cell]) -> list[Label | None] | None:
     values = [v for _, v in numbers]
     if not all(SERIAL_RANGE[0] <= v <= SERIAL_RANGE[1] and v.is_integer() for v in values):
         return None
-    steps = [b - a for a, b in zip(values, values[1:], strict=False)]
+    steps = [b - a for a, b in itertools.pairwise(values)]
     if not (all(s > 0 for s in steps) or all(s < 0 for s in steps)):
         return None
     out: list[Label | None] = [None] * len(cells)
@@ -261,23 +264,35 @@ def _day_frequency(days: Sequence[dt.date]) -> str | None:
     if len(set(ordered)) != len(ordered):
         return None
     for kind in ("A", "Q", "M", "W", "B", "D"):
-        if kind == "B" and any(d.weekday() >= 5 for d in ordered):
-            continue
+        if kind == "B":
+            if any(d.weekday() >= 5 for d in ordered):
+                continue
+            span = weekdays_between(ordered[0], ordered[-1])
+            return kind if span - len(ordered) <= max(1, len(ordered) // 4) else None
         code = _period_code(kind, ordered)
         ordinals = [pd.Period(d, freq=code).ordinal for d in ordered]
         if len(set(ordinals)) != len(ordinals):
             continue
         span = ordinals[-1] - ordinals[0] + 1
-        if span - len(ordinals) <= max(1, len(ordinals) // 4) or kind == "B" and (
-            span - len(ordinals) <= len(ordinals) // 10 + 1
-        ):
+        if span - len(ordinals) <= max(1, len(ordinals) // 4):
             return kind
         return None
     return None
 
 
+def date_mask(cells: Sequence[Cell]) -> list[bool]:
+    """Which cells of this row or column read as dates of the column's main kind."""
+    labels, _ = read_axis(cells)
+    return [label is not None for label in labels]
+
+
+def weekdays_between(first: dt.date, last: dt.date) -> int:
+    """Monday-to-Friday days from ``first`` to ``last``, both included."""
+    return int(np.busday_count(first, last + dt.timedelta(days=1)))
+
+
 def build_axis(cells: Sequence[Cell]) -> Axis:
-    """Understand a row or column of date cells (positions that are not dates get None)."""
+    """The periods of a block of date cells and their frequency ("irregular": periods None)."""
     labels, kind = read_axis(cells)
     if kind is None:
         return NO_AXIS
@@ -303,5 +318,4 @@ def build_axis(cells: Sequence[Cell]) -> Axis:
 
 def axis_score(cells: Sequence[Cell]) -> int:
     """How many cells of this row or column read as dates of one kind."""
-    labels, kind = read_axis(cells)
-    return 0 if kind is None else sum(1 for label in labels if label)
+    return sum(date_mask(cells))

@@ -47,18 +47,16 @@ def period_label(value: object) -> str:
 
 def find_gaps(values: pd.Series) -> tuple[Gap, ...]:
     """Interior runs of NaN (``values`` must already be trimmed)."""
-    missing = np.isnan(values.to_numpy(dtype=float))
-    gaps: list[Gap] = []
-    start: int | None = None
-    for i, flag in enumerate(missing):
-        if flag and start is None:
-            start = i
-        elif not flag and start is not None:
-            gaps.append(_gap(values.index, start, i - 1))
-            start = None
-    if start is not None:  # cannot happen for trimmed values; kept for safety
-        gaps.append(_gap(values.index, start, len(missing) - 1))
-    return tuple(gaps)
+    return _gaps_of(values.to_numpy(dtype=float), values.index)
+
+
+def _gaps_of(array: np.ndarray, index: pd.Index) -> tuple[Gap, ...]:
+    missing = np.isnan(array)
+    if not missing.any():
+        return ()
+    edges = np.diff(np.concatenate(([0], missing.astype(np.int8), [0])))
+    starts, ends = np.flatnonzero(edges == 1), np.flatnonzero(edges == -1) - 1
+    return tuple(_gap(index, int(a), int(b)) for a, b in zip(starts, ends, strict=True))
 
 
 def _gap(index: pd.Index, first: int, last: int) -> Gap:
@@ -87,6 +85,7 @@ class SeriesData:
     filled: bool = False
     notes: tuple[str, ...] = ()
     chain: tuple[str, ...] = field(default=(), repr=False)
+    column_key: str = field(default="", repr=False)  # the unique name as read
 
     @classmethod
     def build(
@@ -99,9 +98,14 @@ class SeriesData:
         **extra: object,
     ) -> SeriesData:
         """Trim, rename and list gaps; the one way series are made."""
-        trimmed = trim(values.astype("float64")).rename(name)
-        return cls(name, trimmed, frequency, source, find_gaps(trimmed), notes=notes,
-                   **extra)  # type: ignore[arg-type]
+        array = values.to_numpy(dtype=np.float64)
+        present = np.flatnonzero(~np.isnan(array))
+        start, stop = (int(present[0]), int(present[-1]) + 1) if present.size else (0, 0)
+        index = values.index[start:stop]
+        trimmed = pd.Series(array[start:stop], index=index, name=name, dtype=np.float64)
+        extra.setdefault("column_key", name)
+        return cls(name, trimmed, frequency, source, _gaps_of(array[start:stop], index),
+                   notes=notes, **extra)  # type: ignore[arg-type]
 
     @property
     def nobs(self) -> int:
@@ -117,10 +121,12 @@ class SeriesData:
     def key(self) -> str:
         """Stable identity "file name|sheet|column|transform chain" (file name without folder).
 
+        The column part is the series' name as read (unique in its sheet: a second "GDP"
+        column is "GDP (2)"); the chain lists the transformations, e.g. "log,diff".
         Views of the same series (longest stretch, interpolated) share the key.
         """
-        return "|".join((Path(self.source.file).name, self.source.sheet, self.source.column,
-                         ",".join(self.chain)))
+        return "|".join((Path(self.source.file).name, self.source.sheet,
+                         self.column_key or self.source.column, ",".join(self.chain)))
 
     def label(self, position: int) -> str:
         return period_label(self.values.index[position])

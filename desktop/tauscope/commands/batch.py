@@ -1,0 +1,221 @@
+"""``tauscope batch FILE [options]``: the whole analysis without the window.
+
+Reads the workbook (read-only), picks the sheet and series asked for, applies one
+transformation to each, runs the engine on every series and writes the findings
+(``--out``, format by suffix) or prints a table.  A series with gaps inside its sample
+is tested on its longest gap-free stretch, and its notes say so.
+
+Exit codes: 0 done (also when some series could not be tested; they carry ``error``),
+2 usage error, 3 the input cannot be read (one line on standard error), 1 a findings file
+could not be written (one line on standard error).
+"""
+
+from __future__ import annotations
+
+import argparse
+import dataclasses
+import sys
+from collections.abc import Sequence
+from pathlib import Path
+from typing import NoReturn, TextIO
+
+from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
+from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_series
+from tauscope.engine.results import EMPTY_VERDICT
+from tauscope.report import WRITERS, ExportError, Finding, RunRecord, SourceFile, export
+
+EXIT_DONE, EXIT_USAGE, EXIT_INPUT, EXIT_OUTPUT = 0, 2, 3, 1
+PROGRESS_FROM = 5  # show progress for more series than this even when stderr is not a terminal
+TRANSFORM_CHOICES = ("none", "log", "diff", "logdiff")
+
+
+class UsageError(Exception):
+    """A command-line mistake; the message is one line."""
+
+
+class _Parser(argparse.ArgumentParser):
+    def error(self, message: str) -> NoReturn:
+        raise UsageError(message)
+
+    def exit(self, status: int = 0, message: str | None = None) -> NoReturn:
+        if message:
+            print(message, file=sys.stderr, end="")
+        raise SystemExit(status)
+
+
+def _parser() -> _Parser:
+    parser = _Parser(prog="tauscope batch", description=(
+        "Analyse every series of a workbook without opening the window."))
+    parser.add_argument("file", help="CSV or Excel file to analyse")
+    parser.add_argument("--sheet", help="analyse only this sheet")
+    parser.add_argument("--series", action="append", default=[], metavar="NAME",
+                        help="analyse only this series (repeat for more)")
+    parser.add_argument("--transform", choices=TRANSFORM_CHOICES, default="none",
+                        help="transform each series first (default: none)")
+    parser.add_argument("--lag-rule", choices=LAG_RULES, default="aic",
+                        help="how the lag order is chosen (default: aic)")
+    parser.add_argument("--lags", type=_count, help="lag order for --lag-rule fixed")
+    parser.add_argument("--max-lags", type=_count, help="largest lag order tried")
+    parser.add_argument("--alpha", type=float, choices=(0.01, 0.05, 0.10), default=0.05,
+                        help="significance level: 0.01, 0.05 or 0.10 (default 0.05)")
+    parser.add_argument("--max-difference", type=int, choices=(0, 1, 2), default=2,
+                        help="highest order of integration considered (default 2)")
+    parser.add_argument("--out", action="append", default=[], metavar="FILE",
+                        help="write the findings here; the format follows the suffix (repeatable)")
+    return parser
+
+
+def _count(text: str) -> int:
+    try:
+        value = int(text)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"'{text}' is not a whole number") from None
+    if value < 0:
+        raise argparse.ArgumentTypeError(f"'{text}' must be 0 or more")
+    return value
+
+
+def main(argv: list[str]) -> int:
+    try:
+        args = _parser().parse_args(argv)
+        settings = _settings(args)
+        _check_outputs(args.out)
+    except UsageError as exc:
+        print(f"tauscope batch: {exc}", file=sys.stderr)
+        return EXIT_USAGE
+    except SystemExit as exc:  # --help
+        return int(exc.code or 0) if isinstance(exc.code, int | None) else EXIT_USAGE
+    try:
+        workbook = read_workbook(args.file)
+        chosen = choose_series(workbook, args.sheet, args.series)
+    except DataError as exc:
+        print(f"tauscope batch: {exc}", file=sys.stderr)
+        return EXIT_INPUT
+    except Exception as exc:  # a reader bug must still end in one line, never a traceback
+        print(f"tauscope batch: {Path(args.file).name}: could not be read "
+              f"({type(exc).__name__}: {exc})".replace("\n", " "), file=sys.stderr)
+        return EXIT_INPUT
+    findings = analyse_all(chosen, settings, None if args.transform == "none" else args.transform)
+    run = RunRecord(settings, (SourceFile(str(workbook.path), workbook.sha256),), tuple(findings))
+    if not args.out:
+        print(summary_table(findings))
+    for target in args.out:
+        try:
+            export(target, run)
+        except ExportError as exc:
+            print(f"tauscope batch: {exc}", file=sys.stderr)
+            return EXIT_OUTPUT
+    return EXIT_DONE
+
+
+def _settings(args: argparse.Namespace) -> Settings:
+    if args.lag_rule == "fixed" and args.lags is None:
+        raise UsageError("--lag-rule fixed needs --lags N")
+    try:
+        return Settings(lag_rule=args.lag_rule, lags=args.lags, max_lags=args.max_lags,
+                        alpha=args.alpha, max_difference=args.max_difference)
+    except ValueError as exc:
+        raise UsageError(str(exc)) from None
+
+
+def _check_outputs(outputs: Sequence[str]) -> None:
+    for target in outputs:
+        suffix = Path(target).suffix.lower()
+        if suffix not in WRITERS:
+            known = ", ".join(sorted(WRITERS))
+            raise UsageError(f"--out {target}: unknown output format '{suffix or 'none'}' "
+                             f"(known: {known})")
+
+
+def choose_series(workbook: Workbook, sheet: str | None, names: Sequence[str]) -> list[SeriesData]:
+    """The series asked for, in workbook order; DataError naming what is not there."""
+    pool = list(workbook.sheet(sheet).series if sheet is not None else workbook.series())
+    if not names:
+        if not pool:
+            raise DataError(f"sheet '{sheet}' has no column of numbers", file=workbook.path.name)
+        return pool
+    chosen: list[SeriesData] = []
+    for wanted in names:
+        matches = [s for s in pool if s.name == wanted] or [
+            s for s in pool if s.name.casefold() == wanted.strip().casefold()]
+        if not matches:
+            known = ", ".join(dict.fromkeys(s.name for s in pool))
+            raise DataError(f"has no series '{wanted}' (series: {known})",
+                            file=workbook.path.name, sheet=sheet)
+        chosen.extend(m for m in matches if m not in chosen)
+    return chosen
+
+
+def _failed(name: str, settings: Settings, message: str) -> SeriesResult:
+    return SeriesResult(name=name, nobs=0, error=message, verdict=EMPTY_VERDICT, steps=(),
+                        tests=(), notes=(message,), settings=settings.to_dict())
+
+
+def analyse_one(series: SeriesData, settings: Settings, transform: str | None) -> Finding:
+    """Transform (if asked), fall back to the longest gap-free stretch, run the engine."""
+    name = series.name
+    try:
+        if transform is not None:
+            series = make_transform(series, transform)
+            name = series.name
+        tested = series.longest_stretch() if series.gaps else series
+        result = analyse_series(tested.testable_values(), settings, name=name)
+        if tested is not series:
+            result = dataclasses.replace(result, notes=(tested.notes[-1], *result.notes))
+    except DataError as exc:
+        result = _failed(name, settings, exc.reason)
+    except Exception as exc:  # one bad series never stops the batch
+        result = _failed(name, settings, f"“{name}” could not be tested: {type(exc).__name__}: "
+                                         f"{exc}".replace("\n", " "))
+    return Finding(result, file=series.source.file, sheet=series.source.sheet,
+                   column=series.source.column, frequency=series.frequency, transform=transform)
+
+
+def analyse_all(chosen: Sequence[SeriesData], settings: Settings, transform: str | None,
+                progress: TextIO | None = None) -> list[Finding]:
+    stream = progress or sys.stderr
+    show = stream.isatty() or len(chosen) > PROGRESS_FROM
+    findings = []
+    for number, series in enumerate(chosen, start=1):
+        if show:
+            print(f"[{number}/{len(chosen)}] {series.name}", file=stream, flush=True)
+        findings.append(analyse_one(series, settings, transform))
+    return findings
+
+
+def _difference_label(d: int) -> str:
+    return ("levels", "Δ", "Δ²")[d] if 0 <= d <= 2 else f"Δ^{d}"
+
+
+def tau_steps(result: SeriesResult) -> str:
+    """The τ of each step taken, e.g. "Δ² constant −6.31; Δ constant −4.52; levels trend −1.80"."""
+    parts = [
+        f"{_difference_label(s.difference)} {s.spec} {s.statistic:.2f}".replace("-", "−")
+        for s in result.steps if s.statistic_name == "tau"
+    ]
+    return "; ".join(parts) or "—"
+
+
+def summary_table(findings: Sequence[Finding]) -> str:
+    """A plain-text table: series, observations, span, verdict, τ of each step, KPSS."""
+    header = ("Series", "Obs", "Span", "Verdict", "KPSS", "τ of each step (difference, terms, τ)")
+    rows = []
+    for f in findings:
+        r = f.result
+        span = f"{r.span[0]} to {r.span[1]}" if r.span else "—"
+        verdict = r.verdict.label if r.ok else "Not tested"
+        kpss = r.verdict.agreement or "—"
+        last = tau_steps(r) if r.ok else (r.error or "")
+        rows.append((r.name, str(r.nobs), span, verdict, kpss, last))
+    widths = [max(len(row[i]) for row in (header, *rows)) for i in range(len(header) - 1)]
+    lines = []
+    for row in (header, *rows):
+        cells = [c.ljust(w) if i != 1 else c.rjust(w) for i, (c, w) in
+                 enumerate(zip(row, widths, strict=False))]
+        lines.append("  ".join([*cells, row[-1]]).rstrip())
+    notes = [f"{f.result.name}: {f.result.notes[0]}" for f in findings
+             if f.result.ok and f.result.notes and "longest stretch" in f.result.notes[0]]
+    if notes:
+        lines.append("")
+        lines.extend(notes)
+    return "\n".join(lines)

@@ -1,0 +1,390 @@
+"""One sheet's grid of cells into series: find the dates, the header and the data block.
+
+The grid is read as a table "as downloaded": title and note rows above, a header row
+(possibly two, e.g. a merged group label over sub-labels), a block of rows that each
+start with a date, and footnotes below.  When a row holds more dates than any of the
+first columns, the sheet is transposed (series down, dates across) and read the same way.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+import math
+from collections.abc import Sequence
+from dataclasses import dataclass
+
+import numpy as np
+import pandas as pd
+
+from tauscope.data.cells import POINT, Cell, NumberFormat, is_missing_code
+from tauscope.data.dates import (
+    FREQUENCY_NAMES,
+    axis_score,
+    build_axis,
+    date_mask,
+    weekdays_between,
+)
+from tauscope.data.model import SeriesData, SheetData, Source
+
+EMPTY, MISSING, NUMBER, TEXT, DATE = range(5)
+ORIENTATION_ROWS = 60  # rows searched for dates across (transposed layout)
+DATE_COLUMN_CANDIDATES = 3
+
+
+@dataclass(frozen=True)
+class Place:
+    """How grid positions map back to the file: rows/columns swapped when transposed."""
+
+    transposed: bool
+    letters: bool  # spreadsheet column letters (Excel) or numbers (text files)
+
+    def row(self, i: int, j: int) -> int:
+        return (j if self.transposed else i) + 1
+
+    def line(self, j: int) -> str:
+        """The file's name for grid column ``j``: "column C" (or "row 3" when transposed)."""
+        if self.transposed:
+            return f"row {j + 1}"
+        return f"column {_letters(j + 1)}" if self.letters else f"column {j + 1}"
+
+
+def _letters(n: int) -> str:
+    out = ""
+    while n:
+        n, rest = divmod(n - 1, 26)
+        out = chr(65 + rest) + out
+    return out
+
+
+def classify(cell: Cell, numbers: NumberFormat) -> tuple[int, float]:
+    kind = type(cell)
+    if kind is float:
+        value = float(cell)  # type: ignore[arg-type]
+        return (NUMBER, value) if math.isfinite(value) else (MISSING, math.nan)
+    if cell is None:
+        return EMPTY, math.nan
+    if kind is int:
+        return NUMBER, float(cell)  # type: ignore[arg-type]
+    if isinstance(cell, str):
+        text = cell.strip()
+        if not text:
+            return EMPTY, math.nan
+        if is_missing_code(text):
+            return MISSING, math.nan
+        parsed = numbers.parse(text)
+        return (TEXT, math.nan) if parsed is None else (NUMBER, parsed)
+    if isinstance(cell, dt.date):
+        return DATE, math.nan
+    return TEXT, math.nan
+
+
+def header_text(cell: Cell) -> str:
+    if cell is None:
+        return ""
+    if isinstance(cell, float) and cell.is_integer():
+        return str(int(cell))
+    if isinstance(cell, dt.datetime) and cell.time() == dt.time(0):
+        return cell.date().isoformat()
+    if isinstance(cell, dt.date):
+        return cell.isoformat()
+    return " ".join(str(cell).split())
+
+
+def _rectangle(rows: Sequence[Sequence[Cell]]) -> list[list[Cell]]:
+    grid = [list(r) for r in rows]
+    while grid and all(c is None or (isinstance(c, str) and not c.strip()) for c in grid[-1]):
+        grid.pop()
+    width = max((len(r) for r in grid), default=0)
+    for r in grid:
+        r.extend([None] * (width - len(r)))
+    return grid
+
+
+def _longest_run(mask: Sequence[bool]) -> tuple[int, int] | None:
+    best: tuple[int, int] | None = None
+    start: int | None = None
+    for i, flag in enumerate([*mask, False]):
+        if flag and start is None:
+            start = i
+        elif not flag and start is not None:
+            if best is None or i - start > best[1] - best[0]:
+                best = (start, i)
+            start = None
+    return best
+
+
+def build_sheet(
+    rows: Sequence[Sequence[Cell]],
+    *,
+    file: str,
+    sheet: str,
+    numbers: NumberFormat = POINT,
+    letters: bool = True,
+) -> SheetData:
+    """Read one sheet's cells (``rows`` top to bottom) into a :class:`SheetData`."""
+    grid = _rectangle(rows)
+    if not grid or not grid[0]:
+        return SheetData(sheet, (), ("The sheet is empty.",))
+    codes, nums = classify_grid(grid, numbers)
+    transposed, date_line = _orientation(grid, codes)
+    if transposed:
+        grid = [list(col) for col in zip(*grid, strict=True)]
+        codes, nums = codes.T.copy(), nums.T.copy()
+    return _Reader(grid, codes, nums, Place(transposed, letters), file, sheet, date_line).read()
+
+
+def classify_grid(grid: list[list[Cell]], numbers: NumberFormat) -> tuple[np.ndarray, np.ndarray]:
+    """Per cell: its kind (EMPTY, MISSING, NUMBER, TEXT, DATE) and its number (else NaN)."""
+    codes: list[list[int]] = []
+    values: list[list[float]] = []
+    nan = math.nan
+    point = numbers.decimal == "."
+    for row in grid:
+        code_row: list[int] = []
+        value_row: list[float] = []
+        for cell in row:
+            if type(cell) is float and cell == cell:  # finite numbers, the common case
+                code_row.append(NUMBER)
+                value_row.append(cell)
+            elif cell is None:
+                code_row.append(EMPTY)
+                value_row.append(nan)
+            elif type(cell) is str and (point or "." not in cell) and "_" not in cell:
+                try:  # plain numbers as text ("12.5"): what float() reads is what parse() reads
+                    number = float(cell)
+                except ValueError:
+                    number = nan
+                if math.isfinite(number):
+                    code_row.append(NUMBER)
+                    value_row.append(number)
+                else:
+                    code, value = classify(cell, numbers)
+                    code_row.append(code)
+                    value_row.append(value)
+            else:
+                code, value = classify(cell, numbers)
+                code_row.append(code)
+                value_row.append(value)
+        codes.append(code_row)
+        values.append(value_row)
+    return np.array(codes, dtype=np.int8), np.array(values, dtype=np.float64)
+
+
+def _content_columns(codes: np.ndarray) -> list[int]:
+    return [int(j) for j in np.flatnonzero((codes != EMPTY).any(axis=0))]
+
+
+def _orientation(grid: list[list[Cell]], codes: np.ndarray) -> tuple[bool, int]:
+    """(transposed, index of the date column or row, -1 without dates)."""
+    columns = _content_columns(codes)[:DATE_COLUMN_CANDIDATES]
+    col_scores = [(axis_score([row[j] for row in grid]), j) for j in columns]
+    best_col = max(col_scores, default=(0, -1), key=lambda s: (s[0], -s[1]))
+    row_scores = [(axis_score(grid[i]), i) for i in range(min(len(grid), ORIENTATION_ROWS))]
+    best_row = max(row_scores, default=(0, -1), key=lambda s: (s[0], -s[1]))
+    if best_row[0] > best_col[0] and best_row[0] >= 3:
+        return True, best_row[1]
+    return False, best_col[1] if best_col[0] >= 2 else -1
+
+
+class _Reader:
+    def __init__(self, grid: list[list[Cell]], codes: np.ndarray, nums: np.ndarray,
+                 place: Place, file: str, sheet: str, date_col: int) -> None:
+        self.grid, self.codes, self.nums, self.place = grid, codes, nums, place
+        self.file, self.sheet, self.date_col = file, sheet, date_col
+        self.notes: list[str] = []
+
+    def read(self) -> SheetData:
+        block = self._data_block()
+        if block is None:
+            return SheetData(self.sheet, (), ("No block of numbers was found in this sheet.",))
+        r0, r1 = block
+        width = len(self.grid[0])
+        has_number = (self.codes[r0:r1] == NUMBER).any(axis=0)
+        value_cols = [j for j in range(width) if j != self.date_col and has_number[j]]
+        if not value_cols:
+            return SheetData(self.sheet, (), ("This sheet has no column of numbers.",))
+        raw_names = self._names(r0, value_cols)
+        names = self._unique(raw_names)
+        index, order, freq = self._index(r0, r1)
+        series: list[SeriesData] = []
+        for j, raw_name, name in zip(value_cols, raw_names, names, strict=True):
+            made = self._series(j, raw_name, name, r0, r1, index, order, freq)
+            if made is not None:
+                series.append(made)
+        self._note_skipped(r0, r1, value_cols)
+        return SheetData(self.sheet, tuple(series), tuple(self.notes))
+
+    # -- where the data are -------------------------------------------------------------------
+    def _data_block(self) -> tuple[int, int] | None:
+        if self.date_col >= 0:
+            mask = date_mask([row[self.date_col] for row in self.grid])
+        else:
+            mask = list((self.codes == NUMBER).any(axis=1) & ~(self.codes == TEXT).any(axis=1))
+        return _longest_run(mask)
+
+    def _upper_header(self, upper: int, lower: int, value_cols: list[int]) -> bool:
+        """A second header row above the first: group labels over blank sub-labels, or a
+        row filled across more than half the columns (names above units).  A title row
+        that happens to split into two cells is neither."""
+        filled = sum(1 for j in value_cols if self.codes[upper, j] != EMPTY)
+        if filled == 0:
+            return False
+        lower_blank = any(self.codes[lower, j] == EMPTY for j in value_cols)
+        return lower_blank or filled > len(value_cols) / 2
+
+    def _unique(self, names: list[str]) -> list[str]:
+        seen = {n.casefold() for n in names}
+        counts: dict[str, int] = {}
+        out: list[str] = []
+        for name in names:
+            key = name.casefold()
+            counts[key] = counts.get(key, 0) + 1
+            if counts[key] == 1:
+                out.append(name)
+                continue
+            number = counts[key]
+            unique = f"{name} ({number})"
+            while unique.casefold() in seen:
+                number += 1
+                unique = f"{name} ({number})"
+            seen.add(unique.casefold())
+            out.append(unique)
+            self.notes.append(f"More than one series is named “{name}”; this one is called “{unique}”.")
+        return out
+
+    def _names(self, r0: int, value_cols: list[int]) -> list[str]:
+        """The header of each value column as in the file; blank headers get a place name."""
+        header_rows: list[int] = []
+        i = r0 - 1
+        while i >= 0 and (self.codes[i] == EMPTY).all():
+            i -= 1
+        if i >= 0 and any(self.codes[i, j] != EMPTY for j in value_cols):
+            header_rows.append(i)
+            i -= 1
+            if i >= 0 and self._upper_header(i, header_rows[0], value_cols):
+                header_rows.insert(0, i)
+                i -= 1
+        titles = int((self.codes[: i + 1] != EMPTY).any(axis=1).sum()) if i >= 0 else 0
+        if titles:
+            self.notes.append(
+                f"{titles} title or note row{'s' if titles > 1 else ''} above the header "
+                f"{'were' if titles > 1 else 'was'} skipped."
+            )
+        upper: list[str] = []
+        if len(header_rows) == 2:
+            last = ""
+            for j in value_cols:
+                text = header_text(self.grid[header_rows[0]][j])
+                last = text or last  # a label merged across columns covers those to its right
+                upper.append(last)
+        out: list[str] = []
+        for n, j in enumerate(value_cols):
+            lower = header_text(self.grid[header_rows[-1]][j]) if header_rows else ""
+            top = upper[n] if upper else ""
+            raw = f"{top} {lower}".strip() if top != lower else lower
+            if not raw:
+                raw = self.place.line(j).capitalize()
+                self.notes.append(f"{raw} has no name; the series is called “{raw}”.")
+            out.append(raw)
+        return out
+
+    # -- dates ----------------------------------------------------------------------------------
+    def _index(self, r0: int, r1: int) -> tuple[pd.Index, np.ndarray, str | None]:
+        """The index of the series, the block rows in index order (-1: inserted gap), frequency."""
+        n = r1 - r0
+        order = np.arange(r0, r1)
+        if self.date_col < 0:
+            self.notes.append(f"No dates were found; observations are numbered 1 to {n}.")
+            return pd.RangeIndex(1, n + 1), order, None
+        axis = build_axis([self.grid[i][self.date_col] for i in range(r0, r1)])
+        periods = list(axis.periods)
+        where = self.place.line(self.date_col)
+        if axis.kind in (None, "irregular") or any(p is None for p in periods):
+            self.notes.append(
+                f"The dates in {where} are not regularly spaced; observations are numbered "
+                f"1 to {n} (they can still be tested by observation number)."
+            )
+            return pd.RangeIndex(1, n + 1), order, None
+        ordinals = np.array([p.ordinal for p in periods if p is not None])
+        steps = np.diff(ordinals)
+        if n > 1 and (steps < 0).all():
+            ordinals, order = ordinals[::-1], order[::-1]
+            periods = periods[::-1]
+            self.notes.append("The dates run from newest to oldest; the series are read oldest first.")
+            steps = np.diff(ordinals)
+        if (steps <= 0).any():
+            bad = int(np.flatnonzero(steps <= 0)[0]) + 1
+            self.notes.append(
+                f"The dates in {where} are not in order or repeat (at row "
+                f"{self.place.row(int(order[bad]), self.date_col)}); observations are numbered "
+                f"1 to {n}."
+            )
+            return pd.RangeIndex(1, n + 1), np.arange(r0, r1), None
+        freq = periods[0].freq if periods[0] is not None else None
+        index = pd.PeriodIndex(periods, freq=freq)
+        if axis.kind == "B":
+            first, last = index[0].to_timestamp().date(), index[-1].to_timestamp().date()
+            holidays = weekdays_between(first, last) - n
+            if holidays > 0:
+                many = holidays > 1
+                self.notes.append(f"{holidays} weekday{'s' if many else ''} without data "
+                                  f"(holidays) {'are' if many else 'is'} skipped.")
+            return index, order, FREQUENCY_NAMES["B"]
+        span = int(ordinals[-1] - ordinals[0]) + 1
+        if span > n:
+            full = pd.period_range(index[0], index[-1], freq=freq)
+            position = {p: k for k, p in enumerate(index)}
+            order = np.array([order[position[p]] if p in position else -1 for p in full])
+            many = span - n > 1
+            self.notes.append(
+                f"{span - n} date{'s are' if many else ' is'} missing from {where}; "
+                f"{'they are' if many else 'it is'} kept as {'gaps' if many else 'a gap'}."
+            )
+            index = full
+        return index, order, FREQUENCY_NAMES.get(axis.kind or "")
+
+    # -- one series -------------------------------------------------------------------------------
+    def _series(self, j: int, raw_name: str, name: str, r0: int, r1: int, index: pd.Index,
+                order: np.ndarray, freq: str | None) -> SeriesData | None:
+        inserted = order < 0
+        values = self.nums[np.where(inserted, 0, order), j]
+        values[inserted] = math.nan
+        column = self.codes[r0:r1, j]
+        odd = [r0 + int(k) for k in np.flatnonzero((column == TEXT) | (column == DATE))]
+        notes: list[str] = []
+        if odd:
+            first = odd[0]
+            notes.append(
+                f"{len(odd)} cell{'s' if len(odd) > 1 else ''} of “{name}” that "
+                f"{'are' if len(odd) > 1 else 'is'} not a number "
+                f"{'were' if len(odd) > 1 else 'was'} read as missing (first at row "
+                f"{self.place.row(first, j)}: “{header_text(self.grid[first][j])[:30]}”)."
+            )
+        data = pd.Series(values, index=index, dtype="float64")
+        if not np.isfinite(values).any():
+            self.notes.append(f"“{name}” has no values and was left out.")
+            return None
+        present = np.flatnonzero(np.isfinite(values))
+        first_row = self.place.row(int(order[present[0]]), j)
+        source = Source(self.file, self.sheet, raw_name, first_row)
+        return SeriesData.build(name, data, freq, source, tuple(notes))
+
+    def _note_skipped(self, r0: int, r1: int, value_cols: list[int]) -> None:
+        below = [r1 + int(k) for k in np.flatnonzero((self.codes[r1:] != EMPTY).any(axis=1))]
+        if below:
+            many = len(below) > 1
+            if self.place.transposed:
+                where = f"column{'s' if many else ''} right of the data"
+            else:
+                where = f"row{'s' if many else ''} below the data (from row {below[0] + 1})"
+            self.notes.append(f"{len(below)} {where} {'were' if many else 'was'} skipped "
+                              "(notes or sources).")
+        content = (self.codes[r0:r1] != EMPTY).any(axis=0)
+        chosen = set(value_cols)
+        skipped = [j for j in range(len(self.grid[0]))
+                   if j != self.date_col and j not in chosen and content[j]]
+        for j in skipped:
+            self.notes.append(f"{self.place.line(j).capitalize()} holds no numbers and was skipped.")
+
+
+__all__ = ["build_sheet", "classify_grid"]

@@ -1,0 +1,107 @@
+"""Text files (.csv, .txt, .tsv): encoding, delimiter and decimal mark, then rows of cells.
+
+Encoding: UTF-8 (with or without byte-order mark), UTF-16 with a byte-order mark, else
+Windows-1252, falling back to Latin-1 for the five bytes Windows-1252 leaves undefined.
+Delimiter: whichever of tab, semicolon, comma and bar splits the lines into the most
+value-like fields (numbers, dates, missing-value codes).
+"""
+
+from __future__ import annotations
+
+import codecs
+import csv
+import io
+
+from tauscope.data.cells import NumberFormat, detect_number_format, is_missing_code
+from tauscope.data.dates import parse_label
+from tauscope.data.errors import DataError
+
+DELIMITERS = ("\t", ";", ",", "|")
+DELIMITER_NAMES = {"\t": "tab", ";": "semicolon", ",": "comma", "|": "bar"}
+SAMPLE_LINES = 300
+MAX_FIELD = 1_000_000
+
+
+def decode(data: bytes, file: str) -> tuple[str, str]:
+    """The text and the name of its encoding; DataError for binary content."""
+    if data.startswith(codecs.BOM_UTF8):
+        return _strict(data[3:], "utf-8", file), "UTF-8 (with byte-order mark)"
+    if data.startswith((codecs.BOM_UTF16_LE, codecs.BOM_UTF16_BE)):
+        return _strict(data, "utf-16", file), "UTF-16"
+    head = data[:65536]
+    controls = sum(1 for b in head if b < 32 and b not in (9, 10, 12, 13))
+    if b"\x00" in head or controls > max(2, len(head) // 100):
+        raise DataError("is not a text file (it holds binary data); is it a workbook with the "
+                        "wrong name ending?", file=file)
+    try:
+        return data.decode("utf-8"), "UTF-8"
+    except UnicodeDecodeError:
+        pass
+    try:
+        return data.decode("cp1252"), "Windows-1252"
+    except UnicodeDecodeError:
+        return data.decode("latin-1"), "Latin-1"
+
+
+def _strict(data: bytes, encoding: str, file: str) -> str:
+    try:
+        text = data.decode(encoding)
+    except UnicodeDecodeError:
+        raise DataError(f"is not valid {encoding.upper()} text", file=file) from None
+    return text.lstrip("\ufeff")
+
+
+def _value_like(field: str, numbers: NumberFormat) -> bool:
+    text = field.strip()
+    if not text:
+        return False
+    return is_missing_code(text) or numbers.parse(text) is not None or parse_label(text) is not None
+
+
+def split(text: str, delimiter: str | None) -> list[list[str]]:
+    lines = text.splitlines()
+    if delimiter is None:
+        return [[line] for line in lines]
+    csv.field_size_limit(MAX_FIELD)
+    reader = csv.reader(io.StringIO("\n".join(lines)), delimiter=delimiter, quotechar='"',
+                        skipinitialspace=delimiter != "\t", strict=False)
+    try:
+        return [list(row) for row in reader]
+    except csv.Error as exc:
+        raise DataError(f"could not be split into fields ({exc})", file=None) from None
+
+
+def detect_delimiter(text: str) -> str | None:
+    sample = "\n".join(text.splitlines()[:SAMPLE_LINES])
+    loose = NumberFormat(",", "")
+    best: tuple[int, int, str | None] = (0, 0, None)
+    for delimiter in DELIMITERS:
+        try:
+            rows = split(sample, delimiter)
+        except DataError:
+            continue
+        wide = [r for r in rows if len(r) > 1]
+        score = sum(1 for r in wide for f in r if _value_like(f, loose) or _value_like(f, NumberFormat()))
+        if (score, len(wide)) > best[:2]:
+            best = (score, len(wide), delimiter)
+    return best[2]
+
+
+def read_text_rows(data: bytes, file: str) -> tuple[list[list[str]], NumberFormat, list[str]]:
+    """Rows of text cells, how numbers are written, and notes on what was detected."""
+    text, encoding = decode(data, file)
+    text = text.replace("\x00", "")
+    if not text.strip():
+        raise DataError("is empty", file=file)
+    delimiter = detect_delimiter(text)
+    try:
+        rows = split(text, delimiter)
+    except DataError as exc:
+        raise DataError(exc.reason, file=file) from None
+    numbers = detect_number_format(
+        (cell for row in rows[:5000] for cell in row[1:] if cell), prefer_comma=delimiter == ";"
+    )
+    notes = [f"Read as {encoding} text"
+             + (f", fields separated by {DELIMITER_NAMES[delimiter]}" if delimiter else "")
+             + (", decimal comma" if numbers.decimal == "," else "") + "."]
+    return rows, numbers, notes
