@@ -4,6 +4,7 @@ No Qt and no files here: arrays and settings in, frozen result objects out.
 """
 
 from tauscope.engine.analyse import analyse_series
+from tauscope.engine.many import analyse_many, iter_analyse
 from tauscope.engine.results import LagPoint, SeriesResult, Step, TestResult, Verdict
 from tauscope.engine.settings import LAG_RULE_LABELS, LAG_RULES, Settings
 
@@ -16,5 +17,7 @@ __all__ = [
     "Step",
     "TestResult",
     "Verdict",
+    "analyse_many",
     "analyse_series",
+    "iter_analyse",
 ]

@@ -11,15 +11,18 @@ A KPSS cross-check (Kwiatkowski et al. 1992) follows.
 
 from __future__ import annotations
 
-from typing import Any
+from dataclasses import dataclass
+from functools import lru_cache
+from typing import Any, Literal, Protocol
 
 import numpy as np
 import pandas as pd
 
+from tauscope.engine import fast_tables
 from tauscope.engine.adf import adf_test, estimate
-from tauscope.engine.critical import tau_critical_value
 from tauscope.engine.design import SPECS, max_lag_cap, schwert_max_lag
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.fast_path import NeedsReference, SeriesBatch
 from tauscope.engine.joint import phi_test
 from tauscope.engine.lagchoice import choose_lag
 from tauscope.engine.notes import NoteContext, build_notes, find_jump, seasonal_pattern
@@ -30,22 +33,95 @@ from tauscope.engine.settings import Settings
 from tauscope.engine.stationarity import kpss_test
 from tauscope.engine.verdicts import agreement, agreement_note, build_verdict
 
+_COMPUTATION_ERRORS = (np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
+# What sends a series from the fast path to the reference path, which then decides.
+FALLBACK_ERRORS = (NeedsReference, UntestableSeries, *_COMPUTATION_ERRORS)
+Path = Literal["fast", "reference"]
+PATHS: tuple[str, ...] = ("fast", "reference")
 
-def analyse_series(values: Any, settings: Settings | None = None, name: str = "series") -> SeriesResult:
+
+class Estimation(Protocol):
+    """Where the regressions of one series come from: the reference path (statsmodels
+    OLS per regression) or the fast path (:mod:`tauscope.engine.fast_path`).  Everything
+    else of the analysis (the sequence, the verdict, the notes) is shared."""
+
+    def level_tests(self, x: np.ndarray, difference: int, settings: Settings,
+                    max_lags: int) -> LevelTests: ...
+
+    def lag_profile(self, x: np.ndarray, spec: str, difference: int,
+                    max_lags: int) -> tuple[LagPoint, ...]: ...
+
+    def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult: ...
+
+
+class ReferenceEstimation:
+    """One statsmodels OLS per regression (:mod:`ols`); the fast path must equal it."""
+
+    def level_tests(self, x: np.ndarray, difference: int, settings: Settings,
+                    max_lags: int) -> LevelTests:
+        return level_tests(x, difference, settings, max_lags)
+
+    def lag_profile(self, x: np.ndarray, spec: str, difference: int,
+                    max_lags: int) -> tuple[LagPoint, ...]:
+        return lag_profile(x, spec, difference, max_lags)
+
+    def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
+        return kpss_test(x, spec, difference, alpha)
+
+
+REFERENCE = ReferenceEstimation()
+
+
+def analyse_series(values: Any, settings: Settings | None = None, name: str = "series", *,
+                   path: Path = "fast") -> SeriesResult:
     """Run the full testing sequence on one series; never raises for bad data.
 
     ``values``: array-like or a pandas Series (a PeriodIndex or DatetimeIndex
     is kept for dates in notes and plots).  A series that cannot be tested
     comes back with ``error`` set to one sentence.
+
+    ``path``: ``"fast"`` (default) computes every lag length from one QR
+    factorisation (:mod:`tauscope.engine.fast_path`); ``"reference"`` runs one
+    statsmodels regression per model.  Both give the same numbers (the tests check
+    1e-8); the fast path hands a series it cannot promise that for (a nearly
+    collinear design, a nearly perfect fit) to the reference path.
     """
+    if path not in PATHS:
+        raise ValueError(f"path must be one of {', '.join(PATHS)}, not {path!r}")
     settings = settings or Settings()
     try:
         prepared = prepare(values)
-        return _analyse(prepared, settings, name)
     except UntestableSeries as exc:
         return _failed(name, settings, f"“{name}” could not be tested: {exc}.")
-    except (np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError) as exc:
-        return _failed(name, settings, f"“{name}” could not be tested: the computation failed ({exc}).")
+    except _COMPUTATION_ERRORS as exc:
+        return _failed(name, settings, _computation_failed(name, exc))
+    if path == "fast":
+        return analyse_prepared(prepared, settings, name,
+                                SeriesBatch([prepared.values], settings).estimation(0))
+    return analyse_prepared(prepared, settings, name, REFERENCE)
+
+
+def analyse_prepared(prepared: PreparedSeries, settings: Settings, name: str,
+                     estimation: Estimation) -> SeriesResult:
+    """The analysis of a validated series with the given estimation; never raises for
+    bad data.  When a fast estimation declines the series, or anything goes wrong on
+    the way, the reference path analyses it again and its outcome (or its message)
+    is the result."""
+    if estimation is not REFERENCE:
+        try:
+            return _analyse(prepared, settings, name, estimation)
+        except FALLBACK_ERRORS:
+            pass
+    try:
+        return _analyse(prepared, settings, name, REFERENCE)
+    except UntestableSeries as exc:
+        return _failed(name, settings, f"“{name}” could not be tested: {exc}.")
+    except _COMPUTATION_ERRORS as exc:
+        return _failed(name, settings, _computation_failed(name, exc))
+
+
+def _computation_failed(name: str, exc: Exception) -> str:
+    return f"“{name}” could not be tested: the computation failed ({exc})."
 
 
 def _failed(name: str, settings: Settings, message: str) -> SeriesResult:
@@ -91,7 +167,7 @@ def lag_profile(x: np.ndarray, spec: str, difference: int, max_lags: int) -> tup
     points = []
     for lag in range(max_lags + 1):
         reg = estimate(x, spec, lag, difference)
-        critical = tau_critical_value(spec, reg.nobs, 0.05)
+        critical = fast_tables.tau_critical_value(spec, reg.nobs, 0.05)
         points.append(LagPoint(lag, reg.tau, critical, bool(reg.tau < critical)))
     return tuple(points)
 
@@ -99,7 +175,7 @@ def lag_profile(x: np.ndarray, spec: str, difference: int, max_lags: int) -> tup
 def _with_alpha(points: tuple[LagPoint, ...], x: np.ndarray, spec: str, alpha: float) -> tuple[LagPoint, ...]:
     out = []
     for p in points:
-        critical = tau_critical_value(spec, x.shape[0] - 1 - p.lag, alpha)
+        critical = fast_tables.tau_critical_value(spec, x.shape[0] - 1 - p.lag, alpha)
         out.append(LagPoint(p.lag, p.statistic, critical, bool(p.statistic < critical)))
     return tuple(out)
 
@@ -132,21 +208,50 @@ def fitted_deterministic(x: np.ndarray, order: int | None, deterministic: str | 
 
 
 def _kpss_checks(x: np.ndarray, order: int | None, deterministic: str | None,
-                 settings: Settings) -> list[tuple[TestResult, bool]]:
+                 settings: Settings, estimation: Estimation) -> list[tuple[TestResult, bool]]:
     if "kpss" not in settings.confirm or order is None:
         return []
     if order == 0:
         spec = "trend" if deterministic == "trend" else "constant"
-        return [(kpss_test(x, spec, 0, settings.alpha), False)]
+        return [(estimation.kpss(x, spec, 0, settings.alpha), False)]
     below = np.diff(x, n=order - 1) if order > 1 else x
     spec_below = "trend" if deterministic in ("trend", "constant") else "constant"
     return [
-        (kpss_test(below, spec_below, order - 1, settings.alpha), True),
-        (kpss_test(np.diff(x, n=order), "constant", order, settings.alpha), False),
+        (estimation.kpss(below, spec_below, order - 1, settings.alpha), True),
+        (estimation.kpss(np.diff(x, n=order), "constant", order, settings.alpha), False),
     ]
 
 
-def _analyse(prepared: PreparedSeries, settings: Settings, name: str) -> SeriesResult:
+@dataclass(frozen=True)
+class Decision:
+    """The testing sequence's outcome on every difference level it visited (the first
+    half of the analysis; :func:`finish` adds the cross-check, lag profile and notes)."""
+
+    levels: dict[int, LevelTests]
+    outcomes: list[SequenceOutcome]
+    max_lags: dict[int, int]
+    reduced: tuple[int, int] | None
+    order: int | None
+
+    @property
+    def deciding(self) -> Step:
+        """The last τ step: its spec and difference are the lag profile's."""
+        return [s for o in self.outcomes for s in o.steps if s.statistic_name == "tau"][-1]
+
+    @property
+    def profile_request(self) -> tuple[str, int, int]:
+        """(spec, difference, maximum lag) of the lag profile :func:`finish` will ask for."""
+        step = self.deciding
+        return step.spec, step.difference, self.max_lags[step.difference]
+
+
+def _analyse(prepared: PreparedSeries, settings: Settings, name: str,
+             estimation: Estimation) -> SeriesResult:
+    return finish(prepared, settings, name, estimation, decide(prepared, settings, estimation))
+
+
+def decide(prepared: PreparedSeries, settings: Settings, estimation: Estimation) -> Decision:
+    """Order of integration from the highest difference down (Dickey & Pantula 1987)."""
     x = prepared.values
     levels: dict[int, LevelTests] = {}
     outcomes: list[SequenceOutcome] = []
@@ -163,7 +268,7 @@ def _analyse(prepared: PreparedSeries, settings: Settings, name: str) -> SeriesR
         max_lags[d], cut = max_lags_for(xd.shape[0], settings)
         if d == 0 and cut:
             reduced = cut
-        levels[d] = level_tests(xd, d, settings, max_lags[d])
+        levels[d] = estimation.level_tests(xd, d, settings, max_lags[d])
         outcome = run_sequence(levels[d], settings.alpha)
         outcomes.append(outcome)
         if outcome.unit_root:
@@ -171,8 +276,16 @@ def _analyse(prepared: PreparedSeries, settings: Settings, name: str) -> SeriesR
             break
     if 0 not in levels:
         max_lags[0], reduced = max_lags_for(x.shape[0], settings)
-        levels[0] = level_tests(x, 0, settings, max_lags[0])
+        levels[0] = estimation.level_tests(x, 0, settings, max_lags[0])
+    return Decision(levels, outcomes, max_lags, reduced, order)
 
+
+def finish(prepared: PreparedSeries, settings: Settings, name: str, estimation: Estimation,
+           decision: Decision) -> SeriesResult:
+    """KPSS cross-check, verdict, lag profile and notes for a decided series."""
+    x = prepared.values
+    levels, outcomes, max_lags = decision.levels, decision.outcomes, decision.max_lags
+    reduced, order = decision.reduced, decision.order
     last = outcomes[-1]
     if order == 0:
         deterministic: str | None = last.deterministic
@@ -191,7 +304,7 @@ def _analyse(prepared: PreparedSeries, settings: Settings, name: str) -> SeriesR
     checks: list[tuple[TestResult, bool]] = []
     kpss_problem: str | None = None
     try:
-        checks = _kpss_checks(x, order, deterministic, settings)
+        checks = _kpss_checks(x, order, deterministic, settings, estimation)
     except (ValueError, np.linalg.LinAlgError, ZeroDivisionError) as exc:
         kpss_problem = f"The KPSS cross-check could not be computed ({exc})."
     tests.extend(test for test, _ in checks)
@@ -200,11 +313,11 @@ def _analyse(prepared: PreparedSeries, settings: Settings, name: str) -> SeriesR
         status = "inconclusive"
     verdict = build_verdict(order, deterministic, unit_root, status, settings.alpha, settings.max_difference)
 
-    tau_steps = [s for s in steps if s.statistic_name == "tau"]
-    deciding = tau_steps[-1]
+    deciding = decision.deciding
     decisive_x = np.diff(x, n=deciding.difference) if deciding.difference else x
     profile = _with_alpha(
-        lag_profile(decisive_x, deciding.spec, deciding.difference, max_lags[deciding.difference]),
+        estimation.lag_profile(decisive_x, deciding.spec, deciding.difference,
+                               max_lags[deciding.difference]),
         decisive_x, deciding.spec, settings.alpha,
     )
     chosen_lag = deciding.test.lags if deciding.test is not None else None
@@ -235,7 +348,7 @@ def _analyse(prepared: PreparedSeries, settings: Settings, name: str) -> SeriesR
         steps=steps,
         tests=tuple(tests),
         notes=build_notes(ctx),
-        settings=settings.to_dict(),
+        settings=_settings_dict(settings),
         max_lags=max_lags[0],
         lag_profile=profile,
         lag_profile_spec=deciding.spec,
@@ -244,6 +357,17 @@ def _analyse(prepared: PreparedSeries, settings: Settings, name: str) -> SeriesR
         values=values,
         fitted=fitted_deterministic(x, order, deterministic),
     )
+
+
+@lru_cache(maxsize=32)
+def _settings_record(settings: Settings) -> tuple[tuple[str, Any], ...]:
+    return tuple(settings.to_dict().items())
+
+
+def _settings_dict(settings: Settings) -> dict[str, Any]:
+    """``settings.to_dict()``, a fresh dict each time, without re-walking the dataclass."""
+    return {key: list(value) if isinstance(value, list) else value
+            for key, value in _settings_record(settings)}
 
 
 def _jump_label(prepared: PreparedSeries) -> str | None:
