@@ -30,19 +30,21 @@ and Dickey & Fuller (1981).
 
 from __future__ import annotations
 
-from collections.abc import Iterator
+from collections.abc import Iterator, Sequence
+from dataclasses import dataclass, replace
 from functools import lru_cache
 
 import numpy as np
 
 from tauscope.engine.design import SPECS
+from tauscope.engine.results import TestResult
 
 DEFAULT_SEED = 19790601
 DEFAULT_REPS = 2_000
 EXACT_REPS = 10_000
 LEVELS = {"1%": 0.01, "5%": 0.05, "10%": 0.10}
 PHI_SPEC = {"phi1": "constant", "phi2": "trend", "phi3": "trend"}
-_CHUNK_VALUES = 2_000_000  # floats per chunk of simulated paths (about 16 MB)
+_CHUNK_VALUES = 400_000  # floats per chunk of simulated shocks (about 3 MB, cache-friendly)
 
 
 def _check(spec: str, nobs: int, reps: int, lags: int) -> None:
@@ -50,23 +52,24 @@ def _check(spec: str, nobs: int, reps: int, lags: int) -> None:
         raise ValueError(f"spec must be one of {', '.join(SPECS)}, not {spec!r}")
     if lags < 0:
         raise ValueError("lags must be 0 or more")
-    if nobs < lags + 6:
+    if nobs < lags + 4:  # the trend spec needs nobs − (3 + p) ≥ 1 residual degrees of freedom
         raise ValueError(f"nobs = {nobs} is too small for a regression with {lags} lags")
     if reps < 10:
         raise ValueError("reps must be at least 10")
 
 
-def random_walk_chunks(length: int, reps: int, seed: int, width: int = 1) -> Iterator[np.ndarray]:
-    """Driftless Gaussian random walks y_1 … y_length (y_0 = 0), ``reps`` rows in chunks.
+def shock_chunks(length: int, reps: int, seed: int, width: int = 1) -> Iterator[np.ndarray]:
+    """Standard normal shocks e_1 … e_length for ``reps`` replications, in chunks of rows.
 
     ``width`` (regressors per replication) shrinks the chunks so the batched
-    design stays near a fixed memory budget."""
+    design stays near a fixed memory budget.  The stream does not depend on
+    the chunk size (rows are drawn in order from one generator)."""
     rng = np.random.default_rng(seed)
     chunk = max(1, _CHUNK_VALUES // max(length * width, 1))
     done = 0
     while done < reps:
         size = min(chunk, reps - done)
-        yield np.cumsum(rng.standard_normal((size, length)), axis=1)
+        yield rng.standard_normal((size, length))
         done += size
 
 
@@ -80,75 +83,127 @@ def deterministic_terms(spec: str, nobs: int) -> np.ndarray:
     return np.column_stack([np.ones(nobs), t])
 
 
-def partial_out(values: np.ndarray, terms: np.ndarray) -> np.ndarray:
-    """Residuals of each row (last axis = time) on the fixed columns ``terms``."""
-    if terms.shape[1] == 0:
-        return values
-    q, _ = np.linalg.qr(terms)
-    coef = np.tensordot(values, q, axes=([-1], [0]))
-    return np.asarray(values - np.tensordot(coef, q.T, axes=([-1], [0])))
+@dataclass(frozen=True)
+class CrossProducts:
+    """Per-replication moments of the regression: Z'Z (r, m, m), Z'y (r, m), y'y (r,),
+    with Z = [y_{t−1}, Δy_{t−1}, …, Δy_{t−p}] and y = Δy_t, after partialling
+    out fixed deterministic columns (Frisch-Waugh-Lovell):
+    Z̃'Z̃ = Z'Z − (Z'Q)(Q'Z), Z̃'ỹ = Z'y − (Z'Q)(Q'y), ỹ'ỹ = y'y − |Q'y|², Q an
+    orthonormal basis of the deterministic columns."""
+
+    zz: np.ndarray
+    zy: np.ndarray
+    yy: np.ndarray
+
+    def partialled(self, columns: Sequence[np.ndarray], y: np.ndarray, terms: np.ndarray) -> CrossProducts:
+        """The moments after partialling out ``terms`` from the regressors ``columns``
+        (each (r, n)) and the response ``y``."""
+        if terms.shape[1] == 0:
+            return self
+        q, _ = np.linalg.qr(terms)
+        zq = np.stack([column @ q for column in columns], axis=1)  # (r, m, d)
+        yq = y @ q  # (r, d)
+        return CrossProducts(
+            self.zz - np.matmul(zq, zq.transpose(0, 2, 1)),
+            self.zy - np.einsum("rmd,rd->rm", zq, yq),
+            self.yy - np.einsum("rd,rd->r", yq, yq),
+        )
+
+    def subset(self, columns: slice) -> CrossProducts:
+        return CrossProducts(self.zz[:, columns, columns], self.zy[:, columns], self.yy)
 
 
-def batched_ols(response: np.ndarray, regressors: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
-    """Batched least squares of ``response`` (r, n) on ``regressors`` (r, n, m).
+def solve_moments(moments: CrossProducts) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Least squares from cross products: (β̂ (r, m), RSS (r,), diag (Z'Z)^{-1} (r, m)).
 
-    Returns (coefficients (r, m), residual sums of squares (r,), the diagonal
-    of (X'X)^{-1} (r, m)), from the normal equations of each replication.
-    """
-    if regressors.shape[2] == 0:
-        return (np.empty((response.shape[0], 0)), np.einsum("rn,rn->r", response, response),
-                np.empty((response.shape[0], 0)))
-    xtx = np.einsum("rnm,rnl->rml", regressors, regressors)
-    xty = np.einsum("rnm,rn->rm", regressors, response)
-    inverse = np.linalg.inv(xtx)
-    beta = np.einsum("rml,rl->rm", inverse, xty)
-    fitted = np.einsum("rnm,rm->rn", regressors, beta)
-    resid = response - fitted
-    rss = np.einsum("rn,rn->r", resid, resid)
-    return beta, rss, np.einsum("rmm->rm", inverse)
-
-
-def _regression_parts(paths: np.ndarray, lags: int) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
-    """Response Δy_t, the level y_{t−1} and the lagged differences on the regression sample."""
-    dy = np.diff(paths, axis=1, prepend=0.0)  # Δy_1 = y_1 − y_0 with y_0 = 0
-    levels = np.concatenate([np.zeros((paths.shape[0], 1)), paths], axis=1)  # y_0 … y_L
-    length = paths.shape[1]
-    rows = np.arange(lags, length)  # index of Δy in dy (0-based)
-    response = dy[:, rows]
-    level = levels[:, rows]  # y_{t−1}: levels[i] is y_i, Δy index i is Δy_{i+1}
-    lagged = np.stack([dy[:, rows - i] for i in range(1, lags + 1)], axis=2) if lags else (
-        np.empty((paths.shape[0], rows.shape[0], 0)))
-    return response, level, lagged
+    RSS = y'y − β̂'Z'y; these regressions fit far from perfectly, so the
+    subtraction loses no meaningful precision."""
+    m = moments.zy.shape[1]
+    if m == 0:
+        empty = np.empty((moments.yy.shape[0], 0))
+        return empty, moments.yy, empty
+    if m == 1:
+        inverse_diag = 1.0 / moments.zz[:, :, 0]
+        beta = moments.zy * inverse_diag
+    else:
+        inverse = np.linalg.inv(moments.zz)
+        beta = np.einsum("rml,rl->rm", inverse, moments.zy)
+        inverse_diag = np.einsum("rmm->rm", inverse)
+    rss = moments.yy - np.einsum("rm,rm->r", beta, moments.zy)
+    return beta, rss, inverse_diag
 
 
-def df_statistics(paths: np.ndarray, lags: int) -> dict[str, np.ndarray]:
-    """τ, nobs·γ̂ for every spec and Φ1, Φ2, Φ3 for each simulated path (one row each).
+def batched_ols(response: np.ndarray, columns: Sequence[np.ndarray]) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Batched least squares of ``response`` (r, n) on the regressors ``columns`` (each
+    (r, n)): (β̂ (r, m), RSS (r,), diag (X'X)^{-1} (r, m))."""
+    return solve_moments(raw_moments(columns, response))
+
+
+def raw_moments(columns: Sequence[np.ndarray], y: np.ndarray) -> CrossProducts:
+    """Z'Z, Z'y and y'y per replication from regressor columns given as (r, n) arrays
+    (views into the simulated paths: the lagged columns are never copied)."""
+    m = len(columns)
+    reps = y.shape[0]
+    zz = np.empty((reps, m, m))
+    zy = np.empty((reps, m))
+    for a, first in enumerate(columns):
+        zy[:, a] = np.einsum("rn,rn->r", first, y)
+        for b in range(a, m):
+            zz[:, a, b] = zz[:, b, a] = np.einsum("rn,rn->r", first, columns[b])
+    return CrossProducts(zz, zy, np.einsum("rn,rn->r", y, y))
+
+
+def regression_parts(levels: np.ndarray, lags: int) -> tuple[np.ndarray, list[np.ndarray]]:
+    """Response Δy_t and regressors [y_{t−1}, Δy_{t−1}, …, Δy_{t−p}] (views, each (r, n))
+    on the regression sample, for paths ``levels`` = (y_0, y_1, …, y_L) in rows;
+    nobs = L − p."""
+    dy = np.diff(levels, axis=1)  # position i holds Δy_{i+1}
+    length = dy.shape[1]
+    columns = [levels[:, lags:length]] + [dy[:, lags - i:length - i] for i in range(1, lags + 1)]
+    return dy[:, lags:], columns
+
+
+def random_walks(shocks: np.ndarray) -> np.ndarray:
+    """Paths (y_0 = 0, y_1, …, y_L) with y_t = y_{t−1} + e_t."""
+    levels = np.zeros((shocks.shape[0], shocks.shape[1] + 1))
+    np.cumsum(shocks, axis=1, out=levels[:, 1:])
+    return levels
+
+
+def tau_statistics(levels: np.ndarray, lags: int, spec: str) -> np.ndarray:
+    """τ of the ADF regression ``spec`` for each path in ``levels`` (rows y_0 … y_L)."""
+    response, regressors = regression_parts(levels, lags)
+    terms = deterministic_terms(spec, response.shape[1])
+    moments = raw_moments(regressors, response).partialled(regressors, response, terms)
+    beta, rss, inv_diag = solve_moments(moments)
+    df = response.shape[1] - terms.shape[1] - len(regressors)
+    return np.asarray(beta[:, 0] / np.sqrt(rss / df * inv_diag[:, 0]))
+
+
+def df_statistics(shocks: np.ndarray, lags: int) -> dict[str, np.ndarray]:
+    """τ, nobs·γ̂ for every spec and Φ1, Φ2, Φ3 for each simulated random walk
+    (one row of shocks each).
 
     The regression sample is every Δy_t with p lags available, so nobs = L − p
-    for a path of L values after y_0 = 0.
+    for L shocks after y_0 = 0.
     """
-    response, level, lagged = _regression_parts(paths, lags)
+    response, regressors = regression_parts(random_walks(shocks), lags)
     nobs = response.shape[1]
+    raw = raw_moments(regressors, response)
     out: dict[str, np.ndarray] = {}
     rss: dict[str, np.ndarray] = {}
+    partialled: dict[str, CrossProducts] = {}
     for spec in SPECS:
         terms = deterministic_terms(spec, nobs)
-        y = partial_out(response, terms)
-        x = partial_out(np.concatenate([level[:, :, None], lagged], axis=2).transpose(0, 2, 1),
-                        terms).transpose(0, 2, 1)
-        beta, rss_u, inv_diag = batched_ols(y, x)
-        df = nobs - terms.shape[1] - x.shape[2]
-        se = np.sqrt(rss_u / df * inv_diag[:, 0])
-        out[f"tau_{spec}"] = beta[:, 0] / se
+        partialled[spec] = raw.partialled(regressors, response, terms)
+        beta, rss_u, inv_diag = solve_moments(partialled[spec])
+        df = nobs - terms.shape[1] - len(regressors)
+        out[f"tau_{spec}"] = beta[:, 0] / np.sqrt(rss_u / df * inv_diag[:, 0])
         out[f"rho_{spec}"] = nobs * beta[:, 0]
         rss[spec] = rss_u
     # Restricted models: only the lagged differences (Φ1, Φ2), and a constant with them (Φ3).
-    _, rss_lags, _ = batched_ols(response, lagged)
-    constant = deterministic_terms("constant", nobs)
-    _, rss_lags_c, _ = batched_ols(
-        partial_out(response, constant),
-        partial_out(lagged.transpose(0, 2, 1), constant).transpose(0, 2, 1),
-    )
+    rss_lags = solve_moments(raw.subset(slice(1, None)))[1]
+    rss_lags_c = solve_moments(partialled["constant"].subset(slice(1, None)))[1]
     df_c, df_t = nobs - 2 - lags, nobs - 3 - lags
     out["phi1"] = ((rss_lags - rss["constant"]) / 2.0) / (rss["constant"] / df_c)
     out["phi2"] = ((rss_lags - rss["trend"]) / 3.0) / (rss["trend"] / df_t)
@@ -159,8 +214,8 @@ def df_statistics(paths: np.ndarray, lags: int) -> dict[str, np.ndarray]:
 @lru_cache(maxsize=32)
 def _simulate(nobs: int, reps: int, seed: int, lags: int) -> dict[str, np.ndarray]:
     parts: dict[str, list[np.ndarray]] = {}
-    for paths in random_walk_chunks(nobs + lags, reps, seed, width=2 + lags):
-        for key, values in df_statistics(paths, lags).items():
+    for shocks in shock_chunks(nobs + lags, reps, seed, width=2 + lags):
+        for key, values in df_statistics(shocks, lags).items():
             parts.setdefault(key, []).append(values)
     result = {key: np.concatenate(values) for key, values in parts.items()}
     for values in result.values():
@@ -219,6 +274,12 @@ def empirical_p_value(statistic: float, draws: np.ndarray, lower: bool = True) -
     return count / reps, None
 
 
+def reportable_bound(p_value: float, bound: str | None) -> str | None:
+    """Drop a "below" bound the plain p-value already says: a value under 0.001 is
+    written "below 0.001" (DESIGN.md §7), which is true of any bounded p-value that small."""
+    return None if bound == "below" and p_value <= 0.001 else bound
+
+
 def exact_critical_values(spec: str, nobs: int, lags: int = 0, reps: int = EXACT_REPS,
                           seed: int = DEFAULT_SEED) -> dict[str, float]:
     """Finite-sample τ critical values at the user's exact regression sample size."""
@@ -248,3 +309,29 @@ def exact_critical_value(spec: str, nobs: int, alpha: float, lags: int = 0,
                          reps: int = EXACT_REPS, seed: int = DEFAULT_SEED) -> float:
     """One finite-sample τ critical value at level ``alpha`` (0.01, 0.05 or 0.10)."""
     return float(np.quantile(null_distribution(spec, nobs, reps, seed, lags), alpha))
+
+
+def with_exact_values(test: TestResult, alpha: float, use_lags: bool = True, reps: int = EXACT_REPS,
+                      seed: int = DEFAULT_SEED) -> TestResult:
+    """The same ADF τ or Φ test judged against its simulated null at the test's own
+    regression size (and lag order, unless ``use_lags`` is False): critical values,
+    decision and p-value replaced; other tests, and tests on samples too short to
+    simulate, are returned unchanged."""
+    lags = test.lags if use_lags else 0
+    level = f"{round(alpha * 100):d}%"
+    if test.nobs < lags + 4:
+        return test  # too few observations to simulate: the published values stay
+    if test.test == "adf":
+        draws = null_distribution(test.spec, test.nobs, reps, seed, lags)
+        values = lower_critical_values(draws)
+        p_value, bound = empirical_p_value(test.statistic, draws)
+        reject = test.statistic < values[level]
+    elif test.test in PHI_SPEC:
+        draws = phi_null_distribution(test.test, test.nobs, reps, seed, lags)
+        values = upper_critical_values(draws)
+        p_value, bound = empirical_p_value(test.statistic, draws, lower=False)
+        reject = test.statistic > values[level]
+    else:
+        return test
+    return replace(test, critical_values=values, critical_value=values[level], reject=bool(reject),
+                   p_value=p_value, p_value_bound=reportable_bound(p_value, bound))
