@@ -11,7 +11,7 @@ A KPSS cross-check (Kwiatkowski et al. 1992) follows.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from functools import lru_cache
 from typing import Any, Literal, Protocol
 
@@ -22,6 +22,7 @@ from tauscope.engine import fast_tables
 from tauscope.engine.adf import adf_test, estimate
 from tauscope.engine.design import SPECS, max_lag_cap, schwert_max_lag
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.evidence import EXTRA_TESTS, gather_evidence, settled_difference
 from tauscope.engine.fast_path import NeedsReference, SeriesBatch
 from tauscope.engine.joint import phi_test
 from tauscope.engine.lagchoice import choose_lag
@@ -30,6 +31,7 @@ from tauscope.engine.prepare import PreparedSeries, prepare
 from tauscope.engine.results import EMPTY_VERDICT, LagPoint, SeriesResult, Step, TestResult
 from tauscope.engine.sequence import LevelTests, SequenceOutcome, run_sequence
 from tauscope.engine.settings import Settings
+from tauscope.engine.simulate import with_exact_values
 from tauscope.engine.stationarity import kpss_test
 from tauscope.engine.verdicts import agreement, agreement_note, build_verdict
 
@@ -268,7 +270,7 @@ def decide(prepared: PreparedSeries, settings: Settings, estimation: Estimation)
         max_lags[d], cut = max_lags_for(xd.shape[0], settings)
         if d == 0 and cut:
             reduced = cut
-        levels[d] = estimation.level_tests(xd, d, settings, max_lags[d])
+        levels[d] = _judged(estimation.level_tests(xd, d, settings, max_lags[d]), settings)
         outcome = run_sequence(levels[d], settings.alpha)
         outcomes.append(outcome)
         if outcome.unit_root:
@@ -276,7 +278,7 @@ def decide(prepared: PreparedSeries, settings: Settings, estimation: Estimation)
             break
     if 0 not in levels:
         max_lags[0], reduced = max_lags_for(x.shape[0], settings)
-        levels[0] = estimation.level_tests(x, 0, settings, max_lags[0])
+        levels[0] = _judged(estimation.level_tests(x, 0, settings, max_lags[0]), settings)
     return Decision(levels, outcomes, max_lags, reduced, order)
 
 
@@ -308,12 +310,23 @@ def finish(prepared: PreparedSeries, settings: Settings, name: str, estimation: 
     except (ValueError, np.linalg.LinAlgError, ZeroDivisionError) as exc:
         kpss_problem = f"The KPSS cross-check could not be computed ({exc})."
     tests.extend(test for test, _ in checks)
-    status = agreement(order, checks)
+    kpss_status = agreement(order, checks)
     if order is None and "kpss" in settings.confirm:
-        status = "inconclusive"
-    verdict = build_verdict(order, deterministic, unit_root, status, settings.alpha, settings.max_difference)
+        kpss_status = "inconclusive"
 
     deciding = decision.deciding
+    settled = settled_difference(order)
+    evidence = gather_evidence(
+        x, prepared.index, order=order, deterministic=deterministic, alpha=settings.alpha,
+        tests=tuple(t for t in settings.confirm if t in EXTRA_TESTS),
+        deciding_adf=deciding.test, kpss=[t for t, _ in checks], kpss_status=kpss_status,
+        lag_rule=settings.lag_rule, lags=settings.lags, max_lags=max_lags[settled],
+        za_lags=levels[settled].adf["trend"].lags, break_model=settings.break_model,
+        critical_values=settings.critical_values, power=settings.power,
+    )
+    tests.extend(evidence.tests)
+    status = evidence.agreement if evidence.tests else kpss_status
+    verdict = build_verdict(order, deterministic, unit_root, status, settings.alpha, settings.max_difference)
     decisive_x = np.diff(x, n=deciding.difference) if deciding.difference else x
     profile = _with_alpha(
         estimation.lag_profile(decisive_x, deciding.spec, deciding.difference,
@@ -333,10 +346,12 @@ def finish(prepared: PreparedSeries, settings: Settings, name: str, estimation: 
         alpha=settings.alpha,
         max_lags_reduced=reduced,
         trimmed=(prepared.leading_trimmed, prepared.trailing_trimmed),
-        agreement_text=agreement_note(order, status, checks, settings.alpha) or kpss_problem,
+        agreement_text=agreement_note(order, kpss_status, checks, settings.alpha) or kpss_problem,
         jump_at=_jump_label(prepared),
         seasonal_lag=seasonal_pattern(x, prepared.periods_per_year),
         level_sequence_tests=3,
+        evidence_notes=evidence.notes,
+        break_checked=evidence.break_info is not None,
     )
     values = pd.Series(x, index=prepared.index if prepared.index is not None else pd.RangeIndex(1, x.shape[0] + 1),
                        name=name)
@@ -356,6 +371,7 @@ def finish(prepared: PreparedSeries, settings: Settings, name: str, estimation: 
         span=(prepared.label(0), prepared.label(x.shape[0] - 1)),
         values=values,
         fitted=fitted_deterministic(x, order, deterministic),
+        evidence=evidence,
     )
 
 
@@ -368,6 +384,18 @@ def _settings_dict(settings: Settings) -> dict[str, Any]:
     """``settings.to_dict()``, a fresh dict each time, without re-walking the dataclass."""
     return {key: list(value) if isinstance(value, list) else value
             for key, value in _settings_record(settings)}
+
+
+def _judged(level: LevelTests, settings: Settings) -> LevelTests:
+    """With ``critical_values="exact"``, every τ and Φ is judged against its null simulated
+    at its own regression size and lag order (:mod:`tauscope.engine.simulate`)."""
+    if settings.critical_values != "exact":
+        return level
+    return replace(
+        level,
+        adf={k: with_exact_values(t, settings.alpha) for k, t in level.adf.items()},
+        phi={k: with_exact_values(t, settings.alpha) for k, t in level.phi.items()},
+    )
 
 
 def _jump_label(prepared: PreparedSeries) -> str | None:

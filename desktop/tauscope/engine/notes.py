@@ -35,6 +35,8 @@ class NoteContext:
     jump_at: str | None
     seasonal_lag: int | None
     level_sequence_tests: int
+    evidence_notes: tuple[str, ...] = ()
+    break_checked: bool = False
 
 
 def find_jump(x: np.ndarray) -> int | None:
@@ -76,6 +78,7 @@ def build_notes(ctx: NoteContext) -> tuple[str, ...]:
     a = fmt.percent(ctx.alpha)
     if ctx.agreement_text:
         notes.append(ctx.agreement_text)
+    notes.extend(ctx.evidence_notes)
     if ctx.verdict.unit_root:
         notes.append(
             f"Not rejecting a unit root is not proof of one: it says only that the data hold no evidence "
@@ -109,7 +112,7 @@ def build_notes(ctx: NoteContext) -> tuple[str, ...]:
             "trend biases the Dickey-Fuller test toward finding a unit root (Perron 1989); suggestion: check "
             "the source for a break or a change of definition near that date."
         )
-    elif ctx.verdict.unit_root:
+    elif ctx.verdict.unit_root and not ctx.break_checked:
         notes.append(
             "A break in level or trend anywhere in the sample would also bias the test toward a unit root "
             "(Perron 1989); check the source for changes of definition or coverage."

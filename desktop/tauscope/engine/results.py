@@ -5,12 +5,15 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 import numpy as np
 import pandas as pd
 
 from tauscope.engine.regression import Regression
+
+if TYPE_CHECKING:
+    from tauscope.engine.evidence import Evidence
 
 
 def _num(value: float | None) -> float | None:
@@ -158,6 +161,7 @@ class SeriesResult:
     span: tuple[str, str] | None = None
     values: pd.Series | None = field(default=None, compare=False, repr=False)
     fitted: np.ndarray | None = field(default=None, compare=False, repr=False)
+    evidence: Evidence | None = field(default=None, compare=False, repr=False)
 
     @property
     def ok(self) -> bool:
@@ -187,4 +191,5 @@ class SeriesResult:
                 "difference": self.lag_profile_difference,
                 "points": [p.to_dict() for p in self.lag_profile],
             },
+            "evidence": self.evidence.to_dict() if self.evidence is not None else None,
         }

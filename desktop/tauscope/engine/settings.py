@@ -7,7 +7,9 @@ from typing import Any
 
 LAG_RULES = ("aic", "bic", "hqc", "tsig", "maic", "fixed")
 ALPHAS = (0.01, 0.05, 0.10)
-CONFIRMATION_TESTS = ("kpss",)
+CONFIRMATION_TESTS = ("kpss", "pp", "dfgls", "za")
+CRITICAL_VALUE_SOURCES = ("mackinnon", "exact")
+BREAK_MODELS = ("c", "t", "ct")
 
 LAG_RULE_LABELS = {
     "aic": "Akaike information criterion (AIC)",
@@ -40,6 +42,9 @@ class Settings:
     alpha: float = 0.05
     max_difference: int = 2
     confirm: tuple[str, ...] = ("kpss",)
+    critical_values: str = "mackinnon"
+    break_model: str = "ct"
+    power: bool = True
 
     def __post_init__(self) -> None:
         if self.lag_rule not in LAG_RULES:
@@ -57,6 +62,10 @@ class Settings:
         if self.max_difference not in (0, 1, 2):
             raise ValueError("max_difference must be 0, 1 or 2")
         object.__setattr__(self, "confirm", tuple(self.confirm))
+        if self.critical_values not in CRITICAL_VALUE_SOURCES:
+            raise ValueError("critical_values must be 'mackinnon' or 'exact'")
+        if self.break_model not in BREAK_MODELS:
+            raise ValueError("break_model must be 'c', 't' or 'ct'")
         unknown = [c for c in self.confirm if c not in CONFIRMATION_TESTS]
         if unknown:
             raise ValueError(f"unknown confirmation test(s): {', '.join(unknown)}")
