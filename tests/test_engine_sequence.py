@@ -153,3 +153,29 @@ def test_kpss_matches_statsmodels() -> None:
     )
     assert test.statistic == pytest.approx(ref.statistic, abs=1e-10)
     assert test.lags == ref.lags
+
+
+def test_stationarity_from_the_drift_normal_step_is_flagged_as_weak() -> None:
+    """statsmodels' macrodata, log real GDP: τ_μ is judged against the normal after Φ1 finds a
+    drift (West 1988); the note must warn that a drifting series is not stationary around a mean."""
+    from statsmodels.datasets import macrodata
+
+    x = np.log(macrodata.load_pandas().data["realgdp"].to_numpy())
+    result = analyse_series(x, name="log realgdp")
+    levels = [s for s in result.steps if s.difference == 0]
+    assert [s.statistic_name for s in levels][-2:] == ["phi1", "z"]
+    if result.verdict.order == 0:
+        assert any("read this verdict as weak" in n for n in result.notes)
+    else:
+        assert not any("read this verdict as weak" in n for n in result.notes)
+
+
+def test_numbers_read_as_a_reader_would_copy_them() -> None:
+    from tauscope.engine import formatting as fmt
+
+    assert fmt.stat(-1.8) == "\u22121.80"
+    assert fmt.stat(-1e-15) == "0.00"
+    assert fmt.p_value(0.0312) == "0.031"
+    assert fmt.p_value(0.0004) == "below 0.001"
+    assert fmt.p_value(0.01, "below") == "below 0.01"
+    assert fmt.p_value(0.10, "above") == "above 0.10"

@@ -10,6 +10,8 @@ def stat(value: float | None, decimals: int = 2) -> str:
     if value is None or not math.isfinite(value):
         return "n/a"
     text = f"{value:.{decimals}f}"
+    if text.lstrip("-").strip("0.") == "":
+        text = text.lstrip("-")  # no "−0.00"
     if text.startswith("-"):
         text = "\u2212" + text[1:]
     return text
@@ -19,10 +21,8 @@ def p_value(value: float | None, bound: str | None = None) -> str:
     """A p-value: "0.031", "below 0.001", or a table bound said in words."""
     if value is None or not math.isfinite(value):
         return "not available"
-    if bound == "below":
-        return f"below {value:.2f}"
-    if bound == "above":
-        return f"above {value:.2f}"
+    if bound in ("below", "above"):
+        return f"{bound} {value:.2f}" if value >= 0.01 else f"{bound} {value:.3f}"
     if value < 0.001:
         return "below 0.001"
     if value > 0.999:

@@ -79,6 +79,9 @@ def build_notes(ctx: NoteContext) -> tuple[str, ...]:
     if ctx.agreement_text:
         notes.append(ctx.agreement_text)
     notes.extend(ctx.evidence_notes)
+    drift_note = _drift_branch_note(ctx)
+    if drift_note:
+        notes.append(drift_note)
     if ctx.verdict.unit_root:
         notes.append(
             f"Not rejecting a unit root is not proof of one: it says only that the data hold no evidence "
@@ -172,3 +175,26 @@ def _lag_notes(ctx: NoteContext) -> list[str]:
             f"around the chosen {ctx.chosen_lag}."
         ]
     return []
+
+
+def _drift_branch_note(ctx: NoteContext) -> str | None:
+    """Caution when stationarity rests only on the normal test taken after a drift was found.
+
+    That step (West 1988) is justified under a unit root with drift; a series that drifts
+    cannot also be stationary around a fixed mean, so the reading is weak.
+    """
+    if ctx.verdict.order != 0 or ctx.verdict.deterministic not in ("constant", "none"):
+        return None
+    decisive = [s for s in ctx.steps if s.difference == 0 and s.statistic_name == "z" and s.spec == "constant"
+                and s.hypothesis.startswith("unit root") and s.rejected]
+    if not decisive:
+        return None
+    trend = ctx.level_adf.get("trend")
+    trend_text = (f" With constant and trend the ADF test does not reject (τ = {fmt.stat(trend.statistic)})."
+                  if trend is not None and not trend.reject else "")
+    return (
+        "The unit root was rejected only by the step that compares τ with the standard normal because a "
+        "drift was found (West 1988). That step assumes a unit root with drift, and a series that drifts "
+        "cannot also be stationary around a fixed mean, so read this verdict as weak; a unit root with "
+        "drift remains a plausible description." + trend_text
+    )
