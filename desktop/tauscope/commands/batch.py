@@ -20,7 +20,7 @@ from pathlib import Path
 from typing import NoReturn, TextIO
 
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
-from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_series
+from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_many
 from tauscope.engine.results import EMPTY_VERDICT
 from tauscope.report import WRITERS, ExportError, Finding, RunRecord, SourceFile, export
 
@@ -151,35 +151,57 @@ def _failed(name: str, settings: Settings, message: str) -> SeriesResult:
                         tests=(), notes=(message,), settings=settings.to_dict())
 
 
-def analyse_one(series: SeriesData, settings: Settings, transform: str | None) -> Finding:
-    """Transform (if asked), fall back to the longest gap-free stretch, run the engine."""
+@dataclasses.dataclass(frozen=True)
+class _Prepared:
+    """A series made ready for the engine, or the sentence saying why it could not be."""
+
+    series: SeriesData
+    name: str
+    values: object | None
+    stretch_note: str | None
+    problem: str | None
+
+
+def prepare_one(series: SeriesData, transform: str | None) -> _Prepared:
+    """Transform (if asked) and fall back to the longest gap-free stretch."""
     name = series.name
     try:
         if transform is not None:
             series = make_transform(series, transform)
             name = series.name
         tested = series.longest_stretch() if series.gaps else series
-        result = analyse_series(tested.testable_values(), settings, name=name)
-        if tested is not series:
-            result = dataclasses.replace(result, notes=(tested.notes[-1], *result.notes))
+        note = tested.notes[-1] if tested is not series else None
+        return _Prepared(series, name, tested.testable_values(), note, None)
     except DataError as exc:
-        result = _failed(name, settings, exc.reason)
+        return _Prepared(series, name, None, None, exc.reason)
     except Exception as exc:  # one bad series never stops the batch
-        result = _failed(name, settings, f"“{name}” could not be tested: {type(exc).__name__}: "
-                                         f"{exc}".replace("\n", " "))
-    return Finding(result, file=series.source.file, sheet=series.source.sheet,
-                   column=series.source.column, frequency=series.frequency, transform=transform)
+        reason = f"“{name}” could not be tested: {type(exc).__name__}: {exc}".replace("\n", " ")
+        return _Prepared(series, name, None, None, reason)
 
 
 def analyse_all(chosen: Sequence[SeriesData], settings: Settings, transform: str | None,
                 progress: TextIO | None = None) -> list[Finding]:
+    """Prepare every series, then run the engine on all of them at once (``analyse_many``
+    batches series of equal length); results keep the input order."""
     stream = progress or sys.stderr
     show = stream.isatty() or len(chosen) > PROGRESS_FROM
-    findings = []
-    for number, series in enumerate(chosen, start=1):
+    prepared = [prepare_one(series, transform) for series in chosen]
+    testable = [p for p in prepared if p.problem is None]
+
+    def report(done: int, total: int, name: str) -> None:
         if show:
-            print(f"[{number}/{len(chosen)}] {series.name}", file=stream, flush=True)
-        findings.append(analyse_one(series, settings, transform))
+            print(f"[{done}/{total}] {name}", file=stream, flush=True)
+
+    results = iter(analyse_many([(p.name, p.values) for p in testable], settings, progress=report))
+    findings = []
+    for item in prepared:
+        if item.problem is not None:
+            result = _failed(item.name, settings, item.problem)
+        else:
+            result = next(results)
+            if item.stretch_note:
+                result = dataclasses.replace(result, notes=(item.stretch_note, *result.notes))
+        findings.append(Finding.from_series(result, item.series))
     return findings
 
 
