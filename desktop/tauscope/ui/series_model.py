@@ -5,32 +5,38 @@ from __future__ import annotations
 from collections.abc import Iterator
 from typing import TYPE_CHECKING, Any
 
-from PySide6.QtCore import QModelIndex, QPersistentModelIndex, Qt
+import numpy as np
+from PySide6.QtCore import QModelIndex, Qt
 from PySide6.QtGui import QStandardItem, QStandardItemModel
 
-from tauscope.ui.roles import KEY_ROLE, KIND_ROLE, SERIES_ROLE, SORT_ROLE, SPARK_ROLE, WORKBOOK_ROLE
+from tauscope.ui.qtcompat import item_value
+from tauscope.ui.roles import KEY_ROLE, KIND_ROLE, SORT_ROLE
 from tauscope.ui.sparkline import sparkline_points
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData, Workbook
 
-COLUMNS = ("Series", "Shape", "Obs.", "Frequency", "Span", "Gaps")
+COLUMNS = ("Series", "Shape", "Obs.", "Gaps", "Span", "Frequency")
 COLUMN_TIPS = (
     "Workbooks you opened, their sheets and the series found in each. Right-click a series "
     "to add a transformed copy (log, difference, growth, seasonal difference).",
     "A small drawing of the series, first value on the left.",
     "Number of observations that have a value.",
-    "How often the series is observed, as read from its dates.",
-    "First and last date (or observation number when the dates could not be read).",
     "Stretches of missing values inside the series. A series with gaps must be cut to its "
     "longest stretch or filled before it can be tested.",
+    "First and last date (or observation number when the dates could not be read).",
+    "How often the series is observed, as read from its dates.",
 )
-NAME, SHAPE, OBS, FREQUENCY, SPAN, GAPS = range(6)
+NAME, SHAPE, OBS, GAPS, SPAN, FREQUENCY = range(6)
 
 
 def _item(text: str, tip: str = "") -> QStandardItem:
+    """A read-only cell with every role the panel reads already set."""
     item = QStandardItem(text)
     item.setEditable(False)
+    item.setData("", KIND_ROLE)
+    item.setData("", KEY_ROLE)
+    item.setData(text.lower(), SORT_ROLE)
     if tip:
         item.setToolTip(tip)
     return item
@@ -39,9 +45,10 @@ def _item(text: str, tip: str = "") -> QStandardItem:
 def gaps_text(series: SeriesData) -> str:
     missing = sum(g.count for g in series.gaps)
     if not series.gaps:
-        return "filled" if series.filled else "none"
-    stretch = "stretch" if len(series.gaps) == 1 else "stretches"
-    return f"{missing} in {len(series.gaps)} {stretch}"
+        if series.filled:
+            return "filled"
+        return "cut" if any("longest stretch" in n for n in series.notes) else "none"
+    return f"{missing} missing"
 
 
 def series_tooltip(series: SeriesData) -> str:
@@ -58,14 +65,14 @@ def series_tooltip(series: SeriesData) -> str:
 
 
 def series_row(series: SeriesData) -> list[QStandardItem]:
+    """Cells for one series.  Only text and the key go into Qt; the Python objects stay in
+    the model's dictionaries (keeps object lifetimes out of Qt's hands)."""
     tip = series_tooltip(series)
     name = _item(series.name, tip)
     name.setData("series", KIND_ROLE)
     name.setData(series.key, KEY_ROLE)
-    name.setData(series, SERIES_ROLE)
     name.setData(series.name.lower(), SORT_ROLE)
     shape = _item("", tip)
-    shape.setData(sparkline_points(series.values), SPARK_ROLE)
     shape.setData(f"Drawing of {series.name}", Qt.ItemDataRole.AccessibleTextRole)
     obs = _item(str(series.nobs), tip)
     obs.setData(series.nobs, SORT_ROLE)
@@ -73,7 +80,7 @@ def series_row(series: SeriesData) -> list[QStandardItem]:
     freq = _item(series.frequency or "irregular", tip)
     span = _item(f"{series.span[0]} – {series.span[1]}", tip)
     gaps = _item(gaps_text(series), tip)
-    row = [name, shape, obs, freq, span, gaps]
+    row = [name, shape, obs, gaps, span, freq]
     for cell in row[1:]:
         cell.setData("series", KIND_ROLE)
         cell.setData(series.key, KEY_ROLE)
@@ -95,6 +102,9 @@ class SeriesTreeModel(QStandardItemModel):
 
     def __init__(self, parent: Any = None) -> None:
         super().__init__(0, len(COLUMNS), parent)
+        self._series: dict[str, SeriesData] = {}
+        self._sparks: dict[str, np.ndarray] = {}
+        self._workbooks: dict[str, Workbook] = {}
         for column, (title, tip) in enumerate(zip(COLUMNS, COLUMN_TIPS, strict=True)):
             header = QStandardItem(title)
             header.setToolTip(tip)
@@ -107,28 +117,47 @@ class SeriesTreeModel(QStandardItemModel):
         notes = "\n".join(workbook.notes)
         tip = str(workbook.path) + (f"\n{notes}" if notes else "")
         row = _container_row(workbook.path.name, "workbook", tip)
-        row[0].setData(workbook, WORKBOOK_ROLE)
+        self._workbooks[str(workbook.path)] = workbook
         row[0].setData(str(workbook.path), KEY_ROLE)
         for sheet in workbook.sheets:
             sheet_tip = f"Sheet {sheet.name} of {workbook.path.name}"
             if sheet.notes:
                 sheet_tip += "\n" + "\n".join(sheet.notes)
             sheet_row = _container_row(sheet.name, "sheet", sheet_tip)
-            sheet_row[OBS].setText(f"{len(sheet.series)}")
-            sheet_row[OBS].setToolTip("Number of series on this sheet")
-            sheet_row[OBS].setTextAlignment(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
+            sheet_row[SHAPE].setText(f"{len(sheet.series)} series")
+            sheet_row[SHAPE].setToolTip("Number of series on this sheet")
             for series in sheet.series:
-                sheet_row[0].appendRow(series_row(series))
+                sheet_row[0].appendRow(self._series_row(series))
             row[0].appendRow(sheet_row)
         self.appendRow(row)
         return row[0]
 
+    def _series_row(self, series: SeriesData) -> list[QStandardItem]:
+        self._series[series.key] = series
+        self._sparks[series.key] = sparkline_points(series.values)
+        return series_row(series)
+
     def remove_workbook(self, path: str) -> bool:
         for r in range(self.rowCount()):
-            if self.item(r, 0).data(KEY_ROLE) == path:
+            item = self.item(r, 0)
+            if item_value(item.index(), KEY_ROLE) == path:
+                for child in self.iter_series_items(item):
+                    key = str(item_value(child.index(), KEY_ROLE))
+                    self._series.pop(key, None)
+                    self._sparks.pop(key, None)
+                self._workbooks.pop(path, None)
                 self.removeRow(r)
                 return True
         return False
+
+    def clear_all(self) -> None:
+        self.removeRows(0, self.rowCount())
+        self._series.clear()
+        self._sparks.clear()
+        self._workbooks.clear()
+
+    def spark(self, key: str) -> np.ndarray | None:
+        return self._sparks.get(key)
 
     def add_transformed(self, parent_key: str, series: SeriesData) -> QStandardItem | None:
         """Add a transformed copy under the series it came from (replacing an equal one)."""
@@ -138,9 +167,25 @@ class SeriesTreeModel(QStandardItemModel):
         existing = self.item_for_key(series.key)
         if existing is not None and existing.parent() is not None:
             existing.parent().removeRow(existing.row())
-        row = series_row(series)
+        row = self._series_row(series)
         parent.appendRow(row)
         return row[0]
+
+    def replace_series(self, series: SeriesData) -> bool:
+        """Show new data for a series already in the tree (same key), e.g. after its gaps
+        were cut away or filled."""
+        item = self.item_for_key(series.key)
+        if item is None:
+            return False
+        parent = item.parent() or self.invisibleRootItem()
+        self._series[series.key] = series
+        self._sparks[series.key] = sparkline_points(series.values)
+        for column, fresh in enumerate(series_row(series)):
+            cell = parent.child(item.row(), column)
+            if cell is not None:
+                cell.setText(fresh.text())
+                cell.setToolTip(fresh.toolTip())
+        return True
 
     # lookup -------------------------------------------------------------
     def iter_series_items(self, root: QStandardItem | None = None) -> Iterator[QStandardItem]:
@@ -150,31 +195,30 @@ class SeriesTreeModel(QStandardItemModel):
             child = start.child(r, 0)
             if child is None:
                 continue
-            if child.data(KIND_ROLE) == "series":
+            if item_value(child.index(), KIND_ROLE) == "series":
                 yield child
             yield from self.iter_series_items(child)
 
     def item_for_key(self, key: str) -> QStandardItem | None:
         for item in self.iter_series_items():
-            if item.data(KEY_ROLE) == key:
+            if item_value(item.index(), KEY_ROLE) == key:
                 return item
         return None
 
     def series_for_key(self, key: str) -> SeriesData | None:
-        item = self.item_for_key(key)
-        return item.data(SERIES_ROLE) if item is not None else None
+        return self._series.get(key)
 
     def all_series(self) -> list[SeriesData]:
-        return [item.data(SERIES_ROLE) for item in self.iter_series_items()]
+        return [self._series[str(item_value(item.index(), KEY_ROLE))] for item in self.iter_series_items()]
 
-    def series_under(self, index: QModelIndex | QPersistentModelIndex) -> list[SeriesData]:
+    def series_under(self, index: QModelIndex) -> list[SeriesData]:
         """The series an index stands for: itself, or every series of a workbook or sheet."""
         item = self.itemFromIndex(index.siblingAtColumn(0))
         if item is None:
             return []
-        if item.data(KIND_ROLE) == "series":
-            return [item.data(SERIES_ROLE)]
-        return [s.data(SERIES_ROLE) for s in self.iter_series_items(item)]
+        if item_value(item.index(), KIND_ROLE) == "series":
+            return [self._series[str(item_value(item.index(), KEY_ROLE))]]
+        return [self._series[str(item_value(s.index(), KEY_ROLE))] for s in self.iter_series_items(item)]
 
     def workbook_paths(self) -> list[str]:
-        return [str(self.item(r, 0).data(KEY_ROLE)) for r in range(self.rowCount())]
+        return [str(item_value(self.index(r, 0), KEY_ROLE)) for r in range(self.rowCount())]

@@ -4,10 +4,26 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING, Any
 
-from PySide6.QtCore import QItemSelectionModel, QModelIndex, QPoint, QSortFilterProxyModel, Qt, Signal
+from PySide6.QtCore import (
+    QItemSelectionModel,
+    QModelIndex,
+    QPoint,
+    QSortFilterProxyModel,
+    Qt,
+    Signal,
+)
 from PySide6.QtGui import QAction
-from PySide6.QtWidgets import QAbstractItemView, QHeaderView, QLineEdit, QMenu, QTreeView, QVBoxLayout, QWidget
+from PySide6.QtWidgets import (
+    QAbstractItemView,
+    QHeaderView,
+    QLineEdit,
+    QMenu,
+    QTreeView,
+    QVBoxLayout,
+    QWidget,
+)
 
+from tauscope.ui.qtcompat import item_value
 from tauscope.ui.roles import KEY_ROLE, KIND_ROLE, SORT_ROLE
 from tauscope.ui.series_model import FREQUENCY, GAPS, NAME, OBS, SHAPE, SPAN, SeriesTreeModel
 from tauscope.ui.sparkline import SparklineDelegate
@@ -21,6 +37,7 @@ class SeriesPanel(QWidget):
 
     current_changed = Signal(str)  # key of the current series ("" when none)
     transform_requested = Signal(str, str)  # series key, transform key
+    gaps_requested = Signal(str, str)  # series key, "cut" or "fill"
     run_requested = Signal()
 
     def __init__(self, parent: QWidget | None = None) -> None:
@@ -50,15 +67,15 @@ class SeriesPanel(QWidget):
         self.view.setUniformRowHeights(True)
         self.view.setAlternatingRowColors(True)
         self.view.setSortingEnabled(False)
-        self.view.setItemDelegateForColumn(SHAPE, SparklineDelegate(self.view))
+        self.view.setItemDelegateForColumn(SHAPE, SparklineDelegate(self.model.spark, self.view))
         self.view.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
         self.view.customContextMenuRequested.connect(self._context_menu)
         self.view.selectionModel().currentRowChanged.connect(self._current_row_changed)
         header = self.view.header()
         header.setStretchLastSection(False)
         header.setSectionResizeMode(NAME, QHeaderView.ResizeMode.Interactive)
-        for column, width in ((NAME, 150), (SHAPE, 86), (OBS, 44), (FREQUENCY, 74), (SPAN, 130),
-                              (GAPS, 60)):
+        for column, width in ((NAME, 178), (SHAPE, 54), (OBS, 34), (GAPS, 66), (SPAN, 122),
+                              (FREQUENCY, 72)):
             self.view.setColumnWidth(column, width)
 
         layout = QVBoxLayout(self)
@@ -76,8 +93,8 @@ class SeriesPanel(QWidget):
 
     def _current_row_changed(self, current: QModelIndex, _previous: QModelIndex) -> None:
         key = ""
-        if current.isValid() and current.data(KIND_ROLE) == "series":
-            key = str(current.siblingAtColumn(NAME).data(KEY_ROLE))
+        if current.isValid() and item_value(current, KIND_ROLE) == "series":
+            key = str(item_value(current.siblingAtColumn(NAME), KEY_ROLE))
         self.current_changed.emit(key)
 
     def selected_series(self) -> list[SeriesData]:
@@ -112,18 +129,26 @@ class SeriesPanel(QWidget):
 
     def current_key(self) -> str:
         index = self.view.currentIndex()
-        if index.isValid() and index.data(KIND_ROLE) == "series":
-            return str(index.siblingAtColumn(NAME).data(KEY_ROLE))
+        if index.isValid() and item_value(index, KIND_ROLE) == "series":
+            return str(item_value(index.siblingAtColumn(NAME), KEY_ROLE))
         return ""
 
     # context menu ------------------------------------------------------
     def _context_menu(self, pos: QPoint) -> None:
         index = self.view.indexAt(pos)
         menu = QMenu(self)
-        if index.isValid() and index.data(KIND_ROLE) == "series":
-            key = str(index.siblingAtColumn(NAME).data(KEY_ROLE))
+        if index.isValid() and item_value(index, KIND_ROLE) == "series":
+            key = str(item_value(index.siblingAtColumn(NAME), KEY_ROLE))
             transforms = self._transform_menu(menu, key)
             menu.addMenu(transforms)
+            series = self.model.series_for_key(key)
+            if series is not None and series.gaps:
+                cut = QAction("Keep the longest stretch without gaps", menu)
+                cut.triggered.connect(lambda: self.gaps_requested.emit(key, "cut"))
+                fill = QAction("Fill the gaps by linear interpolation", menu)
+                fill.triggered.connect(lambda: self.gaps_requested.emit(key, "fill"))
+                menu.addAction(cut)
+                menu.addAction(fill)
         run = QAction("Analyse the selected series", menu)
         run.triggered.connect(self.run_requested.emit)
         menu.addAction(run)

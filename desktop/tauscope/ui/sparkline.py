@@ -2,15 +2,18 @@
 
 from __future__ import annotations
 
+from collections.abc import Callable
+
 import numpy as np
 import pandas as pd
-from PySide6.QtCore import QModelIndex, QPersistentModelIndex, QPointF, QRectF, QSize
+from PySide6.QtCore import QModelIndex, QObject, QPersistentModelIndex, QPointF, QRectF, QSize
 from PySide6.QtGui import QPainter, QPalette, QPen, QPolygonF
 from PySide6.QtWidgets import QStyle, QStyledItemDelegate, QStyleOptionViewItem, QWidget
 
-from tauscope.ui.roles import SPARK_ROLE
+from tauscope.ui.qtcompat import item_value
+from tauscope.ui.roles import KEY_ROLE
 
-MAX_POINTS = 160
+MAX_POINTS = 90
 
 
 def sparkline_points(values: pd.Series, max_points: int = MAX_POINTS) -> np.ndarray:
@@ -35,7 +38,13 @@ def sparkline_points(values: pd.Series, max_points: int = MAX_POINTS) -> np.ndar
 
 
 class SparklineDelegate(QStyledItemDelegate):
-    """Paints the array found under SPARK_ROLE as a polyline inside the cell."""
+    """Paints the points ``lookup(key)`` gives for the row's series as a polyline."""
+
+    def __init__(self, lookup: Callable[[str], np.ndarray | None], parent: QObject | None = None
+                 ) -> None:
+        super().__init__(parent)
+        self._lookup = lookup
+        self._cache: dict[str, tuple[np.ndarray, list[QPolygonF]]] = {}
 
     def paint(
         self,
@@ -43,38 +52,55 @@ class SparklineDelegate(QStyledItemDelegate):
         option: QStyleOptionViewItem,
         index: QModelIndex | QPersistentModelIndex,
     ) -> None:
+        points = self._lookup(str(item_value(index, KEY_ROLE, "")))
+        if not isinstance(points, np.ndarray):
+            super().paint(painter, option, index)  # not a series row: plain text
+            return
         style_option = QStyleOptionViewItem(option)
         self.initStyleOption(style_option, index)
         style_option.text = ""
-        widget = option.widget  # type: ignore[attr-defined]
+        widget = option.widget
         style = widget.style() if isinstance(widget, QWidget) else None
         if style is not None:
             style.drawControl(QStyle.ControlElement.CE_ItemViewItem, style_option, painter, widget)
-        points = index.data(SPARK_ROLE)
-        if not isinstance(points, np.ndarray) or points.size < 2:
+        if points.size < 2:
             return
-        rect = QRectF(option.rect).adjusted(4, 4, -4, -4)  # type: ignore[attr-defined]
+        rect = QRectF(option.rect).adjusted(4, 4, -4, -4)
         if rect.width() < 8 or rect.height() < 4:
             return
-        selected = bool(option.state & QStyle.StateFlag.State_Selected)  # type: ignore[attr-defined]
+        selected = bool(option.state & QStyle.StateFlag.State_Selected)
         role = QPalette.ColorRole.HighlightedText if selected else QPalette.ColorRole.Text
-        pen = QPen(option.palette.color(role))  # type: ignore[attr-defined]
+        pen = QPen(option.palette.color(role))
         pen.setWidthF(1.2)
+        pen.setCosmetic(True)  # width in pixels, unaffected by the scaling below
         painter.save()
         painter.setRenderHint(QPainter.RenderHint.Antialiasing, True)
         painter.setPen(pen)
-        step = rect.width() / (points.size - 1)
-        segment = QPolygonF()
-        for i, value in enumerate(points):
-            if not np.isfinite(value):
-                if segment.size() > 1:
-                    painter.drawPolyline(segment)
-                segment = QPolygonF()
-                continue
-            segment.append(QPointF(rect.left() + i * step, rect.bottom() - float(value) * rect.height()))
-        if segment.size() > 1:
+        painter.translate(rect.left(), rect.bottom())
+        painter.scale(rect.width(), -rect.height())
+        for segment in self._segments(str(item_value(index, KEY_ROLE, "")), points):
             painter.drawPolyline(segment)
         painter.restore()
+
+    def _segments(self, key: str, points: np.ndarray) -> list[QPolygonF]:
+        """The drawing in unit coordinates (x and y in 0..1), built once per series."""
+        cached = self._cache.get(key)
+        if cached is not None and cached[0] is points:
+            return cached[1]
+        segments: list[QPolygonF] = []
+        xs = np.linspace(0.0, 1.0, points.size)
+        current: list[QPointF] = []
+        for x, y in zip(xs.tolist(), points.tolist(), strict=True):
+            if y != y:  # NaN: a gap breaks the line
+                if len(current) > 1:
+                    segments.append(QPolygonF(current))
+                current = []
+                continue
+            current.append(QPointF(x, y))
+        if len(current) > 1:
+            segments.append(QPolygonF(current))
+        self._cache[key] = (points, segments)
+        return segments
 
     def sizeHint(
         self, option: QStyleOptionViewItem, index: QModelIndex | QPersistentModelIndex

@@ -52,8 +52,10 @@ def save_settings(settings: Settings) -> None:
 def recent_files() -> list[str]:
     value = app_settings().value(KEY_RECENT, [])
     if isinstance(value, str):
-        value = [value] if value else []
-    return [str(v) for v in (value or [])][:MAX_RECENT]
+        return [value] if value else []
+    if not isinstance(value, list | tuple):
+        return []
+    return [str(v) for v in value][:MAX_RECENT]
 
 
 def add_recent_file(path: Path | str) -> list[str]:

@@ -27,8 +27,10 @@ GUIDE_ANCHORS = {"tau": "tau", "adf": "tau", "phi1": "phi", "phi2": "phi", "phi3
                  "z": "z", "kpss": "kpss"}
 
 DIFFERENCE_NAMES = {0: "Levels", 1: "First difference", 2: "Second difference"}
+DIFFERENCE_SHORT = {0: "Levels", 1: "1st diff.", 2: "2nd diff."}
 SPEC_NAMES = {"trend": "constant and trend", "constant": "constant only",
               "none": "no constant or trend"}
+SPEC_SHORT = {"trend": "trend", "constant": "constant", "none": "no terms"}
 LAG_RULE_SHORT = {"aic": "AIC", "bic": "BIC", "hqc": "HQC", "tsig": "t-sig", "maic": "MAIC",
                   "fixed": "fixed"}
 AGREEMENT_WORDS = {"confirmed": "agrees", "conflict": "disagrees", "inconclusive": "unclear",
@@ -58,4 +60,6 @@ def lag_text(lags: int, rule: str) -> str:
 
 
 def where_text(difference: int, spec: str) -> str:
-    return f"{DIFFERENCE_NAMES.get(difference, f'Difference {difference}')} · {SPEC_NAMES.get(spec, spec)}"
+    """Short words for where a step ran, e.g. "1st diff. · trend" (the regression with constant
+    and trend); the step's tooltip has the full sentence."""
+    return f"{DIFFERENCE_SHORT.get(difference, f'Difference {difference}')} · {SPEC_SHORT.get(spec, spec)}"

@@ -1,25 +1,29 @@
 """The analysis runs here, in a worker thread, never in the window's thread.
 
 Structure: :func:`iter_results` is the only place that calls the engine.  It
-yields one ``(job, result)`` pair per series and checks the stop flag between
-series; swapping the loop for ``tauscope.engine.analyse_many`` (when it lands)
-is a change to that one function.  :class:`AnalysisWorker` lives in a QThread
-and turns the pairs into queued signals; :class:`AnalysisRunner` (in the window
-thread) owns the thread, the stop flag and the signals the window listens to.
+reads each series' values, hands the testable ones to the engine's batched
+``iter_analyse`` (results in input order, ``should_stop`` asked before each
+series) and yields one :class:`Outcome` per series in the order given, bad data
+becoming that series' error.  :class:`AnalysisWorker` lives in a QThread and
+turns outcomes into queued signals; :class:`AnalysisRunner` (window thread) owns
+the thread, the stop flag and the signals the window listens to.
 """
 
 from __future__ import annotations
 
+import gc
 import threading
+import time
 import traceback
+from collections import deque
 from collections.abc import Callable, Iterator, Sequence
 from dataclasses import dataclass
-from typing import TYPE_CHECKING, Any
+from typing import TYPE_CHECKING
 
 import pandas as pd
-from PySide6.QtCore import QObject, QThread, Signal, Slot
+from PySide6.QtCore import QObject, QThread, QTimer, Signal, Slot
 
-from tauscope.engine import SeriesResult, Settings, analyse_series
+from tauscope.engine import SeriesResult, Settings, analyse_series, iter_analyse
 from tauscope.engine.results import EMPTY_VERDICT
 
 if TYPE_CHECKING:
@@ -68,21 +72,60 @@ def analyse_job(job: Job, settings: Settings) -> Outcome:
         return Outcome(job, error_result(job.name, message, settings), traceback.format_exc())
 
 
+def _read_values(job: Job, settings: Settings) -> pd.Series | SeriesResult:
+    """The job's values, or an error result when the data cannot be tested as they are."""
+    from tauscope.data import DataError
+
+    try:
+        return job.values()
+    except DataError as exc:
+        return error_result(job.name, str(exc), settings)
+
+
 def iter_results(jobs: Sequence[Job], settings: Settings, should_stop: Callable[[], bool],
                  on_start: Callable[[int, Job], None]) -> Iterator[Outcome]:
-    """One outcome per series, in order, until done or ``should_stop()`` says stop."""
-    for number, job in enumerate(jobs):
+    """One outcome per series, in order, until done or ``should_stop()`` says stop.
+
+    The testable series go through ``iter_analyse`` (batched; equal to analyse_series
+    on each).  If the batch stream itself fails, the series concerned is marked with the
+    problem and the rest continue one at a time through :func:`analyse_job`.
+    """
+    payloads = [_read_values(job, settings) for job in jobs]
+    testable = [(job.name, p) for job, p in zip(jobs, payloads, strict=True)
+                if not isinstance(p, SeriesResult)]
+    stream: Iterator[SeriesResult] | None = iter_analyse(testable, settings, should_stop)
+    for number, (job, payload) in enumerate(zip(jobs, payloads, strict=True)):
         if should_stop():
             return
         on_start(number, job)
-        yield analyse_job(job, settings)
+        if isinstance(payload, SeriesResult):
+            yield Outcome(job, payload)
+            continue
+        if stream is None:
+            yield analyse_job(job, settings)
+            continue
+        try:
+            result = next(stream)
+        except StopIteration:
+            return  # the engine stopped because should_stop() said so
+        except Exception as exc:
+            stream = None
+            message = (f"“{job.name}” could not be tested: an unexpected problem occurred "
+                       f"({type(exc).__name__}: {exc}).")
+            yield Outcome(job, error_result(job.name, message, settings), traceback.format_exc())
+            continue
+        yield Outcome(job, result)
 
 
 class AnalysisWorker(QObject):
-    """Runs :func:`iter_results` in its thread and reports through queued signals."""
+    """Runs :func:`iter_results` in its thread.
 
-    series_started = Signal(int, str)  # number of finished series, name of the next one
-    series_done = Signal(str, object)  # key, SeriesResult
+    Outcomes go into ``outbox`` (a deque: appending and popping from two threads is
+    safe) instead of one queued signal each, so a fast engine cannot flood the
+    window's event queue; the runner drains the outbox on a timer, within a time
+    budget per tick.
+    """
+
     crashed = Signal(str)  # traceback text of an unexpected failure
     finished = Signal(bool)  # True when stopped before the end
 
@@ -91,47 +134,68 @@ class AnalysisWorker(QObject):
         self._jobs = list(jobs)
         self._settings = settings
         self._stop = stop
+        self.outbox: deque[Outcome] = deque()
+        self.current = ""  # name of the series being analysed
+        self.done = False
+
+    def _started(self, _number: int, job: Job) -> None:
+        self.current = job.name
 
     @Slot()
     def run(self) -> None:
         crashes: list[str] = []
         try:
             for outcome in iter_results(self._jobs, self._settings, self._stop.is_set,
-                                        lambda n, job: self.series_started.emit(n, job.name)):
-                self.series_done.emit(outcome.job.key, outcome.result)
+                                        self._started):
+                self.outbox.append(outcome)
                 if outcome.crash:
                     crashes.append(outcome.crash)
         except Exception:
             crashes.append(traceback.format_exc())
         if crashes:
             self.crashed.emit("\n\n".join(crashes))
+        self.done = True
         self.finished.emit(self._stop.is_set())
+        # End the thread's event loop from inside, so waiting for the thread never depends
+        # on the window thread handling the finished signal first (it may be blocked closing).
+        thread = QThread.currentThread()
+        if thread is not None:
+            thread.quit()
 
 
 class AnalysisRunner(QObject):
-    """Owns one run at a time: starts the worker thread, stops it, forwards its signals."""
+    """Owns one run at a time: starts the worker thread, stops it, and hands results to
+    the window a few at a time from a timer (at most ``budget_ms`` of work per tick)."""
 
     started = Signal(int)  # number of series in the run
     progress = Signal(int, int, str)  # done, total, name of the series being analysed
     result_ready = Signal(str, object)  # key, SeriesResult
     crashed = Signal(str)
-    finished = Signal(bool, int)  # stopped?, number of results received
+    finished = Signal(bool, int)  # stopped?, number of results delivered
+
+    TICK_MS = 15
+    budget_ms = 8.0
 
     def __init__(self, parent: QObject | None = None) -> None:
         super().__init__(parent)
         self._thread: QThread | None = None
         self._worker: AnalysisWorker | None = None
         self._stop = threading.Event()
+        self._stopped = False
         self._total = 0
         self._received = 0
+        self._timer = QTimer(self)
+        self._timer.setInterval(self.TICK_MS)
+        self._timer.timeout.connect(self._drain)
 
     def is_running(self) -> bool:
-        return self._thread is not None
+        return self._worker is not None
 
     def start(self, jobs: Sequence[Job], settings: Settings) -> bool:
-        if self._thread is not None or not jobs:
+        if self._worker is not None or not jobs:
             return False
         self._stop = threading.Event()
+        self._stopped = False
         self._total = len(jobs)
         self._received = 0
         thread = QThread()
@@ -139,13 +203,16 @@ class AnalysisRunner(QObject):
         worker = AnalysisWorker(jobs, settings, self._stop)
         worker.moveToThread(thread)
         thread.started.connect(worker.run)
-        worker.series_started.connect(self._on_series_started)
-        worker.series_done.connect(self._on_series_done)
         worker.crashed.connect(self.crashed)
         worker.finished.connect(self._on_worker_finished)
         self._thread, self._worker = thread, worker
         self.started.emit(self._total)
+        # A full garbage collection walks every object of the libraries loaded so far and
+        # holds the GIL meanwhile (~0.4 s): triggered in the worker it would freeze the
+        # window.  Objects alive now are moved out of the collector's way.
+        gc.freeze()
         thread.start()
+        self._timer.start()
         return True
 
     def stop(self) -> None:
@@ -153,34 +220,46 @@ class AnalysisRunner(QObject):
         self._stop.set()
 
     def wait(self, msecs: int = 10_000) -> bool:
-        """Block until the worker thread has ended (used when the window closes)."""
+        """Block until the worker thread has ended, then end the run without delivering
+        what is left.  Only for closing the window: to wait for results, let the event
+        loop run until ``finished``."""
         thread = self._thread
         if thread is None:
             return True
-        done = thread.wait(msecs)
+        done = bool(thread.wait(msecs))
         if done:
-            self._cleanup()
+            self._finish()
         return done
 
-    def _on_series_started(self, done: int, name: str) -> None:
-        self.progress.emit(done, self._total, name)
-
-    def _on_series_done(self, key: str, result: Any) -> None:
-        self._received += 1
-        self.result_ready.emit(key, result)
-        self.progress.emit(self._received, self._total, "")
+    def _drain(self) -> None:
+        worker = self._worker
+        if worker is None:
+            self._timer.stop()
+            return
+        deadline = time.perf_counter() + self.budget_ms / 1000
+        delivered = False
+        while worker.outbox and time.perf_counter() < deadline:
+            outcome = worker.outbox.popleft()
+            self._received += 1
+            delivered = True
+            self.result_ready.emit(outcome.job.key, outcome.result)
+        if delivered or worker.current:
+            name = "" if worker.done else worker.current
+            self.progress.emit(self._received, self._total, name)
+        if worker.done and not worker.outbox and self._thread is not None \
+                and self._thread.isFinished():
+            self._finish()
 
     def _on_worker_finished(self, stopped: bool) -> None:
-        thread = self._thread
-        if thread is not None:
-            thread.quit()
-            thread.wait()
-        self._cleanup()
-        self.finished.emit(stopped, self._received)
+        self._stopped = stopped
 
-    def _cleanup(self) -> None:
+    def _finish(self) -> None:
+        self._timer.stop()
         if self._worker is not None:
+            self._stopped = self._stopped or self._stop.is_set()
             self._worker.deleteLater()
         if self._thread is not None:
+            self._thread.wait()
             self._thread.deleteLater()
         self._worker, self._thread = None, None
+        self.finished.emit(self._stopped, self._received)

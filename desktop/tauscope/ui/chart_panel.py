@@ -1,0 +1,406 @@
+"""The Chart panel (pyqtgraph): the data, and after analysis the fitted path, the
+statistic across lag orders and the null distribution of the statistic."""
+
+from __future__ import annotations
+
+from typing import TYPE_CHECKING, Any
+
+import numpy as np
+import pandas as pd
+import pyqtgraph as pg
+from PySide6.QtCore import QObject, QRunnable, Qt, QThreadPool, Signal
+from PySide6.QtGui import QColor, QPalette
+from PySide6.QtWidgets import QLabel, QStackedWidget, QTabWidget, QVBoxLayout, QWidget
+
+from tauscope.engine import SeriesResult
+from tauscope.engine import formatting as fmt
+from tauscope.ui.texts import DIFFERENCE_NAMES, SPEC_NAMES
+
+if TYPE_CHECKING:
+    from tauscope.data import SeriesData
+
+_EPOCH = pd.Timestamp("1970-01-01")
+
+
+def x_positions(index: pd.Index) -> tuple[np.ndarray, bool]:
+    """Seconds since 1970 for dated series (for the date axis), else observation numbers."""
+    if isinstance(index, pd.PeriodIndex):
+        stamps = index.to_timestamp(how="start")
+        return np.asarray((stamps - _EPOCH) / pd.Timedelta(seconds=1), dtype=float), True
+    if isinstance(index, pd.DatetimeIndex):
+        naive = index.tz_localize(None) if index.tz is not None else index
+        return np.asarray((naive - _EPOCH) / pd.Timedelta(seconds=1), dtype=float), True
+    try:
+        return np.asarray(index, dtype=float), False
+    except (TypeError, ValueError):
+        return np.arange(1, len(index) + 1, dtype=float), False
+
+
+class ChartPage(QStackedWidget):
+    """A plot area that can show a sentence instead when there is nothing to draw."""
+
+    def __init__(self, name: str, parent: QWidget | None = None, dates: bool = False) -> None:
+        super().__init__(parent)
+        self.message = QLabel(self)
+        self.message.setWordWrap(True)
+        self.message.setAlignment(Qt.AlignmentFlag.AlignCenter)
+        self.message.setMargin(16)
+        self.layout_widget = pg.GraphicsLayoutWidget(self)
+        self.layout_widget.setAccessibleName(name)
+        self.addWidget(self.message)
+        self.addWidget(self.layout_widget)
+        self.setAccessibleName(name)
+        self.dates = dates
+        self._plots: dict[tuple[int, bool], pg.PlotItem] = {}
+        self._shown: list[pg.PlotItem] = []
+
+    def say(self, text: str) -> None:
+        self.message.setText(text)
+        self.setCurrentWidget(self.message)
+
+    def new_plot(self, row: int = 0, dates: bool = False, title: str = "") -> pg.PlotItem:
+        """An empty plot in this row, reused between drawings (making a PlotItem is slow)."""
+        key = (row, dates)
+        plot = self._plots.get(key)
+        if plot is None:
+            axis = {"bottom": pg.DateAxisItem(orientation="bottom", utcOffset=0)} if dates else None
+            plot = self.layout_widget.addPlot(row=row, col=0, axisItems=axis)
+            plot.showGrid(x=True, y=True, alpha=0.15)
+            plot.setClipToView(True)
+            plot.setDownsampling(auto=True, mode="peak")
+            self._plots[key] = plot
+        else:
+            self.layout_widget.addItem(plot, row=row, col=0)
+            plot.clear()
+            if plot.legend is not None:
+                plot.legend.clear()
+            plot.setXLink(None)
+            plot.enableAutoRange()
+        plot.setTitle(title or None)
+        self._shown.append(plot)
+        return plot
+
+    def legend(self, plot: pg.PlotItem, color: QColor, background: QColor,
+               corner: str = "top-right") -> None:
+        """A legend on a half-transparent background in one corner (negative offsets count
+        from the right or bottom edge)."""
+        offsets = {"top-right": (-10, 10), "top-left": (10, 10), "bottom-right": (-10, -10),
+                   "bottom-left": (10, -10)}
+        fill = QColor(background)
+        fill.setAlpha(215)
+        if plot.legend is None:
+            plot.addLegend(offset=offsets[corner], labelTextColor=color, brush=pg.mkBrush(fill))
+        else:
+            plot.legend.setLabelTextColor(color)
+            plot.legend.setBrush(pg.mkBrush(fill))
+            plot.legend.setOffset(offsets[corner])
+
+    def show_plots(self) -> None:
+        self.setCurrentWidget(self.layout_widget)
+
+    def clear(self) -> None:
+        """Take the plots off the page (they are kept for the next drawing)."""
+        for plot in self._shown:
+            self.layout_widget.removeItem(plot)
+        self._shown = []
+
+
+def _null_distribution_function() -> Any:
+    """The engine's simulator of τ under the null, wherever this version keeps it."""
+    import importlib
+
+    for module_name in ("tauscope.engine", "tauscope.engine.simulate"):
+        try:
+            module = importlib.import_module(module_name)
+        except ImportError:
+            continue
+        function = getattr(module, "null_distribution", None)
+        if function is not None:
+            return function
+    return None
+
+
+class _NullSignals(QObject):
+    done = Signal(object, object)  # cache key, array or error text
+
+
+class _NullTask(QRunnable):
+    def __init__(self, key: tuple[str, int, int], signals: _NullSignals) -> None:
+        super().__init__()
+        self.key = key
+        self.signals = signals
+
+    def run(self) -> None:
+        null_distribution = _null_distribution_function()
+        if null_distribution is None:
+            self.signals.done.emit(self.key, "The simulated null distribution is not available in "
+                                             "this version of Tauscope yet.")
+            return
+        spec, nobs, lags = self.key
+        try:
+            try:
+                draws = null_distribution(spec, nobs, lags=lags)
+            except TypeError:  # a simulator without the lag argument
+                draws = null_distribution(spec, nobs)
+            self.signals.done.emit(self.key, np.asarray(draws, dtype=float))
+        except Exception as exc:
+            self.signals.done.emit(self.key, f"The null distribution could not be simulated ({exc}).")
+
+
+class ChartPanel(QWidget):
+    """Tabs: Data, Fitted path, Lag orders, Null distribution."""
+
+    def __init__(self, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        pg.setConfigOptions(antialias=True)
+        self.tabs = QTabWidget(self)
+        self.tabs.setAccessibleName("Chart views")
+        self.data_page = ChartPage("Data chart", self)
+        self.fitted_page = ChartPage("Fitted path chart", self)
+        self.lags_page = ChartPage("Lag orders chart", self)
+        self.null_page = ChartPage("Null distribution chart", self)
+        self.tabs.addTab(self.data_page, "Data")
+        self.tabs.addTab(self.fitted_page, "Fitted path")
+        self.tabs.addTab(self.lags_page, "Lag orders")
+        self.tabs.addTab(self.null_page, "Null distribution")
+        tips = ("The series and its first difference.",
+                "The tested series with the deterministic path the verdict implies "
+                "(mean, trend or drift).",
+                "The ADF statistic τ for every lag order from 0 to the maximum, with the critical "
+                "value; the chosen lag order is marked.",
+                "How τ is distributed when there really is a unit root, at this sample size, "
+                "against the standard normal, with the observed τ and the critical value.")
+        for i, tip in enumerate(tips):
+            self.tabs.setTabToolTip(i, tip + "\nPress F1 for the guide's section on this chart.")
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(0, 0, 0, 0)
+        layout.addWidget(self.tabs)
+        self._null_cache: dict[tuple[str, int, int], Any] = {}
+        self._null_pending: set[tuple[str, int, int]] = set()
+        self._null_signals = _NullSignals(self)
+        self._null_signals.done.connect(self._null_ready)
+        self._series: SeriesData | None = None
+        self._result: SeriesResult | None = None
+        self._dirty: set[int] = set()
+        self._stale_colors = False
+        self.tabs.currentChanged.connect(self._draw_current)
+        self._apply_colors()
+        self.show_nothing()
+
+    GUIDE_ANCHORS = ("chart-data", "chart-fitted", "chart-lags", "chart-null")
+
+    def current_guide_anchor(self) -> str:
+        return self.GUIDE_ANCHORS[max(self.tabs.currentIndex(), 0)]
+
+    # colours ------------------------------------------------------------
+    def _apply_colors(self) -> None:
+        palette = self.palette()
+        self._bg = palette.color(QPalette.ColorRole.Base)
+        self._fg = palette.color(QPalette.ColorRole.Text)
+        dark = self._bg.lightness() < 128
+        self._line = QColor("#7fb2ff") if dark else QColor("#1f4e99")
+        self._accent = QColor("#ffb347") if dark else QColor("#b35900")
+        for page in (self.data_page, self.fitted_page, self.lags_page, self.null_page):
+            page.layout_widget.setBackground(self._bg)
+
+    def changeEvent(self, event: Any) -> None:
+        super().changeEvent(event)
+        if not hasattr(self, "_dirty"):
+            return  # still being built
+        if event.type() in (event.Type.PaletteChange, event.Type.ApplicationPaletteChange):
+            self._apply_colors()
+            self._stale_colors = True  # redraw in the new colours
+            self.display(self._series, self._result)
+
+    def _legend_fill(self) -> QColor:
+        fill = QColor(self._bg)
+        fill.setAlpha(215)
+        return fill
+
+    def _style(self, plot: pg.PlotItem) -> None:
+        for name in ("left", "bottom"):
+            axis = plot.getAxis(name)
+            axis.enableAutoSIPrefix(False)  # plain numbers, no "(x0.001)" scaling
+            axis.setPen(self._fg)
+            axis.setTextPen(self._fg)
+        plot.titleLabel.setAttr("color", self._fg)
+
+    # content ------------------------------------------------------------
+    def show_nothing(self) -> None:
+        self._series, self._result = None, None
+        self._dirty = set()
+        self.data_page.say("Pick a series on the left to see it here.")
+        for page in (self.fitted_page, self.lags_page, self.null_page):
+            page.say("Analyse a series (F5) to see this view.")
+
+    def display(self, series: SeriesData | None, result: SeriesResult | None) -> None:
+        """Show one series (and its result, once analysed).  Only the view in front is
+        drawn now; the others when their tab is chosen."""
+        if series is self._series and result is self._result and not self._stale_colors:
+            return
+        same_data = series is not None and series is self._series and not self._stale_colors \
+            and 0 not in self._dirty
+        self._stale_colors = False
+        self._series, self._result = series, result
+        if series is None and result is None:
+            self.show_nothing()
+            return
+        self._dirty = {1, 2, 3} if same_data else {0, 1, 2, 3}
+        self._draw_current()
+
+    def _draw_current(self, *_args: Any) -> None:
+        index = self.tabs.currentIndex()
+        if index not in self._dirty:
+            return
+        self._dirty.discard(index)
+        series, result = self._series, self._result
+        if index == 0:
+            self._draw_data(series, result)
+        elif index == 1:
+            self._draw_fitted(result)
+        elif index == 2:
+            self._draw_lags(result)
+        else:
+            self._draw_null(result)
+
+    def _draw_data(self, series: SeriesData | None, result: SeriesResult | None) -> None:
+        page = self.data_page
+        values = series.values if series is not None else (result.values if result else None)
+        name = series.name if series is not None else (result.name if result else "")
+        if values is None or len(values) < 2:
+            page.say("There are too few values to draw.")
+            return
+        page.clear()
+        x, dates = x_positions(values.index)
+        y = np.asarray(values, dtype=float)
+        top = page.new_plot(0, dates, f"{name}")
+        top.plot(x, y, pen=pg.mkPen(self._line, width=1.5), connect="finite")
+        bottom = page.new_plot(1, dates, "First difference")
+        bottom.plot(x[1:], np.diff(y), pen=pg.mkPen(self._accent, width=1.2), connect="finite")
+        bottom.addLine(y=0, pen=pg.mkPen(self._fg, width=0.8, style=Qt.PenStyle.DotLine))
+        bottom.setXLink(top)
+        for plot in (top, bottom):
+            self._style(plot)
+        page.show_plots()
+
+    def _draw_fitted(self, result: SeriesResult | None) -> None:
+        page = self.fitted_page
+        if result is None:
+            page.say("Analyse this series (F5) to see the deterministic path the verdict implies.")
+            return
+        if result.error is not None:
+            page.say(str(result.error))
+            return
+        if result.values is None or result.fitted is None:
+            page.say("There is no deterministic path to draw for this verdict.")
+            return
+        page.clear()
+        x, dates = x_positions(result.values.index)
+        plot = page.new_plot(0, dates, f"{result.name}: {result.verdict.label}")
+        page.legend(plot, self._fg, self._bg, "bottom-right")
+        plot.plot(x, np.asarray(result.values, dtype=float), pen=pg.mkPen(self._line, width=1.5),
+                  name="series")
+        plot.plot(x, np.asarray(result.fitted, dtype=float),
+                  pen=pg.mkPen(self._accent, width=2, style=Qt.PenStyle.DashLine),
+                  name="deterministic path")
+        self._style(plot)
+        page.show_plots()
+
+    def _profile_test(self, result: SeriesResult) -> Any:
+        if result.lag_profile_spec is None:
+            return None
+        return result.find("adf", result.lag_profile_spec, result.lag_profile_difference or 0)
+
+    def _draw_lags(self, result: SeriesResult | None) -> None:
+        page = self.lags_page
+        if result is None:
+            page.say("Analyse this series (F5) to see how τ changes with the lag order.")
+            return
+        if result.error is not None or not result.lag_profile:
+            page.say(result.error or "No lag profile was computed for this series.")
+            return
+        page.clear()
+        lags = np.array([p.lag for p in result.lag_profile], dtype=float)
+        taus = np.array([p.statistic for p in result.lag_profile], dtype=float)
+        crit = np.array([p.critical_value for p in result.lag_profile], dtype=float)
+        spec = SPEC_NAMES.get(result.lag_profile_spec or "", "")
+        where = DIFFERENCE_NAMES.get(result.lag_profile_difference or 0, "")
+        plot = page.new_plot(0, False, f"τ by lag order · {where}, {spec}")
+        page.legend(plot, self._fg, self._bg, "top-right")
+        plot.plot(lags, taus, pen=pg.mkPen(self._line, width=1.5), symbol="o", symbolSize=6,
+                  symbolBrush=self._line, name="τ")
+        plot.plot(lags, crit, pen=pg.mkPen(self._fg, width=1.2, style=Qt.PenStyle.DashLine),
+                  name="5% critical value")
+        test = self._profile_test(result)
+        if test is not None:
+            chosen = pg.InfiniteLine(pos=test.lags, angle=90,
+                                     pen=pg.mkPen(self._accent, width=1.5, style=Qt.PenStyle.DotLine),
+                                     label=f"chosen: {test.lags}",
+                                     labelOpts={"position": 0.06, "color": self._fg,
+                                                "fill": self._legend_fill()})
+            plot.addItem(chosen)
+        plot.setLabel("bottom", "lag order", color=self._fg.name())
+        plot.setLabel("left", "τ", color=self._fg.name())
+        self._style(plot)
+        page.show_plots()
+
+    def _draw_null(self, result: SeriesResult | None) -> None:
+        page = self.null_page
+        if result is None:
+            page.say("Analyse this series (F5) to compare its τ with the distribution under a "
+                     "unit root.")
+            return
+        test = self._profile_test(result) if result.error is None else None
+        if test is None:
+            page.say(result.error or "No ADF test to show for this series.")
+            return
+        key = (str(test.spec), int(test.nobs), int(test.lags))
+        cached = self._null_cache.get(key)
+        if cached is None:
+            page.say(f"Simulating the distribution of τ under a unit root for {test.nobs} "
+                     "observations…")
+            if key not in self._null_pending:
+                self._null_pending.add(key)
+                QThreadPool.globalInstance().start(_NullTask(key, self._null_signals))
+            return
+        if isinstance(cached, str):
+            page.say(cached)
+            return
+        self._plot_null(page, cached, test)
+
+    def _null_ready(self, key: Any, value: Any) -> None:
+        self._null_pending.discard(key)
+        self._null_cache[key] = value
+        if self._result is not None and 3 not in self._dirty:
+            self._draw_null(self._result)
+
+    def _plot_null(self, page: ChartPage, draws: np.ndarray, test: Any) -> None:
+        from scipy.stats import norm
+
+        page.clear()
+        draws = draws[np.isfinite(draws)]
+        spec = SPEC_NAMES.get(test.spec, test.spec)
+        plot = page.new_plot(0, False, f"τ under a unit root · {spec}, {test.nobs} obs.")
+        page.legend(plot, self._fg, self._bg, "top-right")
+        heights, edges = np.histogram(draws, bins=60, density=True)
+        plot.plot(edges, heights, stepMode="center", fillLevel=0,
+                  brush=pg.mkBrush(self._line.red(), self._line.green(), self._line.blue(), 70),
+                  pen=pg.mkPen(self._line, width=1.2), name=f"simulated τ ({draws.size} draws)")
+        grid = np.linspace(min(edges[0], -4.5), max(edges[-1], 4.5), 300)
+        plot.plot(grid, norm.pdf(grid), pen=pg.mkPen(self._fg, width=1.2, style=Qt.PenStyle.DashLine),
+                  name="standard normal")
+        observed = pg.InfiniteLine(pos=test.statistic, angle=90, pen=pg.mkPen(self._accent, width=2),
+                                   label=f"observed τ = {fmt.stat(test.statistic)}",
+                                   labelOpts={"position": 0.55, "color": self._fg,
+                                              "fill": self._legend_fill()})
+        critical = pg.InfiniteLine(
+            pos=test.critical_value, angle=90,
+            pen=pg.mkPen(self._fg, width=1.5, style=Qt.PenStyle.DotLine),
+            label=f"critical value {fmt.stat(test.critical_value)}",
+            labelOpts={"position": 0.35, "color": self._fg, "fill": self._legend_fill()})
+        plot.addItem(observed)
+        plot.addItem(critical)
+        plot.setLabel("bottom", "τ", color=self._fg.name())
+        plot.setLabel("left", "density", color=self._fg.name())
+        self._style(plot)
+        page.show_plots()

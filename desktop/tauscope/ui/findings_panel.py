@@ -1,0 +1,143 @@
+"""The Findings panel: the tree view of verdicts, decision paths and regressions."""
+
+from __future__ import annotations
+
+from PySide6.QtCore import QItemSelectionModel, QMimeData, QModelIndex, QPoint, Qt, Signal
+from PySide6.QtGui import QAction, QGuiApplication, QKeySequence
+from PySide6.QtWidgets import QAbstractItemView, QMenu, QTreeView, QVBoxLayout, QWidget
+
+from tauscope.ui.findings_model import (
+    COLUMNS,
+    NAME,
+    VERDICT,
+    FindingsModel,
+    FindingsSortProxy,
+    rows_as_table,
+)
+from tauscope.ui.qtcompat import item_value
+from tauscope.ui.roles import GUIDE_ROLE, KEY_ROLE
+
+
+def _path(index: QModelIndex) -> tuple[int, ...]:
+    """Rows from the top down to an index: a hashable identity for a source row."""
+    rows: list[int] = []
+    while index.isValid():
+        rows.append(index.row())
+        index = index.parent()
+    return tuple(reversed(rows))
+
+
+class FindingsPanel(QWidget):
+    current_changed = Signal(str)  # key of the series the current row belongs to
+    guide_requested = Signal(str)  # guide anchor
+
+    def __init__(self, parent: QWidget | None = None) -> None:
+        super().__init__(parent)
+        self.model = FindingsModel(self)
+        self.proxy = FindingsSortProxy(self)
+        self.proxy.setSourceModel(self.model)
+        self.view = QTreeView(self)
+        self.view.setModel(self.proxy)
+        self.view.setAccessibleName("Findings")
+        self.view.setAccessibleDescription(
+            "Verdict for each analysed series; expand a row for the decision path")
+        self.view.setSortingEnabled(True)
+        self.view.sortByColumn(-1, Qt.SortOrder.AscendingOrder)  # arrival order until a click
+        self.view.setSelectionMode(QAbstractItemView.SelectionMode.ExtendedSelection)
+        self.view.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
+        self.view.setAlternatingRowColors(True)
+        self.view.setUniformRowHeights(True)
+        self.view.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
+        self.view.customContextMenuRequested.connect(self._context_menu)
+        self.view.selectionModel().currentRowChanged.connect(self._current_row_changed)
+        self.view.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
+        self.view.expanded.connect(self._expanded)
+        for column, width in enumerate((164, 186, 96, 90, 84, 90, 82, 62, 38)):
+            self.view.setColumnWidth(column, width)
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(0, 0, 0, 0)
+        layout.addWidget(self.view)
+        self.setFocusProxy(self.view)
+
+    def _current_row_changed(self, current: QModelIndex, _previous: QModelIndex) -> None:
+        self.current_changed.emit(str(item_value(current, KEY_ROLE, "")))
+
+    def _expanded(self, index: QModelIndex) -> None:
+        self.model.populate(self.proxy.mapToSource(index))
+
+    def expand_all(self) -> None:
+        self.model.populate_all()
+        self.view.expandAll()
+
+    def select_key(self, key: str) -> None:
+        row = self.model.row_for_key(key)
+        if row is None:
+            self.view.clearSelection()
+            return
+        index = self.proxy.mapFromSource(self.model.index(row, NAME))
+        if item_value(self.view.currentIndex(), KEY_ROLE) == key:
+            return
+        self.view.selectionModel().setCurrentIndex(
+            index, QItemSelectionModel.SelectionFlag.ClearAndSelect
+            | QItemSelectionModel.SelectionFlag.Rows)
+        self.view.scrollTo(index)
+
+    def current_guide_anchor(self) -> str:
+        index = self.view.currentIndex()
+        return str(item_value(index, GUIDE_ROLE, ""))
+
+    # copying ------------------------------------------------------------
+    def selected_table(self) -> tuple[list[str], list[list[str]]]:
+        """Selected rows in display order, the first column indented by depth."""
+        selected = {_path(self.proxy.mapToSource(i))
+                    for i in self.view.selectionModel().selectedRows(NAME)}
+        rows: list[list[str]] = []
+
+        def walk(parent: QModelIndex, depth: int) -> None:
+            for r in range(self.proxy.rowCount(parent)):
+                index = self.proxy.index(r, NAME, parent)
+                source = self.proxy.mapToSource(index)
+                if _path(source) in selected:
+                    cells = [str(item_value(self.proxy.index(r, c, parent),
+                                            Qt.ItemDataRole.DisplayRole, ""))
+                             for c in range(len(COLUMNS))]
+                    cells[0] = "  " * depth + cells[0]
+                    rows.append(cells)
+                walk(index, depth + 1)
+
+        walk(QModelIndex(), 0)
+        return list(COLUMNS), rows
+
+    def copy_selection(self) -> QMimeData | None:
+        header, rows = self.selected_table()
+        if not rows:
+            return None
+        tsv, table = rows_as_table(header, rows)
+        mime = QMimeData()
+        mime.setText(tsv)
+        mime.setHtml(table)
+        QGuiApplication.clipboard().setMimeData(mime)
+        return mime
+
+    def _context_menu(self, pos: QPoint) -> None:
+        menu = QMenu(self)
+        copy = QAction("Copy the selected rows as a table", menu)
+        copy.setShortcut(QKeySequence(QKeySequence.StandardKey.Copy))
+        copy.triggered.connect(self.copy_selection)
+        menu.addAction(copy)
+        expand = QAction("Expand all", menu)
+        expand.triggered.connect(self.expand_all)
+        collapse = QAction("Collapse all", menu)
+        collapse.triggered.connect(self.view.collapseAll)
+        menu.addAction(expand)
+        menu.addAction(collapse)
+        index = self.view.indexAt(pos)
+        anchor = str(item_value(index, GUIDE_ROLE, ""))
+        if anchor:
+            explain = QAction("Explain this in the guide", menu)
+            explain.triggered.connect(lambda: self.guide_requested.emit(anchor))
+            menu.addAction(explain)
+        menu.popup(self.view.viewport().mapToGlobal(pos))
+
+    def resize_for_content(self) -> None:
+        self.view.resizeColumnToContents(VERDICT)

@@ -1,0 +1,199 @@
+"""The built-in guide (offline), as HTML.  Anchors are used by tooltips, F1 and links."""
+
+from __future__ import annotations
+
+SECTIONS = (
+    ("start", "Getting started"),
+    ("sequence", "What the testing sequence does"),
+    ("tau", "τ: the ADF unit-root statistic"),
+    ("phi", "Φ1, Φ2, Φ3: the joint tests"),
+    ("z", "z: when the normal distribution applies"),
+    ("kpss", "The KPSS cross-check"),
+    ("lags", "Lag order and how it is chosen"),
+    ("critical", "Critical values"),
+    ("pvalues", "p-values"),
+    ("decisions", "Decisions: rejected and not rejected"),
+    ("verdicts", "The verdicts"),
+    ("regression", "The regression behind a step"),
+    ("statistics", "The statistics at a glance"),
+    ("chart-data", "Chart: Data"),
+    ("chart-fitted", "Chart: Fitted path"),
+    ("chart-lags", "Chart: Lag orders"),
+    ("chart-null", "Chart: Null distribution"),
+    ("settings", "Settings"),
+    ("references", "References"),
+)
+
+_BODY = {
+    "start": """
+<p>Open a workbook (<b>Ctrl+O</b>, or drag files onto the window). Its sheets and series appear
+in the <b>Series</b> panel with a small drawing of each. Select the series you want (Ctrl+A for
+all), press <b>F5</b>, and the verdicts arrive one series at a time in the <b>Findings</b> panel.
+<b>Esc</b> stops a run; the results already in are kept. Pick a row to see its chart in the
+<b>Chart</b> panel and its plain-language note in the <b>Reading</b> panel. <b>Ctrl+C</b> copies
+the selected findings as a table that pastes into a spreadsheet or a word processor.</p>
+<p>Right-click a series to add a transformed copy: natural log, first difference, growth in %
+(log difference × 100) or seasonal difference. The copy appears under the series it came from.</p>""",
+    "sequence": """
+<p>A series with a <i>unit root</i> wanders without returning to a fixed mean or trend; shocks
+to it are permanent. Regressions on such series can show relations that are not there
+(spurious regression), so applied work first settles how often each series must be differenced
+to become stationary: its <i>order of integration</i>, I(0), I(1) or I(2).</p>
+<p>The Augmented Dickey-Fuller (ADF) regression is</p>
+<p style='margin-left:2em'>Δy<sub>t</sub> = a<sub>0</sub> + a<sub>2</sub>·t + γ·y<sub>t−1</sub>
++ Σ β<sub>i</sub> Δy<sub>t−i</sub> + e<sub>t</sub></p>
+<p>and a unit root means γ = 0 (Dickey &amp; Fuller 1979; Said &amp; Dickey 1984). Which
+deterministic terms belong (constant a<sub>0</sub>, trend a<sub>2</sub>) matters: leaving out a
+term that belongs makes the test lose power, adding one that does not costs power as well. Tauscope
+therefore follows the sequence of Dolado, Jenkinson &amp; Sosvilla-Rivero (1990):</p>
+<ol>
+<li>Start with constant and trend and test γ = 0 with τ. If τ rejects, there is no unit root;
+the trend's own t statistic then says whether the series is stationary around a trend or around
+a mean.</li>
+<li>If τ does not reject, Φ3 asks whether the trend belongs. If it does, γ = 0 is tested
+against the standard normal (z), and the sequence stops.</li>
+<li>Otherwise drop the trend: τ with a constant only; if it does not reject, Φ1 asks whether a
+drift belongs (then z again), otherwise</li>
+<li>drop the constant as well and test τ without deterministic terms.</li>
+</ol>
+<p>The order of integration is found from the highest difference down (Dickey &amp; Pantula
+1987): the sequence runs on the second difference, then the first, then the levels, and stops at
+the first difference level where a unit root is not rejected. Finally the KPSS test, which
+starts from the opposite null, cross-checks the verdict.</p>""",
+    "tau": """
+<p><b>τ (tau)</b> is the t ratio of γ̂ in the ADF regression. Under a unit root it does not
+follow Student's t: its distribution is shifted to the left and depends on the deterministic
+terms (Dickey &amp; Fuller 1979). Tauscope compares it with MacKinnon's (1996, 2010) response-
+surface critical values for the sample size at hand. Strongly negative values are evidence
+against a unit root; τ below the critical value rejects.</p>""",
+    "phi": """
+<p>The <b>Φ</b> statistics (Dickey &amp; Fuller 1981) are F tests of restrictions that combine
+the unit root with the deterministic terms, computed by comparing the restricted and unrestricted
+regressions on the same sample and lags:</p>
+<ul><li><b>Φ1</b>: a<sub>0</sub> = γ = 0 (unit root without drift), in the regression with a
+constant;</li>
+<li><b>Φ2</b>: a<sub>0</sub> = a<sub>2</sub> = γ = 0, in the regression with constant and trend;</li>
+<li><b>Φ3</b>: a<sub>2</sub> = γ = 0 (unit root without trend), in the regression with constant
+and trend.</li></ul>
+<p>They have their own non-standard critical values; a large value rejects, meaning the
+deterministic term belongs in the regression.</p>""",
+    "z": """
+<p>When a unit root is not rejected but a trend or a drift clearly belongs, the unit-root t ratio
+is asymptotically normal (West 1988), so the sequence tests γ = 0 once more against the
+standard normal. The label <b>z</b> marks these steps.</p>""",
+    "kpss": """
+<p>The KPSS test (Kwiatkowski, Phillips, Schmidt &amp; Shin 1992) starts from the opposite null:
+the series is stationary (around a mean or a trend). Rejecting points to a unit root. Tauscope
+runs it on the levels and the differences the verdict concerns and reports whether it
+<b>agrees</b> with the ADF verdict, <b>disagrees</b>, or is <b>unclear</b>. Disagreement is common
+with short spans or persistent but stationary series; read the verdict with care then.</p>""",
+    "lags": """
+<p>The lagged differences Σ β<sub>i</sub> Δy<sub>t−i</sub> soak up short-run dynamics so that
+the errors are white noise (Said &amp; Dickey 1984). Too few lags distort τ; too many cost power.
+The lag order is chosen by the rule in Settings, comparing all orders on a common sample
+(Ng &amp; Perron 1995): AIC, BIC or HQC information criteria, a general-to-specific t test on the
+last lag, or the modified AIC of Ng &amp; Perron (2001), which behaves better when the series has
+a large negative moving-average part. The search runs from 0 up to Schwert's (1989) maximum
+12·(T/100)<sup>¼</sup> unless you set another. The chosen regression is then re-estimated on the
+longest sample available.</p>""",
+    "critical": """
+<p>A <b>critical value</b> is the threshold the statistic must pass for the step to reject at the
+chosen significance level. For τ it is negative (reject when τ is below it); for the Φ tests and
+KPSS it is positive (reject when the statistic is above it). Tauscope uses finite-sample values
+for the length of the series (MacKinnon 1996, 2010).</p>""",
+    "pvalues": """
+<p>The <b>p-value</b> is the chance of a statistic at least this extreme if the null hypothesis
+were true. Small p-values are evidence against the null. Where a published table only bounds the
+p-value (KPSS), Tauscope says so in words: "below 0.01" or "above 0.10".</p>""",
+    "decisions": """
+<p><b>Rejected</b> means the data give evidence against the null hypothesis at the chosen level.
+<b>Not rejected</b> means no evidence against it was found, which is not proof that it holds:
+unit-root tests have low power against stationary series that are very persistent, against
+short spans of years, and against series with a break (Perron 1989).</p>""",
+    "verdicts": """
+<ul><li><b>I(0): stationary</b> around a mean, a trend or zero. Use the series in levels
+(with a trend term if the verdict says so).</li>
+<li><b>I(1): one unit root</b>, with drift, with drift and trend, or without drift. Suggestion:
+difference once before using it in a regression, or model it with cointegration.</li>
+<li><b>I(2): two unit roots.</b> Suggestion: difference twice, or check whether logs or growth
+rates are the better unit.</li>
+<li><b>Unresolved</b>: a unit root was not rejected even at the highest difference allowed;
+check the data.</li>
+<li><b>Not tested</b>: the series could not be tested (too short, constant, gaps); the reason is
+given.</li></ul>
+<p>Each verdict carries a shape (circle, triangle, square, diamond, cross) so the verdicts can be
+told apart without colour.</p>""",
+    "regression": """
+<p>Under every step of the decision path the regression behind it is shown: the number of
+observations used, the lag order and how it was chosen, and each coefficient with its estimate,
+standard error and t ratio. The t ratios of the lag terms have the usual distribution; the t ratio
+of y(t−1) is τ and does not.</p>""",
+    "statistics": """
+<p>τ tests for a unit root; Φ1, Φ2 and Φ3 test a unit root together with deterministic terms;
+z is the unit-root t ratio against the normal when a trend or drift belongs; KPSS tests
+stationarity. See the sections above for each.</p>""",
+    "chart-data": """
+<p>The series as read and its first difference below, on a shared date axis. Drag to pan, wheel
+to zoom, right-click for options. Long series stay smooth because only the visible part is drawn,
+thinned to the screen's resolution.</p>""",
+    "chart-fitted": """
+<p>The tested series with the deterministic path its verdict implies: the mean or the trend for a
+stationary series, the drift line for a series with a unit root and drift. A series that strays
+far from its path for long stretches deserves a second look (a break, or a different unit).</p>""",
+    "chart-lags": """
+<p>τ computed with every lag order from 0 to the maximum, with the critical value as a dashed
+line and the chosen lag order marked. If τ crosses the line as the lag order changes, the
+decision depends on the lag choice and deserves care.</p>""",
+    "chart-null": """
+<p>The distribution of τ when the series truly has a unit root, simulated for this regression
+and sample size, drawn against the standard normal. It shows why τ needs its own critical values:
+the simulated distribution lies well to the left of the normal. The observed τ and the critical
+value are marked.</p>""",
+    "settings": """
+<p><b>Significance level</b>: 1%, 5% or 10%, used for every test in the sequence.
+<b>Lag rule</b> and <b>largest lag order</b>: see Lag order above.
+<b>Highest difference</b>: where the sequence starts (2 allows I(2) verdicts).
+<b>Cross-check</b>: whether KPSS runs. Settings are remembered between sessions.</p>""",
+    "references": """
+<ul>
+<li>Dickey, D.A. &amp; Fuller, W.A. (1979). Distribution of the estimators for autoregressive time
+series with a unit root. <i>Journal of the American Statistical Association</i> 74, 427–431.</li>
+<li>Dickey, D.A. &amp; Fuller, W.A. (1981). Likelihood ratio statistics for autoregressive time
+series with a unit root. <i>Econometrica</i> 49, 1057–1072.</li>
+<li>Dickey, D.A. &amp; Pantula, S.G. (1987). Determining the order of differencing in
+autoregressive processes. <i>Journal of Business &amp; Economic Statistics</i> 5, 455–461.</li>
+<li>Dolado, J.J., Jenkinson, T. &amp; Sosvilla-Rivero, S. (1990). Cointegration and unit roots.
+<i>Journal of Economic Surveys</i> 4, 249–273.</li>
+<li>Kwiatkowski, D., Phillips, P.C.B., Schmidt, P. &amp; Shin, Y. (1992). Testing the null
+hypothesis of stationarity against the alternative of a unit root. <i>Journal of Econometrics</i>
+54, 159–178.</li>
+<li>MacKinnon, J.G. (1996). Numerical distribution functions for unit root and cointegration
+tests. <i>Journal of Applied Econometrics</i> 11, 601–618.</li>
+<li>MacKinnon, J.G. (2010). Critical values for cointegration tests. Queen's Economics
+Department Working Paper 1227.</li>
+<li>Ng, S. &amp; Perron, P. (1995). Unit root tests in ARMA models with data-dependent methods
+for the selection of the truncation lag. <i>Journal of the American Statistical Association</i>
+90, 268–281.</li>
+<li>Ng, S. &amp; Perron, P. (2001). Lag length selection and the construction of unit root tests
+with good size and power. <i>Econometrica</i> 69, 1519–1554.</li>
+<li>Perron, P. (1989). The great crash, the oil price shock, and the unit root hypothesis.
+<i>Econometrica</i> 57, 1361–1401.</li>
+<li>Said, S.E. &amp; Dickey, D.A. (1984). Testing for unit roots in autoregressive-moving average
+models of unknown order. <i>Biometrika</i> 71, 599–607.</li>
+<li>Schwert, G.W. (1989). Tests for unit roots: a Monte Carlo investigation. <i>Journal of
+Business &amp; Economic Statistics</i> 7, 147–159.</li>
+<li>West, K.D. (1988). Asymptotic normality, when regressors have a unit root.
+<i>Econometrica</i> 56, 1397–1417.</li>
+</ul>""",
+}
+
+
+def guide_html() -> str:
+    """The whole guide: a contents list, then every section under its anchor."""
+    contents = "".join(f"<li><a href='#{a}'>{t}</a></li>" for a, t in SECTIONS)
+    body = "".join(f"<h2><a name='{a}'></a>{t}</h2>{_BODY[a]}" for a, t in SECTIONS)
+    return (f"<h1>Tauscope guide</h1><p>How Tauscope decides whether a series has a unit root, "
+            f"and how to read what it shows.</p><ul>{contents}</ul>{body}")
+
+
+ANCHORS = tuple(a for a, _ in SECTIONS)

@@ -1,0 +1,612 @@
+"""The main window: menus, toolbar, the four panels, the status bar and the wiring
+between them.  It shows what the engine returns and never computes statistics."""
+
+from __future__ import annotations
+
+from pathlib import Path
+from typing import TYPE_CHECKING, Any
+
+from PySide6.QtCore import QByteArray, QSize, Qt, QTimer
+from PySide6.QtGui import (
+    QAction,
+    QActionGroup,
+    QCloseEvent,
+    QDragEnterEvent,
+    QDropEvent,
+    QKeySequence,
+)
+from PySide6.QtWidgets import (
+    QApplication,
+    QFileDialog,
+    QLabel,
+    QLineEdit,
+    QMainWindow,
+    QMessageBox,
+    QProgressBar,
+    QSplitter,
+    QStyle,
+    QTextBrowser,
+    QToolBar,
+    QVBoxLayout,
+    QWidget,
+)
+
+from tauscope import __version__
+from tauscope.engine import LAG_RULE_LABELS, SeriesResult, Settings
+from tauscope.resources_path import demo_workbook
+from tauscope.ui import store
+from tauscope.ui.appearance import APPEARANCES, apply_appearance
+from tauscope.ui.chart_panel import ChartPanel
+from tauscope.ui.findings_panel import FindingsPanel
+from tauscope.ui.guide_window import GuideWindow
+from tauscope.ui.loader import WorkbookLoader
+from tauscope.ui.problem_dialog import ProblemDialog
+from tauscope.ui.reading_panel import ReadingPanel
+from tauscope.ui.series_panel import SeriesPanel
+from tauscope.ui.settings_dialog import SettingsDialog
+from tauscope.ui.texts import LAG_RULE_SHORT
+from tauscope.ui.worker import AnalysisRunner, Job
+
+if TYPE_CHECKING:
+    from tauscope.data import Workbook
+
+FILE_FILTER = "Workbooks (*.xlsx *.xlsm *.xls *.csv *.tsv *.txt);;All files (*)"
+READABLE_SUFFIXES = {".xlsx", ".xlsm", ".xls", ".csv", ".tsv", ".txt"}
+
+
+def _panel(title: str, body: QWidget, extra: QWidget | None = None) -> QWidget:
+    """A panel: a bold title line above its content."""
+    box = QWidget()
+    layout = QVBoxLayout(box)
+    layout.setContentsMargins(4, 4, 4, 4)
+    layout.setSpacing(3)
+    label = QLabel(f"<b>{title}</b>", box)
+    label.setBuddy(body)
+    layout.addWidget(label)
+    if extra is not None:
+        layout.addWidget(extra)
+    layout.addWidget(body)
+    box.setAccessibleName(title)
+    return box
+
+
+def settings_summary(settings: Settings) -> str:
+    rule = LAG_RULE_SHORT.get(settings.lag_rule, settings.lag_rule)
+    lags = (f"{settings.lags} lags" if settings.lag_rule == "fixed"
+            else f"lags by {rule}" + (f" ≤ {settings.max_lags}" if settings.max_lags is not None
+                                      else ""))
+    check = " · KPSS" if "kpss" in settings.confirm else ""
+    return f"{settings.alpha_label} · {lags} · up to I({settings.max_difference}){check}"
+
+
+class MainWindow(QMainWindow):
+    def __init__(self) -> None:
+        super().__init__()
+        self.setWindowTitle("Tauscope")
+        self.setAcceptDrops(True)
+        self.settings = store.load_settings()
+        self.runner = AnalysisRunner(self)
+        self.loader = WorkbookLoader(self)
+        self.guide: GuideWindow | None = None
+        self.problem_dialog: ProblemDialog | None = None
+        self.message_box: QMessageBox | None = None
+        self._current_key = ""
+        self._closing = False
+        self.last_run: tuple[bool, int] | None = None  # (stopped, results) of the last run
+
+        self.series_panel = SeriesPanel(self)
+        self.chart_panel = ChartPanel(self)
+        self.reading_panel = ReadingPanel(self)
+        self.findings_panel = FindingsPanel(self)
+        self._build_layout()
+        self._build_actions()
+        self._build_menus()
+        self._build_toolbar()
+        self._build_status_bar()
+        self._connect()
+        self._restore_window_state()
+        self._update_run_state()
+
+    # layout -------------------------------------------------------------
+    def _build_layout(self) -> None:
+        self.series_box = _panel("Series", self.series_panel)
+        self.chart_box = _panel("Chart", self.chart_panel)
+        self.reading_box = _panel("Reading", self.reading_panel)
+        self.findings_box = _panel("Findings", self.findings_panel)
+        self.top_splitter = QSplitter(Qt.Orientation.Horizontal)
+        self.top_splitter.addWidget(self.chart_box)
+        self.top_splitter.addWidget(self.reading_box)
+        self.right_splitter = QSplitter(Qt.Orientation.Vertical)
+        self.right_splitter.addWidget(self.top_splitter)
+        self.right_splitter.addWidget(self.findings_box)
+        self.outer_splitter = QSplitter(Qt.Orientation.Horizontal)
+        self.outer_splitter.addWidget(self.series_box)
+        self.outer_splitter.addWidget(self.right_splitter)
+        for splitter in self._splitters():
+            splitter.setChildrenCollapsible(False)
+        self.setCentralWidget(self.outer_splitter)
+        self._default_sizes()
+        QWidget.setTabOrder(self.series_panel.filter_box, self.series_panel.view)
+        QWidget.setTabOrder(self.series_panel.view, self.chart_panel.tabs)
+        QWidget.setTabOrder(self.chart_panel.tabs, self.reading_panel.browser)
+        QWidget.setTabOrder(self.reading_panel.browser, self.findings_panel.view)
+
+    def _splitters(self) -> tuple[QSplitter, QSplitter, QSplitter]:
+        return (self.outer_splitter, self.right_splitter, self.top_splitter)
+
+    def _default_sizes(self) -> None:
+        self.outer_splitter.setSizes([356, 924])
+        self.right_splitter.setSizes([420, 310])
+        self.top_splitter.setSizes([560, 348])
+
+    # actions ------------------------------------------------------------
+    def _action(self, text: str, slot: Any, shortcut: Any = None, tip: str = "",
+                icon: QStyle.StandardPixmap | None = None) -> QAction:
+        action = QAction(text, self)
+        if shortcut is not None:
+            if isinstance(shortcut, QKeySequence.StandardKey):
+                action.setShortcuts(QKeySequence.keyBindings(shortcut))
+            else:
+                action.setShortcut(QKeySequence(shortcut))
+        if tip:
+            action.setToolTip(tip)
+            action.setStatusTip(tip)
+        if icon is not None:
+            action.setIcon(self.style().standardIcon(icon))
+        action.triggered.connect(lambda _checked=False: slot())
+        self.addAction(action)
+        return action
+
+    def _build_actions(self) -> None:
+        sp = QStyle.StandardPixmap
+        self.open_action = self._action("&Open workbooks…", self.choose_files,
+                                        QKeySequence.StandardKey.Open,
+                                        "Open one or more workbooks (Excel or CSV)",
+                                        sp.SP_DialogOpenButton)
+        self.demo_action = self._action("Open the &demo workbook", self.open_demo, None,
+                                        "Open the example workbook that comes with Tauscope",
+                                        sp.SP_FileDialogInfoView)
+        self.close_all_action = self._action("&Close all workbooks", self.close_all, None,
+                                             "Remove every workbook and finding from the window")
+        self.quit_action = self._action("&Quit", self.close, QKeySequence.StandardKey.Quit,
+                                        "Close Tauscope")
+        if not self.quit_action.shortcuts():
+            self.quit_action.setShortcut(QKeySequence("Ctrl+Q"))
+        self.copy_action = self._action("&Copy", self.copy, QKeySequence.StandardKey.Copy,
+                                        "Copy the selected findings as a table")
+        self.copy_action.setShortcutContext(Qt.ShortcutContext.WindowShortcut)
+        self.select_all_action = self._action("Select &all series", self.select_all_series,
+                                              "Ctrl+Shift+A", "Select every series of every workbook")
+        self.find_action = self._action("&Filter series", self.focus_filter,
+                                        QKeySequence.StandardKey.Find,
+                                        "Type part of a name to show only matching series")
+        self.settings_action = self._action("Testing &settings…", self.edit_settings,
+                                            QKeySequence.StandardKey.Preferences,
+                                            "Significance level, lag rule, differences, cross-check",
+                                            sp.SP_FileDialogDetailedView)
+        if not self.settings_action.shortcuts():
+            self.settings_action.setShortcut(QKeySequence("Ctrl+,"))
+        self.run_action = self._action("&Run the analysis", self.run_selected, "F5",
+                                       "Analyse the selected series (all when none is selected)",
+                                       sp.SP_MediaPlay)
+        self.stop_action = self._action("&Stop", self.stop_run, "Esc",
+                                        "Stop the running analysis; finished results are kept",
+                                        sp.SP_MediaStop)
+        self.guide_action = self._action("&Guide", self.open_guide_for_focus,
+                                         QKeySequence.StandardKey.HelpContents,
+                                         "The built-in guide: the tests, the charts, the verdicts",
+                                         sp.SP_MessageBoxQuestion)
+        if not self.guide_action.shortcuts():
+            self.guide_action.setShortcut(QKeySequence("F1"))
+        self.about_action = self._action("&About Tauscope", self.about)
+        self.reset_layout_action = self._action("Restore the default &layout", self._default_sizes)
+        self.appearance_group = QActionGroup(self)
+        self.appearance_actions: dict[str, QAction] = {}
+        current = str(store.get_value(store.KEY_APPEARANCE) or "system")
+        for key, text in zip(APPEARANCES, ("Follow the &system", "&Light", "&Dark"), strict=True):
+            action = QAction(text, self, checkable=True)
+            action.setChecked(key == current)
+            action.triggered.connect(lambda _checked=False, k=key: self.set_appearance(k))
+            self.appearance_group.addAction(action)
+            self.appearance_actions[key] = action
+
+    def _build_menus(self) -> None:
+        bar = self.menuBar()
+        file_menu = bar.addMenu("&File")
+        file_menu.addAction(self.open_action)
+        self.recent_menu = file_menu.addMenu("Open &recent")
+        self.recent_menu.aboutToShow.connect(self._fill_recent_menu)
+        file_menu.addAction(self.demo_action)
+        file_menu.addSeparator()
+        file_menu.addAction(self.close_all_action)
+        file_menu.addSeparator()
+        file_menu.addAction(self.quit_action)
+        edit_menu = bar.addMenu("&Edit")
+        edit_menu.addAction(self.copy_action)
+        edit_menu.addAction(self.select_all_action)
+        edit_menu.addAction(self.find_action)
+        edit_menu.addSeparator()
+        edit_menu.addAction(self.settings_action)
+        analysis_menu = bar.addMenu("&Analysis")
+        analysis_menu.addAction(self.run_action)
+        analysis_menu.addAction(self.stop_action)
+        analysis_menu.addSeparator()
+        analysis_menu.addAction(self.settings_action)
+        view_menu = bar.addMenu("&View")
+        appearance_menu = view_menu.addMenu("&Appearance")
+        for action in self.appearance_actions.values():
+            appearance_menu.addAction(action)
+        view_menu.addAction(self.reset_layout_action)
+        help_menu = bar.addMenu("&Help")
+        help_menu.addAction(self.guide_action)
+        help_menu.addAction(self.about_action)
+
+    def _build_toolbar(self) -> None:
+        toolbar = QToolBar("Main tools", self)
+        toolbar.setObjectName("main-toolbar")
+        toolbar.setMovable(False)
+        toolbar.setIconSize(QSize(18, 18))
+        toolbar.setToolButtonStyle(Qt.ToolButtonStyle.ToolButtonTextBesideIcon)
+        for action in (self.open_action, self.demo_action, None, self.run_action, self.stop_action,
+                       None, self.settings_action, self.copy_action, None, self.guide_action):
+            if action is None:
+                toolbar.addSeparator()
+            else:
+                toolbar.addAction(action)
+        self.addToolBar(toolbar)
+        self.toolbar = toolbar
+
+    def _build_status_bar(self) -> None:
+        bar = self.statusBar()
+        self.status_label = QLabel("Ready", self)
+        self.status_label.setAccessibleName("Status")
+        self.progress = QProgressBar(self)
+        self.progress.setMaximumWidth(220)
+        self.progress.setAccessibleName("Analysis progress")
+        self.progress.setFormat("%v of %m")
+        self.progress.hide()
+        self.settings_label = QLabel(settings_summary(self.settings), self)
+        self.settings_label.setToolTip("The testing settings in use (Analysis → Testing settings)")
+        bar.addWidget(self.status_label, 1)
+        bar.addPermanentWidget(self.progress)
+        bar.addPermanentWidget(self.settings_label)
+
+    def _connect(self) -> None:
+        self.series_panel.current_changed.connect(self._series_current_changed)
+        self.series_panel.transform_requested.connect(self.add_transform)
+        self.series_panel.gaps_requested.connect(self.mend_gaps)
+        self.series_panel.run_requested.connect(self.run_selected)
+        self.findings_panel.current_changed.connect(self._findings_current_changed)
+        self.findings_panel.guide_requested.connect(self.open_guide)
+        self.reading_panel.guide_requested.connect(self.open_guide)
+        self.runner.started.connect(self._run_started)
+        self.runner.progress.connect(self._run_progress)
+        self.runner.result_ready.connect(self._result_ready)
+        self.runner.crashed.connect(self._run_crashed)
+        self.runner.finished.connect(self._run_finished)
+        self.loader.loaded.connect(self._workbook_loaded)
+        self.loader.failed.connect(self._workbook_failed)
+        self.findings_panel.model.marker_color = self.palette().color(self.foregroundRole())
+
+    # state --------------------------------------------------------------
+    def _restore_window_state(self) -> None:
+        geometry = store.get_value(store.KEY_GEOMETRY)
+        if isinstance(geometry, QByteArray) and not geometry.isEmpty():
+            self.restoreGeometry(geometry)
+        else:
+            self.resize(1280, 800)
+        states = store.get_value(store.KEY_SPLITTERS)
+        if isinstance(states, list) and len(states) == len(self._splitters()):
+            for splitter, state in zip(self._splitters(), states, strict=True):
+                if isinstance(state, QByteArray):
+                    splitter.restoreState(state)
+        window_state = store.get_value(store.KEY_STATE)
+        if isinstance(window_state, QByteArray):
+            self.restoreState(window_state)
+
+    def save_window_state(self) -> None:
+        store.set_value(store.KEY_GEOMETRY, self.saveGeometry())
+        store.set_value(store.KEY_STATE, self.saveState())
+        store.set_value(store.KEY_SPLITTERS, [s.saveState() for s in self._splitters()])
+
+    def _update_run_state(self) -> None:
+        running = self.runner.is_running()
+        self.run_action.setEnabled(not running)
+        self.stop_action.setEnabled(running)
+        self.settings_action.setEnabled(not running)
+        self.close_all_action.setEnabled(not running)
+
+    # files --------------------------------------------------------------
+    def choose_files(self) -> None:
+        start = str(Path(store.recent_files()[0]).parent) if store.recent_files() else ""
+        paths, _ = QFileDialog.getOpenFileNames(self, "Open workbooks", start, FILE_FILTER)
+        self.open_files(paths)
+
+    def open_files(self, paths: list[str] | list[Path]) -> None:
+        """Read each file in the background; the series appear when it is read."""
+        for path in paths:
+            text = str(Path(path).expanduser().resolve())
+            self.status_label.setText(f"Reading {Path(text).name}…")
+            self.loader.load(text)
+
+    def open_demo(self) -> None:
+        path = demo_workbook()
+        if path is None:
+            self.tell("The demo workbook is missing from this installation.")
+            return
+        self.open_files([path])
+
+    def add_workbook(self, workbook: Workbook) -> None:
+        item = self.series_panel.model.add_workbook(workbook)
+        self.series_panel.expand_workbook(item)
+        store.add_recent_file(workbook.path)
+        count = len(workbook.series())
+        self.status_label.setText(f"Opened {workbook.path.name}: {count} series")
+        if not self._current_key and workbook.series():
+            self.series_panel.select_key(workbook.series()[0].key)
+
+    def _workbook_loaded(self, _path: str, workbook: Any) -> None:
+        if not self._closing:
+            self.add_workbook(workbook)
+
+    def _workbook_failed(self, path: str, message: str, details: str) -> None:
+        if self._closing:
+            return
+        self.status_label.setText(message)
+        if details:
+            self.show_problem(message, details)
+        else:
+            self.tell(message)
+
+    def close_all(self) -> None:
+        self.series_panel.model.clear_all()
+        self.findings_panel.model.clear_results()
+        self._show_key("")
+
+    def _fill_recent_menu(self) -> None:
+        self.recent_menu.clear()
+        files = store.recent_files()
+        for number, path in enumerate(files, start=1):
+            action = self.recent_menu.addAction(f"&{number} {Path(path).name}")
+            action.setToolTip(path)
+            action.triggered.connect(lambda _checked=False, p=path: self.open_files([p]))
+        if not files:
+            empty = self.recent_menu.addAction("No recent workbooks")
+            empty.setEnabled(False)
+        else:
+            self.recent_menu.addSeparator()
+            self.recent_menu.addAction("Clear the list", store.clear_recent_files)
+
+    def dragEnterEvent(self, event: QDragEnterEvent) -> None:
+        if self._dropped_paths(event.mimeData()):
+            event.acceptProposedAction()
+        else:
+            event.ignore()
+
+    def dropEvent(self, event: QDropEvent) -> None:
+        paths = self._dropped_paths(event.mimeData())
+        if paths:
+            event.acceptProposedAction()
+            self.open_files(paths)
+
+    @staticmethod
+    def _dropped_paths(mime: Any) -> list[str]:
+        if not mime.hasUrls():
+            return []
+        return [url.toLocalFile() for url in mime.urls()
+                if url.isLocalFile() and Path(url.toLocalFile()).suffix.lower() in READABLE_SUFFIXES]
+
+    # transforms ---------------------------------------------------------
+    def add_transform(self, key: str, transform: str) -> None:
+        from tauscope.data import DataError, make_transform
+
+        series = self.series_panel.model.series_for_key(key)
+        if series is None:
+            return
+        try:
+            derived = make_transform(series, transform)
+        except DataError as exc:
+            self.tell(str(exc))
+            return
+        item = self.series_panel.model.add_transformed(key, derived)
+        if item is not None:
+            self.series_panel.select_key(derived.key)
+            self.status_label.setText(f"Added {derived.name}")
+
+    def mend_gaps(self, key: str, how: str) -> None:
+        """Cut a series to its longest gap-free stretch, or fill its gaps (the file is untouched;
+        the series' notes say what was done)."""
+        series = self.series_panel.model.series_for_key(key)
+        if series is None or not series.gaps:
+            return
+        mended = series.longest_stretch() if how == "cut" else series.interpolated()
+        self.series_panel.model.replace_series(mended)
+        if key == self._current_key:
+            self._current_key = ""
+            self._show_key(key)
+        what = "cut to its longest stretch without gaps" if how == "cut" else "gaps filled"
+        self.status_label.setText(f"{series.name}: {what}. Press F5 to analyse it.")
+
+    # analysis -----------------------------------------------------------
+    def run_selected(self) -> bool:
+        return self.run_series(self.series_panel.selected_series())
+
+    def run_all(self) -> bool:
+        return self.run_series(self.series_panel.model.all_series())
+
+    def run_series(self, series: list[Any]) -> bool:
+        if self.runner.is_running():
+            return False
+        if not series:
+            self.status_label.setText("Open a workbook first (Ctrl+O), or the demo workbook.")
+            return False
+        return self.runner.start([Job.from_series(s) for s in series], self.settings)
+
+    def stop_run(self) -> None:
+        if self.runner.is_running():
+            self.runner.stop()
+            self.status_label.setText("Stopping after the series in hand…")
+
+    def _run_started(self, total: int) -> None:
+        self.last_run = None
+        self.progress.setRange(0, total)
+        self.progress.setValue(0)
+        self.progress.show()
+        self.status_label.setText(f"Analysing {total} series…")
+        self._update_run_state()
+
+    def _run_progress(self, done: int, total: int, name: str) -> None:
+        self.progress.setValue(done)
+        if name:
+            self.status_label.setText(f"Analysing {name} ({done + 1} of {total})")
+
+    def _result_ready(self, key: str, result: SeriesResult) -> None:
+        self.findings_panel.model.set_result(key, result)
+        if key == self._current_key:
+            self._show_key(key)
+
+    def _run_finished(self, stopped: bool, received: int) -> None:
+        self.progress.hide()
+        self.last_run = (stopped, received)
+        self._update_run_state()
+        if self._closing:
+            return
+        total = self.progress.maximum()
+        errors = sum(1 for r in self.findings_panel.model.results().values() if r.error)
+        if stopped:
+            text = f"Stopped: {received} of {total} series analysed; their results are kept."
+        else:
+            text = f"Done: {received} series analysed."
+        if errors:
+            text += f" {errors} could not be tested (see Findings)."
+        self.status_label.setText(text)
+        if self._current_key:
+            self._show_key(self._current_key)
+            self.findings_panel.select_key(self._current_key)
+
+    def _run_crashed(self, details: str) -> None:
+        if not self._closing:
+            self.show_problem("Something unexpected happened during the analysis. The series "
+                              "concerned are marked as not tested; the others are unaffected.",
+                              details)
+
+    # current series -----------------------------------------------------
+    def _series_current_changed(self, key: str) -> None:
+        if key:
+            self._show_key(key)
+            self.findings_panel.select_key(key)
+
+    def _findings_current_changed(self, key: str) -> None:
+        if key and key != self._current_key:
+            self._show_key(key)
+
+    def _show_key(self, key: str) -> None:
+        self._current_key = key
+        series = self.series_panel.model.series_for_key(key) if key else None
+        result = self.findings_panel.model.result_for_key(key) if key else None
+        if series is None and result is None:
+            self.chart_panel.show_nothing()
+            self.reading_panel.display(None, None)
+            return
+        self.chart_panel.display(series, result)
+        self.reading_panel.display(series, result)
+
+    def current_key(self) -> str:
+        return self._current_key
+
+    def select_series(self, key: str) -> bool:
+        return self.series_panel.select_key(key)
+
+    def select_all_series(self) -> None:
+        self.series_panel.select_all_series()
+        self.series_panel.view.setFocus()
+
+    def focus_filter(self) -> None:
+        self.series_panel.filter_box.setFocus()
+        self.series_panel.filter_box.selectAll()
+
+    # edit ---------------------------------------------------------------
+    def copy(self) -> None:
+        focus = QApplication.focusWidget()
+        if isinstance(focus, QLineEdit | QTextBrowser):
+            focus.copy()
+            return
+        if self.findings_panel.copy_selection() is not None:
+            self.status_label.setText("Copied the selected findings as a table.")
+        else:
+            self.status_label.setText("Select rows in Findings to copy them.")
+
+    def edit_settings(self) -> None:
+        dialog = SettingsDialog(self.settings, self)
+        if dialog.exec():
+            self.apply_settings(dialog.settings())
+
+    def apply_settings(self, settings: Settings) -> None:
+        self.settings = settings
+        store.save_settings(settings)
+        self.settings_label.setText(settings_summary(settings))
+        self.settings_label.setToolTip(
+            f"Lag rule: {LAG_RULE_LABELS[settings.lag_rule]}. Press F5 to analyse again with "
+            "these settings.")
+
+    def set_appearance(self, appearance: str) -> None:
+        store.set_value(store.KEY_APPEARANCE, appearance)
+        app = QApplication.instance()
+        if isinstance(app, QApplication):
+            apply_appearance(app, appearance)
+        self.findings_panel.model.set_marker_color(self.palette().color(self.foregroundRole()))
+
+    # help ---------------------------------------------------------------
+    def open_guide(self, anchor: str = "start") -> None:
+        if self.guide is None:
+            self.guide = GuideWindow(self)
+        self.guide.show_section(anchor)
+
+    def open_guide_for_focus(self) -> None:
+        focus = QApplication.focusWidget()
+        anchor = "start"
+        if focus is self.findings_panel.view:
+            anchor = self.findings_panel.current_guide_anchor() or "verdicts"
+        elif focus is not None and self.chart_panel.isAncestorOf(focus):
+            anchor = self.chart_panel.current_guide_anchor()
+        elif focus is self.reading_panel.browser:
+            anchor = "verdicts"
+        self.open_guide(anchor)
+
+    def about(self) -> None:
+        self.tell(f"Tauscope {__version__}: unit-root testing for applied economists. "
+                  "Press F1 for the guide.", title="About Tauscope")
+
+    # messages -----------------------------------------------------------
+    def tell(self, text: str, title: str = "Tauscope") -> None:
+        """A short message in a window-modal box that does not block the event loop."""
+        box = QMessageBox(QMessageBox.Icon.Information, title, text, QMessageBox.StandardButton.Ok,
+                          self)
+        box.setWindowModality(Qt.WindowModality.WindowModal)
+        box.open()
+        self.message_box = box
+
+    def show_problem(self, summary: str, details: str) -> None:
+        dialog = ProblemDialog(summary, details, self)
+        dialog.open()
+        self.problem_dialog = dialog
+
+    # closing ------------------------------------------------------------
+    def closeEvent(self, event: QCloseEvent) -> None:
+        self._closing = True
+        if self.runner.is_running():
+            self.runner.stop()
+            self.runner.wait(30_000)
+        self.loader.wait(10_000)
+        self.save_window_state()
+        if self.guide is not None:
+            self.guide.close()
+        event.accept()
+
+    def showEvent(self, event: Any) -> None:
+        super().showEvent(event)
+        QTimer.singleShot(0, self._focus_series)
+
+    def _focus_series(self) -> None:
+        if QApplication.focusWidget() is None:
+            self.series_panel.view.setFocus()

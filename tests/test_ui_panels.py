@@ -1,0 +1,246 @@
+"""The panels one by one: series tree, filter, transformed copies, settings dialog,
+remembered state, guide, drag-and-drop and the colour-independent markers."""
+
+from __future__ import annotations
+
+import numpy as np
+import pandas as pd
+import pytest
+
+pytest.importorskip("pytestqt")
+
+from tauscope.data import read_workbook
+from tauscope.engine import Settings
+
+
+def child_texts(model, parent, column=0):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import Qt
+
+    from tauscope.ui.qtcompat import item_value
+
+    return [str(item_value(model.index(r, column, parent), Qt.ItemDataRole.DisplayRole, ""))
+            for r in range(model.rowCount(parent))]
+
+
+def test_series_tree_lists_workbook_sheets_and_series_with_their_facts(
+        main_window, open_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    from tauscope.ui import series_model as sm
+
+    open_in_window(main_window, small_workbook)
+    model = main_window.series_panel.model
+    assert child_texts(model, model.index(-1, -1)) == ["small.xlsx"]
+    workbook_index = model.index(0, 0)
+    assert child_texts(model, workbook_index) == ["Monthly"]
+    sheet_index = model.index(0, 0, workbook_index)
+    book = read_workbook(small_workbook)
+    assert child_texts(model, sheet_index) == [s.name for s in book.series()]
+    for column, expected in ((sm.OBS, [str(s.nobs) for s in book.series()]),
+                             (sm.FREQUENCY, [s.frequency for s in book.series()]),
+                             (sm.SPAN, [f"{s.span[0]} – {s.span[1]}" for s in book.series()])):
+        assert child_texts(model, sheet_index, column) == expected
+    gaps = child_texts(model, sheet_index, sm.GAPS)
+    assert gaps[-1] == "3 missing" and gaps[0] == "none"
+
+
+def test_sparkline_points_are_scaled_and_keep_gaps() -> None:
+    from tauscope.ui.sparkline import sparkline_points
+
+    values = pd.Series([1.0, 3.0, np.nan, 5.0])
+    points = sparkline_points(values)
+    assert points[0] == 0.0 and points[-1] == 1.0 and points[1] == 0.5
+    assert np.isnan(points[2])
+    long = sparkline_points(pd.Series(np.arange(5000, dtype=float)), max_points=100)
+    assert long.size == 100 and long[0] == 0.0 and long[-1] == 1.0
+    assert np.all(sparkline_points(pd.Series([2.0, 2.0])) == 0.5)
+
+
+def test_filter_box_hides_series_that_do_not_match(main_window, open_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    open_in_window(main_window, small_workbook)
+    panel = main_window.series_panel
+    panel.filter_box.setText("walk")
+    sheet = panel.proxy.index(0, 0, panel.proxy.index(0, 0))
+    assert child_texts(panel.proxy, sheet) == ["walk 1", "walk 3"]
+    panel.filter_box.clear()
+    assert len(child_texts(panel.proxy, panel.proxy.index(0, 0, panel.proxy.index(0, 0)))) == 6
+
+
+def test_selecting_a_sheet_selects_its_series(main_window, open_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import QItemSelectionModel
+
+    open_in_window(main_window, small_workbook)
+    panel = main_window.series_panel
+    sheet = panel.proxy.index(0, 0, panel.proxy.index(0, 0))
+    panel.view.selectionModel().select(
+        sheet, QItemSelectionModel.SelectionFlag.ClearAndSelect
+        | QItemSelectionModel.SelectionFlag.Rows)
+    assert [s.name for s in panel.selected_series()] == [
+        s.name for s in read_workbook(small_workbook).series()]
+
+
+def test_a_transformed_copy_appears_under_its_parent(main_window, open_in_window,
+                                                     run_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    open_in_window(main_window, small_workbook)
+    model = main_window.series_panel.model
+    parent = model.all_series()[0]
+    main_window.add_transform(parent.key, "diff")
+    item = model.item_for_key(parent.key)
+    assert item.rowCount() == 1
+    derived = model.all_series()[1]
+    assert derived.parent == parent.name and derived.transform == "diff"
+    assert item.child(0, 0).text() == derived.name
+    assert main_window.current_key() == derived.key
+    run_in_window(main_window, [derived])
+    assert main_window.findings_panel.model.result_for_key(derived.key).name == derived.name
+
+
+def test_a_transform_that_does_not_apply_says_why(main_window, open_in_window, small_workbook,
+                                                  tmp_path):  # type: ignore[no-untyped-def]
+    from conftest import write_workbook
+
+    path = write_workbook(tmp_path / "neg.xlsx", {"negative": -np.arange(1.0, 50.0)})
+    open_in_window(main_window, path)
+    series = main_window.series_panel.model.all_series()[0]
+    main_window.add_transform(series.key, "log")
+    assert main_window.message_box is not None and main_window.message_box.isVisible()
+    assert "negative" in main_window.message_box.text()
+    assert main_window.series_panel.model.item_for_key(series.key).rowCount() == 0
+    main_window.message_box.close()
+
+
+def test_settings_dialog_round_trip_defaults_and_memory(main_window):  # type: ignore[no-untyped-def]
+    from tauscope.ui import store
+    from tauscope.ui.settings_dialog import SettingsDialog
+
+    chosen = Settings(lag_rule="fixed", lags=3, alpha=0.01, max_difference=1, confirm=())
+    dialog = SettingsDialog(chosen)
+    assert dialog.settings() == chosen
+    assert not dialog.max_lags.isEnabled() and dialog.fixed_lags.isEnabled()
+    dialog.load(Settings())
+    assert dialog.settings() == Settings()
+    other = Settings(lag_rule="bic", max_lags=6, alpha=0.10)
+    dialog.load(other)
+    assert dialog.settings() == other
+    main_window.apply_settings(other)
+    assert store.load_settings() == other
+    assert "10%" in main_window.settings_label.text()
+    dialog.deleteLater()
+
+
+def test_window_layout_and_recent_files_are_remembered(qtbot, qt_settings_dir,
+                                                       small_workbook):  # type: ignore[no-untyped-def]
+    from tauscope.ui import store
+    from tauscope.ui.main_window import MainWindow
+
+    first = MainWindow()
+    qtbot.addWidget(first)
+    first.resize(720, 520)  # inside the offscreen platform's 800×600 screen
+    first.show()
+    first.outer_splitter.setSizes([250, 750])
+    first.open_files([small_workbook])
+    qtbot.waitUntil(lambda: first.loader.pending == 0, timeout=30_000)
+    sizes = first.outer_splitter.sizes()
+    first.close()
+    assert store.recent_files() == [str(small_workbook.resolve())]
+    assert (qt_settings_dir / "Tauscope" / "Tauscope.ini").is_file()
+    second = MainWindow()
+    qtbot.addWidget(second)
+    second.show()
+    assert (second.size().width(), second.size().height()) == (720, 520)
+    assert second.outer_splitter.sizes() == sizes
+
+
+def test_guide_opens_at_the_section_a_cell_points_to(main_window, open_in_window, run_in_window,
+                                                     small_workbook):  # type: ignore[no-untyped-def]
+    from tauscope.ui.guide_text import ANCHORS, guide_html
+
+    text = guide_html()
+    for reference in ("Dickey, D.A. &amp; Fuller, W.A. (1979)", "(1981)", "Said &amp; Dickey (1984)"
+                      .replace(" (1984)", ""), "MacKinnon, J.G. (1996)", "MacKinnon, J.G. (2010)",
+                      "Ng, S. &amp; Perron, P. (1995)", "Ng, S. &amp; Perron, P. (2001)",
+                      "Dolado", "Kwiatkowski", "Schwert", "Perron, P. (1989)", "West, K.D. (1988)"):
+        assert reference in text
+    open_in_window(main_window, small_workbook)
+    run_in_window(main_window, main_window.series_panel.model.all_series()[:1])
+    panel = main_window.findings_panel
+    from tauscope.ui.qtcompat import item_value
+    from tauscope.ui.roles import GUIDE_ROLE
+
+    panel.view.expandAll()
+    step = panel.proxy.index(0, 2, panel.proxy.index(0, 0))
+    anchor = item_value(step, GUIDE_ROLE)
+    assert anchor in ANCHORS
+    panel.view.setCurrentIndex(step)
+    panel.view.setFocus()
+    main_window.open_guide_for_focus()
+    assert main_window.guide is not None and main_window.guide.isVisible()
+    main_window.guide.close()
+
+
+def test_drop_accepts_workbook_files_only(main_window, small_workbook, tmp_path):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import QMimeData, QUrl
+
+    other = tmp_path / "notes.docx"
+    other.write_text("x")
+    mime = QMimeData()
+    mime.setUrls([QUrl.fromLocalFile(str(small_workbook)), QUrl.fromLocalFile(str(other))])
+    assert main_window._dropped_paths(mime) == [str(small_workbook)]
+
+
+def test_markers_differ_by_shape_and_word_not_only_colour(main_window, open_in_window,
+                                                          run_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import Qt
+    from PySide6.QtGui import QImage
+
+    from tauscope.ui.findings_model import VERDICT
+    from tauscope.ui.markers import MARKERS, marker_icon
+    from tauscope.ui.qtcompat import item_value
+
+    images = {kind: marker_icon(kind, main_window.palette().text().color()).pixmap(16, 16)
+              .toImage().convertToFormat(QImage.Format.Format_Alpha8)
+              for kind in MARKERS}
+    raw = {kind: bytes(img.constBits()) for kind, img in images.items()}
+    assert len(set(raw.values())) == len(MARKERS)  # the shapes differ, whatever the colour
+    open_in_window(main_window, small_workbook)
+    main_window.select_all_series()
+    run_in_window(main_window)
+    model = main_window.findings_panel.model
+    for r in range(model.rowCount()):
+        words = item_value(model.index(r, VERDICT), Qt.ItemDataRole.AccessibleTextRole, "")
+        assert any(words.startswith(w) for w, _ in MARKERS.values())
+
+
+def test_controls_have_accessible_names(main_window):  # type: ignore[no-untyped-def]
+    for widget in (main_window.series_panel.view, main_window.series_panel.filter_box,
+                   main_window.findings_panel.view, main_window.reading_panel.browser,
+                   main_window.chart_panel.tabs, main_window.progress):
+        assert widget.accessibleName()
+    shortcuts = {a.text(): a.shortcut().toString() for a in
+                 (main_window.run_action, main_window.stop_action, main_window.quit_action,
+                  main_window.open_action, main_window.copy_action)}
+    assert shortcuts["&Run the analysis"] == "F5" and shortcuts["&Stop"] == "Esc"
+    assert shortcuts["&Open workbooks…"] and shortcuts["&Copy"] and shortcuts["&Quit"]
+
+
+def test_dark_and_light_appearance_switch_the_palette(main_window, qapp):  # type: ignore[no-untyped-def]
+    main_window.set_appearance("dark")
+    assert qapp.palette().base().color().lightness() < 100
+    main_window.set_appearance("light")
+    assert qapp.palette().base().color().lightness() > 200
+
+
+def test_gaps_can_be_cut_or_filled_and_the_series_becomes_testable(
+        main_window, open_in_window, run_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    from tauscope.ui import series_model as sm
+
+    open_in_window(main_window, small_workbook)
+    model = main_window.series_panel.model
+    gappy = next(s for s in model.all_series() if s.gaps)
+    main_window.mend_gaps(gappy.key, "cut")
+    cut = model.series_for_key(gappy.key)
+    assert not cut.gaps and cut.nobs == max(60, 150 - 63)  # the longer side of the 3-value gap
+    item = model.item_for_key(gappy.key)
+    row = item.parent().child(item.row(), sm.OBS)
+    assert row.text() == str(cut.nobs)
+    run_in_window(main_window, [cut])
+    result = main_window.findings_panel.model.result_for_key(gappy.key)
+    assert result.error is None and result.nobs > 0

@@ -1,0 +1,126 @@
+"""Running, stopping and failing: the analysis worker as the window drives it."""
+
+from __future__ import annotations
+
+import threading
+from pathlib import Path
+
+import pytest
+
+pytest.importorskip("pytestqt")
+
+from conftest import simulated_series, write_workbook
+from tauscope.engine import analyse_series
+
+
+@pytest.fixture
+def long_workbook(tmp_path: Path) -> Path:
+    return write_workbook(tmp_path / "long.xlsx", simulated_series(80, 200, seed=5))
+
+
+@pytest.fixture
+def slow_engine(monkeypatch):  # type: ignore[no-untyped-def]
+    """The real engine, held back 30 ms per series so that a run outlasts the test's clicks."""
+    import time
+
+    import tauscope.ui.worker as worker
+
+    real = worker.iter_analyse
+
+    def slow(pairs, settings, should_stop):  # type: ignore[no-untyped-def]
+        for result in real(pairs, settings, should_stop):
+            time.sleep(0.03)
+            yield result
+
+    monkeypatch.setattr(worker, "iter_analyse", slow)
+
+
+def test_stop_ends_the_run_promptly_and_keeps_finished_results(
+        main_window, open_in_window, qtbot, long_workbook, slow_engine):  # type: ignore[no-untyped-def]
+    open_in_window(main_window, long_workbook)
+    total = len(main_window.series_panel.model.all_series())
+    assert main_window.run_series(main_window.series_panel.model.all_series())
+    model = main_window.findings_panel.model
+    qtbot.waitUntil(lambda: model.rowCount() >= 3, timeout=30_000)
+    main_window.stop_action.trigger()
+    qtbot.waitUntil(lambda: not main_window.runner.is_running(), timeout=3_000)
+    stopped, received = main_window.last_run
+    assert stopped is True
+    assert 3 <= received < total
+    assert model.rowCount() == received
+    assert "Stopped" in main_window.status_label.text()
+    # a kept result is the engine's result on the same data
+    series = main_window.series_panel.model.all_series()[0]
+    kept = model.result_for_key(series.key)
+    expected = analyse_series(series.testable_values(), main_window.settings, series.name)
+    assert kept.verdict == expected.verdict
+    assert [s.statistic for s in kept.steps] == pytest.approx([s.statistic for s in expected.steps])
+    assert main_window.run_action.isEnabled() and not main_window.stop_action.isEnabled()
+
+
+def test_the_engine_runs_off_the_window_thread(main_window, open_in_window, run_in_window,
+                                               small_workbook, monkeypatch):  # type: ignore[no-untyped-def]
+    import tauscope.ui.worker as worker
+
+    threads: set[int] = set()
+    real = worker.iter_analyse
+
+    def spy(*args, **kwargs):  # type: ignore[no-untyped-def]
+        threads.add(threading.get_ident())
+        yield from real(*args, **kwargs)
+
+    monkeypatch.setattr(worker, "iter_analyse", spy)
+    open_in_window(main_window, small_workbook)
+    run_in_window(main_window, main_window.series_panel.model.all_series())
+    assert threads and threading.main_thread().ident not in threads
+
+
+def test_an_unexpected_failure_marks_one_series_shows_details_and_the_rest_finish(
+        main_window, open_in_window, run_in_window, small_workbook, monkeypatch, qtbot):  # type: ignore[no-untyped-def]
+    import tauscope.ui.worker as worker
+
+    real = worker.iter_analyse
+
+    def failing(pairs, settings, should_stop):  # type: ignore[no-untyped-def]
+        for number, result in enumerate(real(pairs, settings, should_stop)):
+            if number == 1:
+                raise RuntimeError("simulated failure inside the engine")
+            yield result
+
+    monkeypatch.setattr(worker, "iter_analyse", failing)
+    open_in_window(main_window, small_workbook)
+    all_series = main_window.series_panel.model.all_series()
+    run_in_window(main_window, all_series)
+    results = main_window.findings_panel.model.results()
+    assert len(results) == len(all_series)
+    second = results[all_series[1].key]
+    assert second.error is not None and "unexpected problem" in second.error
+    assert "simulated failure" in second.error
+    others = [results[s.key] for s in all_series if s.key != all_series[1].key]
+    expected = {s.name: analyse_series(s.testable_values(), main_window.settings, s.name)
+                for s in all_series[2:4]}
+    for r in others:
+        if r.name in expected:
+            assert r.verdict == expected[r.name].verdict
+    dialog = main_window.problem_dialog
+    assert dialog is not None and dialog.isVisible()
+    assert "RuntimeError: simulated failure" in dialog.details.toPlainText()
+    dialog.copy_details()
+    from PySide6.QtGui import QGuiApplication
+
+    assert "simulated failure" in QGuiApplication.clipboard().text()
+    dialog.close()
+    monkeypatch.setattr(worker, "iter_analyse", real)
+    run_in_window(main_window, all_series[:2])  # the window keeps working
+    assert main_window.findings_panel.model.result_for_key(all_series[1].key).error is None
+
+
+def test_quitting_during_a_run_exits_cleanly(main_window, open_in_window, qtbot, long_workbook,
+                                            slow_engine):  # type: ignore[no-untyped-def]
+    open_in_window(main_window, long_workbook)
+    assert main_window.run_series(main_window.series_panel.model.all_series())
+    qtbot.waitUntil(lambda: main_window.findings_panel.model.rowCount() >= 1, timeout=30_000)
+    assert main_window.close()
+    assert not main_window.runner.is_running()
+    assert not main_window.isVisible()
+    qtbot.wait(50)  # queued signals from the ended worker are harmless
