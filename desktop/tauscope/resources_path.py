@@ -1,8 +1,10 @@
-"""Where the bundled resources live: a source checkout or a PyInstaller bundle.
+"""Where the bundled resources live: a PyInstaller bundle, an installed package, or a
+source checkout.
 
-In a source checkout the package sits at ``<repo>/desktop/tauscope`` and the
-resources at ``<repo>/resources``; a frozen one-folder bundle unpacks them to
-``sys._MEIPASS/resources``.
+A frozen one-folder bundle unpacks them to ``sys._MEIPASS/resources``; an installed
+package carries them as ``tauscope.bundled`` (pyproject maps ``resources/`` there); in a
+source checkout the package sits at ``<repo>/desktop/tauscope`` and the resources at
+``<repo>/resources``.
 """
 
 from __future__ import annotations
@@ -19,6 +21,9 @@ def resource_roots() -> list[Path]:
     frozen = getattr(sys, "_MEIPASS", None)
     if frozen:
         roots.append(Path(frozen) / "resources")
+    installed = Path(__file__).resolve().parent / "bundled"
+    if installed.is_dir():
+        roots.append(installed)
     roots.append(Path(__file__).resolve().parents[2] / "resources")
     return roots
 

@@ -73,10 +73,13 @@ def render_pngs(svg: Path, sizes: Iterable[int]) -> dict[int, bytes]:
     """Draw ``svg`` at each size onto a transparent square and return the PNG bytes."""
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
     from PySide6.QtCore import QBuffer, QByteArray, QIODevice, Qt
-    from PySide6.QtGui import QGuiApplication, QImage, QPainter
+    from PySide6.QtGui import QImage, QPainter
     from PySide6.QtSvg import QSvgRenderer
+    from PySide6.QtWidgets import QApplication
 
-    _app = QGuiApplication.instance() or QGuiApplication([sys.argv[0]])
+    # A widgets application (not a plain GUI one), so a window opened later in the same
+    # process (the test session) can still use it.
+    _app = QApplication.instance() or QApplication([sys.argv[0]])
     renderer = QSvgRenderer(str(svg))
     if not renderer.isValid():
         raise ValueError(f"{svg} is not a readable SVG file")

@@ -12,8 +12,9 @@ checks that
   (``{sheet: {series: {"order": ..., "deterministic": ...}}}``);
 - ``to_dict()`` is JSON-serialisable (no NaN or infinity either);
 - the tests hold the ADF test for all three specs on the levels;
-- critical values are ordered by level: for the left-tailed τ,
-  cv(1%) < cv(5%) < cv(10%); for the right-tailed Φ and KPSS statistics the reverse;
+- critical values are ordered by level: for the left-tailed τ-type tests (ADF, PP,
+  DF-GLS, Zivot-Andrews) cv(1%) < cv(5%) < cv(10%); for the right-tailed Φ and KPSS
+  statistics the reverse;
 - every p-value lies in [0, 1];
 
 and that every expected series was found.  Prints one line per series, then
@@ -32,10 +33,14 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
+from tauscope.resources_path import resource_path, resource_roots
+
 WORKBOOK_NAME = "harbourline_demo.xlsx"
 EXPECTED_NAME = "expected_verdicts.json"
 LEVEL_SPECS = ("trend", "constant", "none")
-LEFT_TAILED = ("adf",)
+# Right-tailed statistics (large values reject): the Φ F tests and KPSS.  Every other
+# test (ADF, PP, DF-GLS, Zivot-Andrews) rejects for small, negative values.
+RIGHT_TAILED = ("phi1", "phi2", "phi3", "kpss")
 LEVELS = ("1%", "5%", "10%")
 Expected = dict[str, dict[str, dict[str, Any]]]
 
@@ -89,20 +94,12 @@ class SelfTestError(Exception):
 
 
 def demo_folder() -> Path:
-    """``resources/demo``: under ``sys._MEIPASS`` in a frozen bundle, else in the source checkout.
-
-    Private stand-in until ``tauscope.resources_path`` exists; the bundle's spec
-    puts the resources at ``<_MEIPASS>/resources``, the same place the source
-    checkout has them relative to the package (``desktop/tauscope/..``).
-    """
-    bundle_root = getattr(sys, "_MEIPASS", None)
-    candidates = [Path(bundle_root) / "resources"] if bundle_root else []
-    candidates.append(Path(__file__).resolve().parents[3] / "resources")
-    for folder in candidates:
-        if (folder / "demo").is_dir():
-            return folder / "demo"
-    raise SelfTestError("the bundled demo data is missing (looked in "
-                        + ", ".join(str(c / "demo") for c in candidates) + ")")
+    """``resources/demo``, in a frozen bundle (``sys._MEIPASS``) or in the source checkout."""
+    folder = resource_path("demo")
+    if folder is None or not folder.is_dir():
+        raise SelfTestError("the bundled demo data is missing (looked in "
+                            + ", ".join(str(root / "demo") for root in resource_roots()) + ")")
+    return folder
 
 
 def load_expected(path: Path) -> Expected:
@@ -210,7 +207,7 @@ def check_tests(tests: list[dict[str, Any]]) -> list[str]:
             problems.append(f"{name}: critical values missing for 1%, 5% or 10%")
             continue
         values = [float(table[level]) for level in LEVELS]
-        left = test.get("test") in LEFT_TAILED
+        left = test.get("test") not in RIGHT_TAILED
         ordered = values[0] < values[1] < values[2] if left else values[0] > values[1] > values[2]
         if not ordered:
             relation = "<" if left else ">"
