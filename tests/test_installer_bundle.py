@@ -5,7 +5,6 @@ No bundle is built here (installer/ci_bundle.sh does that); these check the choi
 
 from __future__ import annotations
 
-import importlib.util
 import json
 import os
 import re
@@ -13,28 +12,16 @@ import struct
 import subprocess
 import sys
 from pathlib import Path
-from types import ModuleType
 
 import numpy as np
 import pytest
 
 import tauscope
+from installer_support import load
 from tauscope.engine import analyse_series
 
 REPO = Path(__file__).resolve().parents[1]
 INSTALLER = REPO / "installer"
-
-
-def load(name: str) -> ModuleType:
-    sys.path.insert(0, str(INSTALLER))
-    try:
-        spec = importlib.util.spec_from_file_location(name, INSTALLER / f"{name}.py")
-        assert spec is not None and spec.loader is not None
-        module = importlib.util.module_from_spec(spec)
-        spec.loader.exec_module(module)
-        return module
-    finally:
-        sys.path.remove(str(INSTALLER))
 
 
 config = load("bundle_config")

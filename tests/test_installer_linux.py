@@ -7,34 +7,22 @@ program stands in for it, so these tests take seconds.
 from __future__ import annotations
 
 import configparser
-import importlib.util
 import os
 import shutil
 import subprocess
 import sys
 import tarfile
 from pathlib import Path
-from types import ModuleType
 
 import pytest
+
+from installer_support import load
 
 REPO = Path(__file__).resolve().parents[1]
 INSTALLER = REPO / "installer"
 
 pytestmark = pytest.mark.skipif(not sys.platform.startswith("linux") or shutil.which("sh") is None,
                                 reason="the install scripts are for Linux")
-
-
-def load(name: str) -> ModuleType:
-    sys.path.insert(0, str(INSTALLER))
-    try:
-        spec = importlib.util.spec_from_file_location(name, INSTALLER / f"{name}.py")
-        assert spec is not None and spec.loader is not None
-        module = importlib.util.module_from_spec(spec)
-        spec.loader.exec_module(module)
-        return module
-    finally:
-        sys.path.remove(str(INSTALLER))
 
 
 build = load("build")

@@ -11,8 +11,8 @@ import numpy as np
 import pandas as pd
 import pytest
 
+from tauscope.data import file_sha256
 from tauscope.engine import Settings
-from tauscope.report.fingerprint import file_sha256
 from tauscope.report.study import (
     STUDY_FORMAT,
     STUDY_VERSION,

@@ -19,12 +19,11 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine import fast_tables
+from tauscope.engine import fast_tables, joint
 from tauscope.engine.design import DETERMINISTIC_TERMS, SPECS, column_names
 from tauscope.engine.kpss_numpy import kpss_fast
 from tauscope.engine.lagchoice import TSIG_CRITICAL, LagChoice
 from tauscope.engine.nested import (
-    PHI_KEPT_TERMS,
     PHI_NAMES,
     PHI_SPEC,
     Y_LAG,
@@ -238,28 +237,11 @@ def _adf_result(level: LevelBatch, spec: str, i: int, alpha: float) -> TestResul
 
 
 def _phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:
-    """F = ((RSS_r − RSS_u)/q) / (RSS_u/(n − k_u)), as :func:`joint.phi_statistic`."""
+    """Φ from the batch's restricted RSS, as :func:`joint.phi_test` computes it."""
     regression = adf.regression
     assert regression is not None
-    q = len(DETERMINISTIC_TERMS[PHI_SPEC[name]]) + 1 - PHI_KEPT_TERMS[name]
-    k = len(regression.coefficients)
-    rss_u = regression.rss
-    statistic = ((float(level.phi[name][i]) - rss_u) / q) / (rss_u / (regression.nobs - k))
-    critical = fast_tables.phi_critical_value(name, regression.nobs, alpha)
-    return TestResult(
-        test=name,
-        spec=regression.spec,
-        difference=regression.difference,
-        statistic=statistic,
-        p_value=None,
-        lags=regression.lags,
-        nobs=regression.nobs,
-        critical_values=fast_tables.phi_critical_values(name, regression.nobs),
-        reject=bool(statistic > critical),
-        critical_value=critical,
-        lag_rule=regression.lag_rule,
-        regression=regression,
-    )
+    return joint.phi_result(regression, name, joint.f_statistic(float(level.phi[name][i]), regression, name),
+                            alpha)
 
 
 class FastEstimation:

@@ -14,7 +14,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from tauscope.engine.critical import phi_critical_value, phi_critical_values
+from tauscope.engine import fast_tables
 from tauscope.engine.ols import fit
 from tauscope.engine.regression import Regression
 from tauscope.engine.results import TestResult
@@ -36,18 +36,23 @@ def restricted_rss(regression: Regression, name: str) -> float:
     return fit(y, regression.design[:, keep]).ssr
 
 
-def phi_statistic(regression: Regression, name: str) -> float:
+def f_statistic(rss_restricted: float, regression: Regression, name: str) -> float:
+    """F = ((RSS_r − RSS_u)/q) / (RSS_u/(n − k_u)) for Φ ``name`` on the unrestricted ``regression``."""
     if regression.spec != PHI_SPEC[name]:
         raise ValueError(f"{name} needs the {PHI_SPEC[name]} specification")
     q = len(RESTRICTED_OUT[name])
     k = len(regression.coefficients)
     rss_u = regression.rss
-    return ((restricted_rss(regression, name) - rss_u) / q) / (rss_u / (regression.nobs - k))
+    return ((rss_restricted - rss_u) / q) / (rss_u / (regression.nobs - k))
 
 
-def phi_test(regression: Regression, name: str, alpha: float) -> TestResult:
-    statistic = phi_statistic(regression, name)
-    critical = phi_critical_value(name, regression.nobs, alpha)
+def phi_statistic(regression: Regression, name: str) -> float:
+    return f_statistic(restricted_rss(regression, name), regression, name)
+
+
+def phi_result(regression: Regression, name: str, statistic: float, alpha: float) -> TestResult:
+    """The Φ test result with its Dickey & Fuller (1981) critical values (cached tables)."""
+    critical = fast_tables.phi_critical_value(name, regression.nobs, alpha)
     return TestResult(
         test=name,
         spec=regression.spec,
@@ -56,9 +61,13 @@ def phi_test(regression: Regression, name: str, alpha: float) -> TestResult:
         p_value=None,
         lags=regression.lags,
         nobs=regression.nobs,
-        critical_values=phi_critical_values(name, regression.nobs),
+        critical_values=fast_tables.phi_critical_values(name, regression.nobs),
         reject=bool(statistic > critical),
         critical_value=critical,
         lag_rule=regression.lag_rule,
         regression=regression,
     )
+
+
+def phi_test(regression: Regression, name: str, alpha: float) -> TestResult:
+    return phi_result(regression, name, phi_statistic(regression, name), alpha)

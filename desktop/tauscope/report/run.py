@@ -25,7 +25,7 @@ class SourceFile:
         return Path(self.path).name
 
 
-class _SourceLike(Protocol):
+class SourceLike(Protocol):
     @property
     def file(self) -> str: ...
     @property
@@ -38,7 +38,7 @@ class SeriesLike(Protocol):
     """The parts of ``tauscope.data.SeriesData`` a finding records (data-api.md)."""
 
     @property
-    def source(self) -> _SourceLike: ...
+    def source(self) -> SourceLike: ...
     @property
     def frequency(self) -> str | None: ...
     @property

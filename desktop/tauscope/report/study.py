@@ -24,10 +24,10 @@ from pathlib import Path
 from typing import Any, Protocol
 
 from tauscope import __version__
+from tauscope.data import file_sha256
 from tauscope.engine import SeriesResult, Settings
 from tauscope.report.atomic import write_text_atomic
-from tauscope.report.fingerprint import file_sha256
-from tauscope.report.run import RunRecord
+from tauscope.report.run import RunRecord, SourceLike
 
 STUDY_FORMAT = "tauscope-study"
 STUDY_VERSION = 1
@@ -106,22 +106,13 @@ def findings_from_run(run: RunRecord) -> tuple[dict[str, Any], ...]:
     return tuple(finding_entry(f.result, f.key) for f in run.findings)
 
 
-class _SourceLike(Protocol):
-    @property
-    def file(self) -> str: ...
-    @property
-    def sheet(self) -> str: ...
-    @property
-    def column(self) -> str: ...
-
-
 class _SeriesLike(Protocol):
     @property
     def key(self) -> str: ...
     @property
     def name(self) -> str: ...
     @property
-    def source(self) -> _SourceLike: ...
+    def source(self) -> SourceLike: ...
 
 
 def series_entry(series: _SeriesLike, gaps: str = "none") -> StudySeries:
