@@ -22,7 +22,20 @@ DEMO = Path(__file__).resolve().parents[1] / "resources" / "demo" / "harbourline
 
 
 def test_one_writer_per_suffix() -> None:
+    import tauscope.ui.pdf_report  # noqa: F401  (the Qt-based PDF writer registers ".pdf")
+
+    assert {".json", ".csv", ".xlsx", ".tex", ".html"} <= set(WRITERS)
     assert set(WRITERS) == {".json", ".csv", ".xlsx", ".tex", ".html", ".pdf"}
+
+
+def test_report_itself_loads_no_qt() -> None:
+    import subprocess
+
+    code = ("import sys, tauscope.report, tauscope.commands.batch; "
+            "print(any(m.startswith('PySide6') for m in sys.modules))")
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True,
+                         timeout=60).stdout.strip()
+    assert out == "False"
 
 
 def test_unknown_suffix_names_the_file_and_the_known_formats(tmp_path: Path) -> None:

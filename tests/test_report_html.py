@@ -127,6 +127,8 @@ def test_markup_special_characters_are_escaped(tmp_path: Path) -> None:
 
 
 def test_pdf_is_written_with_every_series(tmp_path: Path, qapp: object) -> None:
+    import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer, which needs Qt)
+
     run = make_run()
     target = tmp_path / "findings.pdf"
     export(target, run, charts={run.findings[0].name: tiny_png()})

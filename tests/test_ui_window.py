@@ -163,9 +163,11 @@ def test_selecting_a_series_fills_chart_and_reading(main_window, open_in_window,
     for number, page in enumerate((chart.data_page, chart.fitted_page, chart.lags_page)):
         chart.tabs.setCurrentIndex(number)  # views are drawn when shown
         assert page.currentWidget() is page.layout_widget
-    chart.tabs.setCurrentIndex(3)
-    qtbot.waitUntil(lambda: chart.null_page.currentWidget() is chart.null_page.layout_widget
-                    or "not available" in chart.null_page.message.text(), timeout=20_000)
+    chart.tabs.setCurrentIndex(chart.RECURSIVE)
+    assert chart.recursive_page.currentWidget() is chart.recursive_page.layout_widget
+    chart.tabs.setCurrentIndex(chart.NULL)
+    qtbot.waitUntil(lambda: chart.null_page.currentWidget() is chart.null_page.layout_widget,
+                    timeout=20_000)
 
 
 def test_copy_puts_a_tab_separated_and_an_html_table_on_the_clipboard(
@@ -181,8 +183,14 @@ def test_copy_puts_a_tab_separated_and_an_html_table_on_the_clipboard(
     main_window.copy()
     mime = QGuiApplication.clipboard().mimeData()
     assert mime.hasText() and mime.hasHtml()
+    # one layout for the clipboard and the reports: tauscope.report.clipboard
+    from tauscope.report.clipboard import findings_html, findings_tsv
+
+    run = main_window.findings_record()
+    assert mime.text() == findings_tsv(run)
+    assert mime.html() == findings_html(run)
     lines = mime.text().strip().split("\n")
-    assert lines[0].split("\t")[0] == "Series and steps"
+    assert lines[0].split("\t")[0] == "Series"
     names = {r.name for r in main_window.findings_panel.model.results().values()}
     first_cells = {line.split("\t")[0] for line in lines[1:]}
     assert names <= first_cells

@@ -23,6 +23,7 @@ from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_
 from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_many
 from tauscope.engine.results import EMPTY_VERDICT
 from tauscope.report import WRITERS, ExportError, Finding, RunRecord, SourceFile, export
+from tauscope.ui import pdf_report  # noqa: F401  (registers ".pdf"; Qt loads only when used)
 
 EXIT_DONE, EXIT_USAGE, EXIT_INPUT, EXIT_OUTPUT = 0, 2, 3, 1
 PROGRESS_FROM = 5  # show progress for more series than this even when stderr is not a terminal

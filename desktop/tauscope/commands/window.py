@@ -34,6 +34,10 @@ def build(argv: list[str]) -> tuple[QApplication, MainWindow]:
     elif not store.get_bool(store.KEY_FIRST_RUN) and demo_workbook() is not None:
         window.open_demo()
     store.set_value(store.KEY_FIRST_RUN, True)
+    # After an abnormal exit, offer back the autosaved study once the window is up.
+    from PySide6.QtCore import QTimer
+
+    QTimer.singleShot(0, window.offer_recovery)
     return app, window
 
 

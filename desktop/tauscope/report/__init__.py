@@ -1,7 +1,9 @@
-"""Writing findings out: JSON, CSV, Excel, LaTeX, HTML and PDF; study files.
+"""Writing findings out: JSON, CSV, Excel, LaTeX and HTML; study files.
 
 ``export(path, run, charts)`` is the one entry the window and ``tauscope
-batch --out`` share; the format follows the suffix (``WRITERS``).
+batch --out`` share; the format follows the suffix (``WRITERS``).  Writers
+that need Qt live in ``tauscope.ui`` and add themselves with
+:func:`register_writer` when imported (``tauscope.ui.pdf_report`` adds ``.pdf``).
 """
 
 from __future__ import annotations
@@ -38,8 +40,15 @@ WRITERS: dict[str, Writer] = {
     ".xlsx": _lazy("xlsx_export", "write_xlsx"),
     ".tex": _lazy("latex_export", "write_latex"),
     ".html": _lazy("html_export", "write_html"),
-    ".pdf": _lazy("pdf_export", "write_pdf"),
 }
+
+
+def register_writer(suffix: str, writer: Writer) -> None:
+    """Add (or replace) the writer for ``suffix`` (e.g. ``".pdf"``), so that
+    :func:`export` and ``tauscope batch --out`` accept it."""
+    if not suffix.startswith(".") or suffix != suffix.lower():
+        raise ValueError(f"a suffix is lower case and starts with a dot, not {suffix!r}")
+    WRITERS[suffix] = writer
 
 
 class ExportError(Exception):
@@ -75,6 +84,7 @@ __all__ = [
     "RunRecord",
     "SourceFile",
     "export",
+    "register_writer",
     "run_to_json",
     "write_json",
 ]

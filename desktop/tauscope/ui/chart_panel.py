@@ -1,18 +1,21 @@
 """The Chart panel (pyqtgraph): the data, and after analysis the fitted path, the
-statistic across lag orders and the null distribution of the statistic."""
+statistic across lag orders, τ on an expanding window and the null distribution of
+the statistic.  Each view can be saved as PNG or SVG from its context menu."""
 
 from __future__ import annotations
 
+from collections.abc import Callable
+from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 import numpy as np
 import pandas as pd
 import pyqtgraph as pg
-from PySide6.QtCore import QObject, QRunnable, Qt, QThreadPool, Signal
+from PySide6.QtCore import QObject, QPoint, QRunnable, Qt, QThreadPool, Signal
 from PySide6.QtGui import QColor, QPalette
-from PySide6.QtWidgets import QLabel, QStackedWidget, QTabWidget, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QLabel, QMenu, QStackedWidget, QTabWidget, QVBoxLayout, QWidget
 
-from tauscope.engine import SeriesResult
+from tauscope.engine import SeriesResult, null_distribution
 from tauscope.engine import formatting as fmt
 from tauscope.ui.texts import DIFFERENCE_NAMES, SPEC_NAMES
 
@@ -47,6 +50,8 @@ class ChartPage(QStackedWidget):
         self.message.setMargin(16)
         self.layout_widget = pg.GraphicsLayoutWidget(self)
         self.layout_widget.setAccessibleName(name)
+        # Our own menu (save as PNG/SVG) instead of pyqtgraph's: see ChartPanel.
+        self.layout_widget.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
         self.addWidget(self.message)
         self.addWidget(self.layout_widget)
         self.setAccessibleName(name)
@@ -68,6 +73,7 @@ class ChartPage(QStackedWidget):
             plot.showGrid(x=True, y=True, alpha=0.15)
             plot.setClipToView(True)
             plot.setDownsampling(auto=True, mode="peak")
+            plot.setMenuEnabled(False)
             self._plots[key] = plot
         else:
             self.layout_widget.addItem(plot, row=row, col=0)
@@ -98,26 +104,44 @@ class ChartPage(QStackedWidget):
     def show_plots(self) -> None:
         self.setCurrentWidget(self.layout_widget)
 
+    def has_plot(self) -> bool:
+        return self.currentWidget() is self.layout_widget
+
+    def save_png(self, path: Path | str) -> None:
+        """The view as drawn on screen, as a PNG picture."""
+        if not self.layout_widget.grab().save(str(path), "PNG"):
+            raise OSError(f"{Path(path).name} could not be written")
+
+    def save_svg(self, path: Path | str) -> None:
+        """The view as an SVG drawing: the scene painted through Qt's SVG generator (lines and
+        text stay vectors).  pyqtgraph's own SVG exporter fails on the paths this Qt writes."""
+        from PySide6.QtCore import QRectF, QSize
+        from PySide6.QtGui import QPainter
+        from PySide6.QtSvg import QSvgGenerator
+
+        view = self.layout_widget
+        size = view.viewport().size()
+        generator = QSvgGenerator()
+        generator.setFileName(str(path))
+        generator.setSize(QSize(size.width(), size.height()))
+        generator.setViewBox(QRectF(0, 0, size.width(), size.height()))
+        generator.setTitle(self.accessibleName())
+        generator.setDescription("Drawn by Tauscope")
+        painter = QPainter()
+        if not painter.begin(generator):
+            raise OSError(f"{Path(path).name} could not be written")
+        try:
+            view.render(painter)
+        finally:
+            painter.end()
+        if not Path(path).is_file() or Path(path).stat().st_size == 0:
+            raise OSError(f"{Path(path).name} could not be written")
+
     def clear(self) -> None:
         """Take the plots off the page (they are kept for the next drawing)."""
         for plot in self._shown:
             self.layout_widget.removeItem(plot)
         self._shown = []
-
-
-def _null_distribution_function() -> Any:
-    """The engine's simulator of τ under the null, wherever this version keeps it."""
-    import importlib
-
-    for module_name in ("tauscope.engine", "tauscope.engine.simulate"):
-        try:
-            module = importlib.import_module(module_name)
-        except ImportError:
-            continue
-        function = getattr(module, "null_distribution", None)
-        if function is not None:
-            return function
-    return None
 
 
 class _NullSignals(QObject):
@@ -131,24 +155,18 @@ class _NullTask(QRunnable):
         self.signals = signals
 
     def run(self) -> None:
-        null_distribution = _null_distribution_function()
-        if null_distribution is None:
-            self.signals.done.emit(self.key, "The simulated null distribution is not available in "
-                                             "this version of Tauscope yet.")
-            return
         spec, nobs, lags = self.key
         try:
-            try:
-                draws = null_distribution(spec, nobs, lags=lags)
-            except TypeError:  # a simulator without the lag argument
-                draws = null_distribution(spec, nobs)
+            draws = null_distribution(spec, nobs, lags=lags)
             self.signals.done.emit(self.key, np.asarray(draws, dtype=float))
         except Exception as exc:
             self.signals.done.emit(self.key, f"The null distribution could not be simulated ({exc}).")
 
 
 class ChartPanel(QWidget):
-    """Tabs: Data, Fitted path, Lag orders, Null distribution."""
+    """Tabs: Data, Fitted path, Lag orders, Expanding window, Null distribution."""
+
+    DATA, FITTED, LAGS, RECURSIVE, NULL = range(5)
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -158,16 +176,20 @@ class ChartPanel(QWidget):
         self.data_page = ChartPage("Data chart", self)
         self.fitted_page = ChartPage("Fitted path chart", self)
         self.lags_page = ChartPage("Lag orders chart", self)
+        self.recursive_page = ChartPage("Expanding window chart", self)
         self.null_page = ChartPage("Null distribution chart", self)
         self.tabs.addTab(self.data_page, "Data")
         self.tabs.addTab(self.fitted_page, "Fitted path")
         self.tabs.addTab(self.lags_page, "Lag orders")
+        self.tabs.addTab(self.recursive_page, "Expanding window")
         self.tabs.addTab(self.null_page, "Null distribution")
         tips = ("The series and its first difference.",
                 "The tested series with the deterministic path the verdict implies "
                 "(mean, trend or drift).",
                 "The ADF statistic τ for every lag order from 0 to the maximum, with the critical "
                 "value; the chosen lag order is marked.",
+                "τ recomputed on an expanding window (the first observations, then more and "
+                "more), with the critical value at each size: is the verdict stable over time?",
                 "How τ is distributed when there really is a unit root, at this sample size, "
                 "against the standard normal, with the observed τ and the critical value.")
         for i, tip in enumerate(tips):
@@ -175,6 +197,12 @@ class ChartPanel(QWidget):
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
         layout.addWidget(self.tabs)
+        # (title, start, filters) -> chosen path or ""; the window replaces it (and tests do)
+        self.save_path_asker: Callable[[str, str, str], str] = self._ask_save_path
+        self.saved_message = ""
+        for page in self.pages():
+            page.layout_widget.customContextMenuRequested.connect(
+                lambda pos, p=page: self._context_menu(p, pos))
         self._null_cache: dict[tuple[str, int, int], Any] = {}
         self._null_pending: set[tuple[str, int, int]] = set()
         self._null_signals = _NullSignals(self)
@@ -187,7 +215,55 @@ class ChartPanel(QWidget):
         self._apply_colors()
         self.show_nothing()
 
-    GUIDE_ANCHORS = ("chart-data", "chart-fitted", "chart-lags", "chart-null")
+    GUIDE_ANCHORS = ("chart-data", "chart-fitted", "chart-lags", "chart-recursive", "chart-null")
+
+    def pages(self) -> tuple[ChartPage, ...]:
+        return (self.data_page, self.fitted_page, self.lags_page, self.recursive_page,
+                self.null_page)
+
+    # saving -------------------------------------------------------------
+    def _ask_save_path(self, title: str, start: str, filters: str) -> str:
+        from PySide6.QtWidgets import QFileDialog
+
+        path, _chosen = QFileDialog.getSaveFileName(self, title, start, filters)
+        return path
+
+    def chart_menu(self, page: ChartPage) -> QMenu:
+        menu = QMenu(self)
+        png = menu.addAction("Save this chart as a picture (PNG)…")
+        png.triggered.connect(lambda _c=False: self.save_chart(page, "png"))
+        svg = menu.addAction("Save this chart as a drawing (SVG)…")
+        svg.triggered.connect(lambda _c=False: self.save_chart(page, "svg"))
+        for action in (png, svg):
+            action.setEnabled(page.has_plot())
+        return menu
+
+    def _context_menu(self, page: ChartPage, pos: QPoint) -> None:
+        self.chart_menu(page).popup(page.layout_widget.mapToGlobal(pos))
+
+    def save_chart(self, page: ChartPage, kind: str, path: Path | str | None = None) -> bool:
+        """Save the page's chart as PNG or SVG (asking where when no path is given)."""
+        if not page.has_plot():
+            return False
+        if path is None:
+            name = (self._series.name if self._series is not None
+                    else self._result.name if self._result is not None else "chart")
+            start = "".join(c if c.isalnum() or c in " -_" else "_" for c in name).strip() or "chart"
+            filters = ("PNG pictures (*.png)" if kind == "png" else "SVG drawings (*.svg)")
+            answer = self.save_path_asker("Save the chart", f"{start}.{kind}", filters)
+            if not answer:
+                return False
+            path = answer
+        target = Path(path)
+        if target.suffix.lower() != f".{kind}":
+            target = target.with_name(target.name + f".{kind}")
+        try:
+            page.save_png(target) if kind == "png" else page.save_svg(target)
+        except OSError as exc:
+            self.saved_message = f"The chart was not saved: {exc}."
+            return False
+        self.saved_message = f"Saved the chart as {target.name}."
+        return True
 
     def current_guide_anchor(self) -> str:
         return self.GUIDE_ANCHORS[max(self.tabs.currentIndex(), 0)]
@@ -200,7 +276,7 @@ class ChartPanel(QWidget):
         dark = self._bg.lightness() < 128
         self._line = QColor("#7fb2ff") if dark else QColor("#1f4e99")
         self._accent = QColor("#ffb347") if dark else QColor("#b35900")
-        for page in (self.data_page, self.fitted_page, self.lags_page, self.null_page):
+        for page in self.pages():
             page.layout_widget.setBackground(self._bg)
 
     def changeEvent(self, event: Any) -> None:
@@ -223,14 +299,16 @@ class ChartPanel(QWidget):
             axis.enableAutoSIPrefix(False)  # plain numbers, no "(x0.001)" scaling
             axis.setPen(self._fg)
             axis.setTextPen(self._fg)
-        plot.titleLabel.setAttr("color", self._fg)
+        title = plot.titleLabel.text
+        if title:  # the colour applies when the text is set again
+            plot.titleLabel.setText(title, color=self._fg.name())
 
     # content ------------------------------------------------------------
     def show_nothing(self) -> None:
         self._series, self._result = None, None
         self._dirty = set()
         self.data_page.say("Pick a series on the left to see it here.")
-        for page in (self.fitted_page, self.lags_page, self.null_page):
+        for page in (self.fitted_page, self.lags_page, self.recursive_page, self.null_page):
             page.say("Analyse a series (F5) to see this view.")
 
     def display(self, series: SeriesData | None, result: SeriesResult | None) -> None:
@@ -245,7 +323,7 @@ class ChartPanel(QWidget):
         if series is None and result is None:
             self.show_nothing()
             return
-        self._dirty = {1, 2, 3} if same_data else {0, 1, 2, 3}
+        self._dirty = {1, 2, 3, 4} if same_data else {0, 1, 2, 3, 4}
         self._draw_current()
 
     def _draw_current(self, *_args: Any) -> None:
@@ -260,6 +338,8 @@ class ChartPanel(QWidget):
             self._draw_fitted(result)
         elif index == 2:
             self._draw_lags(result)
+        elif index == self.RECURSIVE:
+            self._draw_recursive(result)
         else:
             self._draw_null(result)
 
@@ -344,6 +424,38 @@ class ChartPanel(QWidget):
         self._style(plot)
         page.show_plots()
 
+    def _draw_recursive(self, result: SeriesResult | None) -> None:
+        """τ on an expanding window (from the engine's evidence) with its critical value."""
+        page = self.recursive_page
+        if result is None:
+            page.say("Analyse this series (F5) to see τ on an expanding window.")
+            return
+        recursive = result.evidence.recursive if result.evidence is not None else None
+        if result.error is not None or recursive is None or len(recursive.ends) == 0:
+            page.say(result.error or "No expanding-window statistic was computed for this series.")
+            return
+        page.clear()
+        ends = np.asarray(recursive.ends, dtype=int)
+        values = result.values
+        dates = False
+        if values is not None and len(values) > int(ends.max()):
+            x, dates = x_positions(values.index[ends])
+        else:
+            x = ends.astype(float) + 1
+        spec = SPEC_NAMES.get(recursive.spec, recursive.spec)
+        level = fmt.percent(recursive.alpha)
+        plot = page.new_plot(0, dates, f"τ on an expanding window · {spec}, {recursive.lags} lags")
+        page.legend(plot, self._fg, self._bg, "top-right")
+        plot.plot(x, np.asarray(recursive.statistics, dtype=float),
+                  pen=pg.mkPen(self._line, width=1.5), name="τ up to this date", connect="finite")
+        plot.plot(x, np.asarray(recursive.critical_values, dtype=float),
+                  pen=pg.mkPen(self._fg, width=1.2, style=Qt.PenStyle.DashLine),
+                  name=f"{level} critical value")
+        plot.setLabel("bottom", "last observation used" if not dates else "", color=self._fg.name())
+        plot.setLabel("left", "τ", color=self._fg.name())
+        self._style(plot)
+        page.show_plots()
+
     def _draw_null(self, result: SeriesResult | None) -> None:
         page = self.null_page
         if result is None:
@@ -371,7 +483,7 @@ class ChartPanel(QWidget):
     def _null_ready(self, key: Any, value: Any) -> None:
         self._null_pending.discard(key)
         self._null_cache[key] = value
-        if self._result is not None and 3 not in self._dirty:
+        if self._result is not None and self.NULL not in self._dirty:
             self._draw_null(self._result)
 
     def _plot_null(self, page: ChartPage, draws: np.ndarray, test: Any) -> None:

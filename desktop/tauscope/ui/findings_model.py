@@ -4,13 +4,12 @@ the engine's SeriesResult; numbers go through tauscope.engine.formatting."""
 
 from __future__ import annotations
 
-import html
 from typing import Any
 
 from PySide6.QtCore import QModelIndex, QPersistentModelIndex, QSortFilterProxyModel, Qt
 from PySide6.QtGui import QColor, QStandardItem, QStandardItemModel
 
-from tauscope.engine import SeriesResult, Step, TestResult
+from tauscope.engine import SeriesResult, Settings, Step, TestResult
 from tauscope.engine import formatting as fmt
 from tauscope.ui.markers import MARKERS, marker_icon, marker_kind
 from tauscope.ui.qtcompat import item_value
@@ -20,9 +19,13 @@ from tauscope.ui.texts import (
     AGREEMENT_WORDS,
     DIFFERENCE_NAMES,
     DIFFERENCE_SHORT,
+    EXTRA_TEST_NAMES,
     GUIDE_ANCHORS,
     GUIDE_HINT,
     LAG_RULE_SHORT,
+    OUT_OF_DATE,
+    SPEC_SHORT,
+    STATISTIC_SYMBOLS,
     STATISTIC_TIPS,
     decision_text,
     lag_text,
@@ -31,7 +34,7 @@ from tauscope.ui.texts import (
 )
 
 COLUMNS = ("Series and steps", "Verdict", "Statistic", "Critical value", "p-value", "Decision",
-           "KPSS check", "Lags", "Obs.")
+           "Cross-check", "Lags", "Obs.")
 NAME, VERDICT, STATISTIC, CRITICAL, PVALUE, DECISION, CHECK, LAGS, NOBS = range(len(COLUMNS))
 COLUMN_TIPS = (
     "Each analysed series. Expand a row to see the decision path step by step, and under each "
@@ -45,8 +48,9 @@ COLUMN_TIPS = (
     "The probability of a statistic at least this extreme if the null hypothesis were true.",
     "Whether the step rejected its null hypothesis at the chosen level. “Not rejected” means no "
     "evidence against it, not proof that it holds.",
-    "Whether the KPSS test, which starts from stationarity instead of a unit root, points the "
-    "same way as the verdict.",
+    "Whether the cross-checks turned on in the settings (KPSS, which starts from stationarity "
+    "instead of a unit root, and Phillips-Perron, DF-GLS, Zivot-Andrews) point the same way as "
+    "the verdict.",
     "Number of lagged differences in the regression, and the rule that chose it.",
     "Observations used in the regression (after differencing and lags).",
 )
@@ -180,6 +184,43 @@ def kpss_row(key: str, test: TestResult) -> list[QStandardItem]:
     return _row("kpss", key, cells)
 
 
+def unit_root_test_row(key: str, test: TestResult, result: SeriesResult) -> list[QStandardItem]:
+    """A row for a Phillips-Perron, DF-GLS or Zivot-Andrews test (null: a unit root)."""
+    name = EXTRA_TEST_NAMES[test.test]
+    tip = STATISTIC_TIPS[test.test]
+    guide = GUIDE_ANCHORS[test.test]
+    where = DIFFERENCE_SHORT.get(test.difference, str(test.difference))
+    verdict = "a unit root (the null)"
+    info = result.evidence.break_info if result.evidence is not None else None
+    if test.test == "za" and info is not None:
+        verdict = f"a unit root; break: new regime from {info.first_new_label}"
+    text = (f"{name} on {DIFFERENCE_NAMES.get(test.difference, 'the series').lower()} "
+            f"({SPEC_SHORT.get(test.spec, test.spec)}): a unit root "
+            f"{'rejected' if test.reject else 'not rejected'} at the chosen level")
+    if test.test == "za" and info is not None:
+        text += (f"; most likely break: {info.description}, the new regime starting at "
+                 f"{info.first_new_label}")
+    symbol = STATISTIC_SYMBOLS[test.test]
+    cells = {
+        NAME: _cell(f"{name} · {where}", f"{text}. {tip}", guide),
+        VERDICT: _cell(verdict, text, guide),
+        STATISTIC: _number_cell(f"{symbol} = {fmt.stat(test.statistic)}", test.statistic, tip,
+                                guide),
+        CRITICAL: _number_cell(fmt.stat(test.critical_value), test.critical_value,
+                               COLUMN_TIPS[CRITICAL], "critical"),
+        PVALUE: _number_cell(fmt.p_value(test.p_value, test.p_value_bound)
+                             if test.p_value is not None else "n/a", test.p_value,
+                             COLUMN_TIPS[PVALUE] if test.p_value is not None else NO_P_VALUE,
+                             "pvalues"),
+        DECISION: _cell("rejected" if test.reject else "not rejected", text, "decisions"),
+        LAGS: _right(_cell(lag_text(test.lags, test.lag_rule),
+                           "Bandwidth of the long-run variance (Phillips-Perron) or number of "
+                           "lagged differences.", guide)),
+        NOBS: _right(_cell(str(test.nobs), COLUMN_TIPS[NOBS], guide)),
+    }
+    return _row(test.test, key, cells)
+
+
 class FindingsModel(QStandardItemModel):
     """One top-level row per analysed series, keyed by the series key."""
 
@@ -267,6 +308,9 @@ class FindingsModel(QStandardItemModel):
                 row[NAME].appendRow(self._placeholder())
             rows.append(row)
         rows.extend(kpss_row(key, test) for test in result.tests if test.test == "kpss")
+        for name in ("pp", "dfgls", "za"):
+            rows.extend(unit_root_test_row(key, test, result)
+                        for test in result.tests if test.test == name)
         return rows
 
     def populate_all(self, parent: QModelIndex | None = None) -> None:
@@ -306,6 +350,22 @@ class FindingsModel(QStandardItemModel):
                 self.setData(self.index(row, VERDICT), marker_icon(marker_kind(result), color),
                              Qt.ItemDataRole.DecorationRole)
 
+    def mark_out_of_date(self, settings: Settings) -> int:
+        """Add a visible word to the verdict of every finding computed with other settings
+        (or remove it when the settings are back); returns how many are out of date."""
+        wanted = settings.to_dict()
+        stale = 0
+        for key, result in self._results.items():
+            row = self.row_for_key(key)
+            if row is None:
+                continue
+            old = dict(result.settings) if result.settings else {}
+            out_of_date = any(k in old and old[k] != v for k, v in wanted.items())
+            stale += out_of_date
+            label = result.verdict.label + (f" {OUT_OF_DATE}" if out_of_date else "")
+            self.setData(self.index(row, VERDICT), label, Qt.ItemDataRole.DisplayRole)
+        return stale
+
     def row_for_key(self, key: str) -> int | None:
         index = self._rows.get(key)
         return index.row() if index is not None and index.isValid() else None
@@ -343,18 +403,3 @@ class FindingsSortProxy(QSortFilterProxyModel):
             return bool(a < b)
         except TypeError:
             return str(a) < str(b)
-
-
-def rows_as_table(header: list[str], rows: list[list[str]]) -> tuple[str, str]:
-    """The same rows as tab-separated text and as an HTML table (for spreadsheets and
-    word processors)."""
-    def clean(text: str) -> str:
-        return text.replace("\t", " ").replace("\n", " ")
-
-    tsv = "\n".join("\t".join(clean(c) for c in line) for line in [header, *rows]) + "\n"
-    head = "".join(f"<th>{html.escape(h)}</th>" for h in header)
-    body = "".join("<tr>" + "".join(f"<td>{html.escape(c)}</td>" for c in line) + "</tr>"
-                   for line in rows)
-    table = (f"<table border=\"1\" cellspacing=\"0\" cellpadding=\"3\"><thead><tr>{head}</tr>"
-             f"</thead><tbody>{body}</tbody></table>")
-    return tsv, table

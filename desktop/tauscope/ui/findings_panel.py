@@ -2,20 +2,24 @@
 
 from __future__ import annotations
 
+from collections.abc import Callable
+from typing import TYPE_CHECKING
+
 from PySide6.QtCore import QItemSelectionModel, QMimeData, QModelIndex, QPoint, Qt, Signal
 from PySide6.QtGui import QAction, QGuiApplication, QKeySequence
 from PySide6.QtWidgets import QAbstractItemView, QMenu, QTreeView, QVBoxLayout, QWidget
 
 from tauscope.ui.findings_model import (
-    COLUMNS,
     NAME,
     VERDICT,
     FindingsModel,
     FindingsSortProxy,
-    rows_as_table,
 )
 from tauscope.ui.qtcompat import item_value
 from tauscope.ui.roles import GUIDE_ROLE, KEY_ROLE
+
+if TYPE_CHECKING:
+    from tauscope.report import RunRecord
 
 
 def _path(index: QModelIndex) -> tuple[int, ...]:
@@ -34,6 +38,8 @@ class FindingsPanel(QWidget):
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
         self.model = FindingsModel(self)
+        # keys (row order) -> the findings as a run record; set by the window
+        self.record_for: Callable[[list[str]], RunRecord] | None = None
         self.proxy = FindingsSortProxy(self)
         self.proxy.setSourceModel(self.model)
         self.view = QTreeView(self)
@@ -87,35 +93,34 @@ class FindingsPanel(QWidget):
         return str(item_value(index, GUIDE_ROLE, ""))
 
     # copying ------------------------------------------------------------
-    def selected_table(self) -> tuple[list[str], list[list[str]]]:
-        """Selected rows in display order, the first column indented by depth."""
-        selected = {_path(self.proxy.mapToSource(i))
-                    for i in self.view.selectionModel().selectedRows(NAME)}
-        rows: list[list[str]] = []
-
-        def walk(parent: QModelIndex, depth: int) -> None:
-            for r in range(self.proxy.rowCount(parent)):
-                index = self.proxy.index(r, NAME, parent)
-                source = self.proxy.mapToSource(index)
-                if _path(source) in selected:
-                    cells = [str(item_value(self.proxy.index(r, c, parent),
-                                            Qt.ItemDataRole.DisplayRole, ""))
-                             for c in range(len(COLUMNS))]
-                    cells[0] = "  " * depth + cells[0]
-                    rows.append(cells)
-                walk(index, depth + 1)
-
-        walk(QModelIndex(), 0)
-        return list(COLUMNS), rows
+    def selected_keys(self) -> list[str]:
+        """Keys of the series with a selected row (or a selected step below them), in the
+        order shown."""
+        chosen = {str(item_value(i, KEY_ROLE, ""))
+                  for i in self.view.selectionModel().selectedRows(NAME)}
+        keys = []
+        for r in range(self.proxy.rowCount()):
+            key = str(item_value(self.proxy.index(r, NAME), KEY_ROLE, ""))
+            if key in chosen:
+                keys.append(key)
+        return keys
 
     def copy_selection(self) -> QMimeData | None:
-        header, rows = self.selected_table()
-        if not rows:
+        """The selected findings on the clipboard in the report layout
+        (``tauscope.report.clipboard``): tab-separated text and an HTML table."""
+        from tauscope.report.clipboard import findings_html, findings_tsv
+
+        keys = self.selected_keys()
+        if not keys or self.record_for is None:
             return None
-        tsv, table = rows_as_table(header, rows)
+        run = self.record_for(keys)
+        order = {k: i for i, k in enumerate(keys)}
+        run = type(run)(run.settings, run.sources,
+                        tuple(sorted(run.findings, key=lambda f: order.get(f.key or "", 0))),
+                        run.version, run.created)
         mime = QMimeData()
-        mime.setText(tsv)
-        mime.setHtml(table)
+        mime.setText(findings_tsv(run))
+        mime.setHtml(findings_html(run))
         QGuiApplication.clipboard().setMimeData(mime)
         return mime
 

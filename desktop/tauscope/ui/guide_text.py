@@ -9,6 +9,11 @@ SECTIONS = (
     ("phi", "Φ1, Φ2, Φ3: the joint tests"),
     ("z", "z: when the normal distribution applies"),
     ("kpss", "The KPSS cross-check"),
+    ("pp", "Phillips-Perron: correcting for autocorrelation"),
+    ("dfgls", "DF-GLS: more power near a unit root"),
+    ("za", "Zivot-Andrews: allowing one break"),
+    ("exact", "Exact critical values for your sample size"),
+    ("power", "Power: how often a stationary series is recognised"),
     ("lags", "Lag order and how it is chosen"),
     ("critical", "Critical values"),
     ("pvalues", "p-values"),
@@ -19,6 +24,7 @@ SECTIONS = (
     ("chart-data", "Chart: Data"),
     ("chart-fitted", "Chart: Fitted path"),
     ("chart-lags", "Chart: Lag orders"),
+    ("chart-recursive", "Chart: Expanding window"),
     ("chart-null", "Chart: Null distribution"),
     ("settings", "Settings"),
     ("references", "References"),
@@ -31,7 +37,11 @@ in the <b>Series</b> panel with a small drawing of each. Select the series you w
 all), press <b>F5</b>, and the verdicts arrive one series at a time in the <b>Findings</b> panel.
 <b>Esc</b> stops a run; the results already in are kept. Pick a row to see its chart in the
 <b>Chart</b> panel and its plain-language note in the <b>Reading</b> panel. <b>Ctrl+C</b> copies
-the selected findings as a table that pastes into a spreadsheet or a word processor.</p>
+the selected findings as a table that pastes into a spreadsheet or a word processor;
+<b>File → Export findings</b> (<b>Ctrl+E</b>) writes them all to Excel, CSV, JSON, LaTeX, a web page
+or PDF. <b>File → Save study</b> (<b>Ctrl+S</b>) keeps the workbooks, series, settings and findings
+in a <code>.tauscope</code> file; opening it later reads the workbooks again, tells you if one
+changed or moved, and analyses the series again to the same numbers.</p>
 <p>Right-click a series to add a transformed copy: natural log, first difference, growth in %
 (log difference × 100) or seasonal difference. The copy appears under the series it came from.</p>""",
     "sequence": """
@@ -134,7 +144,8 @@ z is the unit-root t ratio against the normal when a trend or drift belongs; KPS
 stationarity. See the sections above for each.</p>""",
     "chart-data": """
 <p>The series as read and its first difference below, on a shared date axis. Drag to pan, wheel
-to zoom, right-click for options. Long series stay smooth because only the visible part is drawn,
+to zoom; right-click any chart to save it as a picture (PNG)
+or a drawing (SVG). Long series stay smooth because only the visible part is drawn,
 thinned to the screen's resolution.</p>""",
     "chart-fitted": """
 <p>The tested series with the deterministic path its verdict implies: the mean or the trend for a
@@ -144,6 +155,42 @@ far from its path for long stretches deserves a second look (a break, or a diffe
 <p>τ computed with every lag order from 0 to the maximum, with the critical value as a dashed
 line and the chosen lag order marked. If τ crosses the line as the lag order changes, the
 decision depends on the lag choice and deserves care.</p>""",
+    "pp": """
+<p>The <b>Phillips-Perron</b> test (Phillips &amp; Perron 1988) asks the same question as τ but
+handles autocorrelated errors differently: instead of adding lagged differences to the
+regression, it corrects the Dickey-Fuller t ratio with an estimate of the long-run variance
+(Newey-West, with a bandwidth chosen from the data). Its Zτ uses the same critical values as τ.
+Where it and the ADF test disagree, the verdict depends on how the short-run dynamics are
+handled; read it as tentative. Turn it on under Settings → Cross-checks.</p>""",
+    "dfgls": """
+<p><b>DF-GLS</b> (Elliott, Rothenberg &amp; Stock 1996) first removes the mean or the trend by a
+quasi-difference (GLS) regression, then runs the Dickey-Fuller regression on what is left. It
+rejects a false unit root more often than the ADF test with the same data, especially when the
+series is very persistent. The lag order is chosen by the modified AIC unless you fixed it.</p>""",
+    "za": """
+<p>A one-time shift in the level or the slope of a series makes the ADF test see a unit root where
+there is none (Perron 1989). The <b>Zivot-Andrews</b> test (Zivot &amp; Andrews 1992) allows one
+break in the intercept, the trend or both, at the date where the evidence against a unit root is
+strongest, and reports that date. If it rejects while the ADF test does not, look at the source
+near the break date: a change of definition, a crisis, a new base year. Its critical values are
+more negative than τ's, because the break date was chosen from the data.</p>""",
+    "exact": """
+<p>Published critical values (MacKinnon 1996, 2010) are response surfaces fitted over many
+sample sizes. With <b>exact critical values</b> Tauscope simulates the distribution of each
+statistic under a unit root at your series' own length, with a fixed seed so the numbers repeat,
+and takes the critical values and p-values from the simulation. This is slower (the first run
+for a new length takes a few seconds) and matters most for short series.</p>""",
+    "power": """
+<p>Not rejecting a unit root is weak evidence when the test rarely rejects anyway. With
+<b>power</b> turned on, Tauscope simulates stationary series of your length whose autoregressive
+coefficient is 0.90 and 0.95 and reports how often the deciding ADF test would reject a unit
+root. A power of 30% means seven times in ten a stationary series this persistent would also
+have looked like a unit root: the verdict then rests on little.</p>""",
+    "chart-recursive": """
+<p>τ recomputed on an expanding window: the first part of the series, then a little more, up to
+all of it, with the critical value for each window length as a dashed line. A τ that crosses the
+line and stays there shows when the evidence settled; one that wanders across it several times
+says the verdict depends on the span, often because of a break.</p>""",
     "chart-null": """
 <p>The distribution of τ when the series truly has a unit root, simulated for this regression
 and sample size, drawn against the standard normal. It shows why τ needs its own critical values:
@@ -153,7 +200,10 @@ value are marked.</p>""",
 <p><b>Significance level</b>: 1%, 5% or 10%, used for every test in the sequence.
 <b>Lag rule</b> and <b>largest lag order</b>: see Lag order above.
 <b>Highest difference</b>: where the sequence starts (2 allows I(2) verdicts).
-<b>Cross-check</b>: whether KPSS runs. Settings are remembered between sessions.</p>""",
+<b>Cross-checks</b>: KPSS (stationarity as the null), Phillips-Perron, DF-GLS and Zivot-Andrews
+(with the break in the intercept, the trend or both). <b>Critical values</b>: the published
+ones, or exact ones simulated at your sample size (slower). <b>Power</b>: whether the power of
+the deciding test is simulated and reported. Settings are remembered between sessions.</p>""",
     "references": """
 <ul>
 <li>Dickey, D.A. &amp; Fuller, W.A. (1979). Distribution of the estimators for autoregressive time
@@ -164,6 +214,8 @@ series with a unit root. <i>Econometrica</i> 49, 1057–1072.</li>
 autoregressive processes. <i>Journal of Business &amp; Economic Statistics</i> 5, 455–461.</li>
 <li>Dolado, J.J., Jenkinson, T. &amp; Sosvilla-Rivero, S. (1990). Cointegration and unit roots.
 <i>Journal of Economic Surveys</i> 4, 249–273.</li>
+<li>Elliott, G., Rothenberg, T.J. &amp; Stock, J.H. (1996). Efficient tests for an
+autoregressive unit root. <i>Econometrica</i> 64, 813–836.</li>
 <li>Kwiatkowski, D., Phillips, P.C.B., Schmidt, P. &amp; Shin, Y. (1992). Testing the null
 hypothesis of stationarity against the alternative of a unit root. <i>Journal of Econometrics</i>
 54, 159–178.</li>
@@ -178,12 +230,17 @@ for the selection of the truncation lag. <i>Journal of the American Statistical 
 with good size and power. <i>Econometrica</i> 69, 1519–1554.</li>
 <li>Perron, P. (1989). The great crash, the oil price shock, and the unit root hypothesis.
 <i>Econometrica</i> 57, 1361–1401.</li>
+<li>Phillips, P.C.B. &amp; Perron, P. (1988). Testing for a unit root in time series
+regression. <i>Biometrika</i> 75, 335–346.</li>
 <li>Said, S.E. &amp; Dickey, D.A. (1984). Testing for unit roots in autoregressive-moving average
 models of unknown order. <i>Biometrika</i> 71, 599–607.</li>
 <li>Schwert, G.W. (1989). Tests for unit roots: a Monte Carlo investigation. <i>Journal of
 Business &amp; Economic Statistics</i> 7, 147–159.</li>
 <li>West, K.D. (1988). Asymptotic normality, when regressors have a unit root.
 <i>Econometrica</i> 56, 1397–1417.</li>
+<li>Zivot, E. &amp; Andrews, D.W.K. (1992). Further evidence on the great crash, the oil-price
+shock, and the unit-root hypothesis. <i>Journal of Business &amp; Economic Statistics</i> 10,
+251–270.</li>
 </ul>""",
 }
 

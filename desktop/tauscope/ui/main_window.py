@@ -3,6 +3,9 @@ between them.  It shows what the engine returns and never computes statistics.""
 
 from __future__ import annotations
 
+import contextlib
+import threading
+from collections.abc import Callable
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
@@ -33,10 +36,12 @@ from PySide6.QtWidgets import (
 
 from tauscope import __version__
 from tauscope.engine import LAG_RULE_LABELS, SeriesResult, Settings
+from tauscope.report.study import STUDY_SUFFIX, Study
 from tauscope.resources_path import demo_workbook
 from tauscope.ui import store
 from tauscope.ui.appearance import APPEARANCES, apply_appearance
 from tauscope.ui.chart_panel import ChartPanel
+from tauscope.ui.findings_export import CHART_SUFFIXES, EXPORT_FILTERS, build_run, export_filter
 from tauscope.ui.findings_panel import FindingsPanel
 from tauscope.ui.guide_window import GuideWindow
 from tauscope.ui.loader import WorkbookLoader
@@ -44,14 +49,19 @@ from tauscope.ui.problem_dialog import ProblemDialog
 from tauscope.ui.reading_panel import ReadingPanel
 from tauscope.ui.series_panel import SeriesPanel
 from tauscope.ui.settings_dialog import SettingsDialog
+from tauscope.ui.study_state import analysed_keys, build_study, check_study_sources
 from tauscope.ui.texts import LAG_RULE_SHORT
 from tauscope.ui.worker import AnalysisRunner, Job
 
 if TYPE_CHECKING:
-    from tauscope.data import Workbook
+    from tauscope.data import SeriesData, Workbook
+    from tauscope.report import RunRecord
 
 FILE_FILTER = "Workbooks (*.xlsx *.xlsm *.xls *.csv *.tsv *.txt);;All files (*)"
 READABLE_SUFFIXES = {".xlsx", ".xlsm", ".xls", ".csv", ".tsv", ".txt"}
+STUDY_FILTER = f"Tauscope studies (*{STUDY_SUFFIX});;All files (*)"
+AUTOSAVE_MS = 120_000
+UNTITLED_STUDY = "Untitled study"
 
 
 def _panel(title: str, body: QWidget, extra: QWidget | None = None) -> QWidget:
@@ -75,8 +85,17 @@ def settings_summary(settings: Settings) -> str:
     lags = (f"{settings.lags} lags" if settings.lag_rule == "fixed"
             else f"lags by {rule}" + (f" ≤ {settings.max_lags}" if settings.max_lags is not None
                                       else ""))
-    check = " · KPSS" if "kpss" in settings.confirm else ""
-    return f"{settings.alpha_label} · {lags} · up to I({settings.max_difference}){check}"
+    names = {"kpss": "KPSS", "pp": "PP", "dfgls": "DF-GLS", "za": "ZA"}
+    checks = [names[c] for c in ("kpss", "pp", "dfgls", "za") if c in settings.confirm]
+    check = (" · " + ", ".join(checks)) if checks else ""
+    exact = " · exact critical values" if settings.critical_values == "exact" else ""
+    return (f"{settings.alpha_label} · {lags} · up to I({settings.max_difference}){check}"
+            f"{exact}")
+
+
+def _tail(key: str) -> str:
+    """A series key without its file name (a relocated workbook may have a new name)."""
+    return key.split("|", 1)[-1]
 
 
 class MainWindow(QMainWindow):
@@ -93,6 +112,18 @@ class MainWindow(QMainWindow):
         self._current_key = ""
         self._closing = False
         self.last_run: tuple[bool, int] | None = None  # (stopped, results) of the last run
+        # The open study: its file (None until saved), unsaved changes, how gaps were mended.
+        self.study_path: Path | None = None
+        self._gap_handling: dict[str, str] = {}
+        self._quiet_run = False  # a study's re-run does not count as a change
+        self._autosave_thread: threading.Thread | None = None
+        # Questions to the user, replaceable in tests: (title, folder, filter) -> path or "".
+        self.ask_save_path: Callable[[str, str, str], str] = self._ask_save_path
+        self.ask_open_path: Callable[[str, str, str], str] = self._ask_open_path
+        self.ask_yes_no: Callable[[str, str], bool] = self._ask_yes_no
+        self.autosave_timer = QTimer(self)
+        self.autosave_timer.setInterval(AUTOSAVE_MS)
+        self.autosave_timer.timeout.connect(self.autosave)
 
         self.series_panel = SeriesPanel(self)
         self.chart_panel = ChartPanel(self)
@@ -106,6 +137,8 @@ class MainWindow(QMainWindow):
         self._connect()
         self._restore_window_state()
         self._update_run_state()
+        self._update_title()
+        self.autosave_timer.start()
 
     # layout -------------------------------------------------------------
     def _build_layout(self) -> None:
@@ -166,6 +199,19 @@ class MainWindow(QMainWindow):
         self.demo_action = self._action("Open the &demo workbook", self.open_demo, None,
                                         "Open the example workbook that comes with Tauscope",
                                         sp.SP_FileDialogInfoView)
+        self.export_action = self._action("&Export findings…", self.export_findings, "Ctrl+E",
+                                          "Write the findings to Excel, CSV, JSON, LaTeX, a web "
+                                          "page or PDF", sp.SP_DialogSaveButton)
+        self.open_study_action = self._action("Open s&tudy…", self.choose_study, None,
+                                              "Open a saved study and analyse its series again")
+        self.save_study_action = self._action("&Save study", self.save_study,
+                                              QKeySequence.StandardKey.Save,
+                                              "Save the workbooks, series, settings and findings "
+                                              "of this study")
+        if not self.save_study_action.shortcuts():
+            self.save_study_action.setShortcut(QKeySequence("Ctrl+S"))
+        self.save_study_as_action = self._action("Save study &as…", self.save_study_as,
+                                                 "Ctrl+Shift+S", "Save this study under a new name")
         self.close_all_action = self._action("&Close all workbooks", self.close_all, None,
                                              "Remove every workbook and finding from the window")
         self.quit_action = self._action("&Quit", self.close, QKeySequence.StandardKey.Quit,
@@ -218,6 +264,12 @@ class MainWindow(QMainWindow):
         self.recent_menu.aboutToShow.connect(self._fill_recent_menu)
         file_menu.addAction(self.demo_action)
         file_menu.addSeparator()
+        file_menu.addAction(self.open_study_action)
+        file_menu.addAction(self.save_study_action)
+        file_menu.addAction(self.save_study_as_action)
+        file_menu.addSeparator()
+        file_menu.addAction(self.export_action)
+        file_menu.addSeparator()
         file_menu.addAction(self.close_all_action)
         file_menu.addSeparator()
         file_menu.addAction(self.quit_action)
@@ -248,7 +300,8 @@ class MainWindow(QMainWindow):
         toolbar.setIconSize(QSize(18, 18))
         toolbar.setToolButtonStyle(Qt.ToolButtonStyle.ToolButtonTextBesideIcon)
         for action in (self.open_action, self.demo_action, None, self.run_action, self.stop_action,
-                       None, self.settings_action, self.copy_action, None, self.guide_action):
+                       None, self.settings_action, self.copy_action, self.export_action, None,
+                       self.guide_action):
             if action is None:
                 toolbar.addSeparator()
             else:
@@ -287,6 +340,9 @@ class MainWindow(QMainWindow):
         self.loader.loaded.connect(self._workbook_loaded)
         self.loader.failed.connect(self._workbook_failed)
         self.findings_panel.model.marker_color = self.palette().color(self.foregroundRole())
+        self.findings_panel.record_for = self.findings_record
+        self.chart_panel.save_path_asker = lambda title, start, filters: self.ask_save_path(
+            title, start, filters)
 
     # state --------------------------------------------------------------
     def _restore_window_state(self) -> None:
@@ -315,6 +371,7 @@ class MainWindow(QMainWindow):
         self.stop_action.setEnabled(running)
         self.settings_action.setEnabled(not running)
         self.close_all_action.setEnabled(not running)
+        self.open_study_action.setEnabled(not running)
 
     # files --------------------------------------------------------------
     def choose_files(self) -> None:
@@ -323,9 +380,13 @@ class MainWindow(QMainWindow):
         self.open_files(paths)
 
     def open_files(self, paths: list[str] | list[Path]) -> None:
-        """Read each file in the background; the series appear when it is read."""
+        """Read each file in the background; the series appear when it is read.
+        A study file (.tauscope) is opened as a study."""
         for path in paths:
             text = str(Path(path).expanduser().resolve())
+            if Path(text).suffix.lower() == STUDY_SUFFIX:
+                self.open_study(text)
+                continue
             self.status_label.setText(f"Reading {Path(text).name}…")
             self.loader.load(text)
 
@@ -342,6 +403,7 @@ class MainWindow(QMainWindow):
         store.add_recent_file(workbook.path)
         count = len(workbook.series())
         self.status_label.setText(f"Opened {workbook.path.name}: {count} series")
+        self.set_modified(True)
         if not self._current_key and workbook.series():
             self.series_panel.select_key(workbook.series()[0].key)
 
@@ -361,7 +423,9 @@ class MainWindow(QMainWindow):
     def close_all(self) -> None:
         self.series_panel.model.clear_all()
         self.findings_panel.model.clear_results()
+        self._gap_handling.clear()
         self._show_key("")
+        self.set_modified(True)
 
     def _fill_recent_menu(self) -> None:
         self.recent_menu.clear()
@@ -394,7 +458,8 @@ class MainWindow(QMainWindow):
         if not mime.hasUrls():
             return []
         return [url.toLocalFile() for url in mime.urls()
-                if url.isLocalFile() and Path(url.toLocalFile()).suffix.lower() in READABLE_SUFFIXES]
+                if url.isLocalFile()
+                and Path(url.toLocalFile()).suffix.lower() in READABLE_SUFFIXES | {STUDY_SUFFIX}]
 
     # transforms ---------------------------------------------------------
     def add_transform(self, key: str, transform: str) -> None:
@@ -412,6 +477,7 @@ class MainWindow(QMainWindow):
         if item is not None:
             self.series_panel.select_key(derived.key)
             self.status_label.setText(f"Added {derived.name}")
+            self.set_modified(True)
 
     def mend_gaps(self, key: str, how: str) -> None:
         """Cut a series to its longest gap-free stretch, or fill its gaps (the file is untouched;
@@ -421,6 +487,8 @@ class MainWindow(QMainWindow):
             return
         mended = series.longest_stretch() if how == "cut" else series.interpolated()
         self.series_panel.model.replace_series(mended)
+        self._gap_handling[key] = "longest" if how == "cut" else "interpolate"
+        self.set_modified(True)
         if key == self._current_key:
             self._current_key = ""
             self._show_key(key)
@@ -471,6 +539,10 @@ class MainWindow(QMainWindow):
         self._update_run_state()
         if self._closing:
             return
+        if received and not self._quiet_run:
+            self.set_modified(True)
+        self._quiet_run = False
+        QTimer.singleShot(0, self.autosave)  # its own event: the window answers in between
         total = self.progress.maximum()
         errors = sum(1 for r in self.findings_panel.model.results().values() if r.error)
         if stopped:
@@ -542,7 +614,10 @@ class MainWindow(QMainWindow):
             self.apply_settings(dialog.settings())
 
     def apply_settings(self, settings: Settings) -> None:
+        if settings != self.settings:
+            self.set_modified(True)
         self.settings = settings
+        self.findings_panel.model.mark_out_of_date(settings)
         store.save_settings(settings)
         self.settings_label.setText(settings_summary(settings))
         self.settings_label.setToolTip(
@@ -555,6 +630,268 @@ class MainWindow(QMainWindow):
         if isinstance(app, QApplication):
             apply_appearance(app, appearance)
         self.findings_panel.model.set_marker_color(self.palette().color(self.foregroundRole()))
+
+    # findings out ------------------------------------------------------
+    def findings_record(self, keys: list[str] | None = None) -> RunRecord:
+        """The findings on screen (all, or those of ``keys`` in row order) as a run record."""
+        model = self.series_panel.model
+        run = build_run(self.findings_panel.model.results(), model.series_for_key,
+                        model.workbooks(), self.settings)
+        return run if keys is None else run.select(keys)
+
+    def export_findings(self, target: str | Path | None = None) -> bool:
+        """Write every finding through ``tauscope.report.export`` (the writers ``tauscope batch``
+        uses); charts go into Excel, the web page and the PDF."""
+        import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
+        from tauscope.report import ExportError, export
+        from tauscope.ui.findings_export import render_charts, suffix_for_filter
+
+        results = self.findings_panel.model.results()
+        if not results:
+            self.tell("There are no findings to export yet: analyse some series first (F5).")
+            return False
+        if target is None:
+            start = str(self.study_path.with_suffix(".xlsx")) if self.study_path else "findings.xlsx"
+            answer = self.ask_save_path("Export findings", start, export_filter())
+            if not answer:
+                return False
+            target = answer
+        path = Path(target)
+        known = {suffix for _label, suffix in EXPORT_FILTERS}
+        if path.suffix.lower() not in known:
+            path = path.with_name(path.name + suffix_for_filter(""))
+        run = self.findings_record()
+        charts = (render_charts(results, self.series_panel.model.series_for_key)
+                  if path.suffix.lower() in CHART_SUFFIXES else None)
+        try:
+            export(path, run, charts)
+        except ExportError as exc:
+            self.tell(str(exc), title="The findings were not exported")
+            return False
+        self.status_label.setText(f"Exported {len(run.findings)} findings to {path.name}.")
+        return True
+
+    # studies ------------------------------------------------------------
+    def current_study(self) -> Study:
+        model = self.series_panel.model
+        return build_study(self.settings, model.workbooks(), model.all_series(),
+                           self.findings_panel.model.results(), self._gap_handling)
+
+    def set_modified(self, modified: bool) -> None:
+        self.setWindowModified(modified)
+        self._update_title()
+
+    def _update_title(self) -> None:
+        name = self.study_path.stem if self.study_path is not None else UNTITLED_STUDY
+        self.setWindowTitle(f"{name}[*] — Tauscope")
+
+    def _set_study_path(self, path: Path | None) -> None:
+        self.study_path = path
+        store.set_value(store.KEY_LAST_STUDY, str(path) if path is not None else "")
+        if path is not None:
+            store.set_value(store.KEY_STUDY_FOLDER, str(path.parent))
+        self._update_title()
+
+    def save_study(self) -> bool:
+        if self.study_path is None:
+            return self.save_study_as()
+        return self.save_study_to(self.study_path)
+
+    def save_study_as(self) -> bool:
+        folder = str(store.get_value(store.KEY_STUDY_FOLDER) or "")
+        start = str(Path(folder) / f"study{STUDY_SUFFIX}") if folder else f"study{STUDY_SUFFIX}"
+        answer = self.ask_save_path("Save study as", start, STUDY_FILTER)
+        if not answer:
+            return False
+        path = Path(answer)
+        if path.suffix.lower() != STUDY_SUFFIX:
+            path = path.with_name(path.name + STUDY_SUFFIX)
+        return self.save_study_to(path)
+
+    def save_study_to(self, path: Path | str) -> bool:
+        from tauscope.report.study import StudyError
+        from tauscope.report.study import save_study as write_study
+
+        target = Path(path).resolve()
+        try:
+            write_study(target, self.current_study())
+        except StudyError as exc:
+            self.tell(str(exc), title="The study was not saved")
+            return False
+        self._discard_autosave()  # the autosave of the study as it was called before
+        self._set_study_path(target)
+        self._discard_autosave()
+        self.set_modified(False)
+        self.status_label.setText(f"Saved the study {target.name}.")
+        return True
+
+    def choose_study(self) -> None:
+        folder = str(store.get_value(store.KEY_STUDY_FOLDER) or "")
+        answer = self.ask_open_path("Open study", folder, STUDY_FILTER)
+        if answer:
+            self.open_study(answer)
+
+    def open_study(self, path: Path | str) -> bool:
+        """Open a study: re-read its workbooks (warning when one changed or moved, offering to
+        locate a missing one), restore its series and settings, and analyse them again."""
+        from tauscope.report.study import StudyError, load_study
+
+        if self.runner.is_running():
+            self.tell("Stop the running analysis (Esc) before opening a study.")
+            return False
+        source = Path(path).resolve()
+        try:
+            study = load_study(source)
+        except StudyError as exc:
+            self.tell(str(exc), title="The study was not opened")
+            return False
+        return self.restore_study(study, source, modified=False)
+
+    def restore_study(self, study: Study, path: Path | None, modified: bool) -> bool:
+        from tauscope.report.rerun import reopen_series
+        from tauscope.report.study import relocate
+
+        check = check_study_sources(study, path)
+        for missing in check.missing:
+            located = self.ask_open_path(
+                f"Where is {Path(missing).name} now?", str(Path(missing).parent), FILE_FILTER)
+            if located:
+                study = relocate(study, missing, located)
+        check = check_study_sources(study, path)
+        reopened = reopen_series(study, path)
+        self.close_all()
+        for book in reopened.workbooks:
+            self.series_panel.model.add_workbook(book)
+        for item, series in reopened.series:
+            if item.transforms:
+                self._restore_transformed(series)
+            elif item.gaps != "none":
+                self.series_panel.model.replace_series(series)
+            if item.gaps != "none":
+                self._gap_handling[series.key] = item.gaps
+        for row in range(self.series_panel.model.rowCount()):
+            self.series_panel.expand_workbook(self.series_panel.model.item(row, 0))
+        self.settings = study.settings
+        store.save_settings(study.settings)
+        self.settings_label.setText(settings_summary(study.settings))
+        self._set_study_path(path)
+        problems = check.warnings() + [p for p in reopened.problems
+                                       if not any(Path(m).name in p for m in check.missing)]
+        analysed = {_tail(k) for k in analysed_keys(study)}
+        to_run = [s for item, s in reopened.series if _tail(item.key) in analysed]
+        if to_run and self.run_series(to_run):
+            self._quiet_run = not modified
+            self.series_panel.select_key(to_run[0].key)
+        self.set_modified(modified)
+        name = path.name if path is not None else "the recovered study"
+        self.status_label.setText(f"Opened {name}: analysing {len(to_run)} series again…"
+                                  if to_run else f"Opened {name}.")
+        if problems:
+            self.tell("Opening the study:\n• " + "\n• ".join(problems),
+                      title="The study's workbooks")
+        return True
+
+    def _restore_transformed(self, series: SeriesData) -> None:
+        """Put a transformed copy back under the series it was made from."""
+        head, _sep, chain = series.key.rpartition("|")
+        steps = [c for c in chain.split(",") if c]
+        model = self.series_panel.model
+        for cut in range(len(steps) - 1, -1, -1):
+            parent = f"{head}|{','.join(steps[:cut])}"
+            if model.item_for_key(parent) is not None:
+                model.add_transformed(parent, series)
+                return
+
+    # autosave -----------------------------------------------------------
+    def autosave(self, wait: bool = False) -> Path | None:
+        """Keep a copy of the open study with unsaved changes, offered back after a crash.
+
+        The autosave lists the analysed series instead of their findings (recovering analyses
+        them again, to the same numbers): hundreds of findings as JSON take seconds to write.
+        What to save is collected here; a background thread writes it.  ``wait``: block
+        until written and return its path.
+        """
+        from tauscope.report.study import StudyError, autosave_path, write_autosave
+
+        if not self.isWindowModified() or self._closing:
+            return None
+        if self._autosave_thread is not None and self._autosave_thread.is_alive():
+            if not wait:
+                return None  # the one under way is recent enough
+            self._autosave_thread.join()
+        model = self.series_panel.model
+        parts = (self.settings, model.workbooks(), model.all_series(),
+                 self.findings_panel.model.results(), dict(self._gap_handling))
+        study_path, folder = self.study_path, store.data_folder()
+
+        def write() -> None:
+            with contextlib.suppress(StudyError, OSError, ValueError):
+                write_autosave(study_path, folder, build_study(*parts, with_findings=False))
+
+        thread = threading.Thread(target=write, name="tauscope-autosave", daemon=True)
+        self._autosave_thread = thread
+        thread.start()
+        if not wait:
+            return None
+        thread.join()
+        target = autosave_path(study_path, folder)
+        return target if target.is_file() else None
+
+    def autosave_running(self) -> bool:
+        return self._autosave_thread is not None and self._autosave_thread.is_alive()
+
+    def _wait_for_autosave(self) -> None:
+        if self._autosave_thread is not None:
+            self._autosave_thread.join()
+            self._autosave_thread = None
+
+    def _discard_autosave(self) -> None:
+        from tauscope.report.study import discard_autosave
+
+        self._wait_for_autosave()  # else it could write the file again after it is removed
+        with contextlib.suppress(OSError):
+            discard_autosave(self.study_path, store.data_folder())
+
+    def offer_recovery(self) -> bool:
+        """After an abnormal exit, offer back the autosaved study; returns True when restored."""
+        from tauscope.report.study import (
+            StudyError,
+            discard_autosave,
+            load_study,
+            recoverable_autosave,
+        )
+
+        last = str(store.get_value(store.KEY_LAST_STUDY) or "")
+        study_path = Path(last) if last else None
+        folder = store.data_folder()
+        candidate = recoverable_autosave(study_path, folder)
+        if candidate is None:
+            return False
+        name = study_path.name if study_path is not None else "an unsaved study"
+        if not self.ask_yes_no("Recover unsaved work?",
+                               f"Tauscope did not close normally last time. Recover the unsaved "
+                               f"changes to {name}? (No discards them.)"):
+            discard_autosave(study_path, folder)
+            return False
+        try:
+            study = load_study(candidate)
+        except StudyError as exc:
+            self.tell(str(exc))
+            return False
+        return self.restore_study(study, study_path, modified=True)
+
+    # questions ----------------------------------------------------------
+    def _ask_save_path(self, title: str, start: str, filters: str) -> str:
+        path, _chosen = QFileDialog.getSaveFileName(self, title, start, filters)
+        return path
+
+    def _ask_open_path(self, title: str, start: str, filters: str) -> str:
+        path, _chosen = QFileDialog.getOpenFileName(self, title, start, filters)
+        return path
+
+    def _ask_yes_no(self, title: str, text: str) -> bool:
+        answer = QMessageBox.question(self, title, text)
+        return answer == QMessageBox.StandardButton.Yes
 
     # help ---------------------------------------------------------------
     def open_guide(self, anchor: str = "start") -> None:
@@ -599,6 +936,8 @@ class MainWindow(QMainWindow):
             self.runner.wait(30_000)
         self.loader.wait(10_000)
         self.save_window_state()
+        self.autosave_timer.stop()
+        self._discard_autosave()  # a clean close: nothing to recover next time
         if self.guide is not None:
             self.guide.close()
         event.accept()

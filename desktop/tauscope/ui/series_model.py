@@ -220,5 +220,9 @@ class SeriesTreeModel(QStandardItemModel):
             return [self._series[str(item_value(item.index(), KEY_ROLE))]]
         return [self._series[str(item_value(s.index(), KEY_ROLE))] for s in self.iter_series_items(item)]
 
+    def workbooks(self) -> list[Workbook]:
+        """The open workbooks, in the order shown."""
+        return [self._workbooks[p] for p in self.workbook_paths() if p in self._workbooks]
+
     def workbook_paths(self) -> list[str]:
         return [str(item_value(self.index(r, 0), KEY_ROLE)) for r in range(self.rowCount())]

@@ -8,6 +8,8 @@ from PySide6.QtWidgets import (
     QDialog,
     QDialogButtonBox,
     QFormLayout,
+    QGroupBox,
+    QHBoxLayout,
     QLabel,
     QSpinBox,
     QVBoxLayout,
@@ -17,6 +19,11 @@ from PySide6.QtWidgets import (
 from tauscope.engine import LAG_RULE_LABELS, LAG_RULES, Settings
 
 ALPHAS = ((0.01, "1%"), (0.05, "5%"), (0.10, "10%"))
+CRITICAL_SOURCES = (("mackinnon", "Published tables (MacKinnon 1996, 2010)"),
+                    ("exact", "Exact: simulated at this sample size"))
+BREAK_MODELS = (("c", "a shift in the level"), ("t", "a change in the slope"),
+                ("ct", "a shift in the level and the slope"))
+CROSS_CHECKS = ("kpss", "pp", "dfgls", "za")
 AUTOMATIC = -1
 
 
@@ -54,6 +61,22 @@ class SettingsDialog(QDialog):
         self.max_difference.setAccessibleName("Highest difference")
         self.kpss = QCheckBox("KPSS (stationarity as the null)", self)
         self.kpss.setAccessibleName("KPSS cross-check")
+        self.pp = QCheckBox("Phillips-Perron", self)
+        self.pp.setAccessibleName("Phillips-Perron cross-check")
+        self.dfgls = QCheckBox("DF-GLS", self)
+        self.dfgls.setAccessibleName("DF-GLS cross-check")
+        self.za = QCheckBox("Zivot-Andrews (one break)", self)
+        self.za.setAccessibleName("Zivot-Andrews cross-check")
+        self.break_model = QComboBox(self)
+        for model, words in BREAK_MODELS:
+            self.break_model.addItem(words, model)
+        self.break_model.setAccessibleName("Kind of break")
+        self.critical_values = QComboBox(self)
+        for source, words in CRITICAL_SOURCES:
+            self.critical_values.addItem(words, source)
+        self.critical_values.setAccessibleName("Critical values")
+        self.power = QCheckBox("Report the power of the deciding test", self)
+        self.power.setAccessibleName("Power")
 
         form = QFormLayout()
         form.addRow("Significance &level", self.alpha)
@@ -70,9 +93,25 @@ class SettingsDialog(QDialog):
         form.addRow("Highest &difference", self.max_difference)
         form.addRow("", _explain("Tests start at this difference and move down (Dickey & Pantula "
                                  "1987); 2 allows an I(2) verdict."))
-        form.addRow("&Cross-check", self.kpss)
-        form.addRow("", _explain("A test that starts from stationarity, to confirm or question "
+        more = QFormLayout()
+        more.addRow("&Cross-checks", self.kpss)
+        more.addRow("", _explain("A test that starts from stationarity, to confirm or question "
                                  "the ADF verdict."))
+        more.addRow("", self.pp)
+        more.addRow("", _explain("Corrects for autocorrelated errors instead of adding lags "
+                                 "(Phillips & Perron 1988)."))
+        more.addRow("", self.dfgls)
+        more.addRow("", _explain("Removes the mean or trend by GLS first: more power near a unit "
+                                 "root (Elliott, Rothenberg & Stock 1996)."))
+        more.addRow("", self.za)
+        more.addRow("Kind of &break", self.break_model)
+        more.addRow("", _explain("Allows one break at a date chosen from the data (Zivot & "
+                                 "Andrews 1992); a missed break looks like a unit root."))
+        more.addRow("Critical &values", self.critical_values)
+        more.addRow("", _explain("Exact critical values: slower; simulated at your sample size."))
+        more.addRow("&Power", self.power)
+        more.addRow("", _explain("How often the test would reject if the series were stationary "
+                                 "but persistent (AR coefficient 0.90 and 0.95); simulated."))
         buttons = QDialogButtonBox(
             QDialogButtonBox.StandardButton.Ok | QDialogButtonBox.StandardButton.Cancel
             | QDialogButtonBox.StandardButton.RestoreDefaults, self)
@@ -81,12 +120,20 @@ class SettingsDialog(QDialog):
         restore = buttons.button(QDialogButtonBox.StandardButton.RestoreDefaults)
         restore.setText("Restore &defaults")
         restore.clicked.connect(lambda: self.load(Settings()))
+        sequence_box = QGroupBox("The Dickey-Fuller sequence", self)
+        sequence_box.setLayout(form)
+        evidence_box = QGroupBox("More evidence", self)
+        evidence_box.setLayout(more)
+        columns = QHBoxLayout()  # two columns: the dialog fits a 1280×800 screen
+        columns.addWidget(sequence_box, 1)
+        columns.addWidget(evidence_box, 1)
         layout = QVBoxLayout(self)
-        layout.addLayout(form)
+        layout.addLayout(columns)
         layout.addWidget(buttons)
         self.lag_rule.currentIndexChanged.connect(self._rule_changed)
+        self.za.toggled.connect(self.break_model.setEnabled)
         self.load(settings)
-        self.setMinimumWidth(520)
+        self.setMinimumWidth(900)
 
     def _rule_changed(self) -> None:
         fixed = self.lag_rule.currentData() == "fixed"
@@ -100,8 +147,18 @@ class SettingsDialog(QDialog):
         self.fixed_lags.setValue(settings.lags if settings.lags is not None else 4)
         self.max_lags.setValue(settings.max_lags if settings.max_lags is not None else AUTOMATIC)
         self.max_difference.setValue(settings.max_difference)
-        self.kpss.setChecked("kpss" in settings.confirm)
+        for name, box in self._checks().items():
+            box.setChecked(name in settings.confirm)
+        self.break_model.setCurrentIndex(
+            [v for v, _ in BREAK_MODELS].index(settings.break_model))
+        self.break_model.setEnabled("za" in settings.confirm)
+        self.critical_values.setCurrentIndex(
+            [v for v, _ in CRITICAL_SOURCES].index(settings.critical_values))
+        self.power.setChecked(settings.power)
         self._rule_changed()
+
+    def _checks(self) -> dict[str, QCheckBox]:
+        return {"kpss": self.kpss, "pp": self.pp, "dfgls": self.dfgls, "za": self.za}
 
     def settings(self) -> Settings:
         rule = str(self.lag_rule.currentData())
@@ -112,5 +169,8 @@ class SettingsDialog(QDialog):
             max_lags=None if max_lags == AUTOMATIC else max_lags,
             alpha=float(self.alpha.currentData()),
             max_difference=self.max_difference.value(),
-            confirm=("kpss",) if self.kpss.isChecked() else (),
+            confirm=tuple(name for name, box in self._checks().items() if box.isChecked()),
+            critical_values=str(self.critical_values.currentData()),
+            break_model=str(self.break_model.currentData()),
+            power=self.power.isChecked(),
         )

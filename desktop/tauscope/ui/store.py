@@ -25,10 +25,20 @@ KEY_STATE = "window/state"
 KEY_SPLITTERS = "window/splitters"
 KEY_FIRST_RUN = "window/first_run_done"
 KEY_APPEARANCE = "window/appearance"
+KEY_LAST_STUDY = "studies/last"
+KEY_STUDY_FOLDER = "studies/folder"
 
 
 def app_settings() -> QSettings:
     return QSettings(QSettings.Format.IniFormat, QSettings.Scope.UserScope, ORGANISATION, APPLICATION)
+
+
+def data_folder() -> Path:
+    """Where Tauscope keeps its own files (the autosave of a study never saved): the
+    folder of the settings file, created when missing."""
+    folder = Path(app_settings().fileName()).parent
+    folder.mkdir(parents=True, exist_ok=True)
+    return folder
 
 
 def load_settings() -> Settings:

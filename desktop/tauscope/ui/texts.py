@@ -5,7 +5,7 @@ from __future__ import annotations
 from tauscope.engine import formatting as fmt
 
 STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z", "kpss": "KPSS",
-                     "adf": "τ"}
+                     "adf": "τ", "pp": "Zτ", "dfgls": "τ-GLS", "za": "ZA"}
 
 STATISTIC_TIPS = {
     "tau": "τ (tau) is the t ratio on y(t−1) in the ADF regression. Strongly negative values are "
@@ -21,10 +21,23 @@ STATISTIC_TIPS = {
          "standard normal, so it is compared with normal critical values (West 1988).",
     "kpss": "KPSS takes stationarity as its starting point (the null). Rejecting it points to a "
             "unit root, the opposite direction from the ADF test, so the two cross-check each other.",
+    "pp": "Phillips-Perron Zτ (Phillips & Perron 1988): the Dickey-Fuller t ratio corrected for "
+          "autocorrelated errors with a long-run variance estimate instead of lagged differences; "
+          "same critical values as τ.",
+    "dfgls": "DF-GLS (Elliott, Rothenberg & Stock 1996): the mean or trend is removed by GLS "
+             "before the Dickey-Fuller regression, which gives the test more power near a unit "
+             "root.",
+    "za": "Zivot-Andrews (Zivot & Andrews 1992): a unit-root test that allows one break in the "
+          "level and/or the trend at the date where the evidence against a unit root is "
+          "strongest.",
 }
 
+EXTRA_TEST_NAMES = {"kpss": "KPSS", "pp": "Phillips-Perron", "dfgls": "DF-GLS",
+                    "za": "Zivot-Andrews"}
+OUT_OF_DATE = "(settings changed — run again)"
+
 GUIDE_ANCHORS = {"tau": "tau", "adf": "tau", "phi1": "phi", "phi2": "phi", "phi3": "phi",
-                 "z": "z", "kpss": "kpss"}
+                 "z": "z", "kpss": "kpss", "pp": "pp", "dfgls": "dfgls", "za": "za"}
 
 DIFFERENCE_NAMES = {0: "Levels", 1: "First difference", 2: "Second difference"}
 DIFFERENCE_SHORT = {0: "Levels", 1: "1st diff.", 2: "2nd diff."}
@@ -36,9 +49,9 @@ LAG_RULE_SHORT = {"aic": "AIC", "bic": "BIC", "hqc": "HQC", "tsig": "t-sig", "ma
 AGREEMENT_WORDS = {"confirmed": "agrees", "conflict": "disagrees", "inconclusive": "unclear",
                    None: "not run"}
 AGREEMENT_TIPS = {
-    "confirmed": "The KPSS cross-check points the same way as the verdict.",
-    "conflict": "The KPSS cross-check points the other way: treat the verdict with care.",
-    "inconclusive": "The KPSS cross-check neither supports nor contradicts the verdict.",
+    "confirmed": "The cross-checks point the same way as the verdict.",
+    "conflict": "The cross-checks point the other way: treat the verdict with care.",
+    "inconclusive": "The cross-checks neither clearly support nor contradict the verdict.",
     None: "No cross-check was run (see Settings).",
 }
 

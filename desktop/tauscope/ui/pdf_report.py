@@ -1,7 +1,9 @@
 """PDF of the HTML report through Qt's own PDF writer (QTextDocument + QPdfWriter).
 
-The only Qt use in ``report/``: PySide6 is imported inside the functions so
-the other writers, the command line and the tests of the rest never load Qt.
+Lives in ``ui/`` because it needs Qt ("Qt only in ui/").  Importing this module
+registers the ``.pdf`` writer with :func:`tauscope.report.register_writer`, so
+``tauscope.report.export`` (window and ``tauscope batch``) writes PDF too.
+PySide6 is imported inside the functions: importing the module does not load Qt.
 Without a running Qt application (the command line), an offscreen one is
 started for the fonts and images.
 """
@@ -11,8 +13,9 @@ from __future__ import annotations
 from pathlib import Path
 from typing import Any
 
+from tauscope.report import register_writer
 from tauscope.report.atomic import write_bytes_atomic
-from tauscope.report.html_export import run_to_html
+from tauscope.report.html_export import CHART_WIDTH, run_to_html
 from tauscope.report.run import Charts, RunRecord
 
 PAGE_MARGIN_MM = 18.0
@@ -51,10 +54,17 @@ def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
         return name
 
     markup = run_to_html(run, charts, image_source=resource_name)
+    # The report's line height (1.4) would stretch a line holding a chart in QTextDocument
+    # (it scales the whole line, image included), leaving a gap below every chart.
+    markup = markup.replace("<p><img ", '<p style="line-height: 100%;"><img ')
     document = QTextDocument()
     for name, png in images:
         image = QImage()
         image.loadFromData(png, "PNG")
+        # Lay a chart out at the report's chart width whatever its pixel size (QTextDocument
+        # would otherwise reserve its full pixel height and leave a gap below it).
+        if image.width() > CHART_WIDTH:
+            image.setDevicePixelRatio(image.width() / CHART_WIDTH)
         document.addResource(QTextDocument.ResourceType.ImageResource, QUrl(name), image)
     document.setHtml(markup)
 
@@ -82,3 +92,6 @@ def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
 
 def write_pdf(path: Path, run: RunRecord, charts: Charts | None = None) -> None:
     write_bytes_atomic(path, run_to_pdf(run, charts))
+
+
+register_writer(".pdf", write_pdf)

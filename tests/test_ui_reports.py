@@ -1,0 +1,111 @@
+"""The window's way out: File → Export findings through the report writers (the same ones
+``tauscope batch --out`` uses), charts saved as PNG and SVG, and the out-of-date mark
+when the settings change after a run."""
+
+from __future__ import annotations
+
+import json
+import xml.etree.ElementTree as ElementTree
+import zipfile
+
+import pytest
+
+pytest.importorskip("pytestqt")
+
+from tauscope.engine import Settings
+from tauscope.report.study import json_clean
+
+
+@pytest.fixture
+def analysed(main_window, open_in_window, run_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    open_in_window(main_window, small_workbook)
+    series = main_window.series_panel.model.all_series()[:3]
+    run_in_window(main_window, series)
+    return main_window
+
+
+def test_export_writes_every_format_through_the_report_writers(analysed, tmp_path):  # type: ignore[no-untyped-def]
+    window = analysed
+    results = window.findings_panel.model.results()
+    answers = iter([str(tmp_path / "findings.json"), str(tmp_path / "findings")])
+    window.ask_save_path = lambda *_args: next(answers)
+    assert window.export_findings()  # through the save dialog (answer injected)
+    data = json.loads((tmp_path / "findings.json").read_text(encoding="utf-8"))
+    assert [s["name"] for s in data["series"]] == [r.name for r in results.values()]
+    assert data["series"] == [json_clean(r.to_dict()) for r in results.values()]
+    assert data["source"]["sha256"] == window.series_panel.model.workbooks()[0].sha256
+    assert window.export_findings()  # no suffix given: Excel, the first format offered
+    assert (tmp_path / "findings.xlsx").is_file()
+    for suffix in (".csv", ".tex", ".html"):
+        assert window.export_findings(tmp_path / f"findings{suffix}")
+        assert (tmp_path / f"findings{suffix}").stat().st_size > 0
+    page = (tmp_path / "findings.html").read_text(encoding="utf-8")
+    assert page.count("data:image/png;base64,") == len(results)  # one chart per series
+    with zipfile.ZipFile(tmp_path / "findings.xlsx") as book:
+        images = [n for n in book.namelist() if n.startswith("xl/media/")]
+    assert len(images) == len(results)
+
+
+def test_export_to_pdf_from_the_window(analysed, tmp_path):  # type: ignore[no-untyped-def]
+    assert analysed.export_findings(tmp_path / "findings.pdf")
+    data = (tmp_path / "findings.pdf").read_bytes()
+    assert data.startswith(b"%PDF-") and data.rstrip().endswith(b"%%EOF")
+
+
+def test_export_problems_are_one_clear_message(analysed, tmp_path):  # type: ignore[no-untyped-def]
+    target = tmp_path / "no such folder" / "findings.csv"
+    assert not analysed.export_findings(target)
+    assert "does not exist" in analysed.message_box.text()
+    assert str(target) in analysed.message_box.text()
+    analysed.message_box.close()
+
+
+def test_nothing_to_export_before_a_run(main_window, tmp_path):  # type: ignore[no-untyped-def]
+    assert not main_window.export_findings(tmp_path / "findings.csv")
+    assert "no findings" in main_window.message_box.text()
+    assert not (tmp_path / "findings.csv").exists()
+    main_window.message_box.close()
+
+
+def test_a_chart_is_saved_as_png_and_svg_from_its_menu(analysed, tmp_path, qtbot):  # type: ignore[no-untyped-def]
+    from PySide6.QtGui import QImage
+
+    window = analysed
+    key = window.series_panel.model.all_series()[0].key
+    assert window.select_series(key)
+    chart = window.chart_panel
+    chart.tabs.setCurrentIndex(chart.FITTED)
+    page = chart.fitted_page
+    assert page.has_plot()
+    menu = chart.chart_menu(page)
+    actions = {a.text(): a for a in menu.actions()}
+    answers = iter([str(tmp_path / "chart.png"), str(tmp_path / "chart")])
+    window.ask_save_path = lambda *_args: next(answers)
+    actions["Save this chart as a picture (PNG)…"].trigger()
+    actions["Save this chart as a drawing (SVG)…"].trigger()
+    image = QImage(str(tmp_path / "chart.png"))
+    assert not image.isNull() and image.width() > 100
+    svg = (tmp_path / "chart.svg").read_text(encoding="utf-8")
+    root = ElementTree.fromstring(svg)
+    assert root.tag.endswith("svg")
+    assert len(list(root.iter())) > 10  # a real drawing, not an empty page
+    menu.deleteLater()
+
+
+def test_changing_the_settings_marks_findings_out_of_date(analysed):  # type: ignore[no-untyped-def]
+    from tauscope.ui import findings_model as fm
+    from tauscope.ui.texts import OUT_OF_DATE
+
+    window = analysed
+    model = window.findings_panel.model
+    before = window.settings
+
+    def verdicts() -> list[str]:
+        return [str(model.index(r, fm.VERDICT).data()) for r in range(model.rowCount())]
+
+    assert not any(OUT_OF_DATE in v for v in verdicts())
+    window.apply_settings(Settings(alpha=0.01 if before.alpha != 0.01 else 0.10))
+    assert all(v.endswith(OUT_OF_DATE) for v in verdicts())
+    assert window.isWindowModified()
+    window.apply_settings(before)
+    assert not any(OUT_OF_DATE in v for v in verdicts())
