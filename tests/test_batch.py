@@ -219,3 +219,27 @@ def test_unwritable_output_exits_1_with_one_line(
                  "--out", str(target)]) == 1
     err = capsys.readouterr().err.strip().splitlines()
     assert len(err) == 1 and "f.json" in err[0]
+
+
+def test_cross_checks_and_exact_critical_values_reach_the_engine(tmp_path: Path) -> None:
+    source = _demo_like(tmp_path)
+    out = tmp_path / "findings.json"
+    assert main([str(source), "--series", "Noise", "--max-difference", "1",
+                 "--check", "kpss,pp,dfgls", "--out", str(out)]) == 0
+    written = json.loads(out.read_text(encoding="utf-8"))
+    settings = Settings(max_difference=1, confirm=("kpss", "pp", "dfgls"))
+    assert written["settings"] == settings.to_dict()
+    series = read_workbook(source).series()[1]
+    expected = analyse_series(series.testable_values(), settings, name=series.name).to_dict()
+    assert written["series"] == [json.loads(json.dumps(expected))]
+    assert {t["test"] for t in written["series"][0]["tests"]} >= {"kpss", "pp", "dfgls"}
+    assert main([str(source), "--series", "Noise", "--max-difference", "0", "--check", "none",
+                 "--exact", "--out", str(out)]) == 0
+    written = json.loads(out.read_text(encoding="utf-8"))
+    assert written["settings"]["critical_values"] == "exact"
+    assert written["settings"]["confirm"] == []
+
+
+def test_unknown_cross_check_is_a_usage_error(capsys: pytest.CaptureFixture[str]) -> None:
+    assert main(["whatever.csv", "--check", "kpss,guess"]) == 2
+    assert "guess" in capsys.readouterr().err

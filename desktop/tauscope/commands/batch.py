@@ -61,6 +61,12 @@ def _parser() -> _Parser:
                         help="significance level: 0.01, 0.05 or 0.10 (default 0.05)")
     parser.add_argument("--max-difference", type=int, choices=(0, 1, 2), default=2,
                         help="highest order of integration considered (default 2)")
+    parser.add_argument("--check", default="kpss", metavar="TESTS",
+                        help="cross-check tests, comma-separated from kpss, pp, dfgls, za "
+                             "(default: kpss; 'none' for no cross-check)")
+    parser.add_argument("--exact", action="store_true",
+                        help="judge τ and Φ against critical values simulated at each series' "
+                             "own sample size (slower)")
     parser.add_argument("--out", action="append", default=[], metavar="FILE",
                         help="write the findings here; the format follows the suffix (repeatable)")
     return parser
@@ -113,8 +119,10 @@ def _settings(args: argparse.Namespace) -> Settings:
     if args.lag_rule == "fixed" and args.lags is None:
         raise UsageError("--lag-rule fixed needs --lags N")
     try:
+        checks = tuple(t.strip() for t in args.check.split(",") if t.strip() not in ("", "none"))
         return Settings(lag_rule=args.lag_rule, lags=args.lags, max_lags=args.max_lags,
-                        alpha=args.alpha, max_difference=args.max_difference)
+                        alpha=args.alpha, max_difference=args.max_difference, confirm=checks,
+                        critical_values="exact" if args.exact else "mackinnon")
     except ValueError as exc:
         raise UsageError(str(exc)) from None
 
@@ -220,8 +228,8 @@ def tau_steps(result: SeriesResult) -> str:
 
 
 def summary_table(findings: Sequence[Finding]) -> str:
-    """A plain-text table: series, observations, span, verdict, τ of each step, KPSS."""
-    header = ("Series", "Obs", "Span", "Verdict", "KPSS", "τ of each step (difference, terms, τ)")
+    """A plain-text table: series, observations, span, verdict, τ of each step, cross-check agreement."""
+    header = ("Series", "Obs", "Span", "Verdict", "Cross-check", "τ of each step (difference, terms, τ)")
     rows = []
     for f in findings:
         r = f.result
