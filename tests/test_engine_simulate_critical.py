@@ -7,12 +7,14 @@ Sources:
 * Φ1, Φ2, Φ3: Dickey & Fuller (1981), Econometrica 49(4), Tables IV-VI
   (from memory); tolerance ±0.15.
 * DF-GLS, trend case: Elliott, Rothenberg & Stock (1996), Econometrica 64(4),
-  Table 1 (from memory); tolerance ±0.05.  The 1% column of the remembered
-  table is not monotone in T (−3.46 at T = 200, −3.48 at T = ∞), a sign of
-  simulation noise in the original table at that level; the 1% check uses
-  ±0.06 and every level is backed by a second, independent simulation: arch's
-  DF-GLS response surface (test-only reference), within ±0.03 at T = 100 and
-  200 (both sides carry Monte Carlo error of about ±0.01 at 1%).
+  Table 1 (from memory); tolerance ±0.05.  The 1% check sits near that edge:
+  with this file's seed the largest 1% gap is 0.034, but averaged over other
+  seeds the simulated 1% values lie 0.02-0.05 below the remembered entries
+  (which are not monotone in T: −3.46 at T = 200, −3.48 at T = ∞, a sign of
+  simulation noise in the original table).  Every level is therefore backed by
+  a second, independent simulation: arch's DF-GLS response surface (test-only
+  reference), within ±0.03 at T = 100 and 200 (both sides carry Monte Carlo
+  error of about ±0.01 at 1%).
 
 Replications: 150,000 for τ and Φ (all three specs share one set of random
 walks per T), 100,000 for DF-GLS; vectorised, so the file runs in seconds.
@@ -79,7 +81,7 @@ def test_simulated_dfgls_trend_values_reproduce_ers_table(length: int) -> None:
     one, five, ten = ERS_TREND[length]  # ERS (1996) Table 1, from memory
     assert simulated["5%"] == pytest.approx(five, abs=0.05)
     assert simulated["10%"] == pytest.approx(ten, abs=0.05)
-    assert simulated["1%"] == pytest.approx(one, abs=0.06)
+    assert simulated["1%"] == pytest.approx(one, abs=0.05)
     # The table the test uses by default, interpolated in 1/T, returns the table entries.
     assert ers_trend_critical_value(length, 0.05) == pytest.approx(five, abs=1e-12)
     if length in (100, 200):
