@@ -79,14 +79,15 @@ def recursive_tau(x: np.ndarray, spec: str, lags: int, alpha: float = 0.05) -> R
     gram = np.cumsum(q[:, :, None] * q[:, None, :], axis=0)[start - 1:]
     cross = np.cumsum(q * y[:, None], axis=0)[start - 1:]
     yy = np.cumsum(y * y)[start - 1:]
-    g_inv = np.linalg.inv(gram)
-    fitted_part = np.einsum("wk,wkl,wl->w", cross, g_inv, cross)
+    g = gamma_column(spec)
+    row = np.linalg.inv(r)[g]  # γ̂ = row · (QᵀQ)⁻¹ Qᵀy on each window, rescaled
+    # One batched solve for both right-hand sides instead of inverting every window's Gram.
+    solved = np.linalg.solve(gram, np.stack([cross, np.broadcast_to(row, cross.shape)], axis=2))
+    fitted_part = np.einsum("wk,wk->w", cross, solved[:, :, 0])
     sizes = np.arange(start, n + 1)
     s2 = (yy - fitted_part) / (sizes - k)
-    r_inv = np.linalg.inv(r)
-    g = gamma_column(spec)
-    beta_gamma = np.einsum("k,wkl,wl->w", r_inv[g], g_inv, cross) / scale[g]
-    var_gamma = s2 * np.einsum("k,wkl,l->w", r_inv[g], g_inv, r_inv[g]) / scale[g] ** 2
+    beta_gamma = solved[:, :, 0] @ row / scale[g]
+    var_gamma = s2 * (solved[:, :, 1] @ row) / scale[g] ** 2
     tau = beta_gamma / np.sqrt(var_gamma)
     critical = tau_critical_values_for_sizes(spec, sizes, alpha)
     ends = sizes + lags  # window of regression size m ends at series position m + p

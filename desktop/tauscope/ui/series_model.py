@@ -195,7 +195,7 @@ class SeriesTreeModel(QStandardItemModel):
             child = start.child(r, 0)
             if child is None:
                 continue
-            if item_value(child.index(), KIND_ROLE) == "series":
+            if child.data(KIND_ROLE) == "series":
                 yield child
             yield from self.iter_series_items(child)
 
@@ -209,16 +209,16 @@ class SeriesTreeModel(QStandardItemModel):
         return self._series.get(key)
 
     def all_series(self) -> list[SeriesData]:
-        return [self._series[str(item_value(item.index(), KEY_ROLE))] for item in self.iter_series_items()]
+        return [self._series[str(item.data(KEY_ROLE))] for item in self.iter_series_items()]
 
     def series_under(self, index: QModelIndex) -> list[SeriesData]:
         """The series an index stands for: itself, or every series of a workbook or sheet."""
         item = self.itemFromIndex(index.siblingAtColumn(0))
         if item is None:
             return []
-        if item_value(item.index(), KIND_ROLE) == "series":
-            return [self._series[str(item_value(item.index(), KEY_ROLE))]]
-        return [self._series[str(item_value(s.index(), KEY_ROLE))] for s in self.iter_series_items(item)]
+        if item.data(KIND_ROLE) == "series":
+            return [self._series[str(item.data(KEY_ROLE))]]
+        return [self._series[str(s.data(KEY_ROLE))] for s in self.iter_series_items(item)]
 
     def workbooks(self) -> list[Workbook]:
         """The open workbooks, in the order shown."""

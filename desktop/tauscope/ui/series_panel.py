@@ -103,12 +103,14 @@ class SeriesPanel(QWidget):
         rows = self.view.selectionModel().selectedRows(NAME)
         if not rows:
             return self.model.all_series()
-        wanted: dict[str, SeriesData] = {}
+        keys: set[str] = set()
         for proxy_index in rows:
-            for series in self.model.series_under(self.proxy.mapToSource(proxy_index)):
-                wanted.setdefault(series.key, series)
-        order = {s.key: i for i, s in enumerate(self.model.all_series())}
-        return sorted(wanted.values(), key=lambda s: order.get(s.key, 0))
+            source = self.proxy.mapToSource(proxy_index)
+            if source.data(KIND_ROLE) == "series":
+                keys.add(str(source.data(KEY_ROLE)))
+            else:
+                keys.update(series.key for series in self.model.series_under(source))
+        return [series for series in self.model.all_series() if series.key in keys]
 
     def select_all_series(self) -> None:
         self.view.expandAll()
