@@ -4,6 +4,7 @@ the statistic.  Each view can be saved as PNG or SVG from its context menu."""
 
 from __future__ import annotations
 
+import contextlib
 from collections.abc import Callable
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
@@ -157,10 +158,12 @@ class _NullTask(QRunnable):
     def run(self) -> None:
         spec, nobs, lags = self.key
         try:
-            draws = null_distribution(spec, nobs, lags=lags)
-            self.signals.done.emit(self.key, np.asarray(draws, dtype=float))
+            outcome: object = np.asarray(null_distribution(spec, nobs, lags=lags), dtype=float)
         except Exception as exc:
-            self.signals.done.emit(self.key, f"The null distribution could not be simulated ({exc}).")
+            outcome = f"The null distribution could not be simulated ({exc})."
+        # RuntimeError: the window closed while the simulation ran; nobody waits for it.
+        with contextlib.suppress(RuntimeError):
+            self.signals.done.emit(self.key, outcome)
 
 
 class ChartPanel(QWidget):
@@ -409,14 +412,19 @@ class ChartPanel(QWidget):
         page.legend(plot, self._fg, self._bg, "top-right")
         plot.plot(lags, taus, pen=pg.mkPen(self._line, width=1.5), symbol="o", symbolSize=6,
                   symbolBrush=self._line, name="τ")
+        alpha = float(result.settings.get("alpha", 0.05))
         plot.plot(lags, crit, pen=pg.mkPen(self._fg, width=1.2, style=Qt.PenStyle.DashLine),
-                  name="5% critical value")
+                  name=f"{alpha:.0%} critical value")
+        # Head-room above both lines, so the legend in the top corner covers no point.
+        low, high = float(min(taus.min(), crit.min())), float(max(taus.max(), crit.max()))
+        span = max(high - low, 0.5)
+        plot.setYRange(low - 0.08 * span, high + 0.45 * span, padding=0)
         test = self._profile_test(result)
         if test is not None:
             chosen = pg.InfiniteLine(pos=test.lags, angle=90,
                                      pen=pg.mkPen(self._accent, width=1.5, style=Qt.PenStyle.DotLine),
                                      label=f"chosen: {test.lags}",
-                                     labelOpts={"position": 0.06, "color": self._fg,
+                                     labelOpts={"position": 0.9, "color": self._fg,
                                                 "fill": self._legend_fill()})
             plot.addItem(chosen)
         plot.setLabel("bottom", "lag order", color=self._fg.name())
