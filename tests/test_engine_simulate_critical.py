@@ -177,3 +177,18 @@ def test_with_exact_values_rejudges_adf_and_phi_tests_at_their_own_size() -> Non
     phi_draws = phi_null_distribution("phi3", 118, reps=20_000, seed=SEED, lags=2)
     assert phi.p_value == pytest.approx(float(np.mean(phi_draws >= phi.statistic)), abs=1e-12)
     assert phi.reject == (phi.statistic > phi.critical_value)
+
+
+def test_density_picture_integrates_to_one_and_matches_the_normal_density() -> None:
+    """The chart's histogram is a density (area 1) and its comparison curve is the standard
+    normal density (scipy.stats.norm as the reference)."""
+    from scipy.stats import norm
+
+    from tauscope.engine.simulate import density_picture
+
+    draws = null_distribution("constant", 100, reps=4_000, seed=SEED)
+    picture = density_picture(np.append(draws, np.nan))
+    assert picture.draws == 4_000
+    assert float(np.sum(picture.heights * np.diff(picture.edges))) == pytest.approx(1.0, abs=1e-12)
+    assert np.allclose(picture.normal, norm.pdf(picture.grid), atol=1e-14)
+    assert picture.grid[0] <= -4.5 and picture.grid[-1] >= 4.5

@@ -335,3 +335,25 @@ def with_exact_values(test: TestResult, alpha: float, use_lags: bool = True, rep
         return test
     return replace(test, critical_values=values, critical_value=values[level], reject=bool(reject),
                    p_value=p_value, p_value_bound=reportable_bound(p_value, bound))
+
+
+@dataclass(frozen=True)
+class DensityPicture:
+    """What the null-distribution chart draws: a density histogram of the simulated draws
+    (``edges`` has one more entry than ``heights``) and the standard normal density on
+    ``grid`` for comparison (the limit of τ once a drift or trend is present, West 1988)."""
+
+    edges: np.ndarray
+    heights: np.ndarray
+    grid: np.ndarray
+    normal: np.ndarray
+    draws: int
+
+
+def density_picture(draws: np.ndarray, bins: int = 60) -> DensityPicture:
+    finite = np.asarray(draws, dtype=float)
+    finite = finite[np.isfinite(finite)]
+    heights, edges = np.histogram(finite, bins=bins, density=True)
+    grid = np.linspace(min(float(edges[0]), -4.5), max(float(edges[-1]), 4.5), 300)
+    normal = np.exp(-0.5 * grid * grid) / np.sqrt(2.0 * np.pi)
+    return DensityPicture(edges, heights, grid, normal, int(finite.size))

@@ -495,20 +495,18 @@ class ChartPanel(QWidget):
             self._draw_null(self._result)
 
     def _plot_null(self, page: ChartPage, draws: np.ndarray, test: Any) -> None:
-        from scipy.stats import norm
+        from tauscope.engine.simulate import density_picture
 
         page.clear()
-        draws = draws[np.isfinite(draws)]
+        picture = density_picture(draws)
         spec = SPEC_NAMES.get(test.spec, test.spec)
         plot = page.new_plot(0, False, f"τ under a unit root · {spec}, {test.nobs} obs.")
         page.legend(plot, self._fg, self._bg, "top-right")
-        heights, edges = np.histogram(draws, bins=60, density=True)
-        plot.plot(edges, heights, stepMode="center", fillLevel=0,
+        plot.plot(picture.edges, picture.heights, stepMode="center", fillLevel=0,
                   brush=pg.mkBrush(self._line.red(), self._line.green(), self._line.blue(), 70),
-                  pen=pg.mkPen(self._line, width=1.2), name=f"simulated τ ({draws.size} draws)")
-        grid = np.linspace(min(edges[0], -4.5), max(edges[-1], 4.5), 300)
-        plot.plot(grid, norm.pdf(grid), pen=pg.mkPen(self._fg, width=1.2, style=Qt.PenStyle.DashLine),
-                  name="standard normal")
+                  pen=pg.mkPen(self._line, width=1.2), name=f"simulated τ ({picture.draws} draws)")
+        plot.plot(picture.grid, picture.normal,
+                  pen=pg.mkPen(self._fg, width=1.2, style=Qt.PenStyle.DashLine), name="standard normal")
         observed = pg.InfiniteLine(pos=test.statistic, angle=90, pen=pg.mkPen(self._accent, width=2),
                                    label=f"observed τ = {fmt.stat(test.statistic)}",
                                    labelOpts={"position": 0.55, "color": self._fg,
