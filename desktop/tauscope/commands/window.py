@@ -17,9 +17,7 @@ if TYPE_CHECKING:
 def build(argv: list[str]) -> tuple[QApplication, MainWindow]:
     """The application and its shown window, with FILEs (or, on the first run, the demo)
     being read in the background."""
-    # The statistics libraries load faster before Qt installs its import hooks.
-    import tauscope.data
-    import tauscope.engine  # noqa: F401
+    import tauscope.data  # noqa: F401
     from tauscope.resources_path import demo_workbook
     from tauscope.ui import store
     from tauscope.ui.appearance import apply_appearance, prepare_application
@@ -38,6 +36,11 @@ def build(argv: list[str]) -> tuple[QApplication, MainWindow]:
     from PySide6.QtCore import QTimer
 
     QTimer.singleShot(0, window.offer_recovery)
+    if os.environ.get("TAUSCOPE_EXIT_AFTER_SHOW") != "1":
+        # The statistics load in the background once the window is up (ui.worker).
+        from tauscope.ui.worker import warm_up_engine
+
+        QTimer.singleShot(0, warm_up_engine)
     return app, window
 
 

@@ -16,7 +16,7 @@ from PySide6.QtCore import QObject, QPoint, QRunnable, Qt, QThreadPool, Signal
 from PySide6.QtGui import QColor, QPalette
 from PySide6.QtWidgets import QLabel, QMenu, QStackedWidget, QTabWidget, QVBoxLayout, QWidget
 
-from tauscope.engine import SeriesResult, null_distribution
+from tauscope.engine import SeriesResult
 from tauscope.engine import formatting as fmt
 from tauscope.ui.texts import DIFFERENCE_NAMES, SPEC_NAMES
 
@@ -156,6 +156,8 @@ class _NullTask(QRunnable):
         self.signals = signals
 
     def run(self) -> None:
+        from tauscope.engine.simulate import null_distribution
+
         spec, nobs, lags = self.key
         try:
             outcome: object = np.asarray(null_distribution(spec, nobs, lags=lags), dtype=float)

@@ -19,12 +19,12 @@ import traceback
 from collections import deque
 from collections.abc import Callable, Iterator, Sequence
 from dataclasses import dataclass
-from typing import TYPE_CHECKING
+from typing import TYPE_CHECKING, Any
 
 import pandas as pd
 from PySide6.QtCore import QObject, QThread, QTimer, Signal, Slot
 
-from tauscope.engine import SeriesResult, Settings, analyse_series, iter_analyse
+from tauscope.engine import SeriesResult, Settings
 from tauscope.engine.results import EMPTY_VERDICT
 
 if TYPE_CHECKING:
@@ -32,6 +32,35 @@ if TYPE_CHECKING:
 
 
 RUN_SWITCH_INTERVAL = 0.001  # seconds (Python's default is 0.005)
+
+
+
+# The statistics libraries (statsmodels, scipy) load on the first run, or earlier through
+# warm_up_engine(), not before the window shows itself.
+def analyse_series(values: Any, settings: Settings, name: str) -> SeriesResult:
+    from tauscope.engine.analyse import analyse_series as analyse
+
+    return analyse(values, settings, name)
+
+
+def iter_analyse(series: Any, settings: Settings, should_stop: Callable[[], bool] | None = None
+                 ) -> Iterator[SeriesResult]:
+    from tauscope.engine.many import iter_analyse as analyse_in_batches
+
+    return analyse_in_batches(series, settings, should_stop=should_stop)
+
+
+def warm_up_engine() -> threading.Thread:
+    """Import the statistics in a background thread once the window is up, so neither the
+    start-up nor the first run waits for them."""
+
+    def load() -> None:
+        import tauscope.engine.many
+        import tauscope.engine.simulate  # noqa: F401
+
+    thread = threading.Thread(target=load, name="tauscope-warm-up", daemon=True)
+    thread.start()
+    return thread
 
 
 @dataclass(frozen=True)
