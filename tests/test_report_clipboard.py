@@ -61,3 +61,17 @@ def test_html_table_holds_the_same_cells_as_the_text() -> None:
     tsv = [line.split("\t") for line in findings_tsv(run).splitlines()]
     assert parser.rows == tsv
     assert findings_html(run).startswith("<table")
+
+
+def test_summary_says_why_a_series_could_not_be_tested() -> None:
+    run = make_run()
+    failed = [f for f in run.findings if f.result.error]
+    assert failed
+    lines = findings_tsv(run).splitlines()
+    header = lines[0].split("\t")
+    assert header[-1] == "Problem"
+    rows = {line.split("\t")[0]: line.split("\t") for line in lines[1:]}
+    for finding in run.findings:
+        assert rows[finding.name][-1] == (finding.result.error or "")
+    tested_only = run.select([f.key or f.name for f in run.findings if not f.result.error])
+    assert "Problem" not in findings_tsv(tested_only).splitlines()[0].split("\t")

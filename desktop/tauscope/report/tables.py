@@ -203,7 +203,8 @@ def summary_table(run: RunRecord) -> Table:
 
 
 def compact_table(run: RunRecord) -> Table:
-    """The short summary: verdict, deciding τ per difference (with markers), KPSS, agreement."""
+    """The short summary: verdict, deciding τ per difference (with markers), KPSS, agreement,
+    and the reason a series could not be tested when any could not."""
     diffs = sorted({d for f in run.findings for d in range(3) if deciding_tau(f.result, d)})
     columns = [Column("series", "Series"), Column("verdict", "Verdict"),
                Column("nobs", "Obs.", "int"), Column("span", "Span")]
@@ -212,6 +213,9 @@ def compact_table(run: RunRecord) -> Table:
                     Column(f"tau{d}_sig", "", "text"),
                     Column(f"tau{d}_spec", f"Terms, lags ({DIFFERENCE_SHORT[d]})")]
     columns += [Column("kpss", "KPSS"), Column("agreement", "Agreement")]
+    problems = any(f.result.error for f in run.findings)
+    if problems:  # why a series could not be tested, only when one could not
+        columns.append(Column("error", "Problem"))
     rows = []
     for finding in run.findings:
         result = finding.result
@@ -229,6 +233,8 @@ def compact_table(run: RunRecord) -> Table:
             for t in kpss_tests(result).values()
         )
         row += [kpss, AGREEMENT_WORDS.get(result.verdict.agreement or "", "")]
+        if problems:
+            row.append(result.error or "")
         rows.append(tuple(row))
     return Table(tuple(columns), tuple(rows))
 
