@@ -1,0 +1,113 @@
+"""``tauscope snapshot [FILE] --out PNG``: a picture of the analysed window.
+
+Opens the window offscreen at 1280×800 with a throw-away settings folder (the
+user's remembered layout and settings are neither used nor changed), reads
+FILE or the demo workbook, analyses every series, waits for the end, selects
+the first series and saves the whole window as a PNG.
+"""
+
+from __future__ import annotations
+
+import argparse
+import os
+import sys
+import tempfile
+from pathlib import Path
+
+WIDTH, HEIGHT = 1280, 800
+
+
+class _Parser(argparse.ArgumentParser):
+    def error(self, message: str) -> None:  # type: ignore[override]
+        self.print_usage(sys.stderr)
+        print(f"tauscope snapshot: {message}", file=sys.stderr)
+        raise SystemExit(2)
+
+
+def parse(argv: list[str]) -> argparse.Namespace:
+    parser = _Parser(prog="tauscope snapshot",
+                     description="Save a picture of the window after analysing a workbook.")
+    parser.add_argument("file", nargs="?", help="workbook to open (default: the demo workbook)")
+    parser.add_argument("--out", required=True, help="PNG file to write")
+    parser.add_argument("--timeout", type=float, default=600.0, help=argparse.SUPPRESS)
+    return parser.parse_args(argv)
+
+
+def main(argv: list[str]) -> int:
+    args = parse(argv)
+    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    from tauscope.resources_path import demo_workbook
+
+    source = Path(args.file) if args.file else demo_workbook()
+    if source is None:
+        print("tauscope snapshot: the demo workbook is missing; give a FILE.", file=sys.stderr)
+        return 3
+    if not source.is_file():
+        print(f"tauscope snapshot: {source} does not exist.", file=sys.stderr)
+        return 3
+    with tempfile.TemporaryDirectory(prefix="tauscope-snapshot-") as settings_dir:
+        return _snapshot(source, Path(args.out), settings_dir, args.timeout)
+
+
+def _snapshot(source: Path, out: Path, settings_dir: str, timeout: float) -> int:
+    from PySide6.QtCore import QElapsedTimer, QSettings, QThread
+    from PySide6.QtWidgets import QApplication
+
+    from tauscope.data import DataError, read_workbook
+    from tauscope.ui.appearance import apply_appearance, dispose, prepare_application
+    from tauscope.ui.main_window import MainWindow
+
+    QSettings.setPath(QSettings.Format.IniFormat, QSettings.Scope.UserScope, settings_dir)
+    try:
+        workbook = read_workbook(source)
+    except DataError as exc:
+        print(f"tauscope snapshot: {exc}", file=sys.stderr)
+        return 3
+    app = prepare_application([])
+    apply_appearance(app, "light")
+    window = MainWindow()
+    window.resize(WIDTH, HEIGHT)
+    window.show()
+    window.add_workbook(workbook)
+    QApplication.processEvents()
+    window.run_all()
+    clock = QElapsedTimer()
+    clock.start()
+    while window.runner.is_running() and clock.elapsed() < timeout * 1000:
+        app.processEvents()
+        QThread.msleep(10)
+    if window.runner.is_running():
+        print("tauscope snapshot: the analysis did not finish in time.", file=sys.stderr)
+        dispose(window)
+        return 1
+    app.processEvents()
+    first = workbook.series()[0].key if workbook.series() else ""
+    if first:
+        window.series_panel.view.clearSelection()
+        window.select_series(first)
+        window.findings_panel.view.expand(window.findings_panel.proxy.index(0, 0))
+    _settle(app, 3000, window)
+    picture = window.grab()
+    out.parent.mkdir(parents=True, exist_ok=True)
+    ok = picture.save(str(out), "PNG")
+    dispose(window)
+    if not ok:
+        print(f"tauscope snapshot: could not write {out}.", file=sys.stderr)
+        return 1
+    print(f"tauscope snapshot: wrote {out} ({picture.width()}×{picture.height()})")
+    return 0
+
+
+def _settle(app: object, msecs: int, window: object) -> None:
+    """Let pending drawing (and the null-distribution simulation) finish."""
+    from PySide6.QtCore import QElapsedTimer, QThreadPool
+    from PySide6.QtWidgets import QApplication
+
+    clock = QElapsedTimer()
+    clock.start()
+    while clock.elapsed() < msecs:
+        QApplication.processEvents()
+        if QThreadPool.globalInstance().activeThreadCount() == 0 and clock.elapsed() > 300:
+            break
+        QThreadPool.globalInstance().waitForDone(20)
+    QApplication.processEvents()
