@@ -21,7 +21,7 @@ from typing import NoReturn, TextIO
 
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
 from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_many
-from tauscope.engine.results import EMPTY_VERDICT
+from tauscope.engine.results import failed_result
 from tauscope.report import WRITERS, ExportError, Finding, RunRecord, SourceFile, export
 from tauscope.ui import pdf_report  # noqa: F401  (registers ".pdf"; Qt loads only when used)
 
@@ -156,8 +156,7 @@ def choose_series(workbook: Workbook, sheet: str | None, names: Sequence[str]) -
 
 
 def _failed(name: str, settings: Settings, message: str) -> SeriesResult:
-    return SeriesResult(name=name, nobs=0, error=message, verdict=EMPTY_VERDICT, steps=(),
-                        tests=(), notes=(message,), settings=settings.to_dict())
+    return failed_result(name, message, settings.to_dict())
 
 
 @dataclasses.dataclass(frozen=True)

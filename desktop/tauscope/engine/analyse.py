@@ -28,7 +28,7 @@ from tauscope.engine.joint import phi_test
 from tauscope.engine.lagchoice import choose_lag
 from tauscope.engine.notes import NoteContext, build_notes, find_jump, seasonal_pattern
 from tauscope.engine.prepare import PreparedSeries, prepare
-from tauscope.engine.results import EMPTY_VERDICT, LagPoint, SeriesResult, Step, TestResult
+from tauscope.engine.results import LagPoint, SeriesResult, Step, TestResult, failed_result
 from tauscope.engine.sequence import LevelTests, SequenceOutcome, run_sequence
 from tauscope.engine.settings import Settings
 from tauscope.engine.simulate import with_exact_values
@@ -127,8 +127,7 @@ def _computation_failed(name: str, exc: Exception) -> str:
 
 
 def _failed(name: str, settings: Settings, message: str) -> SeriesResult:
-    return SeriesResult(name=name, nobs=0, error=message, verdict=EMPTY_VERDICT, steps=(), tests=(),
-                        notes=(message,), settings=settings.to_dict())
+    return failed_result(name, message, settings.to_dict())
 
 
 def max_lags_for(n: int, settings: Settings) -> tuple[int, tuple[int, int] | None]:

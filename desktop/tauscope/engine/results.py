@@ -193,3 +193,9 @@ class SeriesResult:
             },
             "evidence": self.evidence.to_dict() if self.evidence is not None else None,
         }
+
+
+def failed_result(name: str, message: str, settings: dict[str, Any]) -> SeriesResult:
+    """The result of a series that could not be tested: ``message`` is its one sentence."""
+    return SeriesResult(name=name, nobs=0, error=message, verdict=EMPTY_VERDICT, steps=(), tests=(),
+                        notes=(message,), settings=dict(settings))

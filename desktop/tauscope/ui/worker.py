@@ -25,7 +25,7 @@ import pandas as pd
 from PySide6.QtCore import QObject, QThread, QTimer, Signal, Slot
 
 from tauscope.engine import SeriesResult, Settings
-from tauscope.engine.results import EMPTY_VERDICT
+from tauscope.engine.results import failed_result
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData
@@ -85,8 +85,7 @@ class Outcome:
 
 def error_result(name: str, message: str, settings: Settings) -> SeriesResult:
     """A result that carries only an error sentence (same shape as the engine's own)."""
-    return SeriesResult(name=name, nobs=0, error=message, verdict=EMPTY_VERDICT, steps=(),
-                        tests=(), notes=(message,), settings=settings.to_dict())
+    return failed_result(name, message, settings.to_dict())
 
 
 def analyse_job(job: Job, settings: Settings) -> Outcome:
