@@ -93,15 +93,61 @@ def test_findings_in_the_study_are_the_engine_dictionaries(tmp_path: Path) -> No
     assert [t["p_value"] for t in stored["tests"]] == [t.p_value for t in first.tests]
 
 
-def test_cut_short_study_gives_a_clear_error_and_stays_as_it_was(tmp_path: Path) -> None:
+def _cut_positions(text: bytes) -> list[int]:
+    """Cut points of every kind: between tokens, inside a path string, inside an escape,
+    inside a number and a literal, inside a multi-byte character, and a spread of others
+    (the study's length depends on the folder it is saved in, so no single cut is enough)."""
+    end = len(text.rstrip())  # a cut in the trailing newline leaves the study whole
+    positions = {1, 2, end // 2, end - 1, end - 2}
+    positions.update(range(3, end - 1, max(1, end // 97)))
+    for marker in (b'"path": "', b"\\u", b"\\", b"e-0", b".", b"true", b"false", b"null",
+                   "Δ".encode(), b'": ', b"],", b"},"):
+        start = text.find(marker)
+        if start >= 0:
+            positions.update(range(start, min(end - 1, start + len(marker) + 6)))
+    return sorted(p for p in positions if 0 < p < end)
+
+
+def test_cut_short_study_gives_a_clear_error_wherever_the_cut_falls(tmp_path: Path) -> None:
     path = tmp_path / "cut.tauscope"
     save_study(path, _study(tmp_path))
     whole = path.read_bytes()
-    path.write_bytes(whole[: len(whole) // 2])
-    with pytest.raises(StudyError, match=r"cut\.tauscope .*cut short") as caught:
-        load_study(path)
-    assert "Traceback" not in str(caught.value)
-    assert path.read_bytes() == whole[: len(whole) // 2]  # loading never writes
+    positions = _cut_positions(whole)
+    assert len(positions) > 100
+    for cut in positions:
+        path.write_bytes(whole[:cut])
+        with pytest.raises(StudyError) as caught:
+            load_study(path)
+        message = str(caught.value)
+        assert "cut.tauscope" in message and "cut short" in message, (cut, whole[cut - 20:cut])
+        assert "Traceback" not in message
+        assert path.read_bytes() == whole[:cut]  # loading never writes
+
+
+def test_cut_short_rule_holds_at_every_position_of_a_text_with_every_token_kind() -> None:
+    """Every proper prefix of a JSON text with strings, escapes, numbers and literals is cut
+    short; the rule does not depend on where the cut falls (json module as the reference)."""
+    from tauscope.report.study_text import ends_before_complete
+
+    document = {"a": [1, -2.5e-3, True, False, None, 'x\\y"z\u00e9\u2603 \n\t'],
+                "path": "C:\\Users\\me\\data.xlsx", "e": [], "f": {}, "g": 0, "h": 1e10}
+    for ascii_only in (True, False):
+        for indent in (None, 2):
+            text = json.dumps(document, indent=indent, ensure_ascii=ascii_only)
+            for cut in range(1, len(text)):
+                with pytest.raises(json.JSONDecodeError) as caught:
+                    json.loads(text[:cut])
+                assert ends_before_complete(text[:cut], caught.value), text[:cut]
+
+
+@pytest.mark.parametrize("broken", ['{"a": tru}', '{"a": 1,, "b": 2}', '{"a": "x"  "b"}',
+                                    '{"a": [1 2]}', '{"a": "\\q"}', '{"a" 1}', '{"a": 1}}'])
+def test_edited_json_is_not_mistaken_for_a_cut(broken: str) -> None:
+    from tauscope.report.study_text import ends_before_complete
+
+    with pytest.raises(json.JSONDecodeError) as caught:
+        json.loads(broken)
+    assert not ends_before_complete(broken, caught.value)
 
 
 def test_study_edited_into_invalid_json_names_line_and_column(tmp_path: Path) -> None:

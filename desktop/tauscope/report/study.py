@@ -28,6 +28,7 @@ from tauscope.data import file_sha256
 from tauscope.engine import SeriesResult, Settings
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.run import RunRecord, SourceLike
+from tauscope.report.study_text import ends_before_complete
 
 STUDY_FORMAT = "tauscope-study"
 STUDY_VERSION = 1
@@ -244,6 +245,10 @@ def save_study(path: Path | str, study: Study) -> Study:
     return stamped
 
 
+_CUT_SHORT = "it ends too early, as if it had been cut short"
+_NOTHING_CHANGED = "Nothing was changed; an autosave or a backup copy may still hold the study."
+
+
 def load_study(path: Path | str) -> Study:
     """Read a study; :class:`StudyError` with one clear sentence when it cannot be used."""
     source = Path(path)
@@ -259,18 +264,21 @@ def load_study(path: Path | str) -> Study:
     try:
         text = raw.decode("utf-8-sig")
     except UnicodeDecodeError as exc:
+        if exc.reason == "unexpected end of data" and exc.end >= len(raw):
+            # The last character was cut in the middle of its bytes.
+            raise StudyError(f"The study {source.name} cannot be opened: {_CUT_SHORT}. "
+                             f"{_NOTHING_CHANGED}") from exc
         raise StudyError(f"The study {source.name} is not a text file (byte {exc.start} is not "
                          "UTF-8); it may be damaged. Nothing was changed.") from exc
     try:
         data = json.loads(text)
     except json.JSONDecodeError as exc:
-        if exc.pos >= len(text.rstrip()):
-            problem = "it ends too early, as if it had been cut short"
+        if ends_before_complete(text, exc):
+            problem = _CUT_SHORT
         else:
             problem = f"it is not valid JSON at line {exc.lineno}, column {exc.colno} ({exc.msg})"
         raise StudyError(f"The study {source.name} cannot be opened: {problem}. "
-                         "Nothing was changed; an autosave or a backup copy may still "
-                         "hold the study.") from exc
+                         f"{_NOTHING_CHANGED}") from exc
     try:
         return study_from_json(data)
     except ValueError as exc:

@@ -158,7 +158,6 @@ class AnalysisWorker(QObject):
     budget per tick.
     """
 
-    crashed = Signal(str)  # traceback text of an unexpected failure
     finished = Signal(bool)  # True when stopped before the end
 
     def __init__(self, jobs: Sequence[Job], settings: Settings, stop: threading.Event) -> None:
@@ -168,6 +167,7 @@ class AnalysisWorker(QObject):
         self._stop = stop
         self.outbox: deque[Outcome] = deque()
         self.current = ""  # name of the series being analysed
+        self.crash_details = ""  # traceback text of unexpected failures, set before ``done``
         self.done = False
 
     def _started(self, _number: int, job: Job) -> None:
@@ -184,8 +184,9 @@ class AnalysisWorker(QObject):
                     crashes.append(outcome.crash)
         except Exception:
             crashes.append(traceback.format_exc())
-        if crashes:
-            self.crashed.emit("\n\n".join(crashes))
+        # Read by the runner when it ends the run, so the problem is reported before the
+        # run's end, never after it (a queued signal could arrive after "Done").
+        self.crash_details = "\n\n".join(crashes)
         self.done = True
         self.finished.emit(self._stop.is_set())
         # End the thread's event loop from inside, so waiting for the thread never depends
@@ -236,7 +237,6 @@ class AnalysisRunner(QObject):
         worker = AnalysisWorker(jobs, settings, self._stop)
         worker.moveToThread(thread)
         thread.started.connect(worker.run)
-        worker.crashed.connect(self.crashed)
         worker.finished.connect(self._on_worker_finished)
         self._thread, self._worker = thread, worker
         self.started.emit(self._total)
@@ -296,11 +296,15 @@ class AnalysisRunner(QObject):
         if self._switch_interval is not None:
             sys.setswitchinterval(self._switch_interval)
             self._switch_interval = None
+        crash_details = ""
         if self._worker is not None:
             self._stopped = self._stopped or self._stop.is_set()
+            crash_details = self._worker.crash_details if self._worker.done else ""
             self._worker.deleteLater()
         if self._thread is not None:
             self._thread.wait()
             self._thread.deleteLater()
         self._worker, self._thread = None, None
+        if crash_details:
+            self.crashed.emit(crash_details)
         self.finished.emit(self._stopped, self._received)
