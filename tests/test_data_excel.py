@@ -107,8 +107,8 @@ def test_engines_read_the_same_cells(tmp_path: Path) -> None:
         width = max((len(r) for r in rows), default=0)
         return [r + [None] * (width - len(r)) for r in rows]
 
-    by_openpyxl = [(name, rectangle(rows)) for name, rows in read_with_openpyxl(data)]
-    by_calamine = [(name, rectangle(rows)) for name, rows in read_with_calamine(data)]
+    by_openpyxl = [(name, rectangle(rows)) for name, rows, _ in read_with_openpyxl(data)]
+    by_calamine = [(name, rectangle(rows)) for name, rows, _ in read_with_calamine(data)]
     assert by_openpyxl == by_calamine
 
 

@@ -12,8 +12,10 @@ from __future__ import annotations
 
 import io
 import zipfile
+import zlib
 
 from tauscope.data.errors import DataError
+from tauscope.data.sheet_size import check_xlsx_sizes
 
 ZIP_MAGIC = b"PK\x03\x04"
 OLE2_MAGIC = b"\xd0\xcf\x11\xe0\xa1\xb1\x1a\xe1"
@@ -48,9 +50,15 @@ def check_zip(data: bytes, file: str) -> None:
     try:
         with zipfile.ZipFile(io.BytesIO(data)) as archive:
             parts = archive.infolist()
-    except (zipfile.BadZipFile, zipfile.LargeZipFile, OSError, ValueError, EOFError):
+            _check_parts(parts, file)
+            check_xlsx_sizes(archive, file)
+    except (zipfile.BadZipFile, zipfile.LargeZipFile, OSError, ValueError, EOFError,
+            NotImplementedError, zlib.error):
         raise DataError("is damaged or not a workbook (its zip structure cannot be read)",
                         file=file) from None
+
+
+def _check_parts(parts: list[zipfile.ZipInfo], file: str) -> None:
     if len(parts) > MAX_PARTS:
         raise DataError(f"has {len(parts)} parts, more than a workbook plausibly has; "
                         "it was not opened", file=file)

@@ -24,11 +24,12 @@ import io
 import math
 import zipfile
 from collections.abc import Callable
-from typing import Any
+from typing import Any, NamedTuple
 
 from tauscope.data.cells import Cell
 
 Rows = list[list[Cell]]
+MAX_EMPTY_RUN = 10_000
 
 python_calamine: Any
 try:  # optional at import time so a missing wheel gives a clear message, not a crash
@@ -59,42 +60,79 @@ _ERRORS = {"#N/A", "#VALUE!", "#DIV/0!", "#REF!", "#NUM!", "#NAME?", "#NULL!", "
            "#CALC!", "#GETTING_DATA", "#FIELD!"}
 
 
-def read_with_calamine(data: bytes) -> list[tuple[str, Rows]]:
-    """Every worksheet as rows of normalised cells (python-calamine)."""
+class RawSheet(NamedTuple):
+    """One worksheet as rows of normalised cells, and a note when rows were left unread."""
+
+    name: str
+    rows: Rows
+    note: str | None = None
+
+
+def read_with_calamine(data: bytes) -> list[RawSheet]:
+    """Every worksheet as rows of normalised cells (python-calamine).
+
+    Call only after :mod:`tauscope.data.sheet_size` has checked the sheets' sizes: the
+    reader lays each sheet out whole.  Rows are then taken one at a time, empty rows kept
+    as empty lists, and reading stops at a run of ``MAX_EMPTY_RUN`` empty rows followed
+    by more cells (a stray cell far below the table), which the note reports.
+    """
     if python_calamine is None:
         raise ImportError("python-calamine is not installed")
     book = python_calamine.CalamineWorkbook.from_filelike(io.BytesIO(data))
-    sheets: list[tuple[str, Rows]] = []
+    sheets: list[RawSheet] = []
     for meta in book.sheets_metadata:
         if str(meta.typ).rsplit(".", 1)[-1].lower() not in ("worksheet", "sheettypeenum.worksheet"):
             continue
         sheet = book.get_sheet_by_name(meta.name)
-        rows = [[v if type(v) is float else normalise(v) for v in row]
-                for row in sheet.to_python(skip_empty_area=False)]
-        sheets.append((meta.name, rows))
+        sheets.append(_sheet_rows(meta.name, sheet))
     return sheets
 
 
-def read_with_openpyxl(data: bytes) -> list[tuple[str, Rows]]:
+def _sheet_rows(name: str, sheet: Any) -> RawSheet:
+    pad: list[Cell] = [None] * int(sheet.start[1]) if sheet.start else []
+    rows: Rows = []
+    empty = 0
+    for number, raw in enumerate(sheet.iter_rows(), start=1):
+        if not any(v != "" for v in raw):
+            empty += 1
+            continue
+        if empty >= MAX_EMPTY_RUN and rows:
+            return RawSheet(name, rows, f"Cells from row {number:,} on were not read: they lie "
+                                        f"below {empty:,} empty rows.")
+        rows.extend([] for _ in range(empty))
+        empty = 0
+        rows.append([*pad, *(v if type(v) is float else normalise(v) for v in raw)])
+    return RawSheet(name, rows)
+
+
+def is_reader_panic(exc: BaseException) -> bool:
+    """True for the panic python-calamine raises when its Rust code fails an internal check
+    (pyo3's ``PanicException``, a ``BaseException``; its class is made only at the first
+    panic, so it is recognised by module and name)."""
+    kind = type(exc)
+    return kind.__name__ == "PanicException" and kind.__module__ == "pyo3_runtime"
+
+
+def read_with_openpyxl(data: bytes) -> list[RawSheet]:
     """Every worksheet as rows of normalised cells (openpyxl, cached values, read-only)."""
     import openpyxl
 
     book = openpyxl.load_workbook(io.BytesIO(data), read_only=True, data_only=True,
                                   keep_vba=False, keep_links=False)
     try:
-        sheets: list[tuple[str, Rows]] = []
+        sheets: list[RawSheet] = []
         for ws in book.worksheets:
             if not hasattr(ws, "iter_rows"):
                 continue
             rows = [[v if type(v) is float else normalise(v) for v in row]
                     for row in ws.iter_rows(values_only=True)]
-            sheets.append((ws.title, rows))
+            sheets.append(RawSheet(ws.title, rows))
         return sheets
     finally:
         book.close()
 
 
-def excel_reader(old_format: bool) -> Callable[[bytes], list[tuple[str, Rows]]]:
+def excel_reader(old_format: bool) -> Callable[[bytes], list[RawSheet]]:
     if python_calamine is not None:
         return read_with_calamine
     if old_format:

@@ -7,16 +7,18 @@ renamed binary file is refused with a sentence instead of a crash.
 
 from __future__ import annotations
 
+import dataclasses
 import hashlib
 from pathlib import Path
 
 from tauscope.data.cells import detect_number_format
 from tauscope.data.container import check_zip, is_encrypted_ole2, sniff
 from tauscope.data.errors import DataError
-from tauscope.data.excel import READER_ERRORS, Rows, excel_reader
+from tauscope.data.excel import READER_ERRORS, RawSheet, excel_reader, is_reader_panic
 from tauscope.data.layout import build_sheet
 from tauscope.data.model import SheetData, Workbook
 from tauscope.data.textfile import read_text_rows
+from tauscope.data.xls_scan import check_xls_sizes
 
 TEXT_SUFFIXES = (".csv", ".txt", ".tsv", ".tab", ".dat", ".prn")
 EXCEL_SUFFIXES = (".xlsx", ".xlsm", ".xltx", ".xltm")
@@ -92,7 +94,9 @@ def _read_text(data: bytes, target: Path) -> tuple[list[str], list[SheetData]]:
 
 def _read_excel(data: bytes, target: Path, old_format: bool) -> tuple[list[str], list[SheetData]]:
     name = target.name
-    if not old_format:
+    if old_format:
+        check_xls_sizes(data, name)
+    else:
         check_zip(data, name)
     try:
         reader = excel_reader(old_format)
@@ -106,14 +110,21 @@ def _read_excel(data: bytes, target: Path, old_format: bool) -> tuple[list[str],
                             "password and open that", file=name) from None
         raise DataError(f"is damaged or not a workbook the reader understands ({what})",
                         file=name) from None
-    sheets = []
-    for sheet_name, rows in raw:
-        sheets.append(_sheet(rows, target, sheet_name))
+    except BaseException as exc:  # the reader's Rust panic is a BaseException; nothing else
+        if not is_reader_panic(exc):
+            raise
+        raise DataError("is damaged: the workbook reader stopped on an inconsistency in it",
+                        file=name) from None
+    sheets = [_sheet(item, target) for item in raw]
     if not sheets:
         raise DataError("has no worksheets", file=name)
     return [f"Read {len(sheets)} sheet{'s' if len(sheets) != 1 else ''} (cached values only)."], sheets
 
 
-def _sheet(rows: Rows, target: Path, sheet_name: str) -> SheetData:
+def _sheet(raw: RawSheet, target: Path) -> SheetData:
+    rows = raw.rows
     numbers = detect_number_format(c for row in rows[:2000] for c in row if isinstance(c, str))
-    return build_sheet(rows, file=str(target), sheet=sheet_name, numbers=numbers, letters=True)
+    sheet = build_sheet(rows, file=str(target), sheet=raw.name, numbers=numbers, letters=True)
+    if raw.note:
+        sheet = dataclasses.replace(sheet, notes=(*sheet.notes, raw.note))
+    return sheet
