@@ -3,6 +3,7 @@ in one DataError sentence (or a readable workbook) instead of a dead process."""
 
 from __future__ import annotations
 
+import os
 import random
 import struct
 from pathlib import Path
@@ -118,3 +119,16 @@ def test_other_base_exceptions_are_not_swallowed(tmp_path: Path,
     monkeypatch.setattr(reader_module, "excel_reader", lambda old_format: reader)
     with pytest.raises(KeyboardInterrupt):
         read_workbook(_write(tmp_path, "stop.xls", XLS_SEED.read_bytes()))
+
+
+def test_devices_are_refused_without_reading() -> None:
+    with pytest.raises(DataError, match="not a regular file"):
+        read_workbook("/dev/zero")
+
+
+@pytest.mark.skipif(not hasattr(os, "mkfifo"), reason="named pipes are a POSIX feature")
+def test_a_named_pipe_is_refused_without_waiting_for_a_writer(tmp_path: Path) -> None:
+    pipe = tmp_path / "series.csv"
+    os.mkfifo(pipe)
+    with pytest.raises(DataError, match=r"series\.csv: is not a regular file"):
+        read_workbook(pipe)

@@ -9,6 +9,8 @@ from __future__ import annotations
 
 import dataclasses
 import hashlib
+import os
+import stat
 from pathlib import Path
 
 from tauscope.data.cells import detect_number_format
@@ -35,15 +37,32 @@ def file_sha256(path: Path | str) -> str:
 
 
 def _read_bytes(path: Path) -> bytes:
+    """The file's bytes, read only from a regular file.
+
+    The file is opened without blocking (a named pipe would otherwise wait for a writer
+    forever) and its type is checked on the open handle, so a device such as /dev/zero,
+    a pipe or a socket is refused before a byte is read; at most ``MAX_FILE_BYTES`` + 1
+    bytes are ever read.
+    """
     name = path.name
     try:
         if path.is_dir():
             raise DataError("is a folder, not a file", file=name)
-        size = path.stat().st_size
-        if size > MAX_FILE_BYTES:
-            raise DataError(f"is too large to open ({size / 2**20:,.0f} MB)", file=name)
-        with open(path, "rb") as handle:
-            return handle.read()
+        flags = os.O_RDONLY | getattr(os, "O_NONBLOCK", 0) | getattr(os, "O_BINARY", 0)
+        descriptor = os.open(path, flags)
+        with os.fdopen(descriptor, "rb") as handle:
+            info = os.fstat(handle.fileno())
+            if not stat.S_ISREG(info.st_mode):
+                raise DataError("is not a regular file (it is a device, a pipe or a socket); "
+                                "only files saved on disk can be opened", file=name)
+            if info.st_size > MAX_FILE_BYTES:
+                raise DataError(f"is too large to open ({info.st_size / 2**20:,.0f} MB)",
+                                file=name)
+            data = handle.read(MAX_FILE_BYTES + 1)
+        if len(data) > MAX_FILE_BYTES:
+            raise DataError(f"is too large to open (more than {MAX_FILE_BYTES >> 20} MB)",
+                            file=name)
+        return data
     except FileNotFoundError:
         raise DataError("does not exist", file=str(path)) from None
     except PermissionError:
