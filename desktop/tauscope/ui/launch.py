@@ -24,6 +24,9 @@ def build(argv: list[str]) -> tuple[QApplication, MainWindow]:
     from tauscope.ui.main_window import MainWindow
 
     app = prepare_application(argv)
+    from tauscope.report.atomic import remove_stale_temporaries
+
+    remove_stale_temporaries(store.data_folder())  # left by a write a crash cut off
     apply_appearance(app, str(store.get_value(store.KEY_APPEARANCE) or "system"))
     window = MainWindow()
     window.show()
