@@ -58,10 +58,63 @@ def test_json_entries_equal_the_engine_and_input_is_unchanged(tmp_path: Path) ->
     assert written["origins"][0]["frequency"] == "quarterly"
 
 
-def test_gappy_series_uses_longest_stretch_and_says_so(tmp_path: Path) -> None:
+def test_gappy_series_is_refused_by_default_like_the_window(tmp_path: Path) -> None:
+    source = _demo_like(tmp_path)
+    out = tmp_path / "refused.json"
+    assert main([str(source), "--series", "gappy", "--out", str(out)]) == 0
+    (entry,) = json.loads(out.read_text(encoding="utf-8"))["series"]
+    assert entry["nobs"] == 0 and entry["tests"] == []
+    assert "2 missing values inside its sample (first at 1992Q3)" in entry["error"]
+    assert "--gaps longest or --gaps fill" in entry["error"]
+
+
+def test_gappy_series_filled_when_asked_and_says_so(tmp_path: Path) -> None:
+    source = _demo_like(tmp_path)
+    out = tmp_path / "filled.json"
+    assert main([str(source), "--series", "gappy", "--gaps", "fill", "--max-difference", "1",
+                 "--out", str(out)]) == 0
+    (entry,) = json.loads(out.read_text(encoding="utf-8"))["series"]
+    filled = read_workbook(source).series()[2].interpolated()
+    expected = analyse_series(filled.testable_values(), Settings(max_difference=1), name="Gappy")
+    assert entry["nobs"] == expected.nobs == 60 and entry["span"] == ["1990Q1", "2004Q4"]
+    assert entry["tests"] == json.loads(json.dumps(expected.to_dict()["tests"]))
+    assert "2 missing values inside “Gappy” were filled" in entry["notes"][0]
+
+
+def test_sample_start_and_end_cut_the_series(tmp_path: Path) -> None:
+    source = _demo_like(tmp_path)
+    out = tmp_path / "sample.json"
+    assert main([str(source), "--series", "walk", "--sample", "1995:2001Q2",
+                 "--max-difference", "1", "--out", str(out)]) == 0
+    (entry,) = json.loads(out.read_text(encoding="utf-8"))["series"]
+    walk = read_workbook(source).series()[0]
+    part = walk.values.loc["1995Q1":"2001Q2"]
+    expected = analyse_series(part, Settings(max_difference=1), name="Walk")
+    assert entry["span"] == ["1995Q1", "2001Q2"] and entry["nobs"] == expected.nobs
+    assert entry["tests"] == json.loads(json.dumps(expected.to_dict()["tests"]))
+    assert entry["notes"][0].startswith("Sample chosen for “Walk”: 1995Q1 to 2001Q2 (26 ")
+
+
+def test_sample_outside_the_data_is_that_series_problem(tmp_path: Path) -> None:
+    source = _demo_like(tmp_path)
+    out = tmp_path / "outside.json"
+    assert main([str(source), "--series", "walk", "--sample", "2010Q1:", "--out", str(out)]) == 0
+    (entry,) = json.loads(out.read_text(encoding="utf-8"))["series"]
+    assert "no observation at '2010Q1'" in entry["error"]
+
+
+def test_a_sample_that_is_not_start_end_is_a_usage_error(
+    tmp_path: Path, capsys: pytest.CaptureFixture[str]
+) -> None:
+    assert main([str(_demo_like(tmp_path)), "--sample", "1995"]) == 2
+    assert "START:END" in capsys.readouterr().err
+
+
+def test_gappy_series_uses_longest_stretch_when_asked_and_says_so(tmp_path: Path) -> None:
     source = _demo_like(tmp_path)
     out = tmp_path / "g.json"
-    assert main([str(source), "--series", "gappy", "--max-difference", "1", "--out", str(out)]) == 0
+    assert main([str(source), "--series", "gappy", "--gaps", "longest", "--max-difference", "1",
+                 "--out", str(out)]) == 0
     (entry,) = json.loads(out.read_text(encoding="utf-8"))["series"]
     gappy = read_workbook(source).series()[2]
     stretch = gappy.longest_stretch()
@@ -243,3 +296,51 @@ def test_cross_checks_and_exact_critical_values_reach_the_engine(tmp_path: Path)
 def test_unknown_cross_check_is_a_usage_error(capsys: pytest.CaptureFixture[str]) -> None:
     assert main(["whatever.csv", "--check", "kpss,guess"]) == 2
     assert "guess" in capsys.readouterr().err
+
+
+def test_out_never_writes_over_the_input(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    book = tmp_path / "book.xlsx"
+    book.write_bytes(DEMO.read_bytes())
+    before, mtime = file_sha256(book), book.stat().st_mtime_ns
+    for target in (book, tmp_path / "." / "book.xlsx"):
+        assert main([str(book), "--out", str(target), "--replace"]) == 2
+        err = capsys.readouterr().err.strip().splitlines()
+        assert len(err) == 1 and "is the input file" in err[0]
+    assert file_sha256(book) == before and book.stat().st_mtime_ns == mtime
+
+
+def test_out_asks_before_writing_over_a_file_that_is_not_ours(
+    tmp_path: Path, capsys: pytest.CaptureFixture[str]
+) -> None:
+    source = _demo_like(tmp_path)
+    theirs = tmp_path / "thesis.tex"
+    theirs.write_text("\\documentclass{article}\n", encoding="utf-8")
+    args = [str(source), "--series", "Noise", "--max-difference", "0", "--out", str(theirs)]
+    assert main(args) == 2
+    assert "add --replace" in capsys.readouterr().err
+    assert theirs.read_text(encoding="utf-8") == "\\documentclass{article}\n"
+    assert main([*args, "--replace"]) == 0
+    assert theirs.read_text(encoding="utf-8").startswith("% Tauscope ")
+
+
+def test_our_own_reports_are_replaced_without_asking(tmp_path: Path) -> None:
+    source = _demo_like(tmp_path)
+    outs = [tmp_path / f"findings{suffix}" for suffix in (".json", ".csv", ".html", ".tex", ".xlsx")]
+    args = [str(source), "--series", "Noise", "--max-difference", "0"]
+    for out in outs:
+        args += ["--out", str(out)]
+    assert main(args) == 0
+    first = {out: out.read_bytes() for out in outs}
+    assert main([*args, "--lag-rule", "bic"]) == 0  # every file recognised as ours
+    assert all(out.read_bytes() != first[out] for out in outs if out.suffix != ".csv")
+
+
+def test_reader_notes_go_to_stderr_on_one_line(
+    tmp_path: Path, capsys: pytest.CaptureFixture[str]
+) -> None:
+    source = _demo_like(tmp_path)
+    assert main([str(source), "--series", "Noise", "--max-difference", "0"]) == 0
+    err = capsys.readouterr().err.strip().splitlines()
+    assert len(err) == 1
+    assert "1 title or note row above the header was skipped" in err[0]
+    assert "1 row below the data (from row 64) was skipped" in err[0]

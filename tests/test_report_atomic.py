@@ -37,3 +37,17 @@ def test_a_write_still_running_keeps_its_temporary(tmp_path: Path) -> None:
     running.write_bytes(b"a,b")
     assert remove_stale_temporaries(tmp_path) == []
     assert running.exists()
+
+
+def test_export_never_writes_over_an_input_of_the_run(tmp_path: Path) -> None:
+    import pytest
+
+    from tauscope.engine import Settings
+    from tauscope.report import ExportError, RunRecord, SourceFile, export
+
+    workbook = tmp_path / "input.json"
+    workbook.write_text('{"tauscope": "x"}', encoding="utf-8")
+    run = RunRecord(Settings(), (SourceFile(str(workbook), "0" * 64),), ())
+    with pytest.raises(ExportError, match="never writes over"):
+        export(workbook, run)
+    assert workbook.read_text(encoding="utf-8") == '{"tauscope": "x"}'

@@ -1,9 +1,16 @@
 """``tauscope batch FILE [options]``: the whole analysis without the window.
 
-Reads the workbook (read-only), picks the sheet and series asked for, applies one
+Reads the workbook (read-only), picks the sheet and series asked for, cuts each to the
+sample asked for (``--sample START:END``), handles gaps by the window's rule (``--gaps``:
+``refuse`` by default, so a series with missing values inside its sample is reported as
+not tested and says how to go on; ``longest`` tests its longest stretch without gaps,
+``fill`` fills the gaps by straight lines; the notes say which), applies one
 transformation to each, runs the engine on every series and writes the findings
-(``--out``, format by suffix) or prints a table.  A series with gaps inside its sample
-is tested on its longest gap-free stretch, and its notes say so.
+(``--out``, format by suffix) or prints a table.  The reader's notes (rows skipped, sheets
+empty, dates guessed) go to standard error on one line.
+
+``--out`` never writes over an input file, nor over an existing file that is not one of
+our own reports unless ``--replace`` is given (:mod:`tauscope.report.ownership`).
 
 Exit codes: 0 done (also when some series could not be tested; they carry ``error``),
 2 usage error, 3 the input cannot be read (one line on standard error), 1 a findings file
@@ -14,19 +21,30 @@ from __future__ import annotations
 
 import argparse
 import dataclasses
+import re
 import sys
 from collections.abc import Sequence
 from pathlib import Path
 from typing import NoReturn, TextIO
 
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
+from tauscope.data.sample import GAP_RULES, apply_gap_rule, cut_sample, parse_sample
 from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_many
 from tauscope.engine.results import failed_result
-from tauscope.report import WRITERS, ExportError, Finding, RunRecord, SourceFile, export
+from tauscope.report import (
+    WRITERS,
+    ExportError,
+    Finding,
+    RunRecord,
+    SourceFile,
+    export,
+    is_own_report,
+)
+from tauscope.report.ownership import same_file
 from tauscope.ui import pdf_report  # noqa: F401  (registers ".pdf"; Qt loads only when used)
 
 EXIT_DONE, EXIT_USAGE, EXIT_INPUT, EXIT_OUTPUT = 0, 2, 3, 1
-PROGRESS_FROM = 5  # show progress for more series than this even when stderr is not a terminal
+_PREPARED_NOTE = re.compile(r"longest stretch|were filled|Sample chosen")
 TRANSFORM_CHOICES = ("none", "log", "diff", "logdiff")
 
 
@@ -67,9 +85,27 @@ def _parser() -> _Parser:
     parser.add_argument("--exact", action="store_true",
                         help="judge τ and Φ against critical values simulated at each series' "
                              "own sample size (slower)")
+    parser.add_argument("--gaps", choices=GAP_RULES, default="refuse",
+                        help="series with missing values inside their sample: refuse (report "
+                             "them as not tested, the window's rule; the default), longest "
+                             "(test the longest stretch without gaps) or fill (straight lines "
+                             "across the gaps)")
+    parser.add_argument("--sample", metavar="START:END", type=_sample,
+                        help="test only observations from START to END, e.g. 1990Q1:2007Q4, "
+                             "1990: or :2007-12 (observation numbers for series without dates)")
     parser.add_argument("--out", action="append", default=[], metavar="FILE",
                         help="write the findings here; the format follows the suffix (repeatable)")
+    parser.add_argument("--replace", action="store_true",
+                        help="allow --out to write over an existing file that is not a "
+                             "Tauscope report (an input file is never written over)")
     return parser
+
+
+def _sample(text: str) -> tuple[str | None, str | None]:
+    try:
+        return parse_sample(text)
+    except ValueError as exc:
+        raise argparse.ArgumentTypeError(str(exc)) from None
 
 
 def _count(text: str) -> int:
@@ -86,7 +122,7 @@ def main(argv: list[str]) -> int:
     try:
         args = _parser().parse_args(argv)
         settings = _settings(args)
-        _check_outputs(args.out)
+        _check_outputs(args.out, args.file, args.replace)
     except UsageError as exc:
         print(f"tauscope batch: {exc}", file=sys.stderr)
         return EXIT_USAGE
@@ -102,7 +138,10 @@ def main(argv: list[str]) -> int:
         print(f"tauscope batch: {Path(args.file).name}: could not be read "
               f"({type(exc).__name__}: {exc})".replace("\n", " "), file=sys.stderr)
         return EXIT_INPUT
-    findings = analyse_all(chosen, settings, None if args.transform == "none" else args.transform)
+    notes = reader_notes(workbook, args.sheet, chosen)
+    plan = Plan(None if args.transform == "none" else args.transform, args.gaps,
+                args.sample or (None, None))
+    findings = analyse_all(chosen, settings, plan)
     run = RunRecord(settings, (SourceFile(str(workbook.path), workbook.sha256),), tuple(findings))
     if not args.out:
         print(summary_table(findings))
@@ -112,6 +151,8 @@ def main(argv: list[str]) -> int:
         except ExportError as exc:
             print(f"tauscope batch: {exc}", file=sys.stderr)
             return EXIT_OUTPUT
+    if notes:  # after the writes, so that standard error holds one line in every case
+        print(f"tauscope batch: {workbook.path.name}: {notes}", file=sys.stderr)
     return EXIT_DONE
 
 
@@ -127,13 +168,34 @@ def _settings(args: argparse.Namespace) -> Settings:
         raise UsageError(str(exc)) from None
 
 
-def _check_outputs(outputs: Sequence[str]) -> None:
+def _check_outputs(outputs: Sequence[str], source: str, replace: bool) -> None:
     for target in outputs:
         suffix = Path(target).suffix.lower()
         if suffix not in WRITERS:
             known = ", ".join(sorted(WRITERS))
             raise UsageError(f"--out {target}: unknown output format '{suffix or 'none'}' "
                              f"(known: {known})")
+        if same_file(target, source):
+            raise UsageError(f"--out {target}: that is the input file, which is never "
+                             "written over; choose another name")
+        path = Path(target)
+        if path.exists() and not path.is_file():
+            raise UsageError(f"--out {target}: is not a regular file")
+        if path.exists() and not replace and not is_own_report(path):
+            raise UsageError(f"--out {target}: the file exists and is not a Tauscope report; "
+                             "add --replace to write over it")
+
+
+def reader_notes(workbook: Workbook, sheet: str | None, chosen: Sequence[SeriesData]) -> str:
+    """What the reader noticed (rows skipped, sheets empty, dates guessed, cells read as
+    missing), for the sheets and series analysed, as one line."""
+    sheets = [s for s in workbook.sheets if sheet is None or s.name == workbook.sheet(sheet).name]
+    parts = [*workbook.notes]
+    for item in sheets:
+        label = f"sheet '{item.name}': " if len(workbook.sheets) > 1 else ""
+        parts.extend(label + note for note in item.notes)
+    parts.extend(note for series in chosen for note in series.notes)
+    return " ".join(" ".join(p.split()) for p in dict.fromkeys(parts))
 
 
 def choose_series(workbook: Workbook, sheet: str | None, names: Sequence[str]) -> list[SeriesData]:
@@ -160,40 +222,62 @@ def _failed(name: str, settings: Settings, message: str) -> SeriesResult:
 
 
 @dataclasses.dataclass(frozen=True)
+class Plan:
+    """What is done to each series before the engine sees it, in this order: the sample
+    (labels, None for an open side), the gap rule, the transformation (None: none)."""
+
+    transform: str | None = None
+    gaps: str = "refuse"
+    sample: tuple[str | None, str | None] = (None, None)
+
+
+@dataclasses.dataclass(frozen=True)
 class _Prepared:
     """A series made ready for the engine, or the sentence saying why it could not be."""
 
     series: SeriesData
     name: str
     values: object | None
-    stretch_note: str | None
+    notes: tuple[str, ...]
     problem: str | None
 
 
-def prepare_one(series: SeriesData, transform: str | None) -> _Prepared:
-    """Transform (if asked) and fall back to the longest gap-free stretch."""
+_GAP_HINT = "; run again with --gaps longest or --gaps fill to test it"
+
+
+def prepare_one(series: SeriesData, plan: Plan | str | None = None) -> _Prepared:
+    """Sample, gap rule and transformation (see :class:`Plan`); the notes say what was done."""
+    if not isinstance(plan, Plan):
+        plan = Plan(transform=plan)
     name = series.name
+    read_notes = len(series.notes)
     try:
-        if transform is not None:
-            series = make_transform(series, transform)
+        series = cut_sample(series, *plan.sample)
+        series = apply_gap_rule(series, plan.gaps)
+        done = series.notes[read_notes:]
+        if plan.transform is not None:
+            series = make_transform(series, plan.transform)
             name = series.name
-        tested = series.longest_stretch() if series.gaps else series
-        note = tested.notes[-1] if tested is not series else None
-        return _Prepared(series, name, tested.testable_values(), note, None)
+        try:
+            values = series.testable_values()
+        except DataError as exc:
+            return _Prepared(series, name, None, done, exc.reason.rstrip(".") + _GAP_HINT)
+        return _Prepared(series, name, values, done, None)
     except DataError as exc:
-        return _Prepared(series, name, None, None, exc.reason)
+        return _Prepared(series, name, None, (), exc.reason)
     except Exception as exc:  # one bad series never stops the batch
         reason = f"“{name}” could not be tested: {type(exc).__name__}: {exc}".replace("\n", " ")
-        return _Prepared(series, name, None, None, reason)
+        return _Prepared(series, name, None, (), reason)
 
 
-def analyse_all(chosen: Sequence[SeriesData], settings: Settings, transform: str | None,
+def analyse_all(chosen: Sequence[SeriesData], settings: Settings, plan: Plan | str | None = None,
                 progress: TextIO | None = None) -> list[Finding]:
     """Prepare every series, then run the engine on all of them at once (``analyse_many``
-    batches series of equal length); results keep the input order."""
+    batches series of equal length); results keep the input order.  Progress lines go to
+    ``progress`` when given, else to standard error when it is a terminal."""
     stream = progress or sys.stderr
-    show = stream.isatty() or len(chosen) > PROGRESS_FROM
-    prepared = [prepare_one(series, transform) for series in chosen]
+    show = progress is not None or stream.isatty()
+    prepared = [prepare_one(series, plan) for series in chosen]
     testable = [p for p in prepared if p.problem is None]
 
     def report(done: int, total: int, name: str) -> None:
@@ -207,8 +291,8 @@ def analyse_all(chosen: Sequence[SeriesData], settings: Settings, transform: str
             result = _failed(item.name, settings, item.problem)
         else:
             result = next(results)
-            if item.stretch_note:
-                result = dataclasses.replace(result, notes=(item.stretch_note, *result.notes))
+            if item.notes:
+                result = dataclasses.replace(result, notes=(*item.notes, *result.notes))
         findings.append(Finding.from_series(result, item.series))
     return findings
 
@@ -244,7 +328,7 @@ def summary_table(findings: Sequence[Finding]) -> str:
                  enumerate(zip(row, widths, strict=False))]
         lines.append("  ".join([*cells, row[-1]]).rstrip())
     notes = [f"{f.result.name}: {f.result.notes[0]}" for f in findings
-             if f.result.ok and f.result.notes and "longest stretch" in f.result.notes[0]]
+             if f.result.ok and f.result.notes and _PREPARED_NOTE.search(f.result.notes[0])]
     if notes:
         lines.append("")
         lines.extend(notes)

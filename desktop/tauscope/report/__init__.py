@@ -13,6 +13,7 @@ from collections.abc import Callable
 from pathlib import Path
 
 from tauscope.report.json_export import run_to_json, write_json
+from tauscope.report.ownership import is_own_report, same_file
 from tauscope.report.run import Charts, Finding, RunRecord, SourceFile
 
 Writer = Callable[[Path, RunRecord, Charts | None], None]
@@ -60,13 +61,18 @@ def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> No
 
     ``charts``: optional PNG bytes per series (keyed by ``Finding.key`` or series
     name), used by .xlsx, .html and .pdf.  Raises :class:`ExportError` with one
-    sentence for an unknown suffix or a file that cannot be written.
+    sentence for an unknown suffix, a file that cannot be written, or a target that is
+    one of the run's input files (never written over; see :mod:`.ownership`).
     """
     target = Path(path)
     writer = WRITERS.get(target.suffix.lower())
     if writer is None:
         known = ", ".join(sorted(WRITERS))
         raise ExportError(f"{target.name}: unknown output format '{target.suffix}' (known: {known})")
+    for source in run.sources:
+        if same_file(target, source.path):
+            raise ExportError(f"{target}: not written: it is the input workbook {source.name}, "
+                              "which Tauscope never writes over; choose another name")
     if not target.parent.is_dir():
         raise ExportError(f"{target}: could not be written (the folder {target.parent} does not "
                           "exist)")
@@ -84,6 +90,7 @@ __all__ = [
     "RunRecord",
     "SourceFile",
     "export",
+    "is_own_report",
     "register_writer",
     "run_to_json",
     "write_json",
