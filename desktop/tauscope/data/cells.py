@@ -28,6 +28,15 @@ _PLAIN = re.compile(r"^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$")
 _FLAGGED = re.compile(r"^(.*\d)\s*([bcdefinprsuz]{1,3})$")
 
 
+def printable(text: str) -> str:
+    """``text`` as one line of visible characters: control and format characters (ESC,
+    carriage returns, zero-width and direction marks) and line breaks become spaces, and
+    runs of spaces one space.  Every name read from a file passes through here once."""
+    if text.isprintable():
+        return " ".join(text.split())
+    return " ".join("".join(ch if ch.isprintable() else " " for ch in text).split())
+
+
 def is_missing_code(text: str) -> bool:
     return text.strip(" \u00a0").casefold() in MISSING_CODES
 

@@ -16,7 +16,7 @@ from dataclasses import dataclass
 import numpy as np
 import pandas as pd
 
-from tauscope.data.cells import POINT, Cell, NumberFormat, is_missing_code
+from tauscope.data.cells import POINT, Cell, NumberFormat, is_missing_code, printable
 from tauscope.data.dates import (
     FREQUENCY_NAMES,
     axis_score,
@@ -87,7 +87,7 @@ def header_text(cell: Cell) -> str:
         return cell.date().isoformat()
     if isinstance(cell, dt.date):
         return cell.isoformat()
-    return " ".join(str(cell).split())
+    return printable(str(cell))
 
 
 def _rectangle(rows: Sequence[Sequence[Cell]]) -> list[list[Cell]]:

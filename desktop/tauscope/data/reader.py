@@ -13,7 +13,7 @@ import os
 import stat
 from pathlib import Path
 
-from tauscope.data.cells import detect_number_format
+from tauscope.data.cells import detect_number_format, printable
 from tauscope.data.container import check_zip, is_encrypted_ole2, sniff
 from tauscope.data.errors import DataError
 from tauscope.data.excel import READER_ERRORS, RawSheet, excel_reader, is_reader_panic
@@ -143,7 +143,8 @@ def _read_excel(data: bytes, target: Path, old_format: bool) -> tuple[list[str],
 def _sheet(raw: RawSheet, target: Path) -> SheetData:
     rows = raw.rows
     numbers = detect_number_format(c for row in rows[:2000] for c in row if isinstance(c, str))
-    sheet = build_sheet(rows, file=str(target), sheet=raw.name, numbers=numbers, letters=True)
+    sheet = build_sheet(rows, file=str(target), sheet=printable(raw.name), numbers=numbers,
+                        letters=True)
     if raw.note:
         sheet = dataclasses.replace(sheet, notes=(*sheet.notes, raw.note))
     return sheet

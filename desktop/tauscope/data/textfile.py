@@ -58,8 +58,19 @@ def _value_like(field: str, numbers: NumberFormat) -> bool:
     return is_missing_code(text) or numbers.parse(text) is not None or parse_label(text) is not None
 
 
+def lines_of(text: str) -> list[str]:
+    """The file's lines.  A file with line feeds ends its lines only there (a carriage
+    return before one is dropped, a stray one inside a cell becomes a space), so a form
+    feed or other separator inside a cell stays in that cell; a file without any line
+    feed is split at carriage returns (old Mac files)."""
+    if "\n" in text:
+        return [(line[:-1] if line.endswith("\r") else line).replace("\r", " ")
+                for line in text.split("\n")]
+    return text.split("\r")
+
+
 def split(text: str, delimiter: str | None) -> list[list[str]]:
-    lines = text.splitlines()
+    lines = lines_of(text)
     if delimiter is None:
         return [[line] for line in lines]
     csv.field_size_limit(MAX_FIELD)
@@ -72,7 +83,7 @@ def split(text: str, delimiter: str | None) -> list[list[str]]:
 
 
 def detect_delimiter(text: str) -> str | None:
-    sample = "\n".join(text.splitlines()[:SAMPLE_LINES])
+    sample = "\n".join(lines_of(text)[:SAMPLE_LINES])
     loose = NumberFormat(",", "")
     best: tuple[int, int, str | None] = (0, 0, None)
     for delimiter in DELIMITERS:

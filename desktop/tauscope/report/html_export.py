@@ -16,6 +16,7 @@ from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.methods import methods_for
 from tauscope.report.run import Charts, Finding, RunRecord, chart_for
+from tauscope.report.text_safety import html_text
 from tauscope.report.tables import (
     MARKER_NOTE,
     Table,
@@ -58,7 +59,7 @@ def data_uri(_index: int, png: bytes) -> str:
 
 
 def _esc(text: object) -> str:
-    return html.escape(str(text), quote=True)
+    return html.escape(html_text(str(text)), quote=True)
 
 
 def _format(value: Value, kind: str) -> str:

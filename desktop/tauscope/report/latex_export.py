@@ -17,6 +17,7 @@ from tauscope.engine import SeriesResult
 from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.run import Charts, RunRecord
+from tauscope.report.text_safety import tex_text
 from tauscope.report.tables import (
     SPEC_CODES,
     deciding_tau,
@@ -73,7 +74,7 @@ def escape(text: str) -> str:
 
     Neighbouring symbols become one math group ($\\Delta$$^{2}$ would open display math).
     """
-    escaped = "".join(_SPECIALS.get(ch, ch) for ch in text)
+    escaped = "".join(_SPECIALS.get(ch, ch) for ch in tex_text(text))
     return re.sub(r"(?<!\\)\$\$", "", escaped)
 
 

@@ -30,6 +30,7 @@ from tauscope.report.atomic import write_bytes_atomic
 from tauscope.report.methods import methods_for
 from tauscope.report.run import Charts, RunRecord, chart_for
 from tauscope.report.safety import looks_like_formula
+from tauscope.report.text_safety import xml_text
 from tauscope.report.tables import (
     MARKER_NOTE,
     Table,
@@ -49,7 +50,10 @@ MAX_WIDTH = 60
 
 
 def put(cell: Cell, value: Value) -> None:
-    """Write ``value``; text that a spreadsheet could read as a formula stays a string."""
+    """Write ``value``; text that a spreadsheet could read as a formula stays a string, and
+    characters XML cannot hold become U+FFFD (:mod:`.text_safety`)."""
+    if isinstance(value, str):
+        value = xml_text(value)
     cell.value = value
     if isinstance(value, str) and looks_like_formula(value):
         cell.data_type = "s"
