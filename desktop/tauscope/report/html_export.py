@@ -16,7 +16,6 @@ from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.methods import methods_for
 from tauscope.report.run import Charts, Finding, RunRecord, chart_for
-from tauscope.report.text_safety import html_text
 from tauscope.report.tables import (
     MARKER_NOTE,
     Table,
@@ -25,6 +24,7 @@ from tauscope.report.tables import (
     lag_rule_label,
     path_table,
 )
+from tauscope.report.text_safety import html_text
 
 ImageSource = Callable[[int, bytes], str]
 """Gives the ``src`` of chart number ``i`` (0-based, in series order) from its PNG bytes."""

@@ -17,7 +17,6 @@ from tauscope.engine import SeriesResult
 from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.run import Charts, RunRecord
-from tauscope.report.text_safety import tex_text
 from tauscope.report.tables import (
     SPEC_CODES,
     deciding_tau,
@@ -26,6 +25,7 @@ from tauscope.report.tables import (
     lag_rule_label,
     marker,
 )
+from tauscope.report.text_safety import tex_text
 
 _SPECIALS = {
     "\\": r"\textbackslash{}",

@@ -30,7 +30,6 @@ from tauscope.report.atomic import write_bytes_atomic
 from tauscope.report.methods import methods_for
 from tauscope.report.run import Charts, RunRecord, chart_for
 from tauscope.report.safety import looks_like_formula
-from tauscope.report.text_safety import xml_text
 from tauscope.report.tables import (
     MARKER_NOTE,
     Table,
@@ -40,6 +39,7 @@ from tauscope.report.tables import (
     summary_table,
     tests_table,
 )
+from tauscope.report.text_safety import xml_text
 
 NUMBER_FORMATS = {"stat": "0.000", "p": "0.000", "int": "0"}
 HEADER_FONT = Font(bold=True, color="FFFFFF")
