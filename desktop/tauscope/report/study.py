@@ -26,6 +26,7 @@ from typing import Any, Protocol
 from tauscope import __version__
 from tauscope.data import file_sha256
 from tauscope.engine import SeriesResult, Settings
+from tauscope.report import study_check as check
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.run import RunRecord, SourceLike
 from tauscope.report.study_text import ends_before_complete
@@ -170,17 +171,9 @@ def _now() -> str:
     return dt.datetime.now(dt.UTC).replace(microsecond=0).isoformat()
 
 
-def _require(data: dict[str, Any], key: str, kind: type | tuple[type, ...], where: str) -> Any:
-    if key not in data:
-        raise ValueError(f"{where} has no “{key}”")
-    value = data[key]
-    if not isinstance(value, kind):
-        raise ValueError(f"{where}: “{key}” has the wrong type")
-    return value
-
-
 def study_from_json(data: Any) -> Study:
-    """Check and convert parsed JSON; ValueError with a short reason when it does not fit."""
+    """Check and convert parsed JSON; ValueError with a short reason when it does not fit
+    (every entry used is type- and size-checked first, :mod:`.study_check`)."""
     if not isinstance(data, dict):
         raise ValueError("it is not a Tauscope study (the file holds no JSON object)")
     if data.get("format") != STUDY_FORMAT:
@@ -192,39 +185,44 @@ def study_from_json(data: Any) -> Study:
         raise ValueError(f"it was saved by a newer Tauscope (study version {version}; this "
                          f"version reads up to {STUDY_VERSION}); please update Tauscope")
     try:
-        settings = Settings.from_dict(_require(data, "settings", dict, "the study"))
+        raw_settings = check.require(data, "settings", dict, "the study")
+        settings = Settings.from_dict(check.check_settings(raw_settings))
     except (TypeError, ValueError) as exc:
         raise ValueError(f"its settings are not valid ({exc})") from exc
     workbooks = []
-    for i, wb in enumerate(_require(data, "workbooks", list, "the study"), start=1):
+    for i, wb in enumerate(check.require(data, "workbooks", list, "the study"), start=1):
         if not isinstance(wb, dict):
             raise ValueError(f"workbook entry {i} is not an object")
         where = f"workbook entry {i}"
+        relative = wb.get("relative")
         workbooks.append(StudyWorkbook(
-            _require(wb, "path", str, where), _require(wb, "sha256", str, where),
-            tuple(str(s) for s in wb.get("sheets", [])), wb.get("relative")))
+            check.check_path(check.require(wb, "path", str, where), where),
+            check.check_text(check.require(wb, "sha256", str, where), where),
+            tuple(check.check_string_list(wb.get("sheets", []), f"{where}: “sheets”")),
+            None if relative is None else check.check_path(relative, where)))
     series = []
-    for i, s in enumerate(_require(data, "series", list, "the study"), start=1):
+    for i, s in enumerate(check.require(data, "series", list, "the study"), start=1):
         if not isinstance(s, dict):
             raise ValueError(f"series entry {i} is not an object")
         where = f"series entry {i}"
         gaps = s.get("gaps", "none")
-        if gaps not in GAP_CHOICES:
-            raise ValueError(f"{where}: unknown gap handling “{gaps}”")
+        if not isinstance(gaps, str) or gaps not in GAP_CHOICES:
+            raise ValueError(f"{where}: unknown gap handling")
+        key, name, sheet, column = (check.check_text(check.require(s, k, str, where), where)
+                                    for k in ("key", "name", "sheet", "column"))
         series.append(StudySeries(
-            _require(s, "key", str, where), _require(s, "name", str, where),
-            _require(s, "file", str, where), _require(s, "sheet", str, where),
-            _require(s, "column", str, where),
-            tuple(str(t) for t in _require(s, "transforms", list, where)), gaps))
+            key, name, check.check_path(check.require(s, "file", str, where), where), sheet, column,
+            tuple(check.check_string_list(check.require(s, "transforms", list, where), where)), gaps))
     findings = []
-    for i, f in enumerate(data.get("findings", []), start=1):
+    entries = check.require(data, "findings", list, "the study") if "findings" in data else []
+    for i, f in enumerate(entries, start=1):
         if not isinstance(f, dict) or not isinstance(f.get("result"), dict):
             raise ValueError(f"finding {i} is not an object with a “result”")
         findings.append(f)
     known = {"format", "version", "tauscope", "saved", "settings", "workbooks", "series",
              "findings"}
     return Study(settings, tuple(workbooks), tuple(series), tuple(findings),
-                 str(data.get("tauscope", "")), str(data.get("saved", "")),
+                 str(data.get("tauscope", ""))[:100], str(data.get("saved", ""))[:100],
                  {k: v for k, v in data.items() if k not in known})
 
 
@@ -253,6 +251,9 @@ def load_study(path: Path | str) -> Study:
     """Read a study; :class:`StudyError` with one clear sentence when it cannot be used."""
     source = Path(path)
     try:
+        if source.is_file() and source.stat().st_size > check.MAX_STUDY_BYTES:
+            raise StudyError(f"The study {source.name} is larger than a study can be "
+                             f"({source.stat().st_size >> 20:,} MB). Nothing was changed.")
         raw = source.read_bytes()
     except FileNotFoundError as exc:
         raise StudyError(f"The study {source} does not exist.") from exc
@@ -271,7 +272,7 @@ def load_study(path: Path | str) -> Study:
         raise StudyError(f"The study {source.name} is not a text file (byte {exc.start} is not "
                          "UTF-8); it may be damaged. Nothing was changed.") from exc
     try:
-        data = json.loads(text)
+        data = check.decode(text)
     except json.JSONDecodeError as exc:
         if ends_before_complete(text, exc):
             problem = _CUT_SHORT
@@ -279,6 +280,9 @@ def load_study(path: Path | str) -> Study:
             problem = f"it is not valid JSON at line {exc.lineno}, column {exc.colno} ({exc.msg})"
         raise StudyError(f"The study {source.name} cannot be opened: {problem}. "
                          f"{_NOTHING_CHANGED}") from exc
+    except ValueError as exc:  # too large, too deep or a number too long (study_check)
+        raise StudyError(f"The study {source.name} cannot be opened: {exc}. "
+                         "Nothing was changed.") from exc
     try:
         return study_from_json(data)
     except ValueError as exc:
@@ -291,13 +295,16 @@ def load_study(path: Path | str) -> Study:
 
 def resolve_workbook(workbook: StudyWorkbook, study_path: Path | str | None = None) -> Path | None:
     """Where the workbook is now: its saved path, else the same relative place next to the study."""
-    path = Path(workbook.path)
-    if path.is_file():
-        return path
-    if study_path is not None and workbook.relative:
-        moved = (Path(study_path).resolve().parent / workbook.relative).resolve()
-        if moved.is_file():
-            return moved
+    try:  # a path this system cannot even look up (too long, bad characters) is missing
+        path = Path(workbook.path)
+        if path.is_file():
+            return path
+        if study_path is not None and workbook.relative:
+            moved = (Path(study_path).resolve().parent / workbook.relative).resolve()
+            if moved.is_file():
+                return moved
+    except (OSError, ValueError):
+        return None
     return None
 
 
