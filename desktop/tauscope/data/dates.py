@@ -1,6 +1,7 @@
 """Date labels into pandas periods, and the frequency of a column of dates.
 
-Understood forms: "1995Q1", "1995-Q1", "1995 Q1", "Q1 1995", "1995M01", "1995-01",
+Understood forms: "1995Q1", "1995-Q1", "1995 Q1", "Q1 1995", quarters in Roman numerals
+"1995-I" to "1995-IV" (and "I-1995"), "1995M01", "1995-01",
 "1995/01", "01/1995", "Jan 1995", "January 1995", "Jan-95", "1995 Jan", "1995W05",
 ISO dates "1995-03-31", day-first or month-first dates "31/03/1995" (the order is
 decided for the whole column), "31.03.1995", years "1995" (text or whole numbers),
@@ -53,12 +54,15 @@ MONTHS = {
     )
     for name in names
 }
+ROMAN_QUARTERS = {"I": 1, "II": 2, "III": 3, "IV": 4}
 _MONTH_WORD = r"([A-Za-zäéû]{3,9})\.?"
 
 _PATTERNS: tuple[tuple[str, re.Pattern[str]], ...] = (
     ("Y", re.compile(r"^(\d{4})$")),
-    ("Q", re.compile(r"^(\d{4})\s*[-/:. ]?\s*[Qq]([1-4])$")),
-    ("Qr", re.compile(r"^[Qq]([1-4])\s*[-/:. ]?\s*(\d{4})$")),
+    ("Q", re.compile(r"^(\d{4})\s*[-/:.\u2013 ]?\s*[Qq]\s?([1-4])$")),
+    ("Qr", re.compile(r"^[Qq]\s?([1-4])\s*[-/:.\u2013 ]?\s*(\d{4})$")),
+    ("QR", re.compile(r"^(\d{4})\s*[-/:.\u2013 ]?\s*(I|II|III|IV)$", re.IGNORECASE)),
+    ("QRr", re.compile(r"^(I|II|III|IV)\s*[-/:.\u2013 ]\s*(\d{4})$", re.IGNORECASE)),
     ("M", re.compile(r"^(\d{4})\s*[-/ ]?\s*[Mm](\d{1,2})$")),
     ("M", re.compile(r"^(\d{4})[-/.](\d{1,2})$")),
     ("Mr", re.compile(r"^(\d{1,2})[-/.](\d{4})$")),
@@ -117,6 +121,9 @@ def _from_match(kind: str, g: Sequence[str]) -> Label | None:
         return ("Q", int(g[0]), int(g[1]), 0)
     if kind == "Qr":
         return ("Q", int(g[1]), int(g[0]), 0)
+    if kind in ("QR", "QRr"):
+        digits, numeral = (g[0], g[1]) if kind == "QR" else (g[1], g[0])
+        return ("Q", int(digits), ROMAN_QUARTERS[numeral.upper()], 0)
     if kind in ("M", "Mr"):
         year, month = (int(g[0]), int(g[1])) if kind == "M" else (int(g[1]), int(g[0]))
         return ("M", year, month, 0) if 1 <= month <= 12 else None
@@ -188,14 +195,23 @@ def read_axis(cells: Sequence[Cell]) -> tuple[list[Label | None], str | None]:
 
 
 def _increasing_years(labels: Sequence[Label | None]) -> bool:
-    """Whole numbers count as years only in a run of 3+ strictly monotone values."""
+    """Whole numbers count as years only in a run of 3+ values that run one way: every
+    step the same direction, or (from 5 years on) at least four steps in five, so that a
+    repeated or misplaced year still marks the column as dates (the reader then says
+    where the order breaks) instead of making it a series."""
     years = [label[1] for label in labels if label and label[0] == "Y"]
     if len(years) < 3 and len(years) != sum(1 for label in labels if label):
         return False
     if len(years) < 2:
         return len(years) == 1
-    steps = {b - a for a, b in itertools.pairwise(years)}
-    return all(s > 0 for s in steps) or all(s < 0 for s in steps)
+    steps = [b - a for a, b in itertools.pairwise(years)]
+    if all(s > 0 for s in steps) or all(s < 0 for s in steps):
+        return True
+    if len(years) < 5:
+        return False
+    rising = sum(1 for s in steps if s > 0)
+    falling = sum(1 for s in steps if s < 0)
+    return max(rising, falling) >= 0.8 * len(steps) and min(rising, falling) <= 1
 
 
 def _day_first(labels: Sequence[Label | None]) -> bool:

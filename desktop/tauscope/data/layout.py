@@ -124,7 +124,21 @@ def _orientation(grid: list[list[Cell]], codes: np.ndarray) -> tuple[bool, int]:
     best_row = max(row_scores, default=(0, -1), key=lambda s: (s[0], -s[1]))
     if best_row[0] > best_col[0] and best_row[0] >= 3:
         return True, best_row[1]
-    return False, best_col[1] if best_col[0] >= 2 else -1
+    if best_col[0] < 2 or _labelled_left_of(grid, codes, best_col[1]):
+        return False, -1
+    return False, best_col[1]
+
+
+def _labelled_left_of(grid: list[list[Cell]], codes: np.ndarray, column: int) -> bool:
+    """True when a column left of ``column`` labels the same rows with distinct texts:
+    those are the row labels (dates the reader could not understand), so the numbers in
+    ``column`` are data that merely look like years, not the dates."""
+    rows = [i for i, flag in enumerate(date_mask([row[column] for row in grid])) if flag]
+    for left in range(column):
+        texts = [grid[i][left] for i in rows if codes[i, left] == TEXT]
+        if len(texts) >= max(2, len(rows) // 2) and len(set(texts)) >= 0.9 * len(texts):
+            return True
+    return False
 
 
 class _Reader:
@@ -159,8 +173,11 @@ class _Reader:
     def _data_block(self) -> tuple[int, int] | None:
         if self.date_col >= 0:
             mask = date_mask([row[self.date_col] for row in self.grid])
-        else:
-            mask = list((self.codes == NUMBER).any(axis=1) & ~(self.codes == TEXT).any(axis=1))
+        else:  # rows with numbers; text only in the first column (labels not understood)
+            first = (_content_columns(self.codes) or [0])[0]
+            text = self.codes == TEXT
+            text[:, first] = False
+            mask = list((self.codes == NUMBER).any(axis=1) & ~text.any(axis=1))
         return _longest_run(mask)
 
     def _upper_header(self, upper: int, lower: int, value_cols: list[int]) -> bool:
@@ -235,7 +252,11 @@ class _Reader:
         n = r1 - r0
         order = np.arange(r0, r1)
         if self.date_col < 0:
-            self.notes.append(f"No dates were found; observations are numbered 1 to {n}.")
+            label_col = (_content_columns(self.codes) or [0])[0]
+            labels = self.codes[r0:r1, label_col] == TEXT
+            where = (f"The labels in {self.place.line(label_col)} could not be read as dates"
+                     if labels.sum() > n // 2 else "No dates were found")
+            self.notes.append(f"{where}; observations are numbered 1 to {n}.")
             return pd.RangeIndex(1, n + 1), order, None
         axis = build_axis([self.grid[i][self.date_col] for i in range(r0, r1)])
         periods = list(axis.periods)
