@@ -28,6 +28,7 @@ from pathlib import Path
 from typing import NoReturn, TextIO
 
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
+from tauscope.data.notes import reader_notes
 from tauscope.data.sample import GAP_RULES, apply_gap_rule, cut_sample, parse_sample
 from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_many
 from tauscope.engine.results import failed_result
@@ -184,18 +185,6 @@ def _check_outputs(outputs: Sequence[str], source: str, replace: bool) -> None:
         if path.exists() and not replace and not is_own_report(path):
             raise UsageError(f"--out {target}: the file exists and is not a Tauscope report; "
                              "add --replace to write over it")
-
-
-def reader_notes(workbook: Workbook, sheet: str | None, chosen: Sequence[SeriesData]) -> str:
-    """What the reader noticed (rows skipped, sheets empty, dates guessed, cells read as
-    missing), for the sheets and series analysed, as one line."""
-    sheets = [s for s in workbook.sheets if sheet is None or s.name == workbook.sheet(sheet).name]
-    parts = [*workbook.notes]
-    for item in sheets:
-        label = f"sheet '{item.name}': " if len(workbook.sheets) > 1 else ""
-        parts.extend(label + note for note in item.notes)
-    parts.extend(note for series in chosen for note in series.notes)
-    return " ".join(" ".join(p.split()) for p in dict.fromkeys(parts))
 
 
 def choose_series(workbook: Workbook, sheet: str | None, names: Sequence[str]) -> list[SeriesData]:
