@@ -85,10 +85,12 @@ def recursive_tau(x: np.ndarray, spec: str, lags: int, alpha: float = 0.05) -> R
     solved = np.linalg.solve(gram, np.stack([cross, np.broadcast_to(row, cross.shape)], axis=2))
     fitted_part = np.einsum("wk,wk->w", cross, solved[:, :, 0])
     sizes = np.arange(start, n + 1)
-    s2 = (yy - fitted_part) / (sizes - k)
+    s2 = np.maximum(yy - fitted_part, 0.0) / (sizes - k)  # round-off can dip below zero
     beta_gamma = solved[:, :, 0] @ row / scale[g]
     var_gamma = s2 * (solved[:, :, 1] @ row) / scale[g] ** 2
-    tau = beta_gamma / np.sqrt(var_gamma)
+    fitted_exactly = ~(var_gamma > 0)  # a window the regression fits without error: no τ
+    tau = beta_gamma / np.sqrt(np.where(fitted_exactly, 1.0, var_gamma))
+    tau[fitted_exactly] = np.nan
     critical = tau_critical_values_for_sizes(spec, sizes, alpha)
     ends = sizes + lags  # window of regression size m ends at series position m + p
     return RecursiveStatistic(spec, lags, ends, sizes, tau, critical, alpha)
