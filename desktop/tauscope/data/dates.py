@@ -15,6 +15,7 @@ period: annual, quarterly, monthly, weekly, business-day (only weekdays) or dail
 from __future__ import annotations
 
 import datetime as dt
+import functools
 import itertools
 import re
 from collections import Counter
@@ -89,8 +90,10 @@ def _year(text: str) -> int:
     return year
 
 
+@functools.lru_cache(maxsize=1 << 16)
 def parse_label(cell: Cell) -> Label | None:
-    """The date a single cell stands for, without column context."""
+    """The date a single cell stands for, without column context (remembered: the layout
+    reads the same date column several times)."""
     if isinstance(cell, dt.datetime):
         return ("D", cell.year, cell.month, cell.day)
     if isinstance(cell, dt.date):

@@ -25,8 +25,9 @@ from tauscope.data.dates import (
     weekdays_between,
 )
 from tauscope.data.grid import DATE, EMPTY, NUMBER, TEXT, classify_grid
-from tauscope.data.model import SeriesData, SheetData, Source
+from tauscope.data.model import SeriesData, SheetData, Source, period_label
 
+Grid = list[list[Cell]] | np.ndarray  # rows of cells, or a 2-D object array of them
 ORIENTATION_ROWS = 60  # rows searched for dates across (transposed layout)
 DATE_COLUMN_CANDIDATES = 3
 
@@ -98,15 +99,26 @@ def build_sheet(
     sheet: str,
     numbers: NumberFormat = POINT,
     letters: bool = True,
+    arrays: tuple[np.ndarray, np.ndarray, np.ndarray] | None = None,
 ) -> SheetData:
-    """Read one sheet's cells (``rows`` top to bottom) into a :class:`SheetData`."""
-    grid = _rectangle(rows)
-    if not grid or not grid[0]:
-        return SheetData(sheet, (), ("The sheet is empty.",))
-    codes, nums = classify_grid(grid, numbers)
-    transposed, date_line = _orientation(grid, codes)
+    """Read one sheet's cells (``rows`` top to bottom) into a :class:`SheetData`.
+
+    ``arrays``: the cells already laid out and classified (cells, kinds, numbers as
+    arrays, :mod:`tauscope.data.text_table`); ``rows`` is then ignored."""
+    grid: Grid
+    if arrays is None:
+        grid = _rectangle(rows)
+        if not grid or not grid[0]:
+            return SheetData(sheet, (), ("The sheet is empty.",))
+        codes, nums = classify_grid(grid, numbers)
+    else:
+        grid, codes, nums = arrays
+        if not grid.size:
+            return SheetData(sheet, (), ("The sheet is empty.",))
+    transposed, date_line = _orientation(grid, codes, nums)
     if transposed:
-        grid = [list(col) for col in zip(*grid, strict=True)]
+        grid = grid.T if isinstance(grid, np.ndarray) else [
+            list(col) for col in zip(*grid, strict=True)]
         codes, nums = codes.T.copy(), nums.T.copy()
     return _Reader(grid, codes, nums, Place(transposed, letters), file, sheet, date_line).read()
 
@@ -115,12 +127,24 @@ def _content_columns(codes: np.ndarray) -> list[int]:
     return [int(j) for j in np.flatnonzero((codes != EMPTY).any(axis=0))]
 
 
-def _orientation(grid: list[list[Cell]], codes: np.ndarray) -> tuple[bool, int]:
+def _could_hold_dates(codes: np.ndarray, nums: np.ndarray, to_beat: int) -> bool:
+    """Whether a row has more than ``to_beat`` (and at least 3) cells that could be dates:
+    text, date cells or whole numbers (years and spreadsheet day numbers); a row of
+    fractional numbers is not worth reading label by label."""
+    whole = (codes == NUMBER) & (nums == np.floor(nums)) & (nums >= 1000) & (nums <= 80_000)
+    candidates = int(((codes == TEXT) | (codes == DATE) | whole).sum())
+    return candidates >= max(3, to_beat + 1)
+
+
+def _orientation(grid: Grid, codes: np.ndarray, nums: np.ndarray) -> tuple[bool, int]:
     """(transposed, index of the date column or row, -1 without dates)."""
     columns = _content_columns(codes)[:DATE_COLUMN_CANDIDATES]
-    col_scores = [(axis_score([row[j] for row in grid]), j) for j in columns]
+    col_scores = [(axis_score([row[j] for row in grid])
+                   if _could_hold_dates(codes[:, j], nums[:, j], 1) else 0, j) for j in columns]
     best_col = max(col_scores, default=(0, -1), key=lambda s: (s[0], -s[1]))
-    row_scores = [(axis_score(grid[i]), i) for i in range(min(len(grid), ORIENTATION_ROWS))]
+    rows = range(min(len(grid), ORIENTATION_ROWS))
+    row_scores = [(axis_score(grid[i]) if _could_hold_dates(codes[i], nums[i], best_col[0])
+                   else 0, i) for i in rows]
     best_row = max(row_scores, default=(0, -1), key=lambda s: (s[0], -s[1]))
     if best_row[0] > best_col[0] and best_row[0] >= 3:
         return True, best_row[1]
@@ -129,7 +153,7 @@ def _orientation(grid: list[list[Cell]], codes: np.ndarray) -> tuple[bool, int]:
     return False, best_col[1]
 
 
-def _labelled_left_of(grid: list[list[Cell]], codes: np.ndarray, column: int) -> bool:
+def _labelled_left_of(grid: Grid, codes: np.ndarray, column: int) -> bool:
     """True when a column left of ``column`` labels the same rows with distinct texts:
     those are the row labels (dates the reader could not understand), so the numbers in
     ``column`` are data that merely look like years, not the dates."""
@@ -142,11 +166,12 @@ def _labelled_left_of(grid: list[list[Cell]], codes: np.ndarray, column: int) ->
 
 
 class _Reader:
-    def __init__(self, grid: list[list[Cell]], codes: np.ndarray, nums: np.ndarray,
+    def __init__(self, grid: Grid, codes: np.ndarray, nums: np.ndarray,
                  place: Place, file: str, sheet: str, date_col: int) -> None:
         self.grid, self.codes, self.nums, self.place = grid, codes, nums, place
         self.file, self.sheet, self.date_col = file, sheet, date_col
         self.notes: list[str] = []
+        self.labels: list[str] | None = None  # the index's labels, made once for all series
 
     def read(self) -> SheetData:
         block = self._data_block()
@@ -322,14 +347,16 @@ class _Reader:
                 f"{'were' if len(odd) > 1 else 'was'} read as missing (first at row "
                 f"{self.place.row(first, j)}: “{header_text(self.grid[first][j])[:30]}”)."
             )
-        data = pd.Series(values, index=index, dtype="float64")
         if not np.isfinite(values).any():
             self.notes.append(f"“{name}” has no values and was left out.")
             return None
         present = np.flatnonzero(np.isfinite(values))
         first_row = self.place.row(int(order[present[0]]), j)
         source = Source(self.file, self.sheet, raw_name, first_row)
-        return SeriesData.build(name, data, freq, source, tuple(notes))
+        if self.labels is None or len(self.labels) != len(index):
+            self.labels = [period_label(v) for v in index]
+        return SeriesData.from_array(name, values, index, freq, source, tuple(notes),
+                                     labels=self.labels)
 
     def _note_skipped(self, r0: int, r1: int, value_cols: list[int]) -> None:
         below = [r1 + int(k) for k in np.flatnonzero((self.codes[r1:] != EMPTY).any(axis=1))]

@@ -50,17 +50,20 @@ def find_gaps(values: pd.Series) -> tuple[Gap, ...]:
     return _gaps_of(values.to_numpy(dtype=float), values.index)
 
 
-def _gaps_of(array: np.ndarray, index: pd.Index) -> tuple[Gap, ...]:
+def _gaps_of(array: np.ndarray, index: pd.Index,
+             labels: list[str] | None = None) -> tuple[Gap, ...]:
     missing = np.isnan(array)
     if not missing.any():
         return ()
     edges = np.diff(np.concatenate(([0], missing.astype(np.int8), [0])))
     starts, ends = np.flatnonzero(edges == 1), np.flatnonzero(edges == -1) - 1
-    return tuple(_gap(index, int(a), int(b)) for a, b in zip(starts, ends, strict=True))
-
-
-def _gap(index: pd.Index, first: int, last: int) -> Gap:
-    return Gap(period_label(index[first]), period_label(index[last]), last - first + 1)
+    if labels is not None:
+        firsts, lasts = [labels[k] for k in starts], [labels[k] for k in ends]
+    else:
+        firsts = [period_label(v) for v in index[starts]]
+        lasts = [period_label(v) for v in index[ends]]
+    return tuple(Gap(a, b, int(n)) for a, b, n in zip(firsts, lasts, ends - starts + 1,
+                                                       strict=True))
 
 
 def trim(values: pd.Series) -> pd.Series:
@@ -98,14 +101,34 @@ class SeriesData:
         **extra: object,
     ) -> SeriesData:
         """Trim, rename and list gaps; the one way series are made."""
-        array = values.to_numpy(dtype=np.float64)
+        return cls.from_array(name, values.to_numpy(dtype=np.float64), values.index, frequency,
+                              source, notes, None, **extra)
+
+    @classmethod
+    def from_array(
+        cls,
+        name: str,
+        array: np.ndarray,
+        index: pd.Index,
+        frequency: str | None,
+        source: Source,
+        notes: tuple[str, ...] = (),
+        labels: list[str] | None = None,
+        **extra: object,
+    ) -> SeriesData:
+        """:meth:`build` from a float64 array and its index; ``labels``: the index's labels
+        (``period_label``) when the caller has them, so a sheet of many series with many
+        gaps labels its dates once."""
         present = np.flatnonzero(~np.isnan(array))
         start, stop = (int(present[0]), int(present[-1]) + 1) if present.size else (0, 0)
-        index = values.index[start:stop]
-        trimmed = pd.Series(array[start:stop], index=index, name=name, dtype=np.float64)
+        if (start, stop) != (0, len(index)):
+            index, array = index[start:stop], array[start:stop]
+            labels = labels[start:stop] if labels is not None else None
+        trimmed = pd.Series(array, index=index, name=name, dtype=np.float64, copy=False)
         extra.setdefault("column_key", name)
-        return cls(name, trimmed, frequency, source, _gaps_of(array[start:stop], index),
-                   notes=notes, **extra)  # type: ignore[arg-type]
+        gaps = _gaps_of(array, index, labels)
+        return cls(name, trimmed, frequency, source, gaps, notes=notes,
+                   **extra)  # type: ignore[arg-type]
 
     @property
     def nobs(self) -> int:

@@ -19,7 +19,7 @@ from tauscope.data.errors import DataError
 from tauscope.data.excel import READER_ERRORS, RawSheet, excel_reader, is_reader_panic
 from tauscope.data.layout import build_sheet
 from tauscope.data.model import SheetData, Workbook
-from tauscope.data.textfile import read_text_rows
+from tauscope.data.text_table import read_text_table
 from tauscope.data.xls_scan import check_xls_sizes
 
 TEXT_SUFFIXES = (".csv", ".txt", ".tsv", ".tab", ".dat", ".prn")
@@ -104,11 +104,10 @@ def read_workbook(path: Path | str) -> Workbook:
 
 
 def _read_text(data: bytes, target: Path) -> tuple[list[str], list[SheetData]]:
-    rows, numbers, notes = read_text_rows(data, target.name)
-    text_rows: list[list[object]] = [list(r) for r in rows]
-    sheet = build_sheet(text_rows, file=str(target), sheet=target.stem,  # type: ignore[arg-type]
-                        numbers=numbers, letters=False)
-    return notes, [sheet]
+    table = read_text_table(data, target.name)
+    sheet = build_sheet(table.rows, file=str(target), sheet=target.stem,
+                        numbers=table.numbers, letters=False, arrays=table.arrays)
+    return table.notes, [sheet]
 
 
 def _read_excel(data: bytes, target: Path, old_format: bool) -> tuple[list[str], list[SheetData]]:

@@ -19,6 +19,7 @@ from tauscope.data.errors import DataError
 DELIMITERS = ("\t", ";", ",", "|")
 DELIMITER_NAMES = {"\t": "tab", ";": "semicolon", ",": "comma", "|": "bar"}
 SAMPLE_LINES = 300
+SAMPLE_CHARS = 32_000  # the delimiter vote reads at most this much text (and 5 lines)
 MAX_FIELD = 1_000_000
 
 
@@ -83,7 +84,14 @@ def split(text: str, delimiter: str | None) -> list[list[str]]:
 
 
 def detect_delimiter(text: str) -> str | None:
-    sample = "\n".join(lines_of(text)[:SAMPLE_LINES])
+    sample_lines: list[str] = []
+    size = 0
+    for line in lines_of(text[: SAMPLE_CHARS * 4])[:SAMPLE_LINES]:
+        if size > SAMPLE_CHARS and len(sample_lines) >= 5:
+            break
+        sample_lines.append(line)
+        size += len(line)
+    sample = "\n".join(sample_lines)
     loose = NumberFormat(",", "")
     best: tuple[int, int, str | None] = (0, 0, None)
     for delimiter in DELIMITERS:
@@ -100,19 +108,31 @@ def detect_delimiter(text: str) -> str | None:
 
 def read_text_rows(data: bytes, file: str) -> tuple[list[list[str]], NumberFormat, list[str]]:
     """Rows of text cells, how numbers are written, and notes on what was detected."""
-    text, encoding = decode(data, file)
-    text = text.replace("\x00", "")
-    if not text.strip():
-        raise DataError("is empty", file=file)
-    delimiter = detect_delimiter(text)
-    try:
-        rows = split(text, delimiter)
-    except DataError as exc:
-        raise DataError(exc.reason, file=file) from None
+    text, encoding, delimiter = detect(data, file)
+    rows = _split_all(text, delimiter, file)
     numbers = detect_number_format(
         (cell for row in rows[:5000] for cell in row[1:] if cell), prefer_comma=delimiter == ";"
     )
-    notes = [f"Read as {encoding} text"
-             + (f", fields separated by {DELIMITER_NAMES[delimiter]}" if delimiter else "")
-             + (", decimal comma" if numbers.decimal == "," else "") + "."]
-    return rows, numbers, notes
+    return rows, numbers, reading_note(encoding, delimiter, numbers)
+
+
+def detect(data: bytes, file: str) -> tuple[str, str, str | None]:
+    text, encoding = decode(data, file)
+    if "\x00" in text:
+        text = text.replace("\x00", "")
+    if not text.strip():
+        raise DataError("is empty", file=file)
+    return text, encoding, detect_delimiter(text)
+
+
+def _split_all(text: str, delimiter: str | None, file: str) -> list[list[str]]:
+    try:
+        return split(text, delimiter)
+    except DataError as exc:
+        raise DataError(exc.reason, file=file) from None
+
+
+def reading_note(encoding: str, delimiter: str | None, numbers: NumberFormat) -> list[str]:
+    return [f"Read as {encoding} text"
+            + (f", fields separated by {DELIMITER_NAMES[delimiter]}" if delimiter else "")
+            + (", decimal comma" if numbers.decimal == "," else "") + "."]
