@@ -7,8 +7,7 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from tauscope.data import read_workbook
-from tauscope.data import text_table
+from tauscope.data import read_workbook, text_table
 
 
 def _large_csv(path: Path, delimiter: str = ",", decimal: str = ".") -> Path:

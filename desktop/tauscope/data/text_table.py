@@ -77,7 +77,7 @@ def fast_arrays(data: bytes, text: str, encoding: str, delimiter: str | None,
     if delimiter is None or codec is None or line_feeds < FAST_FROM_LINES:
         return None
     odd = (text.count("\r") != text.count("\r\n") if codec == "utf-16" else
-           b"\x00" in data or data.count(b"\r") != data.count(b"\r\n"))
+           b"\x00" in data or (b"\r" in data and data.count(b"\r") != data.count(b"\r\n")))
     if odd:
         return None  # lone carriage returns and NUL bytes: the cell-by-cell rules apply
     head_lines = _head(lines_of(text[: HEAD_CHARS * 4]))
@@ -130,11 +130,17 @@ def _combine(head: list[list[Cell]], frame: pd.DataFrame, numbers: NumberFormat)
         codes[:top], nums[:top] = classify_grid(head, numbers)
     numeric = [j for j in range(width) if frame[j].dtype.kind in "fi"]
     if numeric:  # columns the C parser read as numbers, all at once
-        block = frame[numeric].to_numpy(dtype=np.float64)
+        place: slice | list[int] = numeric
+        if numeric == list(range(numeric[0], numeric[-1] + 1)):
+            place = slice(numeric[0], numeric[-1] + 1)
+        block = frame.iloc[:, place].to_numpy(dtype=np.float64)
         finite = np.isfinite(block)
-        nums[top:, numeric] = np.where(finite, block, np.nan)
-        codes[top:, numeric] = np.where(finite, NUMBER,
-                                        np.where(np.isnan(block), EMPTY, MISSING))
+        kinds = np.where(finite, NUMBER, EMPTY).astype(np.int8)
+        if not finite.all():
+            kinds[np.isinf(block)] = MISSING
+            block = np.where(finite, block, np.nan)
+        nums[top:, place] = block
+        codes[top:, place] = kinds
         # The layout reads numbers from ``nums``; it looks at number cells themselves only
         # in the first rows and in the first few filled columns (dates, years), so only
         # those are kept as objects.
