@@ -15,10 +15,9 @@ import numpy as np
 import pandas as pd
 import pytest
 
-from tauscope.engine.adf import estimate
-from tauscope.engine.breaks import zivot_andrews
-from tauscope.engine.critical import tau_critical_value
-from tauscope.engine.evidence import (
+from tauscope.engine.distributions.critical import tau_critical_value
+from tauscope.engine.distributions.power import PowerResult
+from tauscope.engine.procedure.evidence import (
     _power_sentence,
     alternative_spec,
     combined_agreement,
@@ -26,10 +25,11 @@ from tauscope.engine.evidence import (
     reading,
     settled_difference,
 )
-from tauscope.engine.phillips_perron import phillips_perron
-from tauscope.engine.power import PowerResult
 from tauscope.engine.results import TestResult
-from tauscope.engine.sensitivity import recursive_tau
+from tauscope.engine.unitroot.adf import estimate
+from tauscope.engine.unitroot.phillips_perron import phillips_perron
+from tauscope.engine.unitroot.recursive import recursive_tau
+from tauscope.engine.unitroot.zivot_andrews import zivot_andrews
 
 
 def _ar1(n: int, phi: float, seed: int) -> np.ndarray:

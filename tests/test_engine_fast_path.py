@@ -26,17 +26,13 @@ from statsmodels.datasets import macrodata
 from statsmodels.tools.sm_exceptions import InterpolationWarning
 from statsmodels.tsa.stattools import kpss
 
-from tauscope.engine import (
-    Settings,
-    analyse_many,
-    analyse_series,
-    critical,
-    fast_path,
-    fast_tables,
-    nested,
-)
-from tauscope.engine.kpss_numpy import kpss_fast
-from tauscope.engine.stationarity import kpss_test
+from tauscope.engine import Settings, analyse_many, analyse_series
+from tauscope.engine.distributions import critical
+from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.procedure import fast_path
+from tauscope.engine.regression import nested
+from tauscope.engine.unitroot.kpss import kpss_test
+from tauscope.engine.unitroot.kpss_fast import kpss_fast
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "resources" / "demo"
@@ -257,7 +253,7 @@ def test_analyse_many_stops_between_series_when_asked() -> None:
 
 
 def test_analyse_many_streams_in_chunks(monkeypatch: pytest.MonkeyPatch) -> None:
-    from tauscope.engine import many
+    from tauscope.engine.procedure import many
 
     monkeypatch.setattr(many, "CHUNK", 2)
     batches: list[int] = []

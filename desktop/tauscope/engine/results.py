@@ -10,10 +10,10 @@ from typing import TYPE_CHECKING, Any
 import numpy as np
 import pandas as pd
 
-from tauscope.engine.regression import Regression
+from tauscope.engine.regression.record import Regression
 
 if TYPE_CHECKING:
-    from tauscope.engine.evidence import Evidence
+    from tauscope.engine.procedure.evidence import Evidence
 
 
 def _num(value: float | None) -> float | None:

@@ -3,7 +3,7 @@
 Order of integration from the highest difference down (Dickey, D.A. &
 Pantula, S.G. 1987, "Determining the Order of Differencing in Autoregressive
 Processes", JBES 5(4); Pantula, S.G. 1989, Econometric Theory 5): the
-sequence of :mod:`tauscope.engine.sequence` runs on Δ^d y for
+sequence of :mod:`tauscope.engine.procedure.decide.classic` runs on Δ^d y for
 d = max_difference, …, 0 and moves down only while the unit root is rejected.
 The first non-rejection at d gives I(d + 1); rejection all the way gives I(0).
 A KPSS cross-check (Kwiatkowski et al. 1992) follows.
@@ -18,22 +18,22 @@ from typing import Any, Literal, Protocol
 import numpy as np
 import pandas as pd
 
-from tauscope.engine import fast_tables
-from tauscope.engine.adf import adf_test, estimate
-from tauscope.engine.design import SPECS, max_lag_cap, schwert_max_lag
+from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.distributions.simulate import with_exact_values
 from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.evidence import EXTRA_TESTS, gather_evidence, settled_difference
-from tauscope.engine.fast_path import NeedsReference, SeriesBatch
-from tauscope.engine.joint import phi_test
-from tauscope.engine.lagchoice import choose_lag
-from tauscope.engine.notes import NoteContext, build_notes, find_jump, seasonal_pattern
-from tauscope.engine.prepare import PreparedSeries, prepare
+from tauscope.engine.procedure.decide.classic import LevelTests, SequenceOutcome, run_sequence
+from tauscope.engine.procedure.evidence import EXTRA_TESTS, gather_evidence, settled_difference
+from tauscope.engine.procedure.fast_path import NeedsReference, SeriesBatch
+from tauscope.engine.procedure.prepare import PreparedSeries, prepare
+from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
+from tauscope.engine.reading.verdicts import agreement, agreement_note, build_verdict
+from tauscope.engine.regression.design import SPECS, max_lag_cap, schwert_max_lag
+from tauscope.engine.regression.lagchoice import choose_lag
 from tauscope.engine.results import LagPoint, SeriesResult, Step, TestResult, failed_result
-from tauscope.engine.sequence import LevelTests, SequenceOutcome, run_sequence
 from tauscope.engine.settings import Settings
-from tauscope.engine.simulate import with_exact_values
-from tauscope.engine.stationarity import kpss_test
-from tauscope.engine.verdicts import agreement, agreement_note, build_verdict
+from tauscope.engine.unitroot.adf import adf_test, estimate
+from tauscope.engine.unitroot.kpss import kpss_test
+from tauscope.engine.unitroot.phi import phi_test
 
 _COMPUTATION_ERRORS = (np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
 # What sends a series from the fast path to the reference path, which then decides.
@@ -44,7 +44,7 @@ PATHS: tuple[str, ...] = ("fast", "reference")
 
 class Estimation(Protocol):
     """Where the regressions of one series come from: the reference path (statsmodels
-    OLS per regression) or the fast path (:mod:`tauscope.engine.fast_path`).  Everything
+    OLS per regression) or the fast path (:mod:`tauscope.engine.procedure.fast_path`).  Everything
     else of the analysis (the sequence, the verdict, the notes) is shared."""
 
     def level_tests(self, x: np.ndarray, difference: int, settings: Settings,
@@ -83,7 +83,7 @@ def analyse_series(values: Any, settings: Settings | None = None, name: str = "s
     comes back with ``error`` set to one sentence.
 
     ``path``: ``"fast"`` (default) computes every lag length from one QR
-    factorisation (:mod:`tauscope.engine.fast_path`); ``"reference"`` runs one
+    factorisation (:mod:`tauscope.engine.procedure.fast_path`); ``"reference"`` runs one
     statsmodels regression per model.  Both give the same numbers (the tests check
     1e-8); the fast path hands a series it cannot promise that for (a nearly
     collinear design, a nearly perfect fit) to the reference path.
@@ -387,7 +387,7 @@ def _settings_dict(settings: Settings) -> dict[str, Any]:
 
 def _judged(level: LevelTests, settings: Settings) -> LevelTests:
     """With ``critical_values="exact"``, every τ and Φ is judged against its null simulated
-    at its own regression size and lag order (:mod:`tauscope.engine.simulate`)."""
+    at its own regression size and lag order (:mod:`tauscope.engine.distributions.simulate`)."""
     if settings.critical_values != "exact":
         return level
     return replace(

@@ -2,7 +2,7 @@
 
 Series are read in chunks of :data:`CHUNK` in input order; within a chunk the
 series of equal length (after trimming) share one :class:`fast_path.SeriesBatch`, so
-their regressions are factorised together (:mod:`tauscope.engine.nested`).  Only
+their regressions are factorised together (:mod:`tauscope.engine.regression.nested`).  Only
 one chunk's design matrices exist at a time, so the working memory does not grow
 with the number of series.  Each result equals ``analyse_series(values, settings,
 name)``; a series the fast path declines is analysed by the reference path.
@@ -17,7 +17,8 @@ from typing import Any
 
 import numpy as np
 
-from tauscope.engine.analyse import (
+from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.procedure.analyse import (
     FALLBACK_ERRORS,
     REFERENCE,
     Decision,
@@ -26,9 +27,8 @@ from tauscope.engine.analyse import (
     decide,
     finish,
 )
-from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.fast_path import SeriesBatch
-from tauscope.engine.prepare import PreparedSeries, prepare
+from tauscope.engine.procedure.fast_path import SeriesBatch
+from tauscope.engine.procedure.prepare import PreparedSeries, prepare
 from tauscope.engine.results import SeriesResult
 from tauscope.engine.settings import Settings
 

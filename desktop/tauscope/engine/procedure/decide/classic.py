@@ -20,13 +20,13 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from tauscope.engine import formatting as fmt
-from tauscope.engine.critical import (
+from tauscope.engine.distributions.critical import (
     normal_lower,
     normal_lower_p,
     normal_two_sided,
     normal_two_sided_p,
 )
-from tauscope.engine.design import SPEC_LABELS
+from tauscope.engine.regression.design import SPEC_LABELS
 from tauscope.engine.results import Step, TestResult
 
 DIFFERENCE_WORDS = {0: "the levels", 1: "the first difference", 2: "the second difference"}

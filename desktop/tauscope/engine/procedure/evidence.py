@@ -2,11 +2,11 @@
 the power of the deciding test at this sample size, the recursive statistic,
 and a plain reading of where the tests agree or disagree.
 
-* Phillips-Perron Zτ (Phillips & Perron 1988): :mod:`tauscope.engine.phillips_perron`.
-* DF-GLS (Elliott, Rothenberg & Stock 1996): :mod:`tauscope.engine.dfgls`.
-* Zivot-Andrews with one break (Zivot & Andrews 1992): :mod:`tauscope.engine.breaks`.
-* Power against AR(1) coefficients 0.90 and 0.95: :mod:`tauscope.engine.power`.
-* τ on an expanding window: :mod:`tauscope.engine.sensitivity`.
+* Phillips-Perron Zτ (Phillips & Perron 1988): :mod:`tauscope.engine.unitroot.phillips_perron`.
+* DF-GLS (Elliott, Rothenberg & Stock 1996): :mod:`tauscope.engine.unitroot.dfgls`.
+* Zivot-Andrews with one break (Zivot & Andrews 1992): :mod:`tauscope.engine.unitroot.zivot_andrews`.
+* Power against AR(1) coefficients 0.90 and 0.95: :mod:`tauscope.engine.distributions.power`.
+* τ on an expanding window: :mod:`tauscope.engine.unitroot.recursive`.
 
 The extra tests run on the difference where the verdict was settled (the
 levels for I(0) and I(1), the first difference for I(2)), with the
@@ -26,20 +26,8 @@ import numpy as np
 import pandas as pd
 
 from tauscope.engine import formatting as fmt
-from tauscope.engine.breaks import MODEL_LABELS, BreakSearch, za_test
-from tauscope.engine.design import SPEC_LABELS, max_lag_cap, schwert_max_lag
-from tauscope.engine.dfgls import DFGLS, DFGLS_P_VALUE_REPS, dfgls_test
-from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.lagchoice import choose_lag
-from tauscope.engine.phillips_perron import (
-    PhillipsPerron,
-    pp_test,
-    z_alpha_critical_values,
-)
-from tauscope.engine.power import PowerResult, power_at
-from tauscope.engine.results import TestResult
-from tauscope.engine.sensitivity import RecursiveStatistic, recursive_tau
-from tauscope.engine.simulate import (
+from tauscope.engine.distributions.power import PowerResult, power_at
+from tauscope.engine.distributions.simulate import (
     DEFAULT_REPS,
     DEFAULT_SEED,
     EXACT_REPS,
@@ -48,6 +36,18 @@ from tauscope.engine.simulate import (
     null_distribution,
     reportable_bound,
 )
+from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.regression.design import SPEC_LABELS, max_lag_cap, schwert_max_lag
+from tauscope.engine.regression.lagchoice import choose_lag
+from tauscope.engine.results import TestResult
+from tauscope.engine.unitroot.dfgls import DFGLS, DFGLS_P_VALUE_REPS, dfgls_test
+from tauscope.engine.unitroot.phillips_perron import (
+    PhillipsPerron,
+    pp_test,
+    z_alpha_critical_values,
+)
+from tauscope.engine.unitroot.recursive import RecursiveStatistic, recursive_tau
+from tauscope.engine.unitroot.zivot_andrews import MODEL_LABELS, BreakSearch, za_test
 
 EXTRA_TESTS = ("pp", "dfgls", "za")
 TEST_NAMES = {"pp": "Phillips-Perron", "dfgls": "DF-GLS", "za": "Zivot-Andrews", "adf": "ADF"}

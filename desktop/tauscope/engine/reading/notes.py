@@ -12,7 +12,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from tauscope.engine import formatting as fmt
-from tauscope.engine.design import SPEC_LABELS
+from tauscope.engine.regression.design import SPEC_LABELS
 from tauscope.engine.results import LagPoint, Step, TestResult, Verdict
 
 SHORT_SAMPLE = 50

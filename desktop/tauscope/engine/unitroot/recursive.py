@@ -23,8 +23,8 @@ from typing import Any
 import numpy as np
 from statsmodels.tsa.adfvalues import tau_2010s
 
-from tauscope.engine.critical import SPEC_CODES
-from tauscope.engine.design import adf_design, gamma_column
+from tauscope.engine.distributions.critical import SPEC_CODES
+from tauscope.engine.regression.design import adf_design, gamma_column
 
 MIN_WINDOW = 20  # regression observations in the first window (common practice: ≥ 20)
 

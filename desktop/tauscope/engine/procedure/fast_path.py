@@ -1,10 +1,10 @@
 """The fast path of the analysis: batches of series of one length, estimated with
-:mod:`tauscope.engine.nested`, turned into the same result objects as the reference
+:mod:`tauscope.engine.regression.nested`, turned into the same result objects as the reference
 path (:mod:`adf`, :mod:`joint`, :mod:`lagchoice`; the tests check equality to 1e-8).
 
 :class:`SeriesBatch` computes each difference level for all its series at the first
 request; :class:`FastEstimation` is one series' view of it and implements the
-estimation seam of :mod:`tauscope.engine.analyse`.  Where the fast path cannot
+estimation seam of :mod:`tauscope.engine.procedure.analyse`.  Where the fast path cannot
 promise the reference's numbers (a nearly collinear design, a nearly perfect fit, a
 value that is not finite) it raises :class:`NeedsReference` and the series is
 analysed by the reference path, so even the messages for untestable series are the
@@ -19,11 +19,11 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine import fast_tables, joint
-from tauscope.engine.design import DETERMINISTIC_TERMS, SPECS, column_names
-from tauscope.engine.kpss_numpy import kpss_fast
-from tauscope.engine.lagchoice import TSIG_CRITICAL, LagChoice
-from tauscope.engine.nested import (
+from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.procedure.decide.classic import LevelTests
+from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS, column_names
+from tauscope.engine.regression.lagchoice import TSIG_CRITICAL, LagChoice
+from tauscope.engine.regression.nested import (
     PHI_NAMES,
     PHI_SPEC,
     Y_LAG,
@@ -42,10 +42,11 @@ from tauscope.engine.nested import (
     restricted_rss,
     spec_order,
 )
-from tauscope.engine.regression import Coefficient, Regression
+from tauscope.engine.regression.record import Coefficient, Regression
 from tauscope.engine.results import LagPoint, TestResult
-from tauscope.engine.sequence import LevelTests
 from tauscope.engine.settings import Settings
+from tauscope.engine.unitroot import phi as joint
+from tauscope.engine.unitroot.kpss_fast import kpss_fast
 
 # Below this share of its length, a column is too close to the span of the earlier
 # ones for a promise of 1e-8 agreement: the reference path takes the series.
@@ -245,7 +246,7 @@ def _phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: fl
 
 
 class FastEstimation:
-    """One series' view of a batch: the estimation seam of :mod:`tauscope.engine.analyse`.
+    """One series' view of a batch: the estimation seam of :mod:`tauscope.engine.procedure.analyse`.
 
     ``level_tests`` asks the batch (which computes a difference level for all its
     series at the first request); ``lag_profile`` and ``kpss`` work on this series.

@@ -11,7 +11,7 @@ depend on the error variance, nor on a mean (constant spec) or a linear trend
 (trend spec), so these cover every stationary AR(1) alternative with that root.
 
 Vectorised over replications (scipy's ``lfilter`` runs the AR recursion for
-all rows at once; the regressions reuse :mod:`tauscope.engine.simulate`),
+all rows at once; the regressions reuse :mod:`tauscope.engine.distributions.simulate`),
 with a fixed seed, common random numbers across coefficients, and a cache.
 """
 
@@ -24,8 +24,8 @@ from typing import Any
 import numpy as np
 from scipy.signal import lfilter
 
-from tauscope.engine.critical import tau_critical_value
-from tauscope.engine.simulate import (
+from tauscope.engine.distributions.critical import tau_critical_value
+from tauscope.engine.distributions.simulate import (
     DEFAULT_REPS,
     DEFAULT_SEED,
     exact_critical_value,

@@ -1,0 +1,1 @@
+"""The decision strategies: each turns the estimates into an order of integration."""
