@@ -12,33 +12,41 @@ import importlib
 from typing import TYPE_CHECKING, Any
 
 if TYPE_CHECKING:
-    from tauscope.engine.distributions.power import PowerResult
     from tauscope.engine.distributions.simulate import (
         exact_critical_values,
         exact_p_value,
         null_distribution,
     )
     from tauscope.engine.procedure.analyse import analyse_series
-    from tauscope.engine.procedure.evidence import BreakInfo, Evidence, gather_evidence
+    from tauscope.engine.procedure.evidence import gather_evidence
     from tauscope.engine.procedure.many import analyse_many, iter_analyse
-    from tauscope.engine.results import LagPoint, SeriesResult, Step, TestResult, Verdict
+    from tauscope.engine.results import (
+        BreakInfo,
+        Evidence,
+        LagPoint,
+        PowerResult,
+        RecursiveStatistic,
+        SeriesResult,
+        Step,
+        TestResult,
+        Verdict,
+    )
     from tauscope.engine.settings import LAG_RULE_LABELS, LAG_RULES, Settings
-    from tauscope.engine.unitroot.recursive import RecursiveStatistic
 
 _WHERE = {
     "analyse_series": "procedure.analyse",
-    "BreakInfo": "procedure.evidence",
-    "Evidence": "procedure.evidence",
+    "BreakInfo": "results",
+    "Evidence": "results",
     "gather_evidence": "procedure.evidence",
     "analyse_many": "procedure.many",
     "iter_analyse": "procedure.many",
-    "PowerResult": "distributions.power",
+    "PowerResult": "results",
     "LagPoint": "results",
     "SeriesResult": "results",
     "Step": "results",
     "TestResult": "results",
     "Verdict": "results",
-    "RecursiveStatistic": "unitroot.recursive",
+    "RecursiveStatistic": "results",
     "LAG_RULE_LABELS": "settings",
     "LAG_RULES": "settings",
     "Settings": "settings",

@@ -21,7 +21,7 @@ import pandas as pd
 from tauscope.engine.distributions import tables as fast_tables
 from tauscope.engine.distributions.simulate import with_exact_values
 from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.procedure.decide.classic import LevelTests, SequenceOutcome, run_sequence
+from tauscope.engine.procedure.decide.classic import SequenceOutcome, run_sequence
 from tauscope.engine.procedure.evidence import EXTRA_TESTS, gather_evidence, settled_difference
 from tauscope.engine.procedure.fast_path import NeedsReference, SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
@@ -29,7 +29,14 @@ from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, s
 from tauscope.engine.reading.verdicts import agreement, agreement_note, build_verdict
 from tauscope.engine.regression.design import SPECS, max_lag_cap, schwert_max_lag
 from tauscope.engine.regression.lagchoice import choose_lag
-from tauscope.engine.results import LagPoint, SeriesResult, Step, TestResult, failed_result
+from tauscope.engine.results import (
+    LagPoint,
+    LevelTests,
+    SeriesResult,
+    Step,
+    TestResult,
+    failed_result,
+)
 from tauscope.engine.settings import Settings
 from tauscope.engine.unitroot.adf import adf_test, estimate
 from tauscope.engine.unitroot.kpss import kpss_test

@@ -19,14 +19,12 @@ A break the Dickey-Fuller test ignores biases it toward a unit root (Perron
 from __future__ import annotations
 
 from collections.abc import Sequence
-from dataclasses import dataclass, field
-from typing import Any
 
 import numpy as np
 import pandas as pd
 
 from tauscope.engine import formatting as fmt
-from tauscope.engine.distributions.power import PowerResult, power_at
+from tauscope.engine.distributions.power import power_at
 from tauscope.engine.distributions.simulate import (
     DEFAULT_REPS,
     DEFAULT_SEED,
@@ -39,14 +37,21 @@ from tauscope.engine.distributions.simulate import (
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.regression.design import SPEC_LABELS, max_lag_cap, schwert_max_lag
 from tauscope.engine.regression.lagchoice import choose_lag
-from tauscope.engine.results import TestResult
-from tauscope.engine.unitroot.dfgls import DFGLS, DFGLS_P_VALUE_REPS, dfgls_test
-from tauscope.engine.unitroot.phillips_perron import (
+from tauscope.engine.results import (
+    DFGLS,
+    BreakInfo,
+    Evidence,
     PhillipsPerron,
+    PowerResult,
+    RecursiveStatistic,
+    TestResult,
+)
+from tauscope.engine.unitroot.dfgls import DFGLS_P_VALUE_REPS, dfgls_test
+from tauscope.engine.unitroot.phillips_perron import (
     pp_test,
     z_alpha_critical_values,
 )
-from tauscope.engine.unitroot.recursive import RecursiveStatistic, recursive_tau
+from tauscope.engine.unitroot.recursive import recursive_tau
 from tauscope.engine.unitroot.zivot_andrews import MODEL_LABELS, BreakSearch, za_test
 
 EXTRA_TESTS = ("pp", "dfgls", "za")
@@ -62,74 +67,6 @@ WHERE = {0: "the levels", 1: "the first difference", 2: "the second difference"}
 _FAILURES = (UntestableSeries, np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
 
 
-@dataclass(frozen=True)
-class BreakInfo:
-    """Where the Zivot-Andrews search put the break, in the series' own dates.
-
-    ``position`` is the last observation (0-based, in the levels) of the old
-    regime, ``first_new`` the first of the new one; labels come from the index.
-    """
-
-    model: str
-    description: str
-    position: int
-    first_new: int
-    last_old_label: str
-    first_new_label: str
-    statistic: float
-    critical_value: float
-    reject: bool
-    difference: int
-
-    def to_dict(self) -> dict[str, Any]:
-        return {
-            "model": self.model, "description": self.description,
-            "position": self.position, "first_new": self.first_new,
-            "last_old_label": self.last_old_label, "first_new_label": self.first_new_label,
-            "statistic": self.statistic, "critical_value": self.critical_value,
-            "reject": self.reject, "difference": self.difference,
-        }
-
-
-@dataclass(frozen=True)
-class Evidence:
-    """What :func:`gather_evidence` found; ``tests`` join ``SeriesResult.tests``."""
-
-    difference: int
-    spec: str
-    tests: tuple[TestResult, ...]
-    notes: tuple[str, ...]
-    reading: str | None
-    agreement: str | None
-    break_info: BreakInfo | None = None
-    power: PowerResult | None = None
-    recursive: RecursiveStatistic | None = None
-    phillips_perron: PhillipsPerron | None = field(default=None, compare=False)
-    z_alpha_critical_values: dict[str, float] | None = None
-    dfgls: DFGLS | None = field(default=None, compare=False, repr=False)
-    problems: tuple[str, ...] = ()
-
-    def find(self, test: str) -> TestResult | None:
-        return next((t for t in self.tests if t.test == test), None)
-
-    def to_dict(self) -> dict[str, Any]:
-        pp = self.phillips_perron
-        return {
-            "difference": self.difference,
-            "spec": self.spec,
-            "reading": self.reading,
-            "agreement": self.agreement,
-            "break": self.break_info.to_dict() if self.break_info else None,
-            "power": self.power.to_dict() if self.power else None,
-            "recursive": self.recursive.to_dict() if self.recursive else None,
-            "phillips_perron": None if pp is None else {
-                "z_tau": pp.z_tau, "z_alpha": pp.z_alpha, "bandwidth": pp.bandwidth,
-                "long_run_variance": pp.long_run_variance,
-                "short_run_variance": pp.short_run_variance,
-                "z_alpha_critical_values": self.z_alpha_critical_values,
-            },
-            "problems": list(self.problems),
-        }
 
 
 def settled_difference(order: int | None) -> int:

@@ -20,7 +20,6 @@ from functools import lru_cache
 import numpy as np
 
 from tauscope.engine.distributions import tables as fast_tables
-from tauscope.engine.procedure.decide.classic import LevelTests
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS, column_names
 from tauscope.engine.regression.lagchoice import TSIG_CRITICAL, LagChoice
 from tauscope.engine.regression.nested import (
@@ -42,8 +41,7 @@ from tauscope.engine.regression.nested import (
     restricted_rss,
     spec_order,
 )
-from tauscope.engine.regression.record import Coefficient, Regression
-from tauscope.engine.results import LagPoint, TestResult
+from tauscope.engine.results import Coefficient, LagPoint, LevelTests, Regression, TestResult
 from tauscope.engine.settings import Settings
 from tauscope.engine.unitroot import phi as joint
 from tauscope.engine.unitroot.kpss_fast import kpss_fast

@@ -17,8 +17,7 @@ from tauscope.engine.distributions.critical import (
 from tauscope.engine.regression.design import adf_design, column_names
 from tauscope.engine.regression.lagchoice import LagChoice
 from tauscope.engine.regression.ols import fit
-from tauscope.engine.regression.record import Coefficient, Regression
-from tauscope.engine.results import TestResult
+from tauscope.engine.results import Coefficient, Regression, TestResult
 
 
 def estimate(x: np.ndarray, spec: str, lags: int, difference: int = 0,

@@ -29,7 +29,6 @@ Optionally both come from the simulation at the user's T ("exact").
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 from functools import lru_cache
 
 import numpy as np
@@ -49,7 +48,7 @@ from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.regression.design import adf_design
 from tauscope.engine.regression.lagchoice import choose_lag, detrend
 from tauscope.engine.regression.ols import fit
-from tauscope.engine.results import TestResult
+from tauscope.engine.results import DFGLS, TestResult
 
 C_BAR = {"constant": -7.0, "trend": -13.5}
 DFGLS_P_VALUE_REPS = 2_000  # trend-case p-values: Monte Carlo error about ±0.005 near p = 0.05
@@ -65,16 +64,6 @@ ERS_TREND_TABLE = (
     (-3.48, -2.89, -2.57),
 )
 
-
-@dataclass(frozen=True)
-class DFGLS:
-    spec: str
-    statistic: float
-    lags: int
-    lag_rule: str
-    max_lags: int
-    nobs: int
-    detrended: np.ndarray
 
 
 def deterministic_columns(spec: str, length: int) -> np.ndarray:

@@ -16,8 +16,7 @@ import numpy as np
 
 from tauscope.engine.distributions import tables as fast_tables
 from tauscope.engine.regression.ols import fit
-from tauscope.engine.regression.record import Regression
-from tauscope.engine.results import TestResult
+from tauscope.engine.results import Regression, TestResult
 
 RESTRICTED_OUT = {
     "phi1": ("constant", "y(t-1)"),

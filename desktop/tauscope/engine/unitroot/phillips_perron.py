@@ -31,7 +31,6 @@ plug-in rule for the Bartlett kernel in the form of Hobijn, Franses & Ooms
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
@@ -44,23 +43,10 @@ from tauscope.engine.distributions.simulate import (
     lower_critical_values,
 )
 from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.results import TestResult
+from tauscope.engine.results import PhillipsPerron, TestResult
 
 BANDWIDTH_RULE = "Newey-West automatic bandwidth (Hobijn, Franses & Ooms 1998)"
 
-
-@dataclass(frozen=True)
-class PhillipsPerron:
-    """Both Phillips-Perron statistics and the pieces behind them."""
-
-    spec: str
-    z_tau: float
-    z_alpha: float
-    rho: float
-    nobs: int
-    bandwidth: int
-    short_run_variance: float  # γ0
-    long_run_variance: float  # λ²
 
 
 def newey_west_bandwidth(resid: np.ndarray) -> int:

@@ -27,18 +27,10 @@ from tauscope.engine.distributions.critical import (
     normal_two_sided_p,
 )
 from tauscope.engine.regression.design import SPEC_LABELS
-from tauscope.engine.results import Step, TestResult
+from tauscope.engine.results import LevelTests, Step, TestResult
 
 DIFFERENCE_WORDS = {0: "the levels", 1: "the first difference", 2: "the second difference"}
 
-
-@dataclass(frozen=True)
-class LevelTests:
-    """Every test computed on Δ^d y: ADF for each spec and the Φ statistics."""
-
-    difference: int
-    adf: dict[str, TestResult]
-    phi: dict[str, TestResult]
 
 
 @dataclass(frozen=True)
