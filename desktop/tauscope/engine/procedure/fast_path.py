@@ -1,6 +1,6 @@
 """The fast path of the analysis: batches of series of one length, estimated with
 :mod:`tauscope.engine.regression.nested`, turned into the same result objects as the reference
-path (:mod:`adf`, :mod:`joint`, :mod:`lagchoice`; the tests check equality to 1e-8).
+path (:mod:`tauscope.engine.reference`; the tests check equality to 1e-8).
 
 :class:`SeriesBatch` computes each difference level for all its series at the first
 request; :class:`FastEstimation` is one series' view of it and implements the

@@ -1,7 +1,7 @@
 """Nested least squares: every lag length from one QR factorisation, many series at once.
 
-Same numbers as the reference path (one statsmodels OLS per regression: :mod:`ols`,
-:mod:`lagchoice`, :mod:`adf`, :mod:`joint`); the tests check equality to 1e-8.
+Same numbers as the reference path (one statsmodels OLS per regression:
+:mod:`tauscope.engine.reference`); the tests check equality to 1e-8.
 
 Nested models.  Order the regressors of one specification as
 
