@@ -15,7 +15,7 @@ from dataclasses import dataclass
 
 from tauscope.engine import LAG_RULE_LABELS, SeriesResult, Settings, Step, TestResult
 from tauscope.engine import formatting as fmt
-from tauscope.engine.design import SPEC_LABELS
+from tauscope.engine.regression.design import SPEC_LABELS
 from tauscope.report.run import Finding, RunRecord
 
 Value = str | int | float | None

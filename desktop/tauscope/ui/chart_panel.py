@@ -156,7 +156,7 @@ class _NullTask(QRunnable):
         self.signals = signals
 
     def run(self) -> None:
-        from tauscope.engine.simulate import null_distribution
+        from tauscope.engine.distributions.simulate import null_distribution
 
         spec, nobs, lags = self.key
         try:
@@ -497,7 +497,7 @@ class ChartPanel(QWidget):
             self._draw_null(self._result)
 
     def _plot_null(self, page: ChartPage, draws: np.ndarray, test: Any) -> None:
-        from tauscope.engine.simulate import density_picture
+        from tauscope.engine.distributions.simulate import density_picture
 
         page.clear()
         picture = density_picture(draws)

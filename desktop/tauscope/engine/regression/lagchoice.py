@@ -24,8 +24,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from tauscope.engine.design import DETERMINISTIC_TERMS, adf_design
-from tauscope.engine.ols import fit
+from tauscope.engine.regression.design import DETERMINISTIC_TERMS, adf_design
+from tauscope.engine.regression.ols import fit
 
 TSIG_CRITICAL = 1.6448536269514722  # 10% two-sided standard normal
 

@@ -18,7 +18,7 @@ Hamilton 1994, Time Series Analysis, eqs. 17.6.8 and 17.6.12):
 Zτ has the Dickey-Fuller τ limit law, so MacKinnon (1994, 2010) p-values and
 finite-sample critical values apply (via statsmodels); Zα has the limit law
 of the coefficient statistic n(ρ̂ − 1), whose critical values here come from
-the simulation in :mod:`tauscope.engine.simulate` at the same sample size.
+the simulation in :mod:`tauscope.engine.distributions.simulate` at the same sample size.
 
 Bandwidth ℓ: by default chosen from the data by the Newey & West (1994)
 plug-in rule for the Bartlett kernel in the form of Hobijn, Franses & Ooms
@@ -31,36 +31,22 @@ plug-in rule for the Bartlett kernel in the form of Hobijn, Franses & Ooms
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
-from tauscope.engine.critical import tau_critical_values, tau_p_value
-from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.results import TestResult
-from tauscope.engine.simulate import (
+from tauscope.engine.distributions.critical import tau_critical_values, tau_p_value
+from tauscope.engine.distributions.simulate import (
     DEFAULT_SEED,
     EXACT_REPS,
     coefficient_null_distribution,
     empirical_p_value,
     lower_critical_values,
 )
+from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.results import PhillipsPerron, TestResult
 
 BANDWIDTH_RULE = "Newey-West automatic bandwidth (Hobijn, Franses & Ooms 1998)"
 
-
-@dataclass(frozen=True)
-class PhillipsPerron:
-    """Both Phillips-Perron statistics and the pieces behind them."""
-
-    spec: str
-    z_tau: float
-    z_alpha: float
-    rho: float
-    nobs: int
-    bandwidth: int
-    short_run_variance: float  # γ0
-    long_run_variance: float  # λ²
 
 
 def newey_west_bandwidth(resid: np.ndarray) -> int:

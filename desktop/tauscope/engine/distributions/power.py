@@ -11,56 +11,29 @@ depend on the error variance, nor on a mean (constant spec) or a linear trend
 (trend spec), so these cover every stationary AR(1) alternative with that root.
 
 Vectorised over replications (scipy's ``lfilter`` runs the AR recursion for
-all rows at once; the regressions reuse :mod:`tauscope.engine.simulate`),
+all rows at once; the regressions reuse :mod:`tauscope.engine.distributions.simulate`),
 with a fixed seed, common random numbers across coefficients, and a cache.
 """
 
 from __future__ import annotations
 
-from dataclasses import dataclass
 from functools import lru_cache
-from typing import Any
 
 import numpy as np
 from scipy.signal import lfilter
 
-from tauscope.engine.critical import tau_critical_value
-from tauscope.engine.simulate import (
+from tauscope.engine.distributions.critical import tau_critical_value
+from tauscope.engine.distributions.simulate import (
     DEFAULT_REPS,
     DEFAULT_SEED,
     exact_critical_value,
     shock_chunks,
     tau_statistics,
 )
+from tauscope.engine.results import PowerResult
 
 COEFFICIENTS = (0.90, 0.95)
 
-
-@dataclass(frozen=True)
-class PowerResult:
-    """Simulated rejection rates of τ at ``alpha`` against AR(1) coefficients."""
-
-    spec: str
-    nobs: int
-    lags: int
-    alpha: float
-    critical_value: float
-    coefficients: tuple[float, ...]
-    rates: tuple[float, ...]
-    reps: int
-
-    def rate(self, coefficient: float) -> float:
-        for c, r in zip(self.coefficients, self.rates, strict=True):
-            if abs(c - coefficient) < 1e-12:
-                return r
-        raise KeyError(coefficient)
-
-    def to_dict(self) -> dict[str, Any]:
-        return {
-            "spec": self.spec, "nobs": self.nobs, "lags": self.lags, "alpha": self.alpha,
-            "critical_value": self.critical_value, "reps": self.reps,
-            "power": {f"{c:.2f}": r for c, r in zip(self.coefficients, self.rates, strict=True)},
-        }
 
 
 def ar1_paths(shocks: np.ndarray, coefficient: float, start: np.ndarray) -> np.ndarray:

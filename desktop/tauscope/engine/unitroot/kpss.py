@@ -18,10 +18,14 @@ _KPSS_LEVEL = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
 
 
 def kpss_test(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
-    """``spec`` is ``"constant"`` (level null) or ``"trend"`` (trend null)."""
+    """``spec`` is ``"constant"`` (level null) or ``"trend"`` (trend null).  Raises
+    ValueError (one sentence) when the automatic bandwidth is not finite."""
     with warnings.catch_warnings():
         warnings.simplefilter("ignore", InterpolationWarning)
-        result = kpss(x, regression="ct" if spec == "trend" else "c", nlags="auto", result_object=True)
+        try:
+            result = kpss(x, regression="ct" if spec == "trend" else "c", nlags="auto", result_object=True)
+        except OverflowError:  # the bandwidth rule divides by a zero autocovariance sum
+            raise ValueError("its automatic bandwidth is not finite for this series") from None
     critical_values = {k: float(v) for k, v in result.critical_values.items() if k in ("1%", "5%", "10%")}
     level = next(v for a, v in _KPSS_LEVEL.items() if abs(a - alpha) < 1e-12)
     p = float(result.pvalue)

@@ -36,7 +36,7 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine.design import SPECS
+from tauscope.engine.regression.design import SPECS
 from tauscope.engine.results import TestResult
 
 DEFAULT_SEED = 19790601

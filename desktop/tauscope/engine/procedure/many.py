@@ -2,7 +2,7 @@
 
 Series are read in chunks of :data:`CHUNK` in input order; within a chunk the
 series of equal length (after trimming) share one :class:`fast_path.SeriesBatch`, so
-their regressions are factorised together (:mod:`tauscope.engine.nested`).  Only
+their regressions are factorised together (:mod:`tauscope.engine.regression.nested`).  Only
 one chunk's design matrices exist at a time, so the working memory does not grow
 with the number of series.  Each result equals ``analyse_series(values, settings,
 name)``; a series the fast path declines is analysed by the reference path.
@@ -17,18 +17,18 @@ from typing import Any
 
 import numpy as np
 
-from tauscope.engine.analyse import (
+from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.procedure.analyse import (
     FALLBACK_ERRORS,
-    REFERENCE,
-    Decision,
     analyse_prepared,
     analyse_series,
     decide,
     finish,
 )
-from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.fast_path import SeriesBatch
-from tauscope.engine.prepare import PreparedSeries, prepare
+from tauscope.engine.procedure.fast_path import SeriesBatch
+from tauscope.engine.procedure.prepare import PreparedSeries, prepare
+from tauscope.engine.procedure.stages import Decision, Plan, plan_for
+from tauscope.engine.reference.estimation import REFERENCE
 from tauscope.engine.results import SeriesResult
 from tauscope.engine.settings import Settings
 
@@ -71,6 +71,7 @@ def iter_analyse(
     """One result per series, in input order, computed a chunk at a time; stops early
     when ``should_stop()`` returns True (asked before each series and each chunk)."""
     settings = settings or Settings()
+    plan = plan_for(settings)
     stop = should_stop or (lambda: False)
     pairs = iter(series)
     while True:
@@ -79,14 +80,15 @@ def iter_analyse(
         chunk = list(islice(pairs, CHUNK))
         if not chunk:
             return
-        yield from _analyse_chunk(chunk, settings, stop)
+        yield from _analyse_chunk(chunk, settings, plan, stop)
 
 
-def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings,
+def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
                    stop: ShouldStop) -> Iterator[SeriesResult]:
-    """Three passes over a chunk: the testing sequence for every series (each difference
-    level factorised once for all series of one length), then every lag profile of
-    one kind in one call, then the cross-check, notes and result, series by series."""
+    """The pipeline stage by stage over a chunk: prepare every series; estimate and
+    decide every series (each difference level factorised once for all series of one
+    length); every lag profile of one kind in one call; then cross-check, read and
+    assemble series by series."""
     prepared: list[PreparedSeries | None] = []
     for _, values in chunk:
         try:
@@ -99,7 +101,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings,
             by_length.setdefault(item.values.shape[0], []).append(position)
     slots: dict[int, tuple[SeriesBatch, int]] = {}
     for positions in by_length.values():
-        batch = SeriesBatch([_values(prepared[i]) for i in positions], settings)
+        batch = SeriesBatch([_values(prepared[i]) for i in positions], plan.estimate)
         for slot, position in enumerate(positions):
             slots[position] = (batch, slot)
 
@@ -112,7 +114,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings,
             continue
         batch, slot = slots[position]
         try:
-            decision = decide(item, settings, batch.estimation(slot))
+            decision = decide(item, plan, batch.estimation(slot))
         except FALLBACK_ERRORS:
             continue  # the reference path takes this series below
         decisions[position] = decision
@@ -129,18 +131,18 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings,
         if item is None:
             yield analyse_series(values, settings, name)
             continue
-        yield _finish_one(item, settings, name, slots[position], decisions.get(position))
+        yield _finish_one(item, plan, name, slots[position], decisions.get(position))
 
 
-def _finish_one(item: PreparedSeries, settings: Settings, name: str,
+def _finish_one(item: PreparedSeries, plan: Plan, name: str,
                 slot: tuple[SeriesBatch, int], decision: Decision | None) -> SeriesResult:
     if decision is not None:
         batch, index = slot
         try:
-            return finish(item, settings, name, batch.estimation(index), decision)
+            return finish(decision, plan, name, batch.estimation(index))
         except FALLBACK_ERRORS:
             pass
-    return analyse_prepared(item, settings, name, REFERENCE)
+    return analyse_prepared(item, plan, name, REFERENCE)
 
 
 def _values(item: PreparedSeries | None) -> np.ndarray:

@@ -14,10 +14,9 @@ from __future__ import annotations
 
 import numpy as np
 
-from tauscope.engine import fast_tables
-from tauscope.engine.ols import fit
-from tauscope.engine.regression import Regression
-from tauscope.engine.results import TestResult
+from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.regression.ols import fit
+from tauscope.engine.results import Regression, TestResult
 
 RESTRICTED_OUT = {
     "phi1": ("constant", "y(t-1)"),

@@ -1,4 +1,4 @@
-"""Critical values and p-values of :mod:`tauscope.engine.critical`, cached and without
+"""Critical values and p-values of :mod:`tauscope.engine.distributions.critical`, cached and without
 per-call overhead, for the fast path.
 
 The numbers are the same as critical.py's (the tests check equality):
@@ -21,7 +21,7 @@ from functools import lru_cache
 from scipy.special import ndtr
 from statsmodels.tsa import adfvalues
 
-from tauscope.engine import critical
+from tauscope.engine.distributions import critical
 
 _CODES = ("n", "c", "ct")
 _MAX = {code: float(adfvalues._tau_maxs[code][0]) for code in _CODES}

@@ -9,12 +9,15 @@ from __future__ import annotations
 
 import numpy as np
 
-from tauscope.engine.critical import tau_critical_value, tau_critical_values, tau_p_value
-from tauscope.engine.design import adf_design, column_names
-from tauscope.engine.lagchoice import LagChoice
-from tauscope.engine.ols import fit
-from tauscope.engine.regression import Coefficient, Regression
-from tauscope.engine.results import TestResult
+from tauscope.engine.distributions.critical import (
+    tau_critical_value,
+    tau_critical_values,
+    tau_p_value,
+)
+from tauscope.engine.regression.design import adf_design, column_names
+from tauscope.engine.regression.lagchoice import LagChoice
+from tauscope.engine.regression.ols import fit
+from tauscope.engine.results import Coefficient, Regression, TestResult
 
 
 def estimate(x: np.ndarray, spec: str, lags: int, difference: int = 0,

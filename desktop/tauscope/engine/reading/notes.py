@@ -12,7 +12,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from tauscope.engine import formatting as fmt
-from tauscope.engine.design import SPEC_LABELS
+from tauscope.engine.regression.design import SPEC_LABELS
 from tauscope.engine.results import LagPoint, Step, TestResult, Verdict
 
 SHORT_SAMPLE = 50
@@ -51,7 +51,8 @@ def find_jump(x: np.ndarray) -> int | None:
     mad = float(np.median(np.abs(dx - centre))) * 1.4826
     if mad <= 0:
         return None
-    score = np.abs(dx - centre) / mad
+    with np.errstate(over="ignore"):  # a subnormal MAD: any real change scores infinite
+        score = np.abs(dx - centre) / mad
     position = int(np.argmax(score))
     return position + 1 if score[position] > JUMP_FACTOR else None
 

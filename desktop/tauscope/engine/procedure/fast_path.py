@@ -1,10 +1,10 @@
 """The fast path of the analysis: batches of series of one length, estimated with
-:mod:`tauscope.engine.nested`, turned into the same result objects as the reference
-path (:mod:`adf`, :mod:`joint`, :mod:`lagchoice`; the tests check equality to 1e-8).
+:mod:`tauscope.engine.regression.nested`, turned into the same result objects as the reference
+path (:mod:`tauscope.engine.reference`; the tests check equality to 1e-8).
 
 :class:`SeriesBatch` computes each difference level for all its series at the first
 request; :class:`FastEstimation` is one series' view of it and implements the
-estimation seam of :mod:`tauscope.engine.analyse`.  Where the fast path cannot
+estimation seam of :mod:`tauscope.engine.procedure.stages`.  Where the fast path cannot
 promise the reference's numbers (a nearly collinear design, a nearly perfect fit, a
 value that is not finite) it raises :class:`NeedsReference` and the series is
 analysed by the reference path, so even the messages for untestable series are the
@@ -19,11 +19,11 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine import fast_tables, joint
-from tauscope.engine.design import DETERMINISTIC_TERMS, SPECS, column_names
-from tauscope.engine.kpss_numpy import kpss_fast
-from tauscope.engine.lagchoice import TSIG_CRITICAL, LagChoice
-from tauscope.engine.nested import (
+from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.procedure.stages import EstimateOptions
+from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS, column_names
+from tauscope.engine.regression.lagchoice import TSIG_CRITICAL, LagChoice
+from tauscope.engine.regression.nested import (
     PHI_NAMES,
     PHI_SPEC,
     Y_LAG,
@@ -42,10 +42,9 @@ from tauscope.engine.nested import (
     restricted_rss,
     spec_order,
 )
-from tauscope.engine.regression import Coefficient, Regression
-from tauscope.engine.results import LagPoint, TestResult
-from tauscope.engine.sequence import LevelTests
-from tauscope.engine.settings import Settings
+from tauscope.engine.results import Coefficient, LagPoint, LevelTests, Regression, TestResult
+from tauscope.engine.unitroot import phi as joint
+from tauscope.engine.unitroot.kpss_fast import kpss_fast
 
 # Below this share of its length, a column is too close to the span of the earlier
 # ones for a promise of 1e-8 agreement: the reference path takes the series.
@@ -99,13 +98,13 @@ def _choose(rule: str, fits: BlockFits, values: np.ndarray, p: int) -> list[LagC
     return choices
 
 
-def level_batch(xs: np.ndarray, difference: int, settings: Settings, max_lags: int) -> LevelBatch:
+def level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, max_lags: int) -> LevelBatch:
     """Lag choice, ADF estimates and Φ restricted fits on Δ^d y for a batch (B, T_d)."""
     with np.errstate(all="ignore"):
-        return _level_batch(xs, difference, settings, max_lags)
+        return _level_batch(xs, difference, options, max_lags)
 
 
-def _level_batch(xs: np.ndarray, difference: int, settings: Settings, p: int) -> LevelBatch:
+def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: int) -> LevelBatch:
     batch, n = xs.shape
     k = p + 3
     nobs = n - 1 - p
@@ -128,11 +127,11 @@ def _level_batch(xs: np.ndarray, difference: int, settings: Settings, p: int) ->
         declined |= column_share(common[spec], norms[:, used]) < MIN_COLUMN_SHARE
     common = {spec: _sanitise(a, declined) for spec, a in common.items()}
 
-    rule = settings.lag_rule
+    rule = options.lag_rule
     choices: dict[str, list[LagChoice]] = {}
     for spec in SPECS:
         if rule == "fixed":
-            lag = int(settings.lags if settings.lags is not None else 0)
+            lag = int(options.lags if options.lags is not None else 0)
             choices[spec] = [LagChoice(rule, lag, max(lag, p))] * batch
             continue
         fits = block_fits(common[spec], len(DETERMINISTIC_TERMS[spec]), p, nobs)
@@ -245,7 +244,7 @@ def _phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: fl
 
 
 class FastEstimation:
-    """One series' view of a batch: the estimation seam of :mod:`tauscope.engine.analyse`.
+    """One series' view of a batch: the estimation seam of :mod:`tauscope.engine.procedure.stages`.
 
     ``level_tests`` asks the batch (which computes a difference level for all its
     series at the first request); ``lag_profile`` and ``kpss`` work on this series.
@@ -255,14 +254,14 @@ class FastEstimation:
         self._batch = batch
         self._index = index
 
-    def level_tests(self, x: np.ndarray, difference: int, settings: Settings,
+    def level_tests(self, x: np.ndarray, difference: int, options: EstimateOptions,
                     max_lags: int) -> LevelTests:
         level = self._batch.level(difference, max_lags)
         i = self._index
         if level.declined[i]:
             raise NeedsReference
-        adf = {spec: _adf_result(level, spec, i, settings.alpha) for spec in SPECS}
-        phi = {name: _phi_result(level, adf[PHI_SPEC[name]], name, i, settings.alpha)
+        adf = {spec: _adf_result(level, spec, i, options.alpha) for spec in SPECS}
+        phi = {name: _phi_result(level, adf[PHI_SPEC[name]], name, i, options.alpha)
                for name in PHI_NAMES}
         return LevelTests(difference, adf, phi)
 
@@ -287,9 +286,9 @@ class SeriesBatch:
     """Series of one length analysed together; each difference level is computed for
     the whole batch when a series first asks for it."""
 
-    def __init__(self, values: list[np.ndarray], settings: Settings) -> None:
+    def __init__(self, values: list[np.ndarray], options: EstimateOptions) -> None:
         self._levels_in = np.vstack(values)
-        self._settings = settings
+        self._options = options
         self._levels: dict[tuple[int, int], LevelBatch] = {}
         self._profiles: dict[tuple[int, str, int, int], tuple[np.ndarray, np.ndarray]] = {}
 
@@ -303,7 +302,7 @@ class SeriesBatch:
         key = (difference, max_lags)
         if key not in self._levels:
             xs = np.diff(self._levels_in, n=difference, axis=1) if difference else self._levels_in
-            self._levels[key] = level_batch(xs, difference, self._settings, max_lags)
+            self._levels[key] = level_batch(xs, difference, self._options, max_lags)
         return self._levels[key]
 
     def prefetch_profiles(self, requests: list[tuple[int, str, int, int]]) -> None:

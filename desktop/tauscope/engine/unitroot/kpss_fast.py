@@ -1,4 +1,4 @@
-"""The KPSS statistic in numpy, the same numbers as :mod:`tauscope.engine.stationarity`
+"""The KPSS statistic in numpy, the same numbers as :mod:`tauscope.engine.unitroot.kpss`
 (statsmodels' ``kpss``) without its per-call overhead.
 
 Kwiatkowski, D., Phillips, P.C.B., Schmidt, P. & Shin, Y. (1992), "Testing the Null
@@ -29,7 +29,7 @@ import math
 import numpy as np
 
 from tauscope.engine.results import TestResult
-from tauscope.engine.stationarity import kpss_test
+from tauscope.engine.unitroot.kpss import kpss_test
 
 # KPSS (1992) Table 1, upper tail: 10%, 5%, 2.5%, 1%.
 _CRITICAL = {
@@ -95,7 +95,7 @@ def kpss_statistic(x: np.ndarray, spec: str) -> tuple[float, int] | None:
 
 
 def kpss_fast(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
-    """Same result as :func:`tauscope.engine.stationarity.kpss_test`."""
+    """Same result as :func:`tauscope.engine.unitroot.kpss.kpss_test`."""
     if x.shape[0] < 3:
         return kpss_test(x, spec, difference, alpha)
     try:

@@ -14,7 +14,7 @@ Tests for an Autoregressive Unit Root", Econometrica 64(4), 813-836).
 
 Lag order: MAIC by default (Ng, S. & Perron, P. 2001, Econometrica 69), with
 the lag chosen on the OLS-detrended series (Perron, P. & Qu, Z. 2007,
-Economics Letters 94); the other rules of :mod:`tauscope.engine.lagchoice`
+Economics Letters 94); the other rules of :mod:`tauscope.engine.regression.lagchoice`
 work the same way.
 
 Critical values: constant case, the Dickey-Fuller values without deterministic
@@ -29,18 +29,12 @@ Optionally both come from the simulation at the user's T ("exact").
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine.critical import tau_critical_values, tau_p_value
-from tauscope.engine.design import adf_design
-from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.lagchoice import choose_lag, detrend
-from tauscope.engine.ols import fit
-from tauscope.engine.results import TestResult
-from tauscope.engine.simulate import (
+from tauscope.engine.distributions.critical import tau_critical_values, tau_p_value
+from tauscope.engine.distributions.simulate import (
     DEFAULT_SEED,
     EXACT_REPS,
     empirical_p_value,
@@ -50,6 +44,11 @@ from tauscope.engine.simulate import (
     shock_chunks,
     solve_moments,
 )
+from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.regression.design import adf_design
+from tauscope.engine.regression.lagchoice import choose_lag, detrend
+from tauscope.engine.regression.ols import fit
+from tauscope.engine.results import DFGLS, TestResult
 
 C_BAR = {"constant": -7.0, "trend": -13.5}
 DFGLS_P_VALUE_REPS = 2_000  # trend-case p-values: Monte Carlo error about ±0.005 near p = 0.05
@@ -65,16 +64,6 @@ ERS_TREND_TABLE = (
     (-3.48, -2.89, -2.57),
 )
 
-
-@dataclass(frozen=True)
-class DFGLS:
-    spec: str
-    statistic: float
-    lags: int
-    lag_rule: str
-    max_lags: int
-    nobs: int
-    detrended: np.ndarray
 
 
 def deterministic_columns(spec: str, length: int) -> np.ndarray:
@@ -109,7 +98,7 @@ def lag_criteria(detrended: np.ndarray, rule: str, max_lags: int) -> np.ndarray:
     One QR factorisation of the largest design serves every lag order, because the
     model with k lags uses the leading k + 1 columns [ỹ_{t−1}, Δỹ_{t−1}, …, Δỹ_{t−k}]:
     RSS_k = y'y − |Q_k'y|², γ̂_k = first element of R_k^{-1} Q_k'y.  The criteria are
-    those of :mod:`tauscope.engine.lagchoice` (AIC, BIC, HQC as −2 ln L + c·(k + 1);
+    those of :mod:`tauscope.engine.regression.lagchoice` (AIC, BIC, HQC as −2 ln L + c·(k + 1);
     MAIC(k) = ln σ̂²_k + 2(τ_T(k) + k)/N with τ_T(k) = γ̂_k² Σ ỹ²_{t−1} / σ̂²_k)."""
     y, design = adf_design(detrended, "none", max_lags, first=max_lags)
     n = y.shape[0]

@@ -1,4 +1,11 @@
-"""The Dickey-Fuller testing sequence on one series (one difference level).
+"""The classic strategy: the Dickey-Fuller testing sequence on each difference level,
+from the highest difference down (Dickey, D.A. & Pantula, S.G. 1987, "Determining the
+Order of Differencing in Autoregressive Processes", JBES 5(4); Pantula, S.G. 1989,
+Econometric Theory 5): the sequence runs on Δ^d y for d = max_difference, …, 0 and moves
+down only while the unit root is rejected.  The first non-rejection at d gives I(d + 1);
+rejection all the way gives I(0).
+
+The sequence on one difference level:
 
 Dolado, J.J., Jenkinson, T. & Sosvilla-Rivero, S. (1990), "Cointegration and
 Unit Roots", Journal of Economic Surveys 4(3), 249-273:
@@ -20,25 +27,18 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from tauscope.engine import formatting as fmt
-from tauscope.engine.critical import (
+from tauscope.engine.distributions.critical import (
     normal_lower,
     normal_lower_p,
     normal_two_sided,
     normal_two_sided_p,
 )
-from tauscope.engine.design import SPEC_LABELS
-from tauscope.engine.results import Step, TestResult
+from tauscope.engine.procedure.stages import DecideOptions, Decision, Estimates
+from tauscope.engine.regression.design import SPEC_LABELS
+from tauscope.engine.results import LevelTests, Step, TestResult
 
 DIFFERENCE_WORDS = {0: "the levels", 1: "the first difference", 2: "the second difference"}
 
-
-@dataclass(frozen=True)
-class LevelTests:
-    """Every test computed on Δ^d y: ADF for each spec and the Φ statistics."""
-
-    difference: int
-    adf: dict[str, TestResult]
-    phi: dict[str, TestResult]
 
 
 @dataclass(frozen=True)
@@ -229,3 +229,20 @@ def run_sequence(level: LevelTests, alpha: float) -> SequenceOutcome:
     last = _tau_step(none, alpha)
     steps.append(last)
     return SequenceOutcome(d, tuple(steps), not last.rejected, "none", "none")
+
+
+def decide(estimates: Estimates, options: DecideOptions) -> Decision:
+    """Order of integration from the highest difference down (Dickey & Pantula 1987)."""
+    outcomes: list[SequenceOutcome] = []
+    order: int | None = 0
+    for d in range(options.max_difference, -1, -1):
+        outcome = run_sequence(estimates.levels[d], options.alpha)
+        outcomes.append(outcome)
+        if outcome.unit_root:
+            order = d + 1 if d < options.max_difference else None
+            break
+    steps = tuple(s for o in outcomes for s in o.steps)
+    deterministic = None if order is None else outcomes[-1].deterministic
+    deciding = [s for s in steps if s.statistic_name == "tau"][-1]
+    return Decision(estimates, "classic", tuple(o.difference for o in outcomes), steps, order,
+                    deterministic, deciding)

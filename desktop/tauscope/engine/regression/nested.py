@@ -1,7 +1,7 @@
 """Nested least squares: every lag length from one QR factorisation, many series at once.
 
-Same numbers as the reference path (one statsmodels OLS per regression: :mod:`ols`,
-:mod:`lagchoice`, :mod:`adf`, :mod:`joint`); the tests check equality to 1e-8.
+Same numbers as the reference path (one statsmodels OLS per regression:
+:mod:`tauscope.engine.reference`); the tests check equality to 1e-8.
 
 Nested models.  Order the regressors of one specification as
 
@@ -18,7 +18,7 @@ A = [[R, c], [0, e]], c = Qᵀy, and for every leading block of m columns
   each block is a prefix sum b_i^(m) = Σ_{j<m} (R⁻¹)_ij c_j;
 * Var b_i^(m) = σ̂²_m Σ_{j<m} (R⁻¹)_ij², σ̂²_m = RSS_m / (N − m).
 
-Hence AIC/BIC/HQC (the formula of :meth:`tauscope.engine.ols.OLSFit.criterion`),
+Hence AIC/BIC/HQC (the formula of :meth:`tauscope.engine.regression.ols.OLSFit.criterion`),
 the last lag's t (general-to-specific), and γ̂ with the sums MAIC needs, for all
 lag orders at once.  Columns that a block leaves out (the zero-filled lags before
 the start of the series, the terms a specification drops) never touch its numbers.
@@ -35,7 +35,7 @@ factorisation with row indicators (see :func:`profile_tau`).  Everything works o
 a batch of series of one length at once.
 
 The batches, the decision to hand a series to the reference path and the result
-objects are in :mod:`tauscope.engine.fast_path`.
+objects are in :mod:`tauscope.engine.procedure.fast_path`.
 """
 
 from __future__ import annotations
@@ -46,7 +46,7 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine.design import DETERMINISTIC_TERMS
+from tauscope.engine.regression.design import DETERMINISTIC_TERMS
 
 # Columns of the full design: 0 constant, 1 trend, 2 y(t−1), 3… Δy(t−1…p), then y.
 Y_LAG = 2
@@ -68,7 +68,7 @@ def full_design(xs: np.ndarray, p: int) -> np.ndarray:
 
     Row r is Δy_{r+1} (r counts the differences from 0); lags that fall before the
     start are zero, and only models with at most r lags ever use row r.  The trend
-    is r + 1, as in :func:`tauscope.engine.design.adf_design`.
+    is r + 1, as in :func:`tauscope.engine.regression.design.adf_design`.
     """
     batch, n = xs.shape
     k = p + 3
@@ -142,7 +142,7 @@ def block_fits(a: np.ndarray, n_terms: int, p: int, nobs: int) -> BlockFits:
 
 
 def criterion_values(fits: BlockFits, rule: str, nobs: int) -> np.ndarray:
-    """AIC/BIC/HQC of :meth:`tauscope.engine.ols.OLSFit.criterion` for every lag:
+    """AIC/BIC/HQC of :meth:`tauscope.engine.regression.ols.OLSFit.criterion` for every lag:
     −2 ln L + c·k, ln L = −N/2 (ln 2π + ln(RSS/N) + 1), c = 2, ln N or 2 ln ln N."""
     penalty = {"aic": 2.0, "bic": math.log(nobs), "hqc": 2.0 * math.log(math.log(nobs))}[rule]
     llf = -nobs / 2.0 * (_LOG_2PI + np.log(fits.rss / nobs) + 1.0)

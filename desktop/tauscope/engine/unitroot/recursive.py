@@ -17,37 +17,15 @@ RSS_w = y_w'y_w − c_w'G_w^{-1}c_w and (X_w'X_w)^{-1} = R^{-1}G_w^{-1}R^{-T}.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-from typing import Any
-
 import numpy as np
 from statsmodels.tsa.adfvalues import tau_2010s
 
-from tauscope.engine.critical import SPEC_CODES
-from tauscope.engine.design import adf_design, gamma_column
+from tauscope.engine.distributions.critical import SPEC_CODES
+from tauscope.engine.regression.design import adf_design, gamma_column
+from tauscope.engine.results import RecursiveStatistic
 
 MIN_WINDOW = 20  # regression observations in the first window (common practice: ≥ 20)
 
-
-@dataclass(frozen=True)
-class RecursiveStatistic:
-    """τ on expanding windows: ``ends`` are 0-based positions of each window's last value."""
-
-    spec: str
-    lags: int
-    ends: np.ndarray
-    nobs: np.ndarray
-    statistics: np.ndarray
-    critical_values: np.ndarray
-    alpha: float
-
-    def to_dict(self) -> dict[str, Any]:
-        return {
-            "spec": self.spec, "lags": self.lags, "alpha": self.alpha,
-            "ends": [int(e) for e in self.ends],
-            "statistics": [float(v) for v in self.statistics],
-            "critical_values": [float(v) for v in self.critical_values],
-        }
 
 
 def tau_critical_values_for_sizes(spec: str, sizes: np.ndarray, alpha: float) -> np.ndarray:
