@@ -40,7 +40,7 @@ from tauscope.report.study import STUDY_SUFFIX, Study
 from tauscope.resources_path import demo_workbook
 from tauscope.ui import store
 from tauscope.ui.appearance import APPEARANCES, apply_appearance
-from tauscope.ui.chart_panel import ChartPanel
+from tauscope.ui.charts.panel import ChartPanel
 from tauscope.ui.findings_export import CHART_SUFFIXES, EXPORT_FILTERS, build_run, export_filter
 from tauscope.ui.findings_panel import FindingsPanel
 from tauscope.ui.guide_window import GuideWindow

@@ -1,0 +1,134 @@
+"""What every chart shares: x positions for a date axis, and a page that holds the plots
+of one view (or a sentence when there is nothing to draw) and saves them as PNG or SVG."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import numpy as np
+import pandas as pd
+import pyqtgraph as pg
+from PySide6.QtCore import Qt
+from PySide6.QtGui import QColor
+from PySide6.QtWidgets import QLabel, QStackedWidget, QWidget
+
+_EPOCH = pd.Timestamp("1970-01-01")
+
+
+def x_positions(index: pd.Index) -> tuple[np.ndarray, bool]:
+    """Seconds since 1970 for dated series (for the date axis), else observation numbers."""
+    if isinstance(index, pd.PeriodIndex):
+        stamps = index.to_timestamp(how="start")
+        return np.asarray((stamps - _EPOCH) / pd.Timedelta(seconds=1), dtype=float), True
+    if isinstance(index, pd.DatetimeIndex):
+        naive = index.tz_localize(None) if index.tz is not None else index
+        return np.asarray((naive - _EPOCH) / pd.Timedelta(seconds=1), dtype=float), True
+    try:
+        return np.asarray(index, dtype=float), False
+    except (TypeError, ValueError):
+        return np.arange(1, len(index) + 1, dtype=float), False
+
+
+class ChartPage(QStackedWidget):
+    """A plot area that can show a sentence instead when there is nothing to draw."""
+
+    def __init__(self, name: str, parent: QWidget | None = None, dates: bool = False) -> None:
+        super().__init__(parent)
+        self.message = QLabel(self)
+        self.message.setWordWrap(True)
+        self.message.setAlignment(Qt.AlignmentFlag.AlignCenter)
+        self.message.setMargin(16)
+        self.layout_widget = pg.GraphicsLayoutWidget(self)
+        self.layout_widget.setAccessibleName(name)
+        # Our own menu (save as PNG/SVG) instead of pyqtgraph's: see ChartPanel.
+        self.layout_widget.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
+        self.addWidget(self.message)
+        self.addWidget(self.layout_widget)
+        self.setAccessibleName(name)
+        self.dates = dates
+        self._plots: dict[tuple[int, bool], pg.PlotItem] = {}
+        self._shown: list[pg.PlotItem] = []
+
+    def say(self, text: str) -> None:
+        self.message.setText(text)
+        self.setCurrentWidget(self.message)
+
+    def new_plot(self, row: int = 0, dates: bool = False, title: str = "") -> pg.PlotItem:
+        """An empty plot in this row, reused between drawings (making a PlotItem is slow)."""
+        key = (row, dates)
+        plot = self._plots.get(key)
+        if plot is None:
+            axis = {"bottom": pg.DateAxisItem(orientation="bottom", utcOffset=0)} if dates else None
+            plot = self.layout_widget.addPlot(row=row, col=0, axisItems=axis)
+            plot.showGrid(x=True, y=True, alpha=0.15)
+            plot.setClipToView(True)
+            plot.setDownsampling(auto=True, mode="peak")
+            plot.setMenuEnabled(False)
+            self._plots[key] = plot
+        else:
+            self.layout_widget.addItem(plot, row=row, col=0)
+            plot.clear()
+            if plot.legend is not None:
+                plot.legend.clear()
+            plot.setXLink(None)
+            plot.enableAutoRange()
+        plot.setTitle(title or None)
+        self._shown.append(plot)
+        return plot
+
+    def legend(self, plot: pg.PlotItem, color: QColor, background: QColor,
+               corner: str = "top-right") -> None:
+        """A legend on a half-transparent background in one corner (negative offsets count
+        from the right or bottom edge)."""
+        offsets = {"top-right": (-10, 10), "top-left": (10, 10), "bottom-right": (-10, -10),
+                   "bottom-left": (10, -10)}
+        fill = QColor(background)
+        fill.setAlpha(215)
+        if plot.legend is None:
+            plot.addLegend(offset=offsets[corner], labelTextColor=color, brush=pg.mkBrush(fill))
+        else:
+            plot.legend.setLabelTextColor(color)
+            plot.legend.setBrush(pg.mkBrush(fill))
+            plot.legend.setOffset(offsets[corner])
+
+    def show_plots(self) -> None:
+        self.setCurrentWidget(self.layout_widget)
+
+    def has_plot(self) -> bool:
+        return self.currentWidget() is self.layout_widget
+
+    def save_png(self, path: Path | str) -> None:
+        """The view as drawn on screen, as a PNG picture."""
+        if not self.layout_widget.grab().save(str(path), "PNG"):
+            raise OSError(f"{Path(path).name} could not be written")
+
+    def save_svg(self, path: Path | str) -> None:
+        """The view as an SVG drawing: the scene painted through Qt's SVG generator (lines and
+        text stay vectors).  pyqtgraph's own SVG exporter fails on the paths this Qt writes."""
+        from PySide6.QtCore import QRectF, QSize
+        from PySide6.QtGui import QPainter
+        from PySide6.QtSvg import QSvgGenerator
+
+        view = self.layout_widget
+        size = view.viewport().size()
+        generator = QSvgGenerator()
+        generator.setFileName(str(path))
+        generator.setSize(QSize(size.width(), size.height()))
+        generator.setViewBox(QRectF(0, 0, size.width(), size.height()))
+        generator.setTitle(self.accessibleName())
+        generator.setDescription("Drawn by Tauscope")
+        painter = QPainter()
+        if not painter.begin(generator):
+            raise OSError(f"{Path(path).name} could not be written")
+        try:
+            view.render(painter)
+        finally:
+            painter.end()
+        if not Path(path).is_file() or Path(path).stat().st_size == 0:
+            raise OSError(f"{Path(path).name} could not be written")
+
+    def clear(self) -> None:
+        """Take the plots off the page (they are kept for the next drawing)."""
+        for plot in self._shown:
+            self.layout_widget.removeItem(plot)
+        self._shown = []
