@@ -1,16 +1,23 @@
-"""What every chart shares: x positions for a date axis, and a page that holds the plots
-of one view (or a sentence when there is nothing to draw) and saves them as PNG or SVG."""
+"""What every chart shares: x positions for a date axis, a page that holds the plots of
+one view (or a sentence when there is nothing to draw) and saves them as PNG or SVG, the
+colours of the palette, and the base of each chart (``Chart``)."""
 
 from __future__ import annotations
 
+from dataclasses import dataclass
 from pathlib import Path
+from typing import TYPE_CHECKING, Any
 
 import numpy as np
 import pandas as pd
 import pyqtgraph as pg
 from PySide6.QtCore import Qt
-from PySide6.QtGui import QColor
+from PySide6.QtGui import QColor, QPalette
 from PySide6.QtWidgets import QLabel, QStackedWidget, QWidget
+
+if TYPE_CHECKING:
+    from tauscope.data import SeriesData
+    from tauscope.engine import SeriesResult
 
 _EPOCH = pd.Timestamp("1970-01-01")
 
@@ -40,7 +47,7 @@ class ChartPage(QStackedWidget):
         self.message.setMargin(16)
         self.layout_widget = pg.GraphicsLayoutWidget(self)
         self.layout_widget.setAccessibleName(name)
-        # Our own menu (save as PNG/SVG) instead of pyqtgraph's: see ChartPanel.
+        # Our own menu (save as PNG/SVG) instead of pyqtgraph's: see charts.panel.
         self.layout_widget.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
         self.addWidget(self.message)
         self.addWidget(self.layout_widget)
@@ -132,3 +139,83 @@ class ChartPage(QStackedWidget):
         for plot in self._shown:
             self.layout_widget.removeItem(plot)
         self._shown = []
+
+
+@dataclass(frozen=True)
+class ChartColors:
+    """The colours of every chart, taken from the palette (light or dark)."""
+
+    background: QColor
+    text: QColor
+    line: QColor
+    accent: QColor
+
+    @classmethod
+    def from_palette(cls, palette: QPalette) -> ChartColors:
+        background = palette.color(QPalette.ColorRole.Base)
+        dark = background.lightness() < 128
+        return cls(background=background, text=palette.color(QPalette.ColorRole.Text),
+                   line=QColor("#7fb2ff") if dark else QColor("#1f4e99"),
+                   accent=QColor("#ffb347") if dark else QColor("#b35900"))
+
+    def legend_fill(self) -> QColor:
+        fill = QColor(self.background)
+        fill.setAlpha(215)
+        return fill
+
+
+class Chart(ChartPage):
+    """One view of the Chart panel.  A subclass names its tab and draws one series (and its
+    result, once analysed) in :meth:`draw`; the panel decides when."""
+
+    title = ""  # accessible name of the page
+    tab = ""  # text of its tab
+    tip = ""  # tooltip of its tab
+    guide = ""  # anchor of its section in the guide
+    idle_text = "Analyse a series (F5) to see this view."
+
+    def __init__(self, parent: QWidget | None = None) -> None:
+        super().__init__(self.title, parent)
+        self.colors = ChartColors.from_palette(self.palette())
+        self.series: SeriesData | None = None
+        self.result: SeriesResult | None = None
+        self.stale = False  # to be drawn again when next shown
+
+    def set_colors(self, colors: ChartColors) -> None:
+        self.colors = colors
+        self.layout_widget.setBackground(colors.background)
+
+    def show_idle(self) -> None:
+        """Nothing chosen: the page's sentence instead of a chart."""
+        self.series, self.result, self.stale = None, None, False
+        self.say(self.idle_text)
+
+    def draw_for(self, series: SeriesData | None, result: SeriesResult | None) -> None:
+        self.series, self.result, self.stale = series, result, False
+        self.draw()
+
+    def draw(self) -> None:
+        """Draw ``self.series`` and ``self.result`` (either may be None)."""
+        raise NotImplementedError
+
+    def add_legend(self, plot: pg.PlotItem, corner: str) -> None:
+        self.legend(plot, self.colors.text, self.colors.background, corner)
+
+    def style_plot(self, plot: pg.PlotItem) -> None:
+        """Axes and title in the text colour, plain numbers on the axes."""
+        fg = self.colors.text
+        for name in ("left", "bottom"):
+            axis = plot.getAxis(name)
+            axis.enableAutoSIPrefix(False)  # plain numbers, no "(x0.001)" scaling
+            axis.setPen(fg)
+            axis.setTextPen(fg)
+        title = plot.titleLabel.text
+        if title:  # the colour applies when the text is set again
+            plot.titleLabel.setText(title, color=fg.name())
+
+
+def profile_test(result: SeriesResult) -> Any:
+    """The ADF test whose lag profile the result keeps (the one the lag and null charts show)."""
+    if result.lag_profile_spec is None:
+        return None
+    return result.find("adf", result.lag_profile_spec, result.lag_profile_difference or 0)
