@@ -1,6 +1,7 @@
-"""The main window: menus, toolbar, the four panels, the status bar and the wiring
-between them and the controllers that do the window's jobs (ui/controllers/: files, runs,
-studies, export).  It shows what the engine returns and never computes statistics."""
+"""The main window: the frame (window_frame.py: panels, splitters, status bar), its menus,
+toolbar and shortcuts, and the wiring between the panels and the controllers that do the
+window's jobs (ui/controllers/: files, runs, studies, export).  It shows what the engine
+returns and never computes statistics."""
 
 from __future__ import annotations
 
@@ -8,26 +9,19 @@ from collections.abc import Callable
 from pathlib import Path
 from typing import Any
 
-from PySide6.QtCore import QByteArray, QSize, Qt, QTimer
+from PySide6.QtCore import QSize, Qt
 from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence
 from PySide6.QtWidgets import (
     QApplication,
-    QLabel,
-    QMainWindow,
     QMessageBox,
-    QProgressBar,
-    QSplitter,
     QStyle,
     QToolBar,
-    QVBoxLayout,
-    QWidget,
 )
 
 from tauscope import __version__
 from tauscope.engine import LAG_RULE_LABELS, Settings
 from tauscope.ui import store
 from tauscope.ui.appearance import APPEARANCES, apply_appearance
-from tauscope.ui.charts.panel import ChartPanel
 from tauscope.ui.controllers.current import CurrentSeries
 from tauscope.ui.controllers.export import ExportController
 from tauscope.ui.controllers.files import FilesController, dropped_paths
@@ -35,60 +29,24 @@ from tauscope.ui.controllers.prompts import Prompts
 from tauscope.ui.controllers.runs import RunsController
 from tauscope.ui.controllers.session import Session
 from tauscope.ui.controllers.studies import StudiesController
-from tauscope.ui.findings_panel import FindingsPanel
 from tauscope.ui.guide_window import GuideWindow
 from tauscope.ui.loader import WorkbookLoader
 from tauscope.ui.problem_dialog import ProblemDialog
-from tauscope.ui.reading_panel import ReadingPanel
-from tauscope.ui.series_panel import SeriesPanel
 from tauscope.ui.settings_dialog import SettingsDialog
-from tauscope.ui.texts import LAG_RULE_SHORT
+from tauscope.ui.window_frame import WindowFrame, settings_summary
 from tauscope.ui.worker import AnalysisRunner
 
 UNTITLED_STUDY = "Untitled study"
 
-def _panel(title: str, body: QWidget, extra: QWidget | None = None) -> QWidget:
-    """A panel: a bold title line above its content."""
-    box = QWidget()
-    layout = QVBoxLayout(box)
-    layout.setContentsMargins(4, 4, 4, 4)
-    layout.setSpacing(3)
-    label = QLabel(f"<b>{title}</b>", box)
-    label.setBuddy(body)
-    layout.addWidget(label)
-    if extra is not None:
-        layout.addWidget(extra)
-    layout.addWidget(body)
-    box.setAccessibleName(title)
-    return box
 
-
-def settings_summary(settings: Settings) -> str:
-    rule = LAG_RULE_SHORT.get(settings.lag_rule, settings.lag_rule)
-    lags = (f"{settings.lags} lags" if settings.lag_rule == "fixed"
-            else f"lags by {rule}" + (f" ≤ {settings.max_lags}" if settings.max_lags is not None
-                                      else ""))
-    names = {"kpss": "KPSS", "pp": "PP", "dfgls": "DF-GLS", "za": "ZA"}
-    checks = [names[c] for c in ("kpss", "pp", "dfgls", "za") if c in settings.confirm]
-    check = (" · " + ", ".join(checks)) if checks else ""
-    exact = " · exact critical values" if settings.critical_values == "exact" else ""
-    return (f"{settings.alpha_label} · {lags} · up to I({settings.max_difference}){check}"
-            f"{exact}")
-
-
-
-class MainWindow(QMainWindow):
+class MainWindow(WindowFrame):
     def __init__(self) -> None:
-        super().__init__()
+        settings = store.load_settings()
+        super().__init__(settings)
         self.setWindowTitle("Tauscope")
-        self.session = Session(store.load_settings(), self)
+        self.session = Session(settings, self)
         self.prompts = Prompts(self)
         self.guide: GuideWindow | None = None
-        self.series_panel = SeriesPanel(self)
-        self.chart_panel = ChartPanel(self)
-        self.reading_panel = ReadingPanel(self)
-        self.findings_panel = FindingsPanel(self)
-        self._build_status_bar()
         self.current = CurrentSeries(self.series_panel, self.findings_panel, self.chart_panel,
                                      self.reading_panel)
         panels = (self.series_panel, self.findings_panel)
@@ -101,7 +59,6 @@ class MainWindow(QMainWindow):
         self.export = ExportController(*panels, self.session, self.prompts, self.status_label,
                                        self)
         self.files.accept_drops_on(self)
-        self._build_layout()
         self._build_actions()
         self._build_menus()
         self._build_toolbar()
@@ -184,38 +141,6 @@ class MainWindow(QMainWindow):
     @ask_yes_no.setter
     def ask_yes_no(self, ask: Callable[[str, str], bool]) -> None:
         self.prompts.ask_yes_no = ask
-
-    # layout -------------------------------------------------------------
-    def _build_layout(self) -> None:
-        self.series_box = _panel("Series", self.series_panel)
-        self.chart_box = _panel("Chart", self.chart_panel)
-        self.reading_box = _panel("Reading", self.reading_panel)
-        self.findings_box = _panel("Findings", self.findings_panel)
-        self.top_splitter = QSplitter(Qt.Orientation.Horizontal)
-        self.top_splitter.addWidget(self.chart_box)
-        self.top_splitter.addWidget(self.reading_box)
-        self.right_splitter = QSplitter(Qt.Orientation.Vertical)
-        self.right_splitter.addWidget(self.top_splitter)
-        self.right_splitter.addWidget(self.findings_box)
-        self.outer_splitter = QSplitter(Qt.Orientation.Horizontal)
-        self.outer_splitter.addWidget(self.series_box)
-        self.outer_splitter.addWidget(self.right_splitter)
-        for splitter in self._splitters():
-            splitter.setChildrenCollapsible(False)
-        self.setCentralWidget(self.outer_splitter)
-        self._default_sizes()
-        QWidget.setTabOrder(self.series_panel.filter_box, self.series_panel.view)
-        QWidget.setTabOrder(self.series_panel.view, self.chart_panel.tabs)
-        QWidget.setTabOrder(self.chart_panel.tabs, self.reading_panel.browser)
-        QWidget.setTabOrder(self.reading_panel.browser, self.findings_panel.view)
-
-    def _splitters(self) -> tuple[QSplitter, QSplitter, QSplitter]:
-        return (self.outer_splitter, self.right_splitter, self.top_splitter)
-
-    def _default_sizes(self) -> None:
-        self.outer_splitter.setSizes([356, 924])
-        self.right_splitter.setSizes([420, 310])
-        self.top_splitter.setSizes([560, 348])
 
     # actions ------------------------------------------------------------
     def _action(self, text: str, slot: Any, shortcut: Any = None, tip: str = "",
@@ -354,21 +279,6 @@ class MainWindow(QMainWindow):
         self.addToolBar(toolbar)
         self.toolbar = toolbar
 
-    def _build_status_bar(self) -> None:
-        bar = self.statusBar()
-        self.status_label = QLabel("Ready", self)
-        self.status_label.setAccessibleName("Status")
-        self.progress = QProgressBar(self)
-        self.progress.setMaximumWidth(220)
-        self.progress.setAccessibleName("Analysis progress")
-        self.progress.setFormat("%v of %m")
-        self.progress.hide()
-        self.settings_label = QLabel(settings_summary(self.settings), self)
-        self.settings_label.setToolTip("The testing settings in use (Analysis → Testing settings)")
-        bar.addWidget(self.status_label, 1)
-        bar.addPermanentWidget(self.progress)
-        bar.addPermanentWidget(self.settings_label)
-
     def _connect(self) -> None:
         self.series_panel.current_changed.connect(self.current.follow_series_panel)
         self.series_panel.transform_requested.connect(self.files.add_transform)
@@ -387,29 +297,8 @@ class MainWindow(QMainWindow):
         self.chart_panel.save_path_asker = lambda title, start, filters: self.prompts.ask_save_path(
             title, start, filters)
 
-    # state --------------------------------------------------------------
-    def _restore_window_state(self) -> None:
-        geometry = store.get_value(store.KEY_GEOMETRY)
-        if isinstance(geometry, QByteArray) and not geometry.isEmpty():
-            self.restoreGeometry(geometry)
-        else:
-            self.resize(1280, 800)
-        states = store.get_value(store.KEY_SPLITTERS)
-        if isinstance(states, list) and len(states) == len(self._splitters()):
-            for splitter, state in zip(self._splitters(), states, strict=True):
-                if isinstance(state, QByteArray):
-                    splitter.restoreState(state)
-        window_state = store.get_value(store.KEY_STATE)
-        if isinstance(window_state, QByteArray):
-            self.restoreState(window_state)
-
-    def save_window_state(self) -> None:
-        store.set_value(store.KEY_GEOMETRY, self.saveGeometry())
-        store.set_value(store.KEY_STATE, self.saveState())
-        store.set_value(store.KEY_SPLITTERS, [s.saveState() for s in self._splitters()])
-
     def _update_run_state(self) -> None:
-        running = self.runner.is_running()
+        running = self.runs.is_running()
         self.run_action.setEnabled(not running)
         self.stop_action.setEnabled(running)
         self.settings_action.setEnabled(not running)
@@ -495,11 +384,3 @@ class MainWindow(QMainWindow):
         if self.guide is not None:
             self.guide.close()
         event.accept()
-
-    def showEvent(self, event: Any) -> None:
-        super().showEvent(event)
-        QTimer.singleShot(0, self._focus_series)
-
-    def _focus_series(self) -> None:
-        if QApplication.focusWidget() is None:
-            self.series_panel.view.setFocus()
