@@ -26,8 +26,7 @@ from tauscope.ui.findings_rows import (
     PVALUE,
     STATISTIC,
     VERDICT,
-    _cell,
-    _row,
+    error_row,
     kpss_row,
     p_text,
     regression_rows,
@@ -121,7 +120,7 @@ class FindingsModel(QStandardItemModel):
 
     def child_rows(self, key: str, result: SeriesResult) -> list[list[QStandardItem]]:
         if result.error is not None:
-            return [_row("error", key, {NAME: _cell(str(result.error), str(result.error))})]
+            return [error_row(key, str(result.error))]
         rows = []
         for number, step in enumerate(result.steps):
             row = step_row(key, step)

@@ -177,6 +177,11 @@ def kpss_row(key: str, test: TestResult) -> list[QStandardItem]:
     return _row("kpss", key, cells)
 
 
+def error_row(key: str, text: str) -> list[QStandardItem]:
+    """The one row under a series that could not be tested: why."""
+    return _row("error", key, {NAME: _cell(text, text)})
+
+
 def unit_root_test_row(key: str, test: TestResult, result: SeriesResult) -> list[QStandardItem]:
     """A row for a Phillips-Perron, DF-GLS or Zivot-Andrews test (null: a unit root)."""
     name = EXTRA_TEST_NAMES[test.test]
