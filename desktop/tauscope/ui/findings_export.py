@@ -21,7 +21,7 @@ from tauscope.report.html_export import CHART_WIDTH
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData, Workbook
-    from tauscope.ui.chart_panel import ChartPanel
+    from tauscope.ui.charts.panel import ChartPanel
 
 EXPORT_FILTERS = (
     ("Excel workbook", ".xlsx"),
@@ -85,7 +85,7 @@ class ChartRenderer:
     """Draws series charts offscreen (a chart panel never shown on screen) for reports."""
 
     def __init__(self) -> None:
-        from tauscope.ui.chart_panel import ChartPanel
+        from tauscope.ui.charts.panel import ChartPanel
 
         self.panel: ChartPanel = ChartPanel()
         self.panel.setAttribute(Qt.WidgetAttribute.WA_DontShowOnScreen, True)
