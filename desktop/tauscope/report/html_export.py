@@ -14,7 +14,7 @@ from pathlib import Path
 
 from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
-from tauscope.report.methods import methods_for
+from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, Finding, RunRecord, chart_for
 from tauscope.report.tables import (
     MARKER_NOTE,
@@ -46,6 +46,7 @@ th { font-size: 9pt; background-color: #2f5d62; color: #ffffff; font-weight: bol
 td { padding: 3px 8px; border-bottom: 1px solid #d5dfe0; vertical-align: top; }
 td.num { text-align: right; }
 p.meta { color: #55606a; margin: 0.1em 0; }
+p.left-out { color: #8a3b12; }
 p.note { color: #55606a; font-style: italic; font-size: 9pt; }
 p.verdict { font-size: 11.5pt; font-weight: bold; color: #2f5d62; margin: 0.2em 0; }
 span.reject { color: #8a3b12; }
@@ -166,7 +167,8 @@ def run_to_html(run: RunRecord, charts: Charts | None = None,
     sources = "; ".join(f"{s.name} (SHA-256 {s.sha256[:16]}…)" for s in run.sources)
     meta = (f"Tauscope {run.version} · {run.created} · {len(run.findings)} series · "
             f"significance level {fmt.percent(settings.alpha)} · lag rule: "
-            f"{lag_rule_label(settings)}")
+            f"{lag_rule_label(settings)} · critical values: {critical_words(run)} · "
+            f"tests that ran: {tests_words(run)}")
     parts = [
         "<!DOCTYPE html>",
         '<html lang="en"><head><meta charset="utf-8">',
@@ -177,6 +179,9 @@ def run_to_html(run: RunRecord, charts: Charts | None = None,
     ]
     if sources:
         parts.append(f'<p class="meta">Data: {_esc(sources)}</p>')
+    left = left_out_note(run)
+    if left is not None:
+        parts.append(f'<p class="left-out"><b>{_esc(left)}</b></p>')
     parts += ["<h2>Summary</h2>", table_html(_merge_markers(compact_table(run)), "summary",
                                                 SUMMARY_WIDTHS),
               f'<p class="note">{_esc(MARKER_NOTE)} Terms: ct constant and trend, c constant, '
