@@ -87,6 +87,32 @@ def test_copy_puts_the_selected_findings_on_the_clipboard(exporting):  # type: i
     parts.findings_panel.record_for = export.findings_record
     parts.findings_panel.view.selectAll()
     export.copy()
-    assert parts.status.text() == "Copied the selected findings as a table."
+    assert parts.status.text() == "Copied 2 findings as a table."
     assert QGuiApplication.clipboard().mimeData().text() == findings_tsv(export.findings_record())
     release_offscreen_clipboard()  # rich clipboard data crashes Qt's offscreen shutdown
+
+
+def test_findings_made_with_earlier_settings_are_left_out_of_export_and_copy(
+        exporting, tmp_path):  # type: ignore[no-untyped-def]
+    """After a settings change the findings on screen are stale: neither a file nor the
+    clipboard passes them off as current, and the status line says what was left out."""
+    from PySide6.QtGui import QGuiApplication
+
+    from tauscope.ui.appearance import release_offscreen_clipboard
+
+    parts, export, _workbook = exporting
+    parts.session.set_settings(Settings(alpha=0.05))
+    assert export.export_findings(tmp_path / "stale.json")
+    data = json.loads((tmp_path / "stale.json").read_text(encoding="utf-8"))
+    assert data["series"] == [] and len(data["left_out"]) == 2
+    assert parts.status.text() == ("Exported 0 findings to stale.json. 2 findings made with "
+                                   "earlier settings were left out: run again (F5) to include "
+                                   "them.")
+    parts.findings_panel.record_for = export.findings_record
+    parts.findings_panel.view.selectAll()
+    export.copy()
+    assert parts.status.text().startswith("Copied 0 findings as a table. 2 findings made")
+    names = [r.name for r in parts.findings_panel.model.results().values()]
+    copied = QGuiApplication.clipboard().mimeData().text()
+    assert not any(name in copied for name in names)
+    release_offscreen_clipboard()

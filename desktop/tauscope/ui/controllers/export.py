@@ -66,11 +66,12 @@ class ExportController(QObject):
         charts = (render_charts(results, self.series_panel.model.series_for_key)
                   if path.suffix.lower() in CHART_SUFFIXES else None)
         try:
-            export(path, run, charts)
+            written = export(path, run, charts)
         except ExportError as exc:
             self.prompts.tell(str(exc), title="The findings were not exported")
             return False
-        self.status.setText(f"Exported {len(run.findings)} findings to {path.name}.")
+        self.status.setText(f"Exported {_count(len(written.findings))} to {path.name}."
+                            + _left_out_text(len(written.left_out)))
         return True
 
     def copy(self) -> None:
@@ -79,7 +80,22 @@ class ExportController(QObject):
         if isinstance(focus, QLineEdit | QTextBrowser):
             focus.copy()
             return
-        if self.findings_panel.copy_selection() is not None:
-            self.status.setText("Copied the selected findings as a table.")
+        copied = self.findings_panel.copy_selection()
+        if copied is not None:
+            self.status.setText(f"Copied {_count(len(copied.findings))} as a table."
+                                + _left_out_text(len(copied.left_out)))
         else:
             self.status.setText("Select rows in Findings to copy them.")
+
+
+def _count(findings: int) -> str:
+    return "1 finding" if findings == 1 else f"{findings} findings"
+
+
+def _left_out_text(left_out: int) -> str:
+    """What the status line adds when findings made with earlier settings were not written."""
+    if not left_out:
+        return ""
+    return (f" {_count(left_out).capitalize()} made with earlier settings "
+            f"{'was' if left_out == 1 else 'were'} left out: run again (F5) to include "
+            f"{'it' if left_out == 1 else 'them'}.")
