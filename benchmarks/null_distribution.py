@@ -22,7 +22,7 @@ import time
 import numpy as np
 from statsmodels.tsa.stattools import adfuller
 
-from tauscope.engine import simulate
+from tauscope.engine.distributions import simulate
 
 
 def time_vectorised(nobs: int, reps: int, seed: int) -> tuple[float, np.ndarray]:

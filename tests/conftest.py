@@ -127,3 +127,11 @@ def run_in_window(qtbot):  # type: ignore[no-untyped-def]
         assert window.last_run is not None
 
     return run
+
+
+def pytest_terminal_summary(terminalreporter: pytest.TerminalReporter, config: pytest.Config) -> None:
+    """Name the shuffled order's seed even under ``-q``, so a failure's order can be repeated
+    with ``--randomly-seed=N`` (or run in file order: ``-p no:randomly``)."""
+    seed = getattr(config.option, "randomly_seed", None)
+    if seed is not None and config.pluginmanager.hasplugin("randomly"):
+        terminalreporter.write_line(f"tests ran in shuffled order: --randomly-seed={seed}")

@@ -13,7 +13,7 @@ import math
 
 import pytest
 
-from tauscope.engine.critical import (
+from tauscope.engine.distributions.critical import (
     normal_lower,
     normal_two_sided,
     phi_critical_value,

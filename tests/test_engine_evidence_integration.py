@@ -18,7 +18,7 @@ import pytest
 import statsmodels.api as sm
 
 from tauscope.engine import Settings, analyse_series
-from tauscope.engine.phillips_perron import phillips_perron
+from tauscope.engine.unitroot.phillips_perron import phillips_perron
 
 INTEGRATED = "critical_values" in {f.name for f in fields(Settings)}
 pytestmark = pytest.mark.skipif(not INTEGRATED, reason="issue-6 Settings fields not integrated yet")

@@ -15,21 +15,16 @@ import numpy as np
 import pandas as pd
 import pytest
 
-from tauscope.engine.adf import estimate
-from tauscope.engine.breaks import zivot_andrews
-from tauscope.engine.critical import tau_critical_value
-from tauscope.engine.evidence import (
-    _power_sentence,
-    alternative_spec,
-    combined_agreement,
-    gather_evidence,
-    reading,
-    settled_difference,
-)
-from tauscope.engine.phillips_perron import phillips_perron
-from tauscope.engine.power import PowerResult
+from tauscope.engine.distributions.critical import tau_critical_value
+from tauscope.engine.distributions.power import PowerResult
+from tauscope.engine.procedure.cross_check import alternative_spec, settled_difference
+from tauscope.engine.procedure.evidence import gather_evidence
+from tauscope.engine.reading.evidence import combined_agreement, power_sentence, reading
 from tauscope.engine.results import TestResult
-from tauscope.engine.sensitivity import recursive_tau
+from tauscope.engine.unitroot.adf import estimate
+from tauscope.engine.unitroot.phillips_perron import phillips_perron
+from tauscope.engine.unitroot.recursive import recursive_tau
+from tauscope.engine.unitroot.zivot_andrews import zivot_andrews
 
 
 def _ar1(n: int, phi: float, seed: int) -> np.ndarray:
@@ -200,9 +195,9 @@ def test_untestable_extra_test_becomes_a_note_not_an_exception() -> None:
 
 
 def test_power_sentence_says_how_informative_not_rejecting_is() -> None:
-    weak = _power_sentence(PowerResult("constant", 120, 2, 0.05, -2.89, (0.90, 0.95), (0.61, 0.24), 2_000))
+    weak = power_sentence(PowerResult("constant", 120, 2, 0.05, -2.89, (0.90, 0.95), (0.61, 0.24), 2_000))
     assert "against a coefficient of 0.95 it rejects only 24% of the time" in weak
     assert "against a coefficient of 0.90 it rejects 61% of the time" in weak
     assert "weak evidence" in weak and "constant only, 2 lags, 5%, 120 observations" in weak
-    strong = _power_sentence(PowerResult("trend", 600, 0, 0.05, -3.42, (0.90, 0.95), (1.0, 0.93), 2_000))
+    strong = power_sentence(PowerResult("trend", 600, 0, 0.05, -3.42, (0.90, 0.95), (1.0, 0.93), 2_000))
     assert "weak evidence" not in strong and "says more than usual" in strong

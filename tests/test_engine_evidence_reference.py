@@ -33,16 +33,16 @@ from statsmodels.tools.sm_exceptions import InterpolationWarning
 from statsmodels.tsa.stattools import kpss
 from statsmodels.tsa.stattools import zivot_andrews as sm_zivot_andrews
 
-from tauscope.engine.breaks import (
+from tauscope.engine.regression.lagchoice import choose_lag, detrend
+from tauscope.engine.unitroot.dfgls import dfgls, dfgls_test, lag_criteria
+from tauscope.engine.unitroot.phillips_perron import newey_west_bandwidth, phillips_perron, pp_test
+from tauscope.engine.unitroot.zivot_andrews import (
     break_profile,
     za_critical_values,
     za_p_value,
     za_test,
     zivot_andrews,
 )
-from tauscope.engine.dfgls import dfgls, dfgls_test, lag_criteria
-from tauscope.engine.lagchoice import choose_lag, detrend
-from tauscope.engine.phillips_perron import newey_west_bandwidth, phillips_perron, pp_test
 
 TOL = 1e-6
 ARCH_TREND: dict[str, Any] = {"none": "n", "constant": "c", "trend": "ct"}  # arch's trend codes

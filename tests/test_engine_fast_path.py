@@ -26,17 +26,14 @@ from statsmodels.datasets import macrodata
 from statsmodels.tools.sm_exceptions import InterpolationWarning
 from statsmodels.tsa.stattools import kpss
 
-from tauscope.engine import (
-    Settings,
-    analyse_many,
-    analyse_series,
-    critical,
-    fast_path,
-    fast_tables,
-    nested,
-)
-from tauscope.engine.kpss_numpy import kpss_fast
-from tauscope.engine.stationarity import kpss_test
+from tauscope.engine import Settings, analyse_many, analyse_series
+from tauscope.engine.distributions import critical
+from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.procedure import fast_path
+from tauscope.engine.procedure.stages import EstimateOptions, plan_for
+from tauscope.engine.regression import nested
+from tauscope.engine.unitroot.kpss import kpss_test
+from tauscope.engine.unitroot.kpss_fast import kpss_fast
 
 ROOT = Path(__file__).resolve().parents[1]
 DEMO = ROOT / "resources" / "demo"
@@ -176,7 +173,7 @@ def test_perfect_fit_goes_to_the_reference_with_the_same_message() -> None:
                                                                          path="reference")
     assert reference.error is not None
     assert_same_result(fast, reference)
-    batch = fast_path.level_batch(x[None, :], 0, Settings(), 5)
+    batch = fast_path.level_batch(x[None, :], 0, plan_for(Settings()).estimate, 5)
     assert batch.declined.tolist() == [True]
 
 
@@ -257,15 +254,15 @@ def test_analyse_many_stops_between_series_when_asked() -> None:
 
 
 def test_analyse_many_streams_in_chunks(monkeypatch: pytest.MonkeyPatch) -> None:
-    from tauscope.engine import many
+    from tauscope.engine.procedure import many
 
     monkeypatch.setattr(many, "CHUNK", 2)
     batches: list[int] = []
     original = fast_path.SeriesBatch.__init__
 
-    def spy(self: fast_path.SeriesBatch, values: list[np.ndarray], settings: Settings) -> None:
+    def spy(self: fast_path.SeriesBatch, values: list[np.ndarray], options: EstimateOptions) -> None:
         batches.append(len(values))
-        original(self, values, settings)
+        original(self, values, options)
 
     monkeypatch.setattr(fast_path.SeriesBatch, "__init__", spy)
     series = _mixed_series()

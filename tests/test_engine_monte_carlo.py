@@ -15,7 +15,7 @@ from __future__ import annotations
 import numpy as np
 
 from tauscope.engine import Settings, analyse_series
-from tauscope.engine.adf import adf_test, estimate
+from tauscope.engine.unitroot.adf import adf_test, estimate
 
 
 def _ar1(rng: np.random.Generator, n: int, phi: float, burn: int = 50) -> np.ndarray:

@@ -10,7 +10,7 @@ import numpy as np
 import pytest
 
 from tauscope.engine import Settings, analyse_series
-from tauscope.engine.critical import normal_lower
+from tauscope.engine.distributions.critical import normal_lower
 
 
 def _ar1(rng: np.random.Generator, n: int, phi: float) -> np.ndarray:

@@ -27,11 +27,8 @@ import pytest
 from arch.unitroot.unitroot import mackinnoncrit as arch_mackinnoncrit
 from statsmodels.tsa.adfvalues import mackinnoncrit
 
-from tauscope.engine import simulate
-from tauscope.engine.adf import adf_test, estimate
-from tauscope.engine.dfgls import dfgls, dfgls_null_distribution, ers_trend_critical_value
-from tauscope.engine.joint import phi_statistic, phi_test
-from tauscope.engine.simulate import (
+from tauscope.engine.distributions import simulate
+from tauscope.engine.distributions.simulate import (
     exact_critical_values,
     exact_p_value,
     exact_phi_critical_values,
@@ -40,6 +37,9 @@ from tauscope.engine.simulate import (
     phi_null_distribution,
     with_exact_values,
 )
+from tauscope.engine.unitroot.adf import adf_test, estimate
+from tauscope.engine.unitroot.dfgls import dfgls, dfgls_null_distribution, ers_trend_critical_value
+from tauscope.engine.unitroot.phi import phi_statistic, phi_test
 
 REPS = 150_000
 SEED = 20261201
@@ -184,7 +184,7 @@ def test_density_picture_integrates_to_one_and_matches_the_normal_density() -> N
     normal density (scipy.stats.norm as the reference)."""
     from scipy.stats import norm
 
-    from tauscope.engine.simulate import density_picture
+    from tauscope.engine.distributions.simulate import density_picture
 
     draws = null_distribution("constant", 100, reps=4_000, seed=SEED)
     picture = density_picture(np.append(draws, np.nan))

@@ -15,9 +15,9 @@ from itertools import pairwise
 import numpy as np
 import pytest
 
-from tauscope.engine.adf import adf_test, estimate
-from tauscope.engine.power import ar1_paths, power_at, rejection_rate, rejection_rates
-from tauscope.engine.simulate import shock_chunks, tau_statistics
+from tauscope.engine.distributions.power import ar1_paths, power_at, rejection_rate, rejection_rates
+from tauscope.engine.distributions.simulate import shock_chunks, tau_statistics
+from tauscope.engine.unitroot.adf import adf_test, estimate
 
 REPS = 8_000
 SEED = 4242

@@ -38,19 +38,30 @@ def simulated_series() -> dict[str, pd.Series]:
     }
 
 
-@functools.lru_cache(maxsize=2)
-def results(alpha: float = 0.05) -> tuple[SeriesResult, ...]:
-    settings = Settings(alpha=alpha)
+def run_settings(alpha: float = 0.05, exact: bool = False,
+                 checks: tuple[str, ...] = ("kpss",)) -> Settings:
+    return Settings(alpha=alpha, critical_values="exact" if exact else "mackinnon",
+                    confirm=checks)
+
+
+@functools.lru_cache(maxsize=4)
+def results(alpha: float = 0.05, exact: bool = False,
+            checks: tuple[str, ...] = ("kpss",)) -> tuple[SeriesResult, ...]:
+    settings = run_settings(alpha, exact, checks)
     return tuple(analyse_series(v, settings, name) for name, v in simulated_series().items())
 
 
-def make_run(alpha: float = 0.05) -> RunRecord:
+def make_run(alpha: float = 0.05, exact: bool = False,
+             checks: tuple[str, ...] = ("kpss",)) -> RunRecord:
+    """The run on the simulated series; ``exact``: critical values simulated at each
+    regression's size; ``checks``: the cross-check tests."""
     findings = tuple(
         Finding(r, file=SOURCE, sheet="Quarterly", column=r.name, frequency="quarterly",
                 key=f"macro quarterly.xlsx|Quarterly|{r.name}|")
-        for r in results(alpha)
+        for r in results(alpha, exact, checks)
     )
-    return RunRecord(Settings(alpha=alpha), (SourceFile(SOURCE, SOURCE_SHA),), findings)
+    return RunRecord(run_settings(alpha, exact, checks), (SourceFile(SOURCE, SOURCE_SHA),),
+                     findings)
 
 
 def tiny_png(width: int = 4, height: int = 3) -> bytes:

@@ -109,3 +109,20 @@ def test_changing_the_settings_marks_findings_out_of_date(analysed):  # type: ig
     assert window.isWindowModified()
     window.apply_settings(before)
     assert not any(OUT_OF_DATE in v for v in verdicts())
+
+
+def test_findings_made_with_other_settings_are_not_exported_as_current(analysed, tmp_path):  # type: ignore[no-untyped-def]
+    window = analysed
+    results = window.findings_panel.model.results()
+    before = window.settings
+    window.apply_settings(Settings(alpha=0.01 if before.alpha != 0.01 else 0.10))
+    assert window.export_findings(tmp_path / "findings.json")
+    data = json.loads((tmp_path / "findings.json").read_text(encoding="utf-8"))
+    assert data["settings"] == window.settings.to_dict()  # the record states the window's settings
+    assert data["series"] == []  # every finding was made at the old level: none passed off
+    assert [item["name"] for item in data["left_out"]] == [r.name for r in results.values()]
+    assert all(item["changed"] == ["alpha"] for item in data["left_out"])
+    window.apply_settings(before)
+    assert window.export_findings(tmp_path / "again.json")
+    data = json.loads((tmp_path / "again.json").read_text(encoding="utf-8"))
+    assert len(data["series"]) == len(results) and data["left_out"] == []

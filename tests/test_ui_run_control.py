@@ -18,21 +18,26 @@ def long_workbook(tmp_path: Path) -> Path:
     return write_workbook(tmp_path / "long.xlsx", simulated_series(80, 200, seed=5))
 
 
+HELD_AFTER = 3  # results the held-back engine delivers before it waits for a stop
+
+
 @pytest.fixture
 def slow_engine(monkeypatch):  # type: ignore[no-untyped-def]
-    """The real engine, held back 30 ms per series so that a run outlasts the test's clicks."""
-    import time
-
+    """The real engine, held back after three series until the run is asked to stop, so the
+    run outlasts the test's clicks however busy the machine is (no timing involved)."""
     import tauscope.ui.worker as worker
 
     real = worker.iter_analyse
 
-    def slow(pairs, settings, should_stop):  # type: ignore[no-untyped-def]
-        for result in real(pairs, settings, should_stop):
-            time.sleep(0.03)
+    def held(pairs, settings, should_stop):  # type: ignore[no-untyped-def]
+        for number, result in enumerate(real(pairs, settings, should_stop)):
             yield result
+            if number + 1 >= HELD_AFTER:
+                gate = threading.Event()
+                while not should_stop() and not gate.wait(0.005):
+                    pass
 
-    monkeypatch.setattr(worker, "iter_analyse", slow)
+    monkeypatch.setattr(worker, "iter_analyse", held)
 
 
 def test_stop_ends_the_run_promptly_and_keeps_finished_results(
@@ -41,12 +46,12 @@ def test_stop_ends_the_run_promptly_and_keeps_finished_results(
     total = len(main_window.series_panel.model.all_series())
     assert main_window.run_series(main_window.series_panel.model.all_series())
     model = main_window.findings_panel.model
-    qtbot.waitUntil(lambda: model.rowCount() >= 3, timeout=30_000)
+    qtbot.waitUntil(lambda: model.rowCount() >= HELD_AFTER, timeout=30_000)
     main_window.stop_action.trigger()
     qtbot.waitUntil(lambda: not main_window.runner.is_running(), timeout=3_000)
     stopped, received = main_window.last_run
     assert stopped is True
-    assert 3 <= received < total
+    assert HELD_AFTER <= received < total
     assert model.rowCount() == received
     assert "Stopped" in main_window.status_label.text()
     # a kept result is the engine's result on the same data
@@ -123,4 +128,7 @@ def test_quitting_during_a_run_exits_cleanly(main_window, open_in_window, qtbot,
     assert main_window.close()
     assert not main_window.runner.is_running()
     assert not main_window.isVisible()
-    qtbot.wait(50)  # queued signals from the ended worker are harmless
+    from PySide6.QtCore import QCoreApplication
+
+    QCoreApplication.sendPostedEvents()  # queued signals from the ended worker are harmless
+    QCoreApplication.processEvents()

@@ -12,35 +12,47 @@ import importlib
 from typing import TYPE_CHECKING, Any
 
 if TYPE_CHECKING:
-    from tauscope.engine.analyse import analyse_series
-    from tauscope.engine.evidence import BreakInfo, Evidence, gather_evidence
-    from tauscope.engine.many import analyse_many, iter_analyse
-    from tauscope.engine.power import PowerResult
-    from tauscope.engine.results import LagPoint, SeriesResult, Step, TestResult, Verdict
-    from tauscope.engine.sensitivity import RecursiveStatistic
+    from tauscope.engine.distributions.simulate import (
+        exact_critical_values,
+        exact_p_value,
+        null_distribution,
+    )
+    from tauscope.engine.procedure.analyse import analyse_series
+    from tauscope.engine.procedure.evidence import gather_evidence
+    from tauscope.engine.procedure.many import analyse_many, iter_analyse
+    from tauscope.engine.results import (
+        BreakInfo,
+        Evidence,
+        LagPoint,
+        PowerResult,
+        RecursiveStatistic,
+        SeriesResult,
+        Step,
+        TestResult,
+        Verdict,
+    )
     from tauscope.engine.settings import LAG_RULE_LABELS, LAG_RULES, Settings
-    from tauscope.engine.simulate import exact_critical_values, exact_p_value, null_distribution
 
 _WHERE = {
-    "analyse_series": "analyse",
-    "BreakInfo": "evidence",
-    "Evidence": "evidence",
-    "gather_evidence": "evidence",
-    "analyse_many": "many",
-    "iter_analyse": "many",
-    "PowerResult": "power",
+    "analyse_series": "procedure.analyse",
+    "BreakInfo": "results",
+    "Evidence": "results",
+    "gather_evidence": "procedure.evidence",
+    "analyse_many": "procedure.many",
+    "iter_analyse": "procedure.many",
+    "PowerResult": "results",
     "LagPoint": "results",
     "SeriesResult": "results",
     "Step": "results",
     "TestResult": "results",
     "Verdict": "results",
-    "RecursiveStatistic": "sensitivity",
+    "RecursiveStatistic": "results",
     "LAG_RULE_LABELS": "settings",
     "LAG_RULES": "settings",
     "Settings": "settings",
-    "exact_critical_values": "simulate",
-    "exact_p_value": "simulate",
-    "null_distribution": "simulate",
+    "exact_critical_values": "distributions.simulate",
+    "exact_p_value": "distributions.simulate",
+    "null_distribution": "distributions.simulate",
 }
 
 __all__ = [

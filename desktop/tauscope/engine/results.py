@@ -1,19 +1,17 @@
-"""Frozen result objects.  The window, the reports and the command line all
-read these, so a number shown anywhere is the same number (DESIGN.md §2)."""
+"""Frozen result objects, plain data.  The window, the reports and the command line all
+read these, so a number shown anywhere is the same number (DESIGN.md §2).
+
+This module imports none of the tests, the regressions or the simulation: every
+module of the engine may import it, and it imports nothing of the engine."""
 
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
-from typing import TYPE_CHECKING, Any
+from dataclasses import asdict, dataclass, field
+from typing import Any
 
 import numpy as np
 import pandas as pd
-
-from tauscope.engine.regression import Regression
-
-if TYPE_CHECKING:
-    from tauscope.engine.evidence import Evidence
 
 
 def _num(value: float | None) -> float | None:
@@ -21,6 +19,63 @@ def _num(value: float | None) -> float | None:
         return None
     value = float(value)
     return value if math.isfinite(value) else None
+
+
+@dataclass(frozen=True)
+class Coefficient:
+    name: str
+    estimate: float
+    std_error: float
+    t_value: float
+
+    def to_dict(self) -> dict[str, Any]:
+        return asdict(self)
+
+
+@dataclass(frozen=True)
+class Regression:
+    """An estimated ADF regression: coefficients, σ̂², RSS, sample and lag choice.
+
+    ``design`` and ``response`` are kept for charts (the fitted deterministic
+    part); they are not part of ``to_dict()``.
+    """
+
+    spec: str
+    difference: int
+    lags: int
+    lag_rule: str
+    max_lags: int
+    nobs: int
+    first_observation: int
+    coefficients: tuple[Coefficient, ...]
+    sigma2: float
+    rss: float
+    lag_criteria: tuple[float, ...] = ()
+    design: np.ndarray = field(default_factory=lambda: np.empty((0, 0)), compare=False, repr=False)
+    response: np.ndarray = field(default_factory=lambda: np.empty(0), compare=False, repr=False)
+
+    def coefficient(self, name: str) -> Coefficient:
+        for coef in self.coefficients:
+            if coef.name == name:
+                return coef
+        raise KeyError(name)
+
+    @property
+    def gamma(self) -> Coefficient:
+        return self.coefficient("y(t-1)")
+
+    @property
+    def tau(self) -> float:
+        return self.gamma.t_value
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "spec": self.spec, "difference": self.difference, "lags": self.lags,
+            "lag_rule": self.lag_rule, "max_lags": self.max_lags, "nobs": self.nobs,
+            "first_observation": self.first_observation,
+            "coefficients": [c.to_dict() for c in self.coefficients],
+            "sigma2": self.sigma2, "rss": self.rss, "lag_criteria": list(self.lag_criteria),
+        }
 
 
 @dataclass(frozen=True)
@@ -113,14 +168,7 @@ class Verdict:
     text: str
 
     def to_dict(self) -> dict[str, Any]:
-        return {
-            "order": self.order,
-            "deterministic": self.deterministic,
-            "unit_root": self.unit_root,
-            "agreement": self.agreement,
-            "label": self.label,
-            "text": self.text,
-        }
+        return asdict(self)
 
 
 EMPTY_VERDICT = Verdict(None, None, None, None, "Not tested", "The series could not be tested.")
@@ -199,3 +247,151 @@ def failed_result(name: str, message: str, settings: dict[str, Any]) -> SeriesRe
     """The result of a series that could not be tested: ``message`` is its one sentence."""
     return SeriesResult(name=name, nobs=0, error=message, verdict=EMPTY_VERDICT, steps=(), tests=(),
                         notes=(message,), settings=dict(settings))
+
+
+@dataclass(frozen=True)
+class LevelTests:
+    """Every test computed on Δ^d y: the ADF for each spec and the Φ statistics."""
+
+    difference: int
+    adf: dict[str, TestResult]
+    phi: dict[str, TestResult]
+
+
+@dataclass(frozen=True)
+class PowerResult:
+    """Simulated rejection rates of τ at ``alpha`` against AR(1) coefficients."""
+
+    spec: str
+    nobs: int
+    lags: int
+    alpha: float
+    critical_value: float
+    coefficients: tuple[float, ...]
+    rates: tuple[float, ...]
+    reps: int
+
+    def rate(self, coefficient: float) -> float:
+        for c, r in zip(self.coefficients, self.rates, strict=True):
+            if abs(c - coefficient) < 1e-12:
+                return r
+        raise KeyError(coefficient)
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "spec": self.spec, "nobs": self.nobs, "lags": self.lags, "alpha": self.alpha,
+            "critical_value": self.critical_value, "reps": self.reps,
+            "power": {f"{c:.2f}": r for c, r in zip(self.coefficients, self.rates, strict=True)},
+        }
+
+
+@dataclass(frozen=True)
+class RecursiveStatistic:
+    """τ on expanding windows: ``ends`` are 0-based positions of each window's last value."""
+
+    spec: str
+    lags: int
+    ends: np.ndarray
+    nobs: np.ndarray
+    statistics: np.ndarray
+    critical_values: np.ndarray
+    alpha: float
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "spec": self.spec, "lags": self.lags, "alpha": self.alpha,
+            "ends": [int(e) for e in self.ends],
+            "statistics": [float(v) for v in self.statistics],
+            "critical_values": [float(v) for v in self.critical_values],
+        }
+
+
+@dataclass(frozen=True)
+class PhillipsPerron:
+    """Both Phillips-Perron statistics and the pieces behind them."""
+
+    spec: str
+    z_tau: float
+    z_alpha: float
+    rho: float
+    nobs: int
+    bandwidth: int
+    short_run_variance: float  # γ0
+    long_run_variance: float  # λ²
+
+
+@dataclass(frozen=True)
+class DFGLS:
+    """The DF-GLS statistic, its lag choice and the GLS-detrended series."""
+
+    spec: str
+    statistic: float
+    lags: int
+    lag_rule: str
+    max_lags: int
+    nobs: int
+    detrended: np.ndarray
+
+
+@dataclass(frozen=True)
+class BreakInfo:
+    """Where the Zivot-Andrews search put the break, in the series' own dates.
+
+    ``position`` is the last observation (0-based, in the levels) of the old
+    regime, ``first_new`` the first of the new one; labels come from the index.
+    """
+
+    model: str
+    description: str
+    position: int
+    first_new: int
+    last_old_label: str
+    first_new_label: str
+    statistic: float
+    critical_value: float
+    reject: bool
+    difference: int
+
+    def to_dict(self) -> dict[str, Any]:
+        return asdict(self)
+
+
+@dataclass(frozen=True)
+class Evidence:
+    """The cross-checks beyond KPSS and their reading; ``tests`` join ``SeriesResult.tests``."""
+
+    difference: int
+    spec: str
+    tests: tuple[TestResult, ...]
+    notes: tuple[str, ...]
+    reading: str | None
+    agreement: str | None
+    break_info: BreakInfo | None = None
+    power: PowerResult | None = None
+    recursive: RecursiveStatistic | None = None
+    phillips_perron: PhillipsPerron | None = field(default=None, compare=False)
+    z_alpha_critical_values: dict[str, float] | None = None
+    dfgls: DFGLS | None = field(default=None, compare=False, repr=False)
+    problems: tuple[str, ...] = ()
+
+    def find(self, test: str) -> TestResult | None:
+        return next((t for t in self.tests if t.test == test), None)
+
+    def to_dict(self) -> dict[str, Any]:
+        pp = self.phillips_perron
+        return {
+            "difference": self.difference,
+            "spec": self.spec,
+            "reading": self.reading,
+            "agreement": self.agreement,
+            "break": self.break_info.to_dict() if self.break_info else None,
+            "power": self.power.to_dict() if self.power else None,
+            "recursive": self.recursive.to_dict() if self.recursive else None,
+            "phillips_perron": None if pp is None else {
+                "z_tau": pp.z_tau, "z_alpha": pp.z_alpha, "bandwidth": pp.bandwidth,
+                "long_run_variance": pp.long_run_variance,
+                "short_run_variance": pp.short_run_variance,
+                "z_alpha_critical_values": self.z_alpha_critical_values,
+            },
+            "problems": list(self.problems),
+        }

@@ -14,7 +14,7 @@ from pathlib import Path
 
 from tauscope.report.json_export import run_to_json, write_json
 from tauscope.report.ownership import is_own_report, same_file
-from tauscope.report.run import Charts, Finding, RunRecord, SourceFile
+from tauscope.report.run import Charts, Finding, LeftOut, RunRecord, SourceFile
 
 Writer = Callable[[Path, RunRecord, Charts | None], None]
 
@@ -56,13 +56,16 @@ class ExportError(Exception):
     """A findings file could not be written; the message says which and why."""
 
 
-def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> None:
-    """Write ``run`` to ``path`` in the format its suffix names.
+def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> RunRecord:
+    """Write ``run`` to ``path`` in the format its suffix names; return the record written.
 
-    ``charts``: optional PNG bytes per series (keyed by ``Finding.key`` or series
-    name), used by .xlsx, .html and .pdf.  Raises :class:`ExportError` with one
-    sentence for an unknown suffix, a file that cannot be written, or a target that is
-    one of the run's input files (never written over; see :mod:`.ownership`).
+    Findings made with other settings than ``run.settings`` are never written as current:
+    they move to the record's ``left_out`` (:meth:`RunRecord.current`), which every report
+    lists with a visible note.  ``charts``: optional PNG bytes per series (keyed by
+    ``Finding.key`` or series name), used by .xlsx, .html and .pdf.  Raises
+    :class:`ExportError` with one sentence for an unknown suffix, a file that cannot be
+    written, or a target that is one of the run's input files (never written over; see
+    :mod:`.ownership`).
     """
     target = Path(path)
     writer = WRITERS.get(target.suffix.lower())
@@ -76,10 +79,12 @@ def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> No
     if not target.parent.is_dir():
         raise ExportError(f"{target}: could not be written (the folder {target.parent} does not "
                           "exist)")
+    record = run.current()
     try:
-        writer(target, run, charts)
+        writer(target, record, charts)
     except OSError as exc:
         raise ExportError(f"{target}: could not be written ({exc.strerror or exc})") from exc
+    return record
 
 
 __all__ = [
@@ -87,6 +92,7 @@ __all__ = [
     "Charts",
     "ExportError",
     "Finding",
+    "LeftOut",
     "RunRecord",
     "SourceFile",
     "export",

@@ -14,14 +14,17 @@ from pathlib import Path
 
 from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
-from tauscope.report.methods import methods_for
+from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, Finding, RunRecord, chart_for
 from tauscope.report.tables import (
     MARKER_NOTE,
+    NORMAL_NOTE,
+    Column,
     Table,
     Value,
     compact_table,
     lag_rule_label,
+    normal_step,
     path_table,
 )
 from tauscope.report.text_safety import html_text
@@ -32,7 +35,11 @@ ImageSource = Callable[[int, bytes], str]
 CHART_WIDTH = 620
 PATH_WIDTHS = {"step": 6, "on": 11, "regression": 12, "hypothesis": 24, "symbol": 9, "value": 9,
                "critical": 9, "p_value": 9, "decision": 11}
-SUMMARY_WIDTHS = {"series": 13, "verdict": 14, "nobs": 6, "span": 12, "agreement": 11}
+SUMMARY_WIDTHS = {"series": 13, "verdict": 14, "nobs": 6, "span": 11, "kpss": 14,
+                  "agreement": 11}
+ONE_LINE_EACH = {"kpss"}
+"""Columns whose "; "-separated items each get a line of their own that never wraps
+(a KPSS value with the difference it was computed on)."""
 
 STYLE = """
 body { font-family: 'Segoe UI', 'Helvetica Neue', Arial, sans-serif; font-size: 10.5pt;
@@ -47,6 +54,7 @@ th { font-size: 9pt; background-color: #2f5d62; color: #ffffff; font-weight: bol
 td { padding: 3px 8px; border-bottom: 1px solid #d5dfe0; vertical-align: top; }
 td.num { text-align: right; }
 p.meta { color: #55606a; margin: 0.1em 0; }
+p.left-out { color: #8a3b12; }
 p.note { color: #55606a; font-style: italic; font-size: 9pt; }
 p.verdict { font-size: 11.5pt; font-weight: bold; color: #2f5d62; margin: 0.2em 0; }
 span.reject { color: #8a3b12; }
@@ -74,21 +82,41 @@ def _format(value: Value, kind: str) -> str:
     return str(value)
 
 
-def table_html(table: Table, css_class: str, widths: dict[str, int] | None = None) -> str:
-    """A table with header; numeric columns right-aligned; ``widths`` in percent by column."""
+def _cell(column: Column, value: Value) -> str:
+    numeric = column.kind in ("stat", "p", "int")
+    attr = ' class="num" align="right"' if numeric else ""
+    text = _format(value, column.kind)
+    if column.ident in ONE_LINE_EACH:
+        inner = "<br>".join(_esc(item).replace(" ", "&nbsp;") for item in text.split("; "))
+    else:
+        inner = _esc(text)
+    return f"<td{attr}>{inner}</td>"
+
+
+def table_html(table: Table, css_class: str, widths: dict[str, int] | None = None,
+               note_column: str | None = None) -> str:
+    """A table with header; numeric columns right-aligned; ``widths`` in percent by column.
+
+    ``note_column``: a column shown only where it has text (why a series could not be
+    tested), as one cell spanning the statistics of that row instead of a narrow column.
+    """
     widths = widths or {}
+    note = next((i for i, c in enumerate(table.columns) if c.ident == note_column), None)
+    shown = [i for i in range(len(table.columns)) if i != note]
     head = "".join(
         f'<th width="{widths[c.ident]}%">{_esc(c.header)}</th>' if c.ident in widths
         else f"<th>{_esc(c.header)}</th>"
-        for c in table.columns
+        for c in (table.columns[i] for i in shown)
     )
+    first_stat = next((k for k, i in enumerate(shown)
+                       if table.columns[i].kind in ("stat", "p")), len(shown))
     body = []
     for row in table.rows:
-        cells = []
-        for column, value in zip(table.columns, row, strict=True):
-            numeric = column.kind in ("stat", "p", "int")
-            attr = ' class="num" align="right"' if numeric else ""
-            cells.append(f"<td{attr}>{_esc(_format(value, column.kind))}</td>")
+        if note is not None and row[note]:
+            cells = [_cell(table.columns[i], row[i]) for i in shown[:first_stat]]
+            cells.append(f'<td colspan="{len(shown) - first_stat}">{_esc(row[note])}</td>')
+        else:
+            cells = [_cell(table.columns[i], row[i]) for i in shown]
         body.append("<tr>" + "".join(cells) + "</tr>")
     return (f'<table class="{css_class}" cellspacing="0" cellpadding="4">'
             f"<thead><tr>{head}</tr></thead><tbody>{''.join(body)}</tbody></table>")
@@ -120,6 +148,13 @@ def _merge_markers(table: Table) -> Table:
             out.append(text)
         rows.append(tuple(out))
     return Table(columns, tuple(rows))
+
+
+def _normal_note(run: RunRecord) -> str:
+    """The note on † when a τ in the summary was judged against the standard normal."""
+    if any(normal_step(f.result, d) is not None for f in run.findings for d in range(3)):
+        return " " + _esc(NORMAL_NOTE)
+    return ""
 
 
 def _origin(finding: Finding) -> str:
@@ -167,7 +202,8 @@ def run_to_html(run: RunRecord, charts: Charts | None = None,
     sources = "; ".join(f"{s.name} (SHA-256 {s.sha256[:16]}…)" for s in run.sources)
     meta = (f"Tauscope {run.version} · {run.created} · {len(run.findings)} series · "
             f"significance level {fmt.percent(settings.alpha)} · lag rule: "
-            f"{lag_rule_label(settings)}")
+            f"{lag_rule_label(settings)} · critical values: {critical_words(run)} · "
+            f"tests that ran: {tests_words(run)}")
     parts = [
         "<!DOCTYPE html>",
         '<html lang="en"><head><meta charset="utf-8">',
@@ -178,10 +214,13 @@ def run_to_html(run: RunRecord, charts: Charts | None = None,
     ]
     if sources:
         parts.append(f'<p class="meta">Data: {_esc(sources)}</p>')
+    left = left_out_note(run)
+    if left is not None:
+        parts.append(f'<p class="left-out"><b>{_esc(left)}</b></p>')
     parts += ["<h2>Summary</h2>", table_html(_merge_markers(compact_table(run)), "summary",
-                                                SUMMARY_WIDTHS),
+                                                SUMMARY_WIDTHS, note_column="error"),
               f'<p class="note">{_esc(MARKER_NOTE)} Terms: ct constant and trend, c constant, '
-              "n none; then the lag order.</p>",
+              f"n none; then the lag order.{_normal_note(run)}</p>",
               "<h2>Series</h2>"]
     index = 0
     for number, finding in enumerate(run.findings, start=1):

@@ -1,7 +1,9 @@
 """JSON findings (DESIGN.md §3): {"tauscope", "settings", "source", "series", ...}.
 
 Each entry of "series" is exactly ``SeriesResult.to_dict()``; where each series
-came from is kept alongside in "origins" (same order).
+came from is kept alongside in "origins" (same order).  "critical_values" ("tables" or
+"simulated") and "tests_run" describe the run; "left_out" lists the findings kept out
+because they were made with other settings.
 """
 
 from __future__ import annotations
@@ -24,6 +26,10 @@ def run_to_json(run: RunRecord) -> dict[str, Any]:
         "sources": sources,
         "series": [f.result.to_dict() for f in run.findings],
         "origins": [f.origin() for f in run.findings],
+        "critical_values": run.critical_value_source,
+        "tests_run": list(run.tests_run),
+        "left_out": [{"name": f.name, "key": f.key, "changed": list(f.changed), "reason": f.reason}
+                     for f in run.left_out],
     }
 
 

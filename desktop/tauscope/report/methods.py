@@ -18,6 +18,8 @@ REFERENCES = {
     "Association 74(366), 427–431.",
     "df1981": "Dickey, D.A. & Fuller, W.A. (1981), “Likelihood Ratio Statistics for "
     "Autoregressive Time Series with a Unit Root”, Econometrica 49(4), 1057–1072.",
+    "ers1996": "Elliott, G., Rothenberg, T.J. & Stock, J.H. (1996), “Efficient Tests for an "
+    "Autoregressive Unit Root”, Econometrica 64(4), 813–836.",
     "dp1987": "Dickey, D.A. & Pantula, S.G. (1987), “Determining the Order of Differencing in "
     "Autoregressive Processes”, Journal of Business & Economic Statistics 5(4), 455–461.",
     "djs1990": "Dolado, J.J., Jenkinson, T. & Sosvilla-Rivero, S. (1990), “Cointegration and "
@@ -34,15 +36,22 @@ REFERENCES = {
     "Cointegration Tests”, Journal of Applied Econometrics 11(6), 601–618.",
     "mk2010": "MacKinnon, J.G. (2010), “Critical Values for Cointegration Tests”, Queen’s "
     "Economics Department Working Paper No. 1227, Queen’s University, Kingston, Ontario.",
+    "nw1994": "Newey, W.K. & West, K.D. (1994), “Automatic Lag Selection in Covariance Matrix "
+    "Estimation”, Review of Economic Studies 61(4), 631–653.",
     "np1995": "Ng, S. & Perron, P. (1995), “Unit Root Tests in ARMA Models with Data-Dependent "
     "Methods for the Selection of the Truncation Lag”, Journal of the American Statistical "
     "Association 90(429), 268–281.",
     "np2001": "Ng, S. & Perron, P. (2001), “Lag Length Selection and the Construction of Unit "
     "Root Tests with Good Size and Power”, Econometrica 69(6), 1519–1554.",
+    "pp1988": "Phillips, P.C.B. & Perron, P. (1988), “Testing for a Unit Root in Time Series "
+    "Regression”, Biometrika 75(2), 335–346.",
     "sd1984": "Said, S.E. & Dickey, D.A. (1984), “Testing for Unit Roots in "
     "Autoregressive-Moving Average Models of Unknown Order”, Biometrika 71(3), 599–607.",
     "schwert1989": "Schwert, G.W. (1989), “Tests for Unit Roots: A Monte Carlo Investigation”, "
     "Journal of Business & Economic Statistics 7(2), 147–159.",
+    "za1992": "Zivot, E. & Andrews, D.W.K. (1992), “Further Evidence on the Great Crash, the "
+    "Oil-Price Shock, and the Unit-Root Hypothesis”, Journal of Business & Economic Statistics "
+    "10(3), 251–270.",
     "west1988": "West, K.D. (1988), “Asymptotic Normality, When Regressors Have a Unit Root”, "
     "Econometrica 56(6), 1397–1417.",
 }
@@ -109,12 +118,119 @@ def _lag_sentence(run: RunRecord, cited: set[str]) -> str:
             "re-estimated on the longest sample its lag order allows.")
 
 
+def _critical_sentence(run: RunRecord, a: str) -> str:
+    """Where the critical values and p-values came from: the published tables, or nulls
+    simulated at each regression's own size (``Settings.critical_values == "exact"``)."""
+    if run.simulated_critical_values:
+        return (
+            " Critical values and p-values of τ and of Φ1, Φ2 and Φ3 were simulated for this run: "
+            "for each regression, its statistic's null distribution under a driftless Gaussian "
+            "random walk was drawn at the regression's own number of observations and lag order "
+            "(with a fixed seed, so the same data give the same values), instead of the published "
+            "tables; a regression too short to simulate kept the published values (MacKinnon "
+            "2010 for τ; Dickey & Fuller 1981, Tables IV–VI, for Φ). "
+            f"Every test in the sequence used the {a} significance level."
+        )
+    return (
+        " Critical values of τ are MacKinnon’s (2010) finite-sample response surfaces and its "
+        "p-values MacKinnon’s approximate distribution functions (MacKinnon 1994, 1996); critical "
+        "values of Φ1, Φ2 and Φ3 are from Dickey & Fuller (1981, Tables IV–VI), interpolated in "
+        f"the sample size. Every test in the sequence used the {a} significance level."
+    )
+
+
+def _cross_checks(run: RunRecord, a: str, cited: set[str]) -> list[str]:
+    """A paragraph on KPSS and one on the other checks, each naming only what ran (read from
+    the tests and the evidence in the findings)."""
+    ran = set(run.tests_run)
+    simulated = run.simulated_critical_values
+    out: list[str] = []
+    more: list[str] = []
+    if "kpss" in ran:
+        cited.update({"kpss1992", "hfo2004"})
+        out.append(
+            "As a cross-check, the verdict was confronted with the KPSS test (Kwiatkowski, "
+            "Phillips, Schmidt & Shin 1992), whose null hypothesis is stationarity, with the "
+            "automatic bandwidth of Hobijn, Franses & Ooms (2004) and the Bartlett kernel, at "
+            f"the same {a} level; a verdict is “confirmed” when both kinds of test point the "
+            "same way."
+        )
+    where = ("on the difference where the verdict was settled, with the deterministic terms "
+             "of the stationary alternative it competes with")
+    if "pp" in ran:
+        cited.update({"pp1988", "nw1994"})
+        source = ("simulated at the same sample size" if simulated
+                  else "MacKinnon’s (2010) values for τ")
+        more.append(
+            f"The Phillips-Perron Zτ test (Phillips & Perron 1988) ran {where}; it corrects for "
+            "serial correlation with a Bartlett long-run variance (bandwidth by the Newey & West "
+            f"1994 rule) instead of lagged differences; critical values: {source}."
+        )
+    if "dfgls" in ran:
+        cited.add("ers1996")
+        source = ("simulated at the same sample size" if simulated
+                  else "MacKinnon (2010) without deterministic terms for a mean, Elliott, "
+                  "Rothenberg & Stock (1996, Table 1) for a trend")
+        more.append(
+            f"The DF-GLS test (Elliott, Rothenberg & Stock 1996) ran {where}, after GLS "
+            f"detrending; critical values: {source}."
+        )
+    if "za" in ran:
+        cited.add("za1992")
+        more.append(
+            f"The Zivot-Andrews test (Zivot & Andrews 1992), which lets one break at a date "
+            f"chosen from the data enter the alternative, ran {where}; its critical values are "
+            "simulated quantiles for a long series (100,000 replications of 2,000 observations)."
+        )
+    powers = [f.result.evidence.power for f in run.findings
+              if f.result.evidence is not None and f.result.evidence.power is not None]
+    if powers:
+        coefficients = sorted({float(c) for p in powers for c in p.coefficients})
+        listed = " and ".join(f"{c:.2f}" for c in coefficients)
+        more.append(
+            "The power of the deciding τ at each series’ own length was simulated against "
+            f"stationary AR(1) processes with coefficient {listed}, with the critical value the "
+            "sequence used."
+        )
+    if more:
+        out.append(" ".join(more))
+    return out
+
+
+def left_out_note(run: RunRecord) -> str | None:
+    """The visible note on findings kept out of the report (made with other settings)."""
+    if not run.left_out:
+        return None
+    count = len(run.left_out)
+    return (f"Not in this report ({count} series analysed with other settings than the ones "
+            "stated here): " + "; ".join(item.reason for item in run.left_out) + ".")
+
+
+def tests_words(run: RunRecord) -> str:
+    """The tests that ran, as a reader names them: "ADF τ, Φ1, Φ3, KPSS"."""
+    names = {"adf": "ADF τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "kpss": "KPSS",
+             "pp": "Phillips-Perron", "dfgls": "DF-GLS", "za": "Zivot-Andrews"}
+    return ", ".join(names.get(t, t) for t in run.tests_run) or "none"
+
+
+def critical_words(run: RunRecord) -> str:
+    """The source of critical values in a few words (for the "About this run" block)."""
+    if run.simulated_critical_values:
+        return "simulated at each regression's own size and lag order"
+    return "published tables (MacKinnon 2010; Dickey & Fuller 1981)"
+
+
 def methods_for(run: RunRecord) -> Methods:
-    """The methods paragraph and reference list for this run."""
+    """The methods paragraph and reference list for this run, read from its record: the
+    settings, the source of critical values, and the tests that ran."""
     settings = run.settings
     a = fmt.percent(settings.alpha)
-    cited = {"df1979", "df1981", "sd1984", "mk1994", "mk1996", "mk2010", "djs1990", "dp1987",
-             "west1988"}
+    cited = {"df1979", "df1981", "sd1984", "djs1990", "west1988"}
+    if not run.simulated_critical_values:
+        cited.update({"mk1994", "mk1996"})
+    cited.add("mk2010")
+    if settings.max_difference > 0:
+        cited.add("dp1987")
     n = len(run.findings)
     d = settings.max_difference
     highest = {0: "the levels only", 1: "the first difference",
@@ -137,22 +253,7 @@ def methods_for(run: RunRecord) -> Methods:
             f"Pantula 1987): testing started on {highest} and moved to the next lower "
             "difference only while the unit root was rejected."
         )
-    second = (
-        _lag_sentence(run, cited)
-        + " Critical values of τ are MacKinnon’s (2010) finite-sample response surfaces and its "
-        "p-values MacKinnon’s approximate distribution functions (MacKinnon 1994, 1996); critical "
-        "values of Φ1, Φ2 and Φ3 are from Dickey & Fuller (1981, Tables IV–VI), interpolated in "
-        f"the sample size. Every test in the sequence used the {a} significance level."
-    )
-    paragraphs = [first, second]
-    if "kpss" in settings.confirm:
-        cited.update({"kpss1992", "hfo2004"})
-        paragraphs.append(
-            "As a cross-check, the verdict was confronted with the KPSS test (Kwiatkowski, "
-            "Phillips, Schmidt & Shin 1992), whose null hypothesis is stationarity, with the "
-            "automatic bandwidth of Hobijn, Franses & Ooms (2004) and the Bartlett kernel, at "
-            f"the same {a} level; a verdict is “confirmed” when both kinds of test point the "
-            "same way."
-        )
+    second = _lag_sentence(run, cited) + _critical_sentence(run, a)
+    paragraphs = [first, second, *_cross_checks(run, a, cited)]
     paragraphs.append(CAUTION)
     return Methods(tuple(paragraphs), tuple(sorted(REFERENCES[key] for key in cited)))

@@ -12,10 +12,11 @@ own formatting; floats are the engine's numbers, unrounded.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from statistics import NormalDist
 
 from tauscope.engine import LAG_RULE_LABELS, SeriesResult, Settings, Step, TestResult
 from tauscope.engine import formatting as fmt
-from tauscope.engine.design import SPEC_LABELS
+from tauscope.engine.regression.design import SPEC_LABELS
 from tauscope.report.run import Finding, RunRecord
 
 Value = str | int | float | None
@@ -37,6 +38,7 @@ AGREEMENT_WORDS = {
     "inconclusive": "inconclusive",
 }
 MARKER_LEVELS = (("1%", "***"), ("5%", "**"), ("10%", "*"))
+_NORMAL = NormalDist()
 MARKER_NOTE = (
     "Significance: *** 1%, ** 5%, * 10% (ADF τ below, KPSS above the critical value at that "
     "level; τ critical values from MacKinnon 2010, KPSS from Kwiatkowski et al. 1992)."
@@ -105,6 +107,43 @@ def deciding_tau(result: SeriesResult, difference: int) -> TestResult | None:
     """The ADF test of the last τ step the sequence took on this difference."""
     steps = [s for s in tau_steps(result) if s.difference == difference]
     return steps[-1].test if steps else None
+
+
+NORMAL_MARK = "†"
+NORMAL_NOTE = ("† τ compared with the standard normal, because a trend or drift was found to "
+               "belong (West 1988); its stars then use the normal's critical values.")
+
+
+def normal_step(result: SeriesResult, difference: int) -> Step | None:
+    """The step that judged this difference's deciding τ against the standard normal (the
+    sequence does so once Φ3 or Φ1 finds a trend or drift; West 1988), if it did: a "z" step
+    on the same regression whose statistic is that τ (the other "z" steps test a trend's or a
+    constant's own t)."""
+    test = deciding_tau(result, difference)
+    if test is None:
+        return None
+    return next((s for s in result.steps if s.statistic_name == "z" and s.difference == difference
+                 and s.test is test and s.statistic == test.statistic), None)
+
+
+def normal_marker(statistic: float) -> str:
+    """*** / ** / * when a lower-tail test rejects at 1% / 5% / 10% against the standard normal
+    (−2.326, −1.645, −1.282)."""
+    for level, mark in MARKER_LEVELS:
+        if statistic < _NORMAL.inv_cdf(float(level.rstrip("%")) / 100):
+            return mark
+    return ""
+
+
+def tau_marker(result: SeriesResult, difference: int) -> str:
+    """The deciding τ's stars, by the critical values the sequence judged it with, and
+    :data:`NORMAL_MARK` when those were the standard normal's."""
+    test = deciding_tau(result, difference)
+    if test is None:
+        return ""
+    if normal_step(result, difference) is not None:
+        return normal_marker(test.statistic) + NORMAL_MARK
+    return marker(test)
 
 
 def kpss_tests(result: SeriesResult) -> dict[int, TestResult]:
@@ -227,7 +266,7 @@ def compact_table(run: RunRecord) -> Table:
             if test is None:
                 row += [None, "", ""]
             else:
-                row += [test.statistic, marker(test), f"{SPEC_CODES[test.spec]}, {test.lags}"]
+                row += [test.statistic, tau_marker(result, d), f"{SPEC_CODES[test.spec]}, {test.lags}"]
         kpss = "; ".join(
             f"{fmt.stat(t.statistic, 3)}{marker(t)} ({DIFFERENCE_SHORT[t.difference]})"
             for t in kpss_tests(result).values()
@@ -269,7 +308,8 @@ TEST_COLUMNS = (
 def tests_table(run: RunRecord) -> Table:
     """Every test of every series, one per row (engine codes in ``test`` and ``spec``).
 
-    A series that could not be tested gets one row with its problem and no test.
+    A series that could not be tested gets one row with its problem and no test; so does
+    a finding left out of the run because it was made with other settings.
     """
     rows = []
     for finding in run.findings:
@@ -302,6 +342,9 @@ def tests_table(run: RunRecord) -> Table:
                 "yes" if id(test) in in_path else "no",
                 "",
             ))
+    for left in run.left_out:  # made with other settings: named, with why, never as numbers
+        rows.append((left.name, "", "", "", left.key or "",
+                     *([None] * (len(TEST_COLUMNS) - 6)), left.reason))
     return Table(TEST_COLUMNS, tuple(rows))
 
 

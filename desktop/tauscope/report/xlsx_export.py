@@ -27,7 +27,7 @@ from openpyxl.utils import get_column_letter
 from openpyxl.worksheet.worksheet import Worksheet
 
 from tauscope.report.atomic import write_bytes_atomic
-from tauscope.report.methods import methods_for
+from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, RunRecord, chart_for
 from tauscope.report.safety import looks_like_formula
 from tauscope.report.tables import (
@@ -118,6 +118,11 @@ def _summary(sheet: Worksheet, run: RunRecord) -> None:
     note = sheet.cell(row=len(table.rows) + 3, column=1)
     put(note, MARKER_NOTE)
     note.font = NOTE_FONT
+    left = left_out_note(run)
+    if left is not None:
+        cell = sheet.cell(row=len(table.rows) + 4, column=1)
+        put(cell, left)
+        cell.font = Font(bold=True, color="8A3B12")
     sheet.row_dimensions[1].height = 32
 
 
@@ -159,7 +164,7 @@ def _paths(sheet: Worksheet, run: RunRecord) -> None:
 
 def about_rows(run: RunRecord) -> list[tuple[str, Value]]:
     settings = run.settings
-    return [
+    rows: list[tuple[str, Value]] = [
         ("Program", "Tauscope"),
         ("Version", run.version),
         ("Created (UTC)", run.created),
@@ -169,8 +174,14 @@ def about_rows(run: RunRecord) -> list[tuple[str, Value]]:
          else "Schwert (1989) rule, floor(12 (T/100)^(1/4))"),
         ("Highest difference tested", settings.max_difference),
         ("Confirmation tests", ", ".join(t.upper() for t in settings.confirm) or "none"),
+        ("Critical values", critical_words(run)),
+        ("Tests that ran", tests_words(run)),
         ("Series", len(run.findings)),
     ]
+    note = left_out_note(run)
+    if note is not None:
+        rows.append(("Left out", note))
+    return rows
 
 
 def _about(sheet: Worksheet, run: RunRecord) -> None:

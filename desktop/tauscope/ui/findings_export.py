@@ -7,7 +7,6 @@ The writers themselves are ``tauscope.report`` 's (``export``): the window and
 
 from __future__ import annotations
 
-import contextlib
 from collections.abc import Callable, Iterable, Mapping
 from typing import TYPE_CHECKING, Any
 
@@ -21,7 +20,7 @@ from tauscope.report.html_export import CHART_WIDTH
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData, Workbook
-    from tauscope.ui.chart_panel import ChartPanel
+    from tauscope.ui.charts.panel import ChartPanel
 
 EXPORT_FILTERS = (
     ("Excel workbook", ".xlsx"),
@@ -53,7 +52,10 @@ def build_run(results: Mapping[str, SeriesResult], series_for_key: Callable[[str
     """The findings on screen (in row order) as the record every writer consumes.
 
     A result whose series is no longer open is still written, without its source.
-    Settings: those the results were computed with (the first result's), else ``settings``.
+    ``settings``: the window's current settings, the ones the record states.  A finding
+    made with other settings (marked "settings changed" on screen) stays in the record;
+    ``tauscope.report.export`` leaves it out of every report with a visible note
+    (``RunRecord.current``), so its numbers are never passed off as this run's.
     """
     findings = []
     for key, result in results.items():
@@ -63,13 +65,7 @@ def build_run(results: Mapping[str, SeriesResult], series_for_key: Callable[[str
     used = {f.file for f in findings if f.file}
     sources = tuple(SourceFile(str(b.path), b.sha256) for b in workbooks
                     if str(b.path) in used or b.path.name in used or not used)
-    run_settings = settings
-    for result in results.values():
-        if result.settings:
-            with contextlib.suppress(TypeError, ValueError):
-                run_settings = Settings.from_dict(dict(result.settings))
-            break
-    return RunRecord(run_settings, sources, tuple(findings))
+    return RunRecord(settings, sources, tuple(findings))
 
 
 def png_bytes(pixmap: object) -> bytes:
@@ -85,7 +81,7 @@ class ChartRenderer:
     """Draws series charts offscreen (a chart panel never shown on screen) for reports."""
 
     def __init__(self) -> None:
-        from tauscope.ui.chart_panel import ChartPanel
+        from tauscope.ui.charts.panel import ChartPanel
 
         self.panel: ChartPanel = ChartPanel()
         self.panel.setAttribute(Qt.WidgetAttribute.WA_DontShowOnScreen, True)

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from collections.abc import Callable
+from dataclasses import replace
 from typing import TYPE_CHECKING
 
 from PySide6.QtCore import QItemSelectionModel, QMimeData, QModelIndex, QPoint, Qt, Signal
@@ -105,24 +106,25 @@ class FindingsPanel(QWidget):
                 keys.append(key)
         return keys
 
-    def copy_selection(self) -> QMimeData | None:
+    def copy_selection(self) -> RunRecord | None:
         """The selected findings on the clipboard in the report layout
-        (``tauscope.report.clipboard``): tab-separated text and an HTML table."""
+        (``tauscope.report.clipboard``): tab-separated text and an HTML table.  Findings made
+        with other settings than the window's are left out, as in every report; the record
+        copied (with its ``left_out``) is returned."""
         from tauscope.report.clipboard import findings_html, findings_tsv
 
         keys = self.selected_keys()
         if not keys or self.record_for is None:
             return None
-        run = self.record_for(keys)
+        run = self.record_for(keys).current()
         order = {k: i for i, k in enumerate(keys)}
-        run = type(run)(run.settings, run.sources,
-                        tuple(sorted(run.findings, key=lambda f: order.get(f.key or "", 0))),
-                        run.version, run.created)
+        run = replace(run, findings=tuple(sorted(run.findings,
+                                                 key=lambda f: order.get(f.key or "", 0))))
         mime = QMimeData()
         mime.setText(findings_tsv(run))
         mime.setHtml(findings_html(run))
         QGuiApplication.clipboard().setMimeData(mime)
-        return mime
+        return run
 
     def _context_menu(self, pos: QPoint) -> None:
         menu = QMenu(self)

@@ -1,4 +1,5 @@
-"""PDF of the HTML report through Qt's own PDF writer (QTextDocument + QPdfWriter).
+"""PDF of the HTML report through Qt's own PDF writer (QTextDocument + QPdfWriter), cut
+into pages where no table row, line or chart is split (:mod:`tauscope.ui.pdf_pages`).
 
 Lives in ``ui/`` because it needs Qt ("Qt only in ui/").  Importing this module
 registers the ``.pdf`` writer with :func:`tauscope.report.register_writer`, so
@@ -17,6 +18,7 @@ from tauscope.report import register_writer
 from tauscope.report.atomic import write_bytes_atomic
 from tauscope.report.html_export import CHART_WIDTH, run_to_html
 from tauscope.report.run import Charts, RunRecord
+from tauscope.ui.pdf_pages import Page, cut_pages, document_units
 
 PAGE_MARGIN_MM = 18.0
 RESOLUTION_DPI = 300
@@ -37,11 +39,12 @@ def _ensure_application() -> None:
 def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
     """The HTML report laid out on A4 pages, as PDF bytes."""
     _ensure_application()
-    from PySide6.QtCore import QBuffer, QByteArray, QIODevice, QMarginsF, QSizeF, QUrl
+    from PySide6.QtCore import QBuffer, QByteArray, QIODevice, QMarginsF, QUrl
     from PySide6.QtGui import (
         QImage,
         QPageLayout,
         QPageSize,
+        QPainter,
         QPdfWriter,
         QTextDocument,
     )
@@ -68,6 +71,8 @@ def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
         document.addResource(QTextDocument.ResourceType.ImageResource, QUrl(name), image)
     document.setHtml(markup)
 
+    document.setTextWidth(LAYOUT_WIDTH)  # one long page; cut_pages chooses the page breaks
+
     data = QByteArray()
     buffer = QBuffer(data)
     buffer.open(QIODevice.OpenModeFlag.WriteOnly)
@@ -80,14 +85,47 @@ def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
         QMarginsF(PAGE_MARGIN_MM, PAGE_MARGIN_MM, PAGE_MARGIN_MM, PAGE_MARGIN_MM),
         QPageLayout.Unit.Millimeter,
     ))
-    # Lay the text out on a page LAYOUT_WIDTH units wide; print() scales it to the paper,
-    # so the 10.5 pt body text comes out at about 10.5 × (paper width / LAYOUT_WIDTH).
-    page = writer.pageLayout().paintRect(QPageLayout.Unit.Point)
-    height = LAYOUT_WIDTH * page.height() / page.width()
-    document.setPageSize(QSizeF(LAYOUT_WIDTH, height))
-    document.print_(writer)
+    # The text is laid out LAYOUT_WIDTH units wide and scaled to the paper, so the 10.5 pt
+    # body text comes out at about 10.5 × (paper width / LAYOUT_WIDTH).
+    paint = writer.pageLayout().paintRectPixels(RESOLUTION_DPI)
+    scale = paint.width() / LAYOUT_WIDTH
+    pages = cut_pages(document_units(document), document.size().height(),
+                      paint.height() / scale)
+    painter = QPainter(writer)
+    try:
+        for number, page in enumerate(pages):
+            if number:
+                writer.newPage()
+            _draw_page(painter, document, page, scale)
+    finally:
+        painter.end()
     buffer.close()
     return bytes(data.data())
+
+
+CLIP_INSET = 1.0
+"""Layout units kept off each edge of a page's slice: a block only touching the slice (the
+first row of the next page) is then not drawn at all, not even as clipped, invisible text."""
+
+
+def _inside(top: float, bottom: float) -> Any:
+    from PySide6.QtCore import QRectF
+
+    return QRectF(0, top + CLIP_INSET, LAYOUT_WIDTH, max(bottom - top - 2 * CLIP_INSET, 0.0))
+
+
+def _draw_page(painter: Any, document: Any, page: Page, scale: float) -> None:
+    """The header rows to repeat (if any), then the page's slice of the document."""
+    painter.save()
+    painter.scale(scale, scale)
+    if page.header_height > 0:
+        painter.save()
+        painter.translate(0, -page.header_top)
+        document.drawContents(painter, _inside(page.header_top, page.header_bottom))
+        painter.restore()
+    painter.translate(0, page.header_height - page.top)
+    document.drawContents(painter, _inside(page.top, page.bottom))
+    painter.restore()
 
 
 def write_pdf(path: Path, run: RunRecord, charts: Charts | None = None) -> None:

@@ -38,14 +38,14 @@ RUN_SWITCH_INTERVAL = 0.001  # seconds (Python's default is 0.005)
 # The statistics libraries (statsmodels, scipy) load on the first run, or earlier through
 # warm_up_engine(), not before the window shows itself.
 def analyse_series(values: Any, settings: Settings, name: str) -> SeriesResult:
-    from tauscope.engine.analyse import analyse_series as analyse
+    from tauscope.engine.procedure.analyse import analyse_series as analyse
 
     return analyse(values, settings, name)
 
 
 def iter_analyse(series: Any, settings: Settings, should_stop: Callable[[], bool] | None = None
                  ) -> Iterator[SeriesResult]:
-    from tauscope.engine.many import iter_analyse as analyse_in_batches
+    from tauscope.engine.procedure.many import iter_analyse as analyse_in_batches
 
     return analyse_in_batches(series, settings, should_stop=should_stop)
 
@@ -55,8 +55,8 @@ def warm_up_engine() -> threading.Thread:
     start-up nor the first run waits for them."""
 
     def load() -> None:
-        import tauscope.engine.many
-        import tauscope.engine.simulate  # noqa: F401
+        import tauscope.engine.distributions.simulate
+        import tauscope.engine.procedure.many  # noqa: F401
 
     thread = threading.Thread(target=load, name="tauscope-warm-up", daemon=True)
     thread.start()

@@ -1,0 +1,1 @@
+"""Null distributions: published critical values and p-values, simulation, power."""

@@ -1,0 +1,77 @@
+"""The assemble stage: one :class:`~tauscope.engine.results.SeriesResult` from the reading.
+
+``tests`` holds the ADF and Φ tests of every difference the strategy visited and of the
+levels (always), then KPSS, then the extra tests; ``fitted`` is the deterministic path
+the verdict implies, for the charts.
+"""
+
+from __future__ import annotations
+
+from typing import Any
+
+import numpy as np
+import pandas as pd
+
+from tauscope.engine.procedure.stages import Reading
+from tauscope.engine.results import SeriesResult, TestResult
+
+
+def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesResult:
+    checked = reading.cross_check
+    decision = checked.decision
+    estimates = decision.estimates
+    prepared = estimates.prepared
+    x = prepared.values
+    tests: list[TestResult] = []
+    for d in sorted({*decision.visited, 0}):
+        tests.extend(estimates.levels[d].adf.values())
+        tests.extend(estimates.levels[d].phi.values())
+    tests.extend(test for test, _ in checked.kpss)
+    tests.extend(reading.evidence.tests)
+    deciding = decision.deciding
+    index = prepared.index if prepared.index is not None else pd.RangeIndex(1, x.shape[0] + 1)
+    return SeriesResult(
+        name=name,
+        nobs=int(x.shape[0]),
+        error=None,
+        verdict=reading.verdict,
+        steps=decision.steps,
+        tests=tuple(tests),
+        notes=reading.notes,
+        settings=settings,
+        max_lags=estimates.max_lags[0],
+        lag_profile=checked.lag_profile,
+        lag_profile_spec=deciding.spec,
+        lag_profile_difference=deciding.difference,
+        span=(prepared.label(0), prepared.label(x.shape[0] - 1)),
+        values=pd.Series(x, index=index, name=name),
+        fitted=fitted_deterministic(x, decision.order, decision.deterministic),
+        evidence=reading.evidence,
+    )
+
+
+def fitted_deterministic(x: np.ndarray, order: int | None, deterministic: str | None) -> np.ndarray | None:
+    """The deterministic path the verdict implies, in levels, for charts.
+
+    I(0): OLS fit on [1, t] (trend), the mean (constant) or zero (none).
+    I(1) with drift: y_1 + μ̂ (t − 1) with μ̂ the mean change; with trend: OLS on [1, t, t²].
+    """
+    if order is None or deterministic is None:
+        return None
+    n = x.shape[0]
+    t = np.arange(n, dtype=float)
+    if order == 0:
+        if deterministic == "trend":
+            z = np.column_stack([np.ones(n), t])
+        elif deterministic == "constant":
+            return np.full(n, float(x.mean()))
+        else:
+            return np.zeros(n)
+    elif order == 1 and deterministic == "constant":
+        return x[0] + float(np.mean(np.diff(x))) * t
+    elif order == 1 and deterministic == "none":
+        return np.full(n, float(x[0]))
+    else:
+        z = np.column_stack([np.ones(n), t, t * t])
+    beta, *_ = np.linalg.lstsq(z, x, rcond=None)
+    return np.asarray(z @ beta)

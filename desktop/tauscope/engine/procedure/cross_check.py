@@ -1,0 +1,274 @@
+"""The cross-check stage: what else the data say about the decided order.
+
+* KPSS (Kwiatkowski, Phillips, Schmidt & Shin 1992) on the levels for I(0), and on the
+  difference below and at the verdict for I(1) and I(2);
+* the extra tests the user turned on, on the difference where the verdict was settled
+  (the levels for I(0) and I(1), the first difference for I(2)), with the deterministic
+  terms of the stationary alternative the verdict competes with: Phillips-Perron Zτ
+  (Phillips & Perron 1988), DF-GLS (Elliott, Rothenberg & Stock 1996), Zivot-Andrews
+  with one break (Zivot & Andrews 1992);
+* the power of the deciding ADF test against AR(1) coefficients 0.90 and 0.95 at this
+  sample size, and τ on an expanding window;
+* τ of the deciding regression for every lag order (the lag profile).
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+import numpy as np
+import pandas as pd
+
+from tauscope.engine import formatting as fmt
+from tauscope.engine.distributions.power import power_at
+from tauscope.engine.distributions.simulate import (
+    DEFAULT_REPS,
+    DEFAULT_SEED,
+    EXACT_REPS,
+    empirical_p_value,
+    exact_critical_values,
+    null_distribution,
+    reportable_bound,
+)
+from tauscope.engine.distributions.tables import tau_critical_value
+from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.procedure.stages import (
+    EXTRA_TESTS,
+    CrossCheck,
+    CrossCheckOptions,
+    Decision,
+    Estimation,
+    ExtraEvidence,
+)
+from tauscope.engine.regression.design import max_lag_cap, schwert_max_lag
+from tauscope.engine.regression.lagchoice import choose_lag
+from tauscope.engine.results import (
+    DFGLS,
+    BreakInfo,
+    LagPoint,
+    PhillipsPerron,
+    PowerResult,
+    RecursiveStatistic,
+    TestResult,
+)
+from tauscope.engine.unitroot.dfgls import DFGLS_P_VALUE_REPS, dfgls_test
+from tauscope.engine.unitroot.phillips_perron import pp_test, z_alpha_critical_values
+from tauscope.engine.unitroot.recursive import recursive_tau
+from tauscope.engine.unitroot.zivot_andrews import MODEL_LABELS, BreakSearch, za_test
+
+_FAILURES = (UntestableSeries, np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
+_KPSS_FAILURES = (ValueError, np.linalg.LinAlgError, ZeroDivisionError)
+
+
+def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Estimation) -> CrossCheck:
+    """KPSS, the extra evidence and the lag profile for a decided series."""
+    estimates = decision.estimates
+    prepared = estimates.prepared
+    x = prepared.values
+    order, deterministic = decision.order, decision.deterministic
+    checks: list[tuple[TestResult, bool]] = []
+    kpss_problem: str | None = None
+    try:
+        checks = kpss_checks(x, order, deterministic, options, estimation)
+    except _KPSS_FAILURES as exc:
+        kpss_problem = f"The KPSS cross-check could not be computed ({exc})."
+    deciding = decision.deciding
+    settled = settled_difference(order)
+    extra = extra_evidence(
+        x, prepared.index, order=order, deterministic=deterministic, alpha=options.alpha,
+        tests=options.extra, deciding_adf=deciding.test, lag_rule=options.lag_rule,
+        lags=options.lags, max_lags=estimates.max_lags[settled],
+        za_lags=estimates.levels[settled].adf["trend"].lags, break_model=options.break_model,
+        critical_values=options.critical_values, power=options.power,
+    )
+    spec, difference, max_lags = decision.profile_request
+    decisive_x = np.diff(x, n=difference) if difference else x
+    profile = _with_alpha(estimation.lag_profile(decisive_x, spec, difference, max_lags),
+                          decisive_x, spec, options.alpha)
+    return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile)
+
+
+def kpss_checks(x: np.ndarray, order: int | None, deterministic: str | None,
+                options: CrossCheckOptions, estimation: Estimation) -> list[tuple[TestResult, bool]]:
+    """(KPSS result, whether the verdict expects it to reject) on the differences that
+    bracket the verdict: I(0) expects stationarity in the levels; I(d) expects a
+    rejection on Δ^(d−1) y and none on Δ^d y."""
+    if not options.kpss or order is None:
+        return []
+    alpha = options.alpha
+    if order == 0:
+        spec = "trend" if deterministic == "trend" else "constant"
+        return [(estimation.kpss(x, spec, 0, alpha), False)]
+    below = np.diff(x, n=order - 1) if order > 1 else x
+    spec_below = "trend" if deterministic in ("trend", "constant") else "constant"
+    return [
+        (estimation.kpss(below, spec_below, order - 1, alpha), True),
+        (estimation.kpss(np.diff(x, n=order), "constant", order, alpha), False),
+    ]
+
+
+def _with_alpha(points: tuple[LagPoint, ...], x: np.ndarray, spec: str, alpha: float) -> tuple[LagPoint, ...]:
+    out = []
+    for p in points:
+        critical = tau_critical_value(spec, x.shape[0] - 1 - p.lag, alpha)
+        out.append(LagPoint(p.lag, p.statistic, critical, bool(p.statistic < critical)))
+    return tuple(out)
+
+
+def settled_difference(order: int | None) -> int:
+    """The difference on which the verdict was settled: order − 1 for I(1) and I(2), else 0."""
+    return max(order - 1, 0) if order is not None else 0
+
+
+def alternative_spec(order: int | None, deterministic: str | None) -> str:
+    """Deterministic terms of the stationary alternative the verdict competes with."""
+    if order is None:
+        return "trend"
+    if deterministic == "trend" or (order >= 1 and deterministic == "constant"):
+        return "trend"
+    if order == 0 and deterministic == "none":
+        return "none"
+    return "constant"
+
+
+def _label(index: pd.Index | None, position: int) -> str:
+    if index is not None and 0 <= position < len(index):
+        return str(index[position])
+    return f"observation {position + 1}"
+
+
+def _max_lags(n: int, max_lags: int | None) -> int:
+    cap = max(max_lag_cap(n), 0)
+    wanted = schwert_max_lag(n) if max_lags is None else max_lags
+    return min(wanted, cap)
+
+
+def extra_evidence(
+    x: np.ndarray,
+    index: pd.Index | None = None,
+    *,
+    order: int | None,
+    deterministic: str | None,
+    alpha: float = 0.05,
+    tests: Sequence[str] = EXTRA_TESTS,
+    deciding_adf: TestResult | None = None,
+    lag_rule: str = "aic",
+    lags: int | None = None,
+    max_lags: int | None = None,
+    za_lags: int | None = None,
+    break_model: str = "ct",
+    critical_values: str = "mackinnon",
+    power: bool = True,
+    recursive: bool = True,
+    reps: int = DEFAULT_REPS,
+    exact_reps: int = EXACT_REPS,
+    seed: int = DEFAULT_SEED,
+) -> ExtraEvidence:
+    """Run the extra tests the user turned on, the power simulation and the recursive τ.
+
+    ``x``: the prepared levels (float array); ``index``: its dates, if any.
+    ``order``/``deterministic``: the verdict.  ``deciding_adf``: the ADF test
+    of the last τ step (its spec, lags and sample drive the power simulation
+    and the recursive statistic).  ``lag_rule``/``lags``/``max_lags``: the
+    user's lag choice (DF-GLS uses MAIC unless the lag order is fixed).
+    ``za_lags``: the Zivot-Andrews lag order, normally the lag the user's rule
+    chose for the ADF regression with constant and trend on the same difference
+    (pass it to save the search; None: chosen here by the same rule).
+    ``critical_values``: "mackinnon" (published tables and response surfaces) or
+    "exact" (simulated at this sample size).  Failures become ``problems``, one
+    sentence each.
+    """
+    unknown = [t for t in tests if t not in EXTRA_TESTS]
+    if unknown:
+        raise ValueError(f"unknown test(s): {', '.join(unknown)}")
+    x = np.asarray(x, dtype=float)
+    d = settled_difference(order)
+    xd = np.diff(x, n=d) if d else x
+    spec = alternative_spec(order, deterministic)
+    top = _max_lags(xd.shape[0], max_lags)
+    fixed = lag_rule == "fixed"
+    results: list[TestResult] = []
+    problems: list[str] = []
+    pp_details: PhillipsPerron | None = None
+    z_alpha_cv: dict[str, float] | None = None
+    gls: DFGLS | None = None
+    break_info: BreakInfo | None = None
+
+    if "pp" in tests:
+        try:
+            pp, pp_details = pp_test(xd, spec, alpha, d)
+            if critical_values == "exact":
+                draws = null_distribution(spec, pp.nobs, exact_reps, seed)
+                cv = exact_critical_values(spec, pp.nobs, reps=exact_reps, seed=seed)
+                p_value, bound = empirical_p_value(pp.statistic, draws)
+                level = fmt.percent(alpha)
+                pp = TestResult(pp.test, pp.spec, pp.difference, pp.statistic, p_value, pp.lags,
+                                pp.nobs, cv, bool(pp.statistic < cv[level]), cv[level],
+                                reportable_bound(p_value, bound), pp.lag_rule)
+                z_alpha_cv = z_alpha_critical_values(spec, pp.nobs, exact_reps, seed)
+            results.append(pp)
+        except _FAILURES as exc:
+            problems.append(f"The Phillips-Perron test could not be computed ({exc}).")
+
+    if "dfgls" in tests:
+        gls_spec = "constant" if spec == "none" else spec
+        try:
+            gls_result, gls = dfgls_test(
+                xd, gls_spec, alpha, d, lag_rule="fixed" if fixed else "maic", max_lags=top,
+                lags=lags if fixed else None, critical="exact" if critical_values == "exact" else "table",
+                reps=exact_reps if critical_values == "exact" else DFGLS_P_VALUE_REPS, seed=seed)
+            results.append(gls_result)
+        except _FAILURES as exc:
+            problems.append(f"The DF-GLS test could not be computed ({exc}).")
+
+    if "za" in tests:
+        try:
+            if za_lags is not None:
+                za_lag = int(za_lags)
+            elif fixed and lags is not None:
+                za_lag = int(lags)
+            else:
+                za_lag = choose_lag(xd, "trend", lag_rule, top).lag
+            za_result, search = za_test(xd, alpha, break_model, za_lag, difference=d,
+                                        lag_rule="fixed" if fixed else lag_rule)
+            results.append(za_result)
+            break_info = _break_info(search, za_result, index, d)
+        except _FAILURES as exc:
+            problems.append(f"The Zivot-Andrews test could not be computed ({exc}).")
+
+    power_result: PowerResult | None = None
+    recursive_result: RecursiveStatistic | None = None
+    if deciding_adf is not None:
+        xa = np.diff(x, n=deciding_adf.difference) if deciding_adf.difference else x
+        if power and order != 0:  # the power matters when the verdict rests on not rejecting
+            try:
+                power_result = power_at(deciding_adf.spec, deciding_adf.nobs, alpha,
+                                        deciding_adf.lags, reps=reps, seed=seed,
+                                        critical="exact" if critical_values == "exact" else "mackinnon")
+            except _FAILURES as exc:
+                problems.append(f"The power simulation could not be run ({exc}).")
+        if recursive:
+            try:
+                recursive_result = recursive_tau(xa, deciding_adf.spec, deciding_adf.lags, alpha)
+            except _FAILURES as exc:
+                problems.append(f"The recursive statistic could not be computed ({exc}).")
+
+    return ExtraEvidence(d, spec, tuple(results), fixed, break_model, break_info, power_result,
+                         recursive_result, pp_details, z_alpha_cv, gls, tuple(problems))
+
+
+def _break_info(search: BreakSearch, test: TestResult, index: pd.Index | None, d: int) -> BreakInfo:
+    # Position p in the d-times differenced series is position p + d of the levels.
+    position = search.position + d
+    return BreakInfo(
+        model=search.model,
+        description=MODEL_LABELS[search.model],
+        position=position,
+        first_new=position + 1,
+        last_old_label=_label(index, position),
+        first_new_label=_label(index, position + 1),
+        statistic=search.statistic,
+        critical_value=test.critical_value,
+        reject=test.reject,
+        difference=d,
+    )

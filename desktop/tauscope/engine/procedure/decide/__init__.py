@@ -1,0 +1,17 @@
+"""The decide stage: a strategy turns the estimates into an order of integration.
+
+A strategy is one module with one function ``decide(estimates, options) -> Decision``
+(:data:`tauscope.engine.procedure.stages.Strategy`), registered here by name.  It reads
+only :class:`~tauscope.engine.procedure.stages.Estimates`; the cross-check, the reading
+and the result are shared by every strategy.
+
+* ``classic``: the Dickey-Fuller testing sequence of Dolado, Jenkinson &
+  Sosvilla-Rivero (1990) on each difference, from the highest down (:mod:`.classic`).
+"""
+
+from __future__ import annotations
+
+from tauscope.engine.procedure.decide import classic
+from tauscope.engine.procedure.stages import Strategy
+
+STRATEGIES: dict[str, Strategy] = {"classic": classic.decide}

@@ -1,0 +1,335 @@
+"""The fast path of the analysis: batches of series of one length, estimated with
+:mod:`tauscope.engine.regression.nested`, turned into the same result objects as the reference
+path (:mod:`tauscope.engine.reference`; the tests check equality to 1e-8).
+
+:class:`SeriesBatch` computes each difference level for all its series at the first
+request; :class:`FastEstimation` is one series' view of it and implements the
+estimation seam of :mod:`tauscope.engine.procedure.stages`.  Where the fast path cannot
+promise the reference's numbers (a nearly collinear design, a nearly perfect fit, a
+value that is not finite) it raises :class:`NeedsReference` and the series is
+analysed by the reference path, so even the messages for untestable series are the
+reference's own.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from functools import lru_cache
+
+import numpy as np
+
+from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.procedure.stages import EstimateOptions
+from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS, column_names
+from tauscope.engine.regression.lagchoice import TSIG_CRITICAL, LagChoice
+from tauscope.engine.regression.nested import (
+    PHI_NAMES,
+    PHI_SPEC,
+    Y_LAG,
+    BlockFits,
+    Estimates,
+    block_fits,
+    column_norms,
+    column_share,
+    criterion_values,
+    detrended,
+    full_design,
+    longest_sample,
+    maic_values,
+    profile_tau,
+    r_factor,
+    restricted_rss,
+    spec_order,
+)
+from tauscope.engine.results import Coefficient, LagPoint, LevelTests, Regression, TestResult
+from tauscope.engine.unitroot import phi as joint
+from tauscope.engine.unitroot.kpss_fast import kpss_fast
+
+# Below this share of its length, a column is too close to the span of the earlier
+# ones for a promise of 1e-8 agreement: the reference path takes the series.
+MIN_COLUMN_SHARE = 1e-6
+# A residual sum of squares below this share of y'y is a (nearly) perfect fit.
+MIN_RSS_SHARE = 1e-10
+
+
+class NeedsReference(Exception):
+    """The fast path declines this series; the reference path takes it."""
+
+
+@dataclass
+class LevelBatch:
+    """Everything the sequence needs on Δ^d y for a batch of series of one length."""
+
+    difference: int
+    max_lags: int
+    n: int
+    first_rows: np.ndarray  # (B, p, K+1): the rows before the common sample
+    common: dict[str, np.ndarray]
+    choices: dict[str, list[LagChoice]]
+    estimates: dict[str, Estimates]
+    phi: dict[str, np.ndarray]
+    declined: np.ndarray  # (B,) bool: the reference path must take these
+
+
+def _sanitise(a: np.ndarray, declined: np.ndarray) -> np.ndarray:
+    """Identity factors for declined series, so batched inverses cannot fail."""
+    if declined.any():
+        a = a.copy()
+        a[declined] = np.eye(a.shape[1])
+    return a
+
+
+def _choose(rule: str, fits: BlockFits, values: np.ndarray, p: int) -> list[LagChoice]:
+    """The reference's choice: the smallest criterion (ties to the shorter lag), or the
+    longest lag whose last coefficient has |t| ≥ 1.645 (Ng & Perron 1995)."""
+    batch = fits.rss.shape[0]
+    if rule in ("aic", "bic", "hqc", "maic"):
+        best = np.argmin(values, axis=1).tolist()
+        rows = values.tolist()
+        return [LagChoice(rule, int(best[b]), p, tuple(rows[b])) for b in range(batch)]
+    t = fits.last_t.tolist()
+    choices = []
+    for b in range(batch):
+        chosen = next((lag for lag in range(p, 0, -1) if abs(t[b][lag]) >= TSIG_CRITICAL), 0)
+        low = max(chosen, 1)
+        criteria = tuple(t[b][lag] if lag >= low else math.nan for lag in range(p + 1))
+        choices.append(LagChoice(rule, chosen, p, criteria))
+    return choices
+
+
+def level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, max_lags: int) -> LevelBatch:
+    """Lag choice, ADF estimates and Φ restricted fits on Δ^d y for a batch (B, T_d)."""
+    with np.errstate(all="ignore"):
+        return _level_batch(xs, difference, options, max_lags)
+
+
+def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: int) -> LevelBatch:
+    batch, n = xs.shape
+    k = p + 3
+    nobs = n - 1 - p
+    if nobs <= k:
+        raise NeedsReference
+    design = full_design(xs, p)
+    rows = design[:, p:, :]
+    a_trend = r_factor(rows)
+    y_sq = np.einsum("bi,bi->b", rows[:, :, k], rows[:, :, k])
+    declined = ~np.isfinite(a_trend).all(axis=(1, 2))
+    declined |= a_trend[:, k, k] ** 2 < MIN_RSS_SHARE * np.maximum(1.0, y_sq)
+    norms = column_norms(rows)
+    common: dict[str, np.ndarray] = {}
+    first_rows: dict[str, np.ndarray] = {}
+    for spec in SPECS:
+        order = [*spec_order(spec, p), k]
+        first_rows[spec] = design[:, :p, order]
+        common[spec] = a_trend if spec == "trend" else r_factor(a_trend[:, :, order])
+        used = order[:len(DETERMINISTIC_TERMS[spec]) + 1 + p]
+        declined |= column_share(common[spec], norms[:, used]) < MIN_COLUMN_SHARE
+    common = {spec: _sanitise(a, declined) for spec, a in common.items()}
+
+    rule = options.lag_rule
+    choices: dict[str, list[LagChoice]] = {}
+    for spec in SPECS:
+        if rule == "fixed":
+            lag = int(options.lags if options.lags is not None else 0)
+            choices[spec] = [LagChoice(rule, lag, max(lag, p))] * batch
+            continue
+        fits = block_fits(common[spec], len(DETERMINISTIC_TERMS[spec]), p, nobs)
+        if rule == "maic":
+            values, maic_declined = _maic(xs, spec, p, fits, rows[:, :, Y_LAG])
+            declined |= maic_declined
+        elif rule in ("aic", "bic", "hqc"):
+            values = criterion_values(fits, rule, nobs)
+        else:
+            values = fits.last_t[:, 1:]
+        declined |= ~np.isfinite(values).all(axis=1)
+        choices[spec] = _choose(rule, fits, values, p)
+
+    estimates: dict[str, Estimates] = {}
+    for spec in SPECS:
+        lags = np.array([c.lag for c in choices[spec]], dtype=int)
+        est = longest_sample(common[spec], first_rows[spec],
+                             len(DETERMINISTIC_TERMS[spec]), lags, n - 1)
+        declined |= ~(np.isfinite(est.params).all(axis=1) & np.isfinite(est.bse).all(axis=1))
+        estimates[spec] = est
+    phi = {name: restricted_rss(estimates[PHI_SPEC[name]], name, p) for name in PHI_NAMES}
+    for values in phi.values():
+        declined |= ~np.isfinite(values)
+    return LevelBatch(difference, p, n, first_rows["trend"], common, choices, estimates, phi,
+                      declined)
+
+
+def _maic(xs: np.ndarray, spec: str, p: int, fits: BlockFits,
+          y_lag: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """MAIC on the OLS-detrended series (Perron & Qu 2007) with the no-deterministic design."""
+    batch = xs.shape[0]
+    nobs = xs.shape[1] - 1 - p
+    declined = np.zeros(batch, dtype=bool)
+    if spec == "none":
+        none_fits = fits
+        lag_column = y_lag
+    else:
+        columns = [*range(Y_LAG, Y_LAG + 1 + p), p + 3]
+        rows = full_design(detrended(xs, spec), p)[:, p:, columns]
+        a = r_factor(rows)
+        declined |= ~np.isfinite(a).all(axis=(1, 2))
+        declined |= column_share(a, column_norms(rows[:, :, :p + 1])) < MIN_COLUMN_SHARE
+        none_fits = block_fits(_sanitise(a, declined), 0, p, nobs)
+        lag_column = rows[:, :, 0]
+    lag_sum_sq = np.einsum("bi,bi->b", lag_column, lag_column)
+    return maic_values(none_fits, lag_sum_sq, nobs), declined
+
+
+_column_names = lru_cache(maxsize=512)(column_names)
+_NO_DESIGN = np.empty((0, 0))
+_NO_RESPONSE = np.empty(0)
+_NO_DESIGN.flags.writeable = False
+_NO_RESPONSE.flags.writeable = False
+
+
+def _coefficients(spec: str, lags: int, params: list[float], bse: list[float]
+                  ) -> tuple[Coefficient, ...]:
+    names = _column_names(spec, lags)
+    return tuple(
+        Coefficient(name, params[j], bse[j], params[j] / bse[j]) for j, name in enumerate(names)
+    )
+
+
+def _adf_result(level: LevelBatch, spec: str, i: int, alpha: float) -> TestResult:
+    choice = level.choices[spec][i]
+    est = level.estimates[spec]
+    lags = choice.lag
+    nobs = int(est.nobs[i])
+    rss = float(est.rss[i])
+    coefficients = _coefficients(spec, lags, est.params[i].tolist(), est.bse[i].tolist())
+    regression = Regression(
+        spec=spec,
+        difference=level.difference,
+        lags=lags,
+        lag_rule=choice.rule,
+        max_lags=choice.max_lags,
+        nobs=nobs,
+        first_observation=lags + 1,
+        coefficients=coefficients,
+        sigma2=rss / (nobs - len(coefficients)),
+        rss=rss,
+        lag_criteria=choice.criteria,
+        design=_NO_DESIGN,  # not kept: the results of many series would hold every design
+        response=_NO_RESPONSE,
+    )
+    tau = coefficients[len(DETERMINISTIC_TERMS[spec])].t_value
+    critical = fast_tables.tau_critical_value(spec, nobs, alpha)
+    return TestResult(
+        test="adf",
+        spec=spec,
+        difference=level.difference,
+        statistic=tau,
+        p_value=fast_tables.tau_p_value(tau, spec),
+        lags=lags,
+        nobs=nobs,
+        critical_values=fast_tables.tau_critical_values(spec, nobs),
+        reject=bool(tau < critical),
+        critical_value=critical,
+        lag_rule=choice.rule,
+        regression=regression,
+    )
+
+
+def _phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:
+    """Φ from the batch's restricted RSS, as :func:`joint.phi_test` computes it."""
+    regression = adf.regression
+    assert regression is not None
+    return joint.phi_result(regression, name, joint.f_statistic(float(level.phi[name][i]), regression, name),
+                            alpha)
+
+
+class FastEstimation:
+    """One series' view of a batch: the estimation seam of :mod:`tauscope.engine.procedure.stages`.
+
+    ``level_tests`` asks the batch (which computes a difference level for all its
+    series at the first request); ``lag_profile`` and ``kpss`` work on this series.
+    """
+
+    def __init__(self, batch: SeriesBatch, index: int) -> None:
+        self._batch = batch
+        self._index = index
+
+    def level_tests(self, x: np.ndarray, difference: int, options: EstimateOptions,
+                    max_lags: int) -> LevelTests:
+        level = self._batch.level(difference, max_lags)
+        i = self._index
+        if level.declined[i]:
+            raise NeedsReference
+        adf = {spec: _adf_result(level, spec, i, options.alpha) for spec in SPECS}
+        phi = {name: _phi_result(level, adf[PHI_SPEC[name]], name, i, options.alpha)
+               for name in PHI_NAMES}
+        return LevelTests(difference, adf, phi)
+
+    def lag_profile(self, x: np.ndarray, spec: str, difference: int,
+                    max_lags: int) -> tuple[LagPoint, ...]:
+        """τ for every lag 0…max on its longest sample, with the 5% critical value."""
+        tau, nobs_by_lag = self._batch.profile(self._index, spec, difference, max_lags)
+        if not np.isfinite(tau).all():
+            raise NeedsReference
+        points = []
+        for lag, (statistic, nobs) in enumerate(zip(tau.tolist(), nobs_by_lag.tolist(),
+                                                    strict=True)):
+            critical = fast_tables.tau_critical_value(spec, nobs, 0.05)
+            points.append(LagPoint(lag, statistic, critical, bool(statistic < critical)))
+        return tuple(points)
+
+    def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
+        return kpss_fast(x, spec, difference, alpha)
+
+
+class SeriesBatch:
+    """Series of one length analysed together; each difference level is computed for
+    the whole batch when a series first asks for it."""
+
+    def __init__(self, values: list[np.ndarray], options: EstimateOptions) -> None:
+        self._levels_in = np.vstack(values)
+        self._options = options
+        self._levels: dict[tuple[int, int], LevelBatch] = {}
+        self._profiles: dict[tuple[int, str, int, int], tuple[np.ndarray, np.ndarray]] = {}
+
+    def __len__(self) -> int:
+        return int(self._levels_in.shape[0])
+
+    def estimation(self, index: int) -> FastEstimation:
+        return FastEstimation(self, index)
+
+    def level(self, difference: int, max_lags: int) -> LevelBatch:
+        key = (difference, max_lags)
+        if key not in self._levels:
+            xs = np.diff(self._levels_in, n=difference, axis=1) if difference else self._levels_in
+            self._levels[key] = level_batch(xs, difference, self._options, max_lags)
+        return self._levels[key]
+
+    def prefetch_profiles(self, requests: list[tuple[int, str, int, int]]) -> None:
+        """Compute the lag profiles (index, spec, difference, maximum lag) together, one
+        factorisation call per (spec, difference)."""
+        groups: dict[tuple[str, int, int], list[int]] = {}
+        for index, spec, difference, max_lags in requests:
+            groups.setdefault((spec, difference, max_lags), []).append(index)
+        for (spec, difference, max_lags), indices in groups.items():
+            tau, nobs = self._profile_rows(indices, spec, difference, max_lags)
+            for row, index in enumerate(indices):
+                self._profiles[(index, spec, difference, max_lags)] = (tau[row], nobs)
+
+    def profile(self, index: int, spec: str, difference: int,
+                max_lags: int) -> tuple[np.ndarray, np.ndarray]:
+        """τ by lag on each lag's longest sample, and those sample sizes, for one series."""
+        cached = self._profiles.pop((index, spec, difference, max_lags), None)
+        if cached is not None:
+            return cached
+        tau, nobs = self._profile_rows([index], spec, difference, max_lags)
+        return tau[0], nobs
+
+    def _profile_rows(self, indices: list[int], spec: str, difference: int,
+                      max_lags: int) -> tuple[np.ndarray, np.ndarray]:
+        # Only asked after level_tests accepted these series, so their factors are
+        # well conditioned.
+        level = self.level(difference, max_lags)
+        order = [*spec_order(spec, max_lags), max_lags + 3]
+        return profile_tau(level.common[spec][indices], level.first_rows[indices][:, :, order],
+                           len(DETERMINISTIC_TERMS[spec]), level.n - 1)

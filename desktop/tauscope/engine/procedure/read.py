@@ -1,0 +1,75 @@
+"""The read stage: the verdict, how far the cross-checks back it, and the notes.
+
+The words live in :mod:`tauscope.engine.reading` (verdict sentences, the KPSS and the
+extra evidence's reading, the notes); this stage decides what is said about one series.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+from tauscope.engine.procedure.prepare import PreparedSeries
+from tauscope.engine.procedure.stages import CrossCheck, ExtraEvidence, Reading, ReadOptions
+from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
+from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
+from tauscope.engine.reading.verdicts import agreement, agreement_note, build_verdict
+from tauscope.engine.results import Evidence, TestResult
+
+
+def read(checked: CrossCheck, options: ReadOptions) -> Reading:
+    decision = checked.decision
+    estimates = decision.estimates
+    prepared = estimates.prepared
+    order, deterministic = decision.order, decision.deterministic
+    checks = list(checked.kpss)
+    kpss_status = agreement(order, checks)
+    if order is None and options.kpss:
+        kpss_status = "inconclusive"
+    evidence = read_evidence(checked.extra, order, [t for t, _ in checks], kpss_status, options.alpha)
+    status = evidence.agreement if evidence.tests else kpss_status
+    verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
+                            options.max_difference)
+    deciding = decision.deciding
+    x = prepared.values
+    ctx = NoteContext(
+        verdict=verdict,
+        steps=decision.steps,
+        level_adf=estimates.levels[0].adf,
+        lag_profile=checked.lag_profile,
+        chosen_lag=deciding.test.lags if deciding.test is not None else None,
+        nobs=int(x.shape[0]),
+        periods_per_year=prepared.periods_per_year,
+        alpha=options.alpha,
+        max_lags_reduced=estimates.reduced,
+        trimmed=(prepared.leading_trimmed, prepared.trailing_trimmed),
+        agreement_text=agreement_note(order, kpss_status, checks, options.alpha) or checked.kpss_problem,
+        jump_at=_jump_label(prepared),
+        seasonal_lag=seasonal_pattern(x, prepared.periods_per_year),
+        level_sequence_tests=3,
+        evidence_notes=evidence.notes,
+        break_checked=evidence.break_info is not None,
+    )
+    return Reading(checked, verdict, evidence, build_notes(ctx))
+
+
+def read_evidence(extra: ExtraEvidence, order: int | None, kpss: Sequence[TestResult],
+                  kpss_status: str | None, alpha: float) -> Evidence:
+    """The extra evidence with its reading against the ADF verdict, the combined
+    agreement (KPSS's own status counting as one vote) and its sentences."""
+    d = extra.difference
+    adf_stationary = None if order is None else (order == 0 if d == 0 else False)
+    kpss_here = next((k for k in kpss if k.difference == d), None)
+    text = reading(adf_stationary, extra.spec, d, alpha, extra.tests, kpss_here, extra.break_info)
+    status = combined_agreement(adf_stationary, kpss_status, extra.tests) if extra.tests else kpss_status
+    notes = evidence_notes(extra.tests, alpha, extra.fixed_lags, extra.break_info, extra.power)
+    all_notes = ([text] if text else []) + notes + list(extra.problems)
+    return Evidence(d, extra.spec, extra.tests, tuple(all_notes), text, status, extra.break_info,
+                    extra.power, extra.recursive, extra.phillips_perron, extra.z_alpha_critical_values,
+                    extra.dfgls, extra.problems)
+
+
+def _jump_label(prepared: PreparedSeries) -> str | None:
+    position = find_jump(prepared.values)
+    if position is None:
+        return None
+    return f"{prepared.label(position)} (from {prepared.label(position - 1)})"

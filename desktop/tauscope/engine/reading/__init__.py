@@ -1,0 +1,1 @@
+"""The reading: verdicts, notes and plain-language sentences from the numbers."""

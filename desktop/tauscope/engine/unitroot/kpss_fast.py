@@ -1,0 +1,125 @@
+"""The KPSS statistic in numpy, the same numbers as :mod:`tauscope.engine.unitroot.kpss`
+(statsmodels' ``kpss``) without its per-call overhead.
+
+Kwiatkowski, D., Phillips, P.C.B., Schmidt, P. & Shin, Y. (1992), "Testing the Null
+Hypothesis of Stationarity against the Alternative of a Unit Root", Journal of
+Econometrics 54, 159-178:
+
+* e_t: residuals of y on a constant (level null, η_μ) or on [1, t], t = 1…T (trend
+  null, η_τ);
+* η = T⁻² Σ_t S_t² / s²(l), S_t = Σ_{i≤t} e_i (eq. 11);
+* s²(l) = T⁻¹ Σ e_t² + 2 T⁻¹ Σ_{s=1..l} (1 − s/(l+1)) Σ_{t>s} e_t e_{t−s}, the
+  Bartlett-kernel long-run variance (eq. 10);
+* l by the automatic bandwidth of Hobijn, B., Franses, P.H. & Ooms, M. (1998/2004),
+  "Generalizations of the KPSS-test for Stationarity", Statistica Neerlandica 58:
+  n = ⌊T^{2/9}⌋ autocovariances, ŝ = Σ_j j·ω̂_j / Σ_j ω̂_j
+  (ω̂_0 = T⁻¹ Σ e², ω̂_j = 2 T⁻¹ Σ e_t e_{t−j}),
+  l = ⌊1.1447 (ŝ²)^{1/3} T^{1/3}⌋, computed in the same order of operations as
+  statsmodels so the integer bandwidth is the same.
+
+The p-value is interpolated in KPSS Table 1 and bounded outside 0.01-0.10, as
+stationarity.py does.  Anything degenerate (a zero long-run variance, a value that
+is not finite) goes to the statsmodels version, so errors read the same.
+"""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from tauscope.engine.results import TestResult
+from tauscope.engine.unitroot.kpss import kpss_test
+
+# KPSS (1992) Table 1, upper tail: 10%, 5%, 2.5%, 1%.
+_CRITICAL = {
+    "constant": (0.347, 0.463, 0.574, 0.739),
+    "trend": (0.119, 0.146, 0.176, 0.216),
+}
+_P_LEVELS = (0.10, 0.05, 0.025, 0.01)
+_LEVEL = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
+_LARGEST = 1e100  # beyond this, squares and cumulated sums could overflow: statsmodels' own way
+
+
+def _residuals(x: np.ndarray, spec: str) -> np.ndarray:
+    if spec != "trend":
+        return np.asarray(x - x.mean())
+    t = np.arange(1, x.shape[0] + 1, dtype=float)
+    t_centred = t - t.mean()
+    slope = float(np.dot(t_centred, x - x.mean()) / np.dot(t_centred, t_centred))
+    return np.asarray(x - x.mean() - slope * t_centred)
+
+
+def _bandwidth(resids: np.ndarray, nobs: int) -> int | None:
+    covlags = int(np.power(nobs, 2.0 / 9.0))
+    s0 = np.sum(resids**2) / nobs
+    s1 = 0.0
+    for i in range(1, covlags + 1):
+        product = np.dot(resids[i:], resids[: nobs - i])
+        product /= nobs / 2.0
+        s0 += product
+        s1 += i * product
+    if s0 == 0.0:
+        return None
+    s_hat = s1 / s0
+    power = 1.0 / 3.0
+    gamma_hat = 1.1447 * np.power(s_hat * s_hat, power)
+    return int(gamma_hat * np.power(nobs, power))
+
+
+def _long_run_variance(resids: np.ndarray, nobs: int, lags: int) -> float:
+    s_hat = np.sum(resids**2)
+    for i in range(1, lags + 1):
+        product = np.dot(resids[i:], resids[: nobs - i])
+        s_hat += 2 * product * (1.0 - (i / (lags + 1.0)))
+    return float(s_hat / nobs)
+
+
+def kpss_statistic(x: np.ndarray, spec: str) -> tuple[float, int] | None:
+    """(η, bandwidth), or None when the statistic is degenerate or could overflow."""
+    nobs = int(x.shape[0])
+    if not float(np.abs(x).max()) < _LARGEST:
+        return None
+    resids = _residuals(x, spec)
+    if not float(np.dot(resids, resids)) > 0.0:
+        return None
+    bandwidth = _bandwidth(resids, nobs)
+    if bandwidth is None:
+        return None
+    lags = min(bandwidth, nobs - 1)
+    eta = float(np.sum(resids.cumsum() ** 2) / (nobs**2))
+    s_hat = _long_run_variance(resids, nobs, lags)
+    if not (s_hat > 0.0 and math.isfinite(eta) and math.isfinite(s_hat)):
+        return None
+    return eta / s_hat, lags
+
+
+def kpss_fast(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
+    """Same result as :func:`tauscope.engine.unitroot.kpss.kpss_test`."""
+    if x.shape[0] < 3:
+        return kpss_test(x, spec, difference, alpha)
+    try:
+        computed = kpss_statistic(x, spec)
+    except (ValueError, OverflowError):
+        computed = None
+    if computed is None:
+        return kpss_test(x, spec, difference, alpha)
+    statistic, lags = computed
+    table = _CRITICAL["trend" if spec == "trend" else "constant"]
+    p = float(np.interp(statistic, table, _P_LEVELS))
+    critical_values = {"10%": table[0], "5%": table[1], "1%": table[3]}
+    level = next(v for a, v in _LEVEL.items() if abs(a - alpha) < 1e-12)
+    return TestResult(
+        test="kpss",
+        spec=spec,
+        difference=difference,
+        statistic=statistic,
+        p_value=p,
+        lags=lags,
+        nobs=int(x.shape[0]),
+        critical_values=critical_values,
+        reject=bool(statistic > critical_values[level]),
+        critical_value=critical_values[level],
+        p_value_bound="below" if p <= 0.01 else "above" if p >= 0.10 else None,
+        lag_rule="Hobijn-Franses-Ooms automatic bandwidth",
+    )

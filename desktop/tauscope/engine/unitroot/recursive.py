@@ -1,0 +1,74 @@
+"""Recursive ADF statistic: τ on an expanding window, for the charts.
+
+For every window end e the ADF regression of the chosen spec and lag order p
+is fitted on the first e + 1 values of the series (the same design as the full
+sample, so the trend keeps its observation numbers), and τ_e = γ̂_e / se(γ̂_e)
+is recorded with the MacKinnon (2010) critical value for that window's size
+(the response surface evaluated for all window sizes at once).
+A statistic that drifts across the critical value as the sample grows shows
+how much the verdict owes to the latest data; a sudden jump points to a break.
+
+All windows are solved at once: with X = QR for the full sample, the window
+of the first w rows has X_w'X_w = R'G_wR and X_w'y_w = R'c_w, G_w and c_w being
+running sums of q_t q_t' and q_t y_t; then β̂_w = R^{-1}G_w^{-1}c_w,
+RSS_w = y_w'y_w − c_w'G_w^{-1}c_w and (X_w'X_w)^{-1} = R^{-1}G_w^{-1}R^{-T}.
+(The lag-sensitivity table is ``SeriesResult.lag_profile``.)
+"""
+
+from __future__ import annotations
+
+import numpy as np
+from statsmodels.tsa.adfvalues import tau_2010s
+
+from tauscope.engine.distributions.critical import SPEC_CODES
+from tauscope.engine.regression.design import adf_design, gamma_column
+from tauscope.engine.results import RecursiveStatistic
+
+MIN_WINDOW = 20  # regression observations in the first window (common practice: ≥ 20)
+
+
+
+def tau_critical_values_for_sizes(spec: str, sizes: np.ndarray, alpha: float) -> np.ndarray:
+    """MacKinnon (2010) finite-sample τ critical values for many sample sizes at once:
+    b0 + b1/T + b2/T² + b3/T³ with the coefficients statsmodels' ``mackinnoncrit`` uses
+    (``statsmodels.tsa.adfvalues.tau_2010s``, N = 1)."""
+    row = {0.01: 0, 0.05: 1, 0.10: 2}[next(a for a in (0.01, 0.05, 0.10) if abs(a - alpha) < 1e-12)]
+    coefficients = np.asarray(tau_2010s[SPEC_CODES[spec]][0][row], dtype=float)
+    inverse = 1.0 / np.asarray(sizes, dtype=float)
+    return np.asarray(sum(c * inverse**i for i, c in enumerate(coefficients)))
+
+
+def first_window(columns: int) -> int:
+    """Smallest regression sample used: 20 observations or four per coefficient."""
+    return max(MIN_WINDOW, 4 * columns)
+
+
+def recursive_tau(x: np.ndarray, spec: str, lags: int, alpha: float = 0.05) -> RecursiveStatistic:
+    """τ for every expanding window from :func:`first_window` to the whole sample."""
+    x = np.asarray(x, dtype=float)
+    y, design = adf_design(x, spec, lags)
+    n, k = design.shape
+    start = first_window(k)
+    if n < start:
+        empty = np.empty(0)
+        return RecursiveStatistic(spec, lags, empty.astype(int), empty.astype(int), empty, empty, alpha)
+    scale = np.sqrt(np.sum(design * design, axis=0))
+    q, r = np.linalg.qr(design / scale)
+    gram = np.cumsum(q[:, :, None] * q[:, None, :], axis=0)[start - 1:]
+    cross = np.cumsum(q * y[:, None], axis=0)[start - 1:]
+    yy = np.cumsum(y * y)[start - 1:]
+    g = gamma_column(spec)
+    row = np.linalg.inv(r)[g]  # γ̂ = row · (QᵀQ)⁻¹ Qᵀy on each window, rescaled
+    # One batched solve for both right-hand sides instead of inverting every window's Gram.
+    solved = np.linalg.solve(gram, np.stack([cross, np.broadcast_to(row, cross.shape)], axis=2))
+    fitted_part = np.einsum("wk,wk->w", cross, solved[:, :, 0])
+    sizes = np.arange(start, n + 1)
+    s2 = np.maximum(yy - fitted_part, 0.0) / (sizes - k)  # round-off can dip below zero
+    beta_gamma = solved[:, :, 0] @ row / scale[g]
+    var_gamma = s2 * (solved[:, :, 1] @ row) / scale[g] ** 2
+    fitted_exactly = ~(var_gamma > 0)  # a window the regression fits without error: no τ
+    tau = beta_gamma / np.sqrt(np.where(fitted_exactly, 1.0, var_gamma))
+    tau[fitted_exactly] = np.nan
+    critical = tau_critical_values_for_sizes(spec, sizes, alpha)
+    ends = sizes + lags  # window of regression size m ends at series position m + p
+    return RecursiveStatistic(spec, lags, ends, sizes, tau, critical, alpha)

@@ -1,0 +1,1 @@
+"""The Chart panel and its views, one module per chart on a shared base."""

@@ -1,0 +1,101 @@
+"""Export: the findings on screen written through ``tauscope.report.export`` (the writers
+``tauscope batch`` uses), with each series' chart in Excel, the web page and the PDF; and
+copied to the clipboard as a table."""
+
+from __future__ import annotations
+
+from pathlib import Path
+from typing import TYPE_CHECKING
+
+from PySide6.QtCore import QObject
+from PySide6.QtWidgets import QApplication, QLabel, QLineEdit, QTextBrowser
+
+from tauscope.ui.controllers.prompts import Prompts
+from tauscope.ui.controllers.session import Session
+from tauscope.ui.findings_export import CHART_SUFFIXES, EXPORT_FILTERS, build_run, export_filter
+from tauscope.ui.findings_panel import FindingsPanel
+from tauscope.ui.series_panel import SeriesPanel
+
+if TYPE_CHECKING:
+    from tauscope.report import RunRecord
+
+
+class ExportController(QObject):
+    """Findings out of the window: to a file, or to the clipboard."""
+
+    def __init__(self, series_panel: SeriesPanel, findings_panel: FindingsPanel,
+                 session: Session, prompts: Prompts, status: QLabel,
+                 parent: QObject | None = None) -> None:
+        super().__init__(parent)
+        self.series_panel = series_panel
+        self.findings_panel = findings_panel
+        self.session = session
+        self.prompts = prompts
+        self.status = status
+
+    def findings_record(self, keys: list[str] | None = None) -> RunRecord:
+        """The findings on screen (all, or those of ``keys`` in row order) as a run record."""
+        model = self.series_panel.model
+        run = build_run(self.findings_panel.model.results(), model.series_for_key,
+                        model.workbooks(), self.session.settings)
+        return run if keys is None else run.select(keys)
+
+    def export_findings(self, target: str | Path | None = None) -> bool:
+        """Write every finding to ``target`` (asking where when None); charts go into Excel,
+        the web page and the PDF."""
+        import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
+        from tauscope.report import ExportError, export
+        from tauscope.ui.findings_export import render_charts, suffix_for_filter
+
+        results = self.findings_panel.model.results()
+        if not results:
+            self.prompts.tell("There are no findings to export yet: analyse some series first (F5).")
+            return False
+        if target is None:
+            study_path = self.session.study_path
+            start = str(study_path.with_suffix(".xlsx")) if study_path else "findings.xlsx"
+            answer = self.prompts.ask_save_path("Export findings", start, export_filter())
+            if not answer:
+                return False
+            target = answer
+        path = Path(target)
+        known = {suffix for _label, suffix in EXPORT_FILTERS}
+        if path.suffix.lower() not in known:
+            path = path.with_name(path.name + suffix_for_filter(""))
+        run = self.findings_record()
+        charts = (render_charts(results, self.series_panel.model.series_for_key)
+                  if path.suffix.lower() in CHART_SUFFIXES else None)
+        try:
+            written = export(path, run, charts)
+        except ExportError as exc:
+            self.prompts.tell(str(exc), title="The findings were not exported")
+            return False
+        self.status.setText(f"Exported {_count(len(written.findings))} to {path.name}."
+                            + _left_out_text(len(written.left_out)))
+        return True
+
+    def copy(self) -> None:
+        """Edit → Copy: the text of a focused line or reading, else the selected findings."""
+        focus = QApplication.focusWidget()
+        if isinstance(focus, QLineEdit | QTextBrowser):
+            focus.copy()
+            return
+        copied = self.findings_panel.copy_selection()
+        if copied is not None:
+            self.status.setText(f"Copied {_count(len(copied.findings))} as a table."
+                                + _left_out_text(len(copied.left_out)))
+        else:
+            self.status.setText("Select rows in Findings to copy them.")
+
+
+def _count(findings: int) -> str:
+    return "1 finding" if findings == 1 else f"{findings} findings"
+
+
+def _left_out_text(left_out: int) -> str:
+    """What the status line adds when findings made with earlier settings were not written."""
+    if not left_out:
+        return ""
+    return (f" {_count(left_out).capitalize()} made with earlier settings "
+            f"{'was' if left_out == 1 else 'were'} left out: run again (F5) to include "
+            f"{'it' if left_out == 1 else 'them'}.")
