@@ -8,6 +8,7 @@ import pytest
 pytest.importorskip("pytestqt")
 
 from tauscope.data import read_workbook
+from tauscope.data.notes import reader_notes
 from ui_parts import build_parts, files_controller, open_and_wait
 
 
@@ -22,7 +23,9 @@ def test_a_workbook_is_read_and_its_first_series_shown(parts, qtbot, small_workb
     expected = read_workbook(small_workbook).series()
     shown = parts.series_panel.model.all_series()
     assert [s.name for s in shown] == [s.name for s in expected]
-    assert parts.status.text() == f"Opened small.xlsx: {len(expected)} series"
+    assert parts.status.text().startswith(f"Opened small.xlsx: {len(expected)} series — ")
+    assert "Read 1 sheet (cached values only)." in parts.status.text()  # the reader's notes
+    assert parts.status.toolTip() == reader_notes(read_workbook(small_workbook))
     assert parts.session.modified
     assert parts.current.key == expected[0].key
     from tauscope.ui import store

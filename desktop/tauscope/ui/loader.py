@@ -1,9 +1,4 @@
-"""Reading workbooks off the window's thread, so a large file never freezes it.
-
-Besides the workbook, a read reports the reader's notes as one line (``noted``: rows
-skipped, sheets empty, dates guessed; the same line ``tauscope batch`` prints), for the
-window to show.
-"""
+"""Reading workbooks off the window's thread, so a large file never freezes it."""
 
 from __future__ import annotations
 
@@ -15,7 +10,6 @@ from PySide6.QtCore import QObject, QRunnable, QThreadPool, Signal
 
 class LoaderSignals(QObject):
     loaded = Signal(str, object)  # path, Workbook
-    noted = Signal(str, str)  # path, the reader's notes on one line
     failed = Signal(str, str, str)  # path, one clear sentence, details ("" for bad input)
 
 
@@ -27,7 +21,6 @@ class _LoadTask(QRunnable):
 
     def run(self) -> None:
         from tauscope.data import DataError, read_workbook
-        from tauscope.data.notes import reader_notes
 
         try:
             workbook = read_workbook(self.path)
@@ -38,9 +31,6 @@ class _LoadTask(QRunnable):
                 self.path, f"{Path(self.path).name} could not be read ({type(exc).__name__}: {exc}).",
                 traceback.format_exc())
         else:
-            notes = reader_notes(workbook)
-            if notes:
-                self.signals.noted.emit(self.path, notes)
             self.signals.loaded.emit(self.path, workbook)
 
 
@@ -49,14 +39,12 @@ class WorkbookLoader(QObject):
 
     loaded = Signal(str, object)
     failed = Signal(str, str, str)
-    noted = Signal(str, str)  # path, the reader's notes on one line (only when there are any)
 
     def __init__(self, parent: QObject | None = None) -> None:
         super().__init__(parent)
         self.signals = LoaderSignals(self)
         self.signals.loaded.connect(self._loaded)
         self.signals.failed.connect(self._failed)
-        self.signals.noted.connect(self.noted)
         self.pool = QThreadPool(self)
         self.pool.setMaxThreadCount(2)
         self.pending = 0

@@ -10,6 +10,7 @@ from PySide6.QtCore import QEvent, QObject, Signal
 from PySide6.QtGui import QDragEnterEvent, QDropEvent
 from PySide6.QtWidgets import QLabel, QMenu, QWidget
 
+from tauscope.data.notes import reader_notes
 from tauscope.report.study import STUDY_SUFFIX
 from tauscope.resources_path import demo_workbook
 from tauscope.ui import store
@@ -83,7 +84,10 @@ class FilesController(QObject):
         self.series_panel.expand_workbook(item)
         store.add_recent_file(workbook.path)
         count = len(workbook.series())
-        self.status.setText(f"Opened {workbook.path.name}: {count} series")
+        notes = reader_notes(workbook)  # what the reader noticed, as batch prints it
+        self.status.setText(f"Opened {workbook.path.name}: {count} series"
+                            + (f" — {notes}" if notes else ""))
+        self.status.setToolTip(notes)
         self.session.set_modified(True)
         if not self.current.key and workbook.series():
             self.series_panel.select_key(workbook.series()[0].key)
