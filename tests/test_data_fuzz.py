@@ -3,16 +3,15 @@
 from __future__ import annotations
 
 import io
-import tempfile
 from pathlib import Path
 
 import openpyxl
+import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from tauscope.data import DataError, Workbook, read_workbook
 
-FOLDER = Path(tempfile.mkdtemp(prefix="tauscope-fuzz-"))
 FUZZ = settings(max_examples=300, deadline=None,
                 suppress_health_check=[HealthCheck.too_slow, HealthCheck.data_too_large])
 
@@ -28,8 +27,14 @@ field = st.one_of(st.sampled_from(TOKENS), st.text(max_size=6))
 table = st.lists(st.lists(field, min_size=0, max_size=6), min_size=0, max_size=12)
 
 
-def _read(content: bytes, suffix: str) -> None:
-    path = FOLDER / f"input{suffix}"
+@pytest.fixture(scope="module")
+def folder(tmp_path_factory: pytest.TempPathFactory) -> Path:
+    """One folder for the module's inputs, under pytest's own temporary root (cleaned up)."""
+    return tmp_path_factory.mktemp("fuzz")
+
+
+def _read(folder: Path, content: bytes, suffix: str) -> None:
+    path = folder / f"input{suffix}"
     path.write_bytes(content)
     try:
         result = read_workbook(path)
@@ -46,22 +51,22 @@ def _read(content: bytes, suffix: str) -> None:
 @given(rows=table, delimiter=st.sampled_from([",", ";", "\t", "|"]),
        newline=st.sampled_from(["\n", "\r\n", "\r"]),
        encoding=st.sampled_from(["utf-8", "utf-8-sig", "cp1252", "utf-16"]))
-def test_table_like_texts(rows: list[list[str]], delimiter: str, newline: str,
+def test_table_like_texts(folder: Path, rows: list[list[str]], delimiter: str, newline: str,
                           encoding: str) -> None:
     text = newline.join(delimiter.join(r) for r in rows)
-    _read(text.encode(encoding, errors="replace"), ".csv")
+    _read(folder, text.encode(encoding, errors="replace"), ".csv")
 
 
 @FUZZ
 @given(text=st.text(max_size=400))
-def test_arbitrary_texts(text: str) -> None:
-    _read(text.encode("utf-8", errors="surrogatepass"), ".csv")
+def test_arbitrary_texts(folder: Path, text: str) -> None:
+    _read(folder, text.encode("utf-8", errors="surrogatepass"), ".csv")
 
 
 @FUZZ
 @given(data=st.binary(max_size=600), suffix=st.sampled_from([".csv", ".txt", ".xlsx", ".xls"]))
-def test_arbitrary_bytes(data: bytes, suffix: str) -> None:
-    _read(data, suffix)
+def test_arbitrary_bytes(folder: Path, data: bytes, suffix: str) -> None:
+    _read(folder, data, suffix)
 
 
 def _small_workbook() -> bytes:
@@ -83,8 +88,8 @@ WORKBOOK = _small_workbook()
 @given(cuts=st.lists(st.tuples(st.integers(0, len(WORKBOOK) - 1), st.integers(0, 255)),
                      min_size=1, max_size=8),
        truncate=st.integers(16, len(WORKBOOK)))
-def test_damaged_workbooks(cuts: list[tuple[int, int]], truncate: int) -> None:
+def test_damaged_workbooks(folder: Path, cuts: list[tuple[int, int]], truncate: int) -> None:
     damaged = bytearray(WORKBOOK)
     for position, value in cuts:
         damaged[position] = value
-    _read(bytes(damaged[:truncate]), ".xlsx")
+    _read(folder, bytes(damaged[:truncate]), ".xlsx")
