@@ -96,7 +96,7 @@ def simulate(
     return _simulate(period, deterministic, int(n), int(lags), int(reps), int(seed))
 
 
-@lru_cache(maxsize=24)
+@lru_cache(maxsize=32)
 def _simulate(
     period: int, deterministic: str, n: int, lags: int, reps: int, seed: int
 ) -> np.ndarray:
