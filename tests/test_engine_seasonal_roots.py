@@ -594,6 +594,26 @@ def test_monthly_reading_names_the_cycles() -> None:
         assert words in result.text
 
 
+def test_a_root_twice_a_year_alone_gets_the_filter_for_that_root() -> None:
+    # (1 + L) y_t = x_t with x a stationary AR(0.5): a unit root at frequency π only
+    # (twice a year), none in the long run or once a year (HEGY 1990 §2)
+    rng = np.random.default_rng(3)
+    n = 200
+    x = np.zeros(n)
+    e = rng.standard_normal(n)
+    for t in range(1, n):
+        x[t] = 0.5 * x[t - 1] + e[t]
+    y = np.zeros(n)
+    for t in range(n):
+        y[t] = -(y[t - 1] if t else 0.0) + x[t]
+    y += np.array([0.0, 2.0, -1.0, 3.0])[np.arange(n) % 4]
+    result = seasonal_unit_roots(y, 4, reps=5_000)
+    assert result.seasonal_roots == ("twice a year",)
+    assert not result.long_run_root
+    assert result.suggestion == "the sum of neighbouring quarters, y_t + y_{t−1}"
+    assert "removes only the seasonal root found" in result.text
+
+
 @pytest.mark.parametrize(
     "values,period,message",
     [

@@ -50,6 +50,20 @@ def _evidence(test: SeasonalTest, label: str, named: bool = True) -> str:
     )
 
 
+def _partial_filter(period: int, roots: Sequence[str]) -> str | None:
+    """The filter that removes only the quarterly seasonal unit roots found, or None
+    (HEGY 1990 §2: 1 + L carries the root −1, twice a year; 1 + L² the pair ±i, once a
+    year; 1 + L + L² + L³ all three)."""
+    if period != 4:
+        return None
+    found = set(roots)
+    if found == {"twice a year"}:
+        return "the sum of neighbouring quarters, y_t + y_{t−1}"
+    if found == {"once a year"}:
+        return "the sum of quarters half a year apart, y_t + y_{t−2}"
+    return "the sum of the last four quarters, y_t + y_{t−1} + y_{t−2} + y_{t−3}"
+
+
 def reading(
     period: int,
     deterministic: str,
@@ -66,7 +80,7 @@ def reading(
     label = f"{round(alpha * 100):d}%"
     method = _METHOD[period]
     setup = (
-        f"the {method} (with {_TERMS[deterministic]}, {lags} lagged seasonal "
+        f"the {method} (with {_TERMS[deterministic]}, {lags or 'no'} lagged seasonal "
         f"difference{'s' if lags != 1 else ''}, critical values simulated at this length "
         f"from {reps:,} replications)"
     )
@@ -93,20 +107,29 @@ def reading(
             "The seasonal pattern wanders from year to year instead of repeating around "
             "fixed seasonal means."
         )
-        suggestion = (
-            f"seasonal difference (Δ{period}: each {unit} minus the same {unit} a year earlier)"
-        )
-        sentences.append(
-            f"Suggestion: take the seasonal difference Δ{period} y (each {unit} minus the "
-            f"same {unit} a year earlier) before other tests."
-        )
-        if not long_run_root:
+        difference = f"the seasonal difference Δ{period} y (each {unit} minus the same {unit} a year earlier)"
+        partial = None if long_run_root else _partial_filter(period, seasonal_roots)
+        if long_run_root:
+            suggestion = difference
+            sentences.append(f"Suggestion: take {difference} before other tests.")
+        else:
             sentences.append(
-                f"The long-run (ordinary) unit root is rejected ({_evidence(long_run, label, named=False)}), "
-                "so the seasonal difference would also difference away a long run that is "
-                "already stable; a filter that removes only the seasonal roots found is the "
-                "sharper choice."
+                "The long-run (ordinary) unit root is rejected "
+                f"({_evidence(long_run, label, named=False)}), so the seasonal difference "
+                "would also difference away a long run that is already stable."
             )
+            if partial is None:
+                suggestion = difference
+                sentences.append(
+                    f"Suggestion: take {difference}, or a filter that removes only the "
+                    "seasonal roots found, before other tests."
+                )
+            else:
+                suggestion = partial
+                sentences.append(
+                    f"Suggestion: use {partial}, which removes only the seasonal "
+                    f"root{'s' if len(kept) > 1 else ''} found, before other tests."
+                )
     else:
         sentences.append(
             f"No seasonal unit roots: {setup} rejects a unit root at every seasonal cycle "
