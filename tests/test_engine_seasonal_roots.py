@@ -622,6 +622,7 @@ def test_a_root_twice_a_year_alone_gets_the_filter_for_that_root() -> None:
         (np.r_[np.arange(50.0), np.nan, np.arange(50.0)], 4, "missing"),
         (np.tile([1.0, 5.0, 2.0, 7.0], 30), 4, "the same amount"),
         (np.arange(100.0), 4, "the same amount"),
+        (np.tile([0.0, 2.0, 1.0, 5.0], 40) + np.repeat(np.arange(40.0) ** 2, 4), 4, "fits exactly"),
     ],
 )
 def test_series_that_cannot_be_tested_get_one_sentence(

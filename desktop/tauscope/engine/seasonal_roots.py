@@ -153,9 +153,20 @@ def seasonal_statistics(
             f"a series of {y.size} observations is too short for the seasonal regression "
             f"with {lags} lags (at least {minimum_length(period, deterministic, lags)} needed)"
         )
-    res = _fit_one(y, period, deterministic, lags, period + lags)
     stats = statistics_for(period)
-    values_out = statistics(res, stats)[0]
+    # y is scaled so that Δ_S y has unit spread: an RSS below 1e-20 per row is an exact fit
+    with np.errstate(all="ignore"):
+        try:
+            res = _fit_one(y, period, deterministic, lags, period + lags)
+            values_out = statistics(res, stats)[0]
+            exact = bool(res.rss[0] <= 1e-20 * (y.size - period - lags))
+        except np.linalg.LinAlgError:
+            values_out, exact = np.full(len(stats), np.nan), False
+    if exact or not np.all(np.isfinite(values_out)):
+        raise ValueError(
+            "the seasonal regression cannot be fitted: the series' seasonal pieces move "
+            "in lockstep (its regressors are linearly dependent), or it fits exactly"
+        )
     return {s.name: float(v) for s, v in zip(stats, values_out, strict=True)}
 
 
