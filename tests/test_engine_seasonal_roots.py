@@ -145,7 +145,7 @@ def test_statistics_do_not_depend_on_the_scale(scale: float, deterministic: str)
 @pytest.mark.parametrize("period", [4, 12])
 def test_each_regressor_keeps_only_its_own_frequency(period: int) -> None:
     # The filter of π_k is zero at every S-th root of unity exp(2πi m/S) except its own
-    # frequency ±2πk/S (HEGY 1990 §3; Beaulieu & Miron 1993 §2); the name must agree.
+    # frequency ±2πk/S (HEGY 1990; Beaulieu & Miron 1993); the name must agree.
     lags = np.arange(1, period + 1)
     nonzero = []
     for row in coefficients(period):
@@ -596,7 +596,7 @@ def test_monthly_reading_names_the_cycles() -> None:
 
 def test_a_root_twice_a_year_alone_gets_the_filter_for_that_root() -> None:
     # (1 + L) y_t = x_t with x a stationary AR(0.5): a unit root at frequency π only
-    # (twice a year), none in the long run or once a year (HEGY 1990 §2)
+    # (twice a year), none in the long run or once a year (HEGY 1990)
     rng = np.random.default_rng(3)
     n = 200
     x = np.zeros(n)

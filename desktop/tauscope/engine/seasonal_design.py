@@ -2,7 +2,7 @@
 and the t and F statistics computed for a whole batch of series at once.
 
 Quarterly data (S = 4), Hylleberg, Engle, Granger & Yoo (1990), *Journal of
-Econometrics* 44, eq. (3.6).  With the filters
+Econometrics* 44.  With the filters
 
     y1_t = (1 + L + L² + L³) y_t           (keeps the zero frequency)
     y2_t = −(1 − L + L² − L³) y_t          (keeps frequency π)
@@ -44,7 +44,7 @@ PERIODS = (4, 12)
 
 _R3 = math.sqrt(3.0)
 # Coefficient of y_{t−j}, j = 1 … 12 (columns), in regressor y_k at t − 1 (rows),
-# Beaulieu & Miron (1993), the definitions below their eq. (2).
+# Beaulieu & Miron (1993), their definitions of the twelve filters.
 _MONTHLY = np.array(
     [
         [1] * 12,

@@ -3,7 +3,7 @@
 A seasonal unit root at a frequency means the seasonal pattern at that cycle
 wanders instead of repeating around fixed seasonal means; the seasonal
 difference Δ_S y_t = y_t − y_{t−S} removes every seasonal root and the long-run
-one together (Hylleberg, Engle, Granger & Yoo 1990, §2).  Not rejecting is not
+one together (Hylleberg, Engle, Granger & Yoo 1990).  Not rejecting is not
 proof: the reading says so, and how many years of data the test had
 (common practice: the span in years, not the count of observations, drives
 power; Shiller & Perron 1985).
@@ -52,7 +52,7 @@ def _evidence(test: SeasonalTest, label: str, named: bool = True) -> str:
 
 def _partial_filter(period: int, roots: Sequence[str]) -> str | None:
     """The filter that removes only the quarterly seasonal unit roots found, or None
-    (HEGY 1990 §2: 1 + L carries the root −1, twice a year; 1 + L² the pair ±i, once a
+    (HEGY 1990: 1 + L carries the root −1, twice a year; 1 + L² the pair ±i, once a
     year; 1 + L + L² + L³ all three)."""
     if period != 4:
         return None
