@@ -362,3 +362,20 @@ def test_lag_rules_on_a_seasonal_ar() -> None:
     assert fixed.lags == 2 and fixed.nobs == n - 4 - 2
     with pytest.raises(ValueError, match="too short for up to 300 lags"):
         choose_lags(y, 4, "dummies", "aic", max_lags=300)
+
+
+def test_seasonal_lines_for_the_chart() -> None:
+    from tauscope.engine.seasonal_chart import seasonal_lines
+
+    # quarters from a third quarter to a third quarter: half a year, a year, 3/4 of a year
+    y = np.array([10.0, 20.0, 1.0, 2.0, 3.0, 6.0, 5.0, 7.0, 6.0])
+    lines = seasonal_lines(y, 4, first_season=2)
+    assert lines.shape == (3, 4)
+    np.testing.assert_allclose(lines[0], [np.nan, np.nan, -5.0, 5.0])  # year mean 15
+    np.testing.assert_allclose(lines[1], [-2.0, -1.0, 0.0, 3.0])  # year mean 3
+    np.testing.assert_allclose(lines[2], [-1.0, 1.0, 0.0, np.nan])  # year mean 6
+    # stable seasonal means give parallel lines; a seasonal walk makes them wander
+    rng = np.random.default_rng(4)
+    stable = seasonal_lines(_stationary_seasonal(4, 200, rng), 4)
+    walk = seasonal_lines(_seasonal_walk(4, 200, rng), 4)
+    assert np.nanstd(stable, axis=0).max() < np.nanstd(walk, axis=0).max()
