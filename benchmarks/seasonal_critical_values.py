@@ -5,7 +5,7 @@
 For quarterly series (HEGY 1990, n = 200) and monthly series (Beaulieu & Miron 1993,
 n = 240), with seasonal means in the regression and no lags, times
 
-- tauscope.engine.seasonal_critical: ``reps`` seasonal random walks at once, every
+- tauscope.engine.seasonal.critical: ``reps`` seasonal random walks at once, every
   statistic (t_π1, t_π2, the F for each pair, the joint F's), cache cleared first;
 - a plain Python loop: build the regressors of each walk with numpy and fit them with
   statsmodels OLS (t values and one F test per pair), on ``loop`` walks, scaled to ``reps``;
@@ -23,7 +23,7 @@ import numpy as np
 import statsmodels.api as sm
 
 from tauscope.engine import seasonal_critical
-from tauscope.engine.seasonal_design import build, deterministic_columns, statistics_for
+from tauscope.engine.seasonal.design import build, deterministic_columns, statistics_for
 
 
 def time_batched(period: int, n: int, reps: int) -> tuple[float, np.ndarray]:

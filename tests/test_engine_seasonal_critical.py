@@ -10,8 +10,8 @@ import math
 import numpy as np
 import pytest
 
-from tauscope.engine.seasonal_critical import p_value, simulate
-from tauscope.engine.seasonal_design import DETERMINISTIC, statistics_for
+from tauscope.engine.seasonal.critical import p_value, simulate
+from tauscope.engine.seasonal.design import DETERMINISTIC, statistics_for
 
 # ---------------------------------------------------------------------------------------
 # (b) Simulated critical values against the published tables.

@@ -19,8 +19,8 @@ import pandas as pd
 import pytest
 import statsmodels.api as sm
 
-from tauscope.engine.seasonal_critical import simulate
-from tauscope.engine.seasonal_design import (
+from tauscope.engine.seasonal.critical import simulate
+from tauscope.engine.seasonal.design import (
     DETERMINISTIC,
     build,
     coefficients,
@@ -30,8 +30,8 @@ from tauscope.engine.seasonal_design import (
     statistics,
     statistics_for,
 )
-from tauscope.engine.seasonal_gram import regression_gram
-from tauscope.engine.seasonal_roots import choose_lags, seasonal_statistics, seasonal_unit_roots
+from tauscope.engine.seasonal.gram import regression_gram
+from tauscope.engine.seasonal.roots import choose_lags, seasonal_statistics, seasonal_unit_roots
 
 R3 = math.sqrt(3.0)
 
@@ -365,7 +365,7 @@ def test_lag_rules_on_a_seasonal_ar() -> None:
 
 
 def test_seasonal_lines_for_the_chart() -> None:
-    from tauscope.engine.seasonal_chart import seasonal_lines
+    from tauscope.engine.seasonal.chart import seasonal_lines
 
     # quarters from a third quarter to a third quarter: half a year, a year, 3/4 of a year
     y = np.array([10.0, 20.0, 1.0, 2.0, 3.0, 6.0, 5.0, 7.0, 6.0])

@@ -15,7 +15,7 @@ from collections.abc import Sequence
 
 import numpy as np
 
-from tauscope.engine.seasonal_design import check_period
+from tauscope.engine.seasonal.design import check_period
 
 
 def seasonal_lines(

@@ -40,7 +40,7 @@ from collections.abc import Sequence
 
 import numpy as np
 
-from tauscope.engine.seasonal_critical import (
+from tauscope.engine.seasonal.critical import (
     DEFAULT_REPS,
     DEFAULT_SEED,
     critical_values,
@@ -48,7 +48,7 @@ from tauscope.engine.seasonal_critical import (
     p_value,
     simulate,
 )
-from tauscope.engine.seasonal_design import (
+from tauscope.engine.seasonal.design import (
     BatchFit,
     build,
     check_deterministic,
@@ -59,8 +59,8 @@ from tauscope.engine.seasonal_design import (
     statistics,
     statistics_for,
 )
-from tauscope.engine.seasonal_reading import reading
-from tauscope.engine.seasonal_results import SeasonalRootsResult, SeasonalTest
+from tauscope.engine.seasonal.reading import reading
+from tauscope.engine.seasonal.results import SeasonalRootsResult, SeasonalTest
 
 LAG_RULES = ("aic", "bic", "tsig", "fixed")
 ALPHAS = {0.01: "1%", 0.05: "5%", 0.10: "10%"}

@@ -35,7 +35,7 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine.seasonal_design import (
+from tauscope.engine.seasonal.design import (
     check_deterministic,
     check_period,
     fit_from_gram,
@@ -43,7 +43,7 @@ from tauscope.engine.seasonal_design import (
     statistics,
     statistics_for,
 )
-from tauscope.engine.seasonal_gram import regression_gram
+from tauscope.engine.seasonal.gram import regression_gram
 
 DEFAULT_SEED = 19900401
 DEFAULT_REPS = 20_000

@@ -24,7 +24,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from tauscope.engine.seasonal_design import coefficients, deterministic_columns
+from tauscope.engine.seasonal.design import coefficients, deterministic_columns
 
 
 def transform(period: int, lags: int) -> np.ndarray:

@@ -13,7 +13,7 @@ from __future__ import annotations
 
 from collections.abc import Sequence
 
-from tauscope.engine.seasonal_results import SeasonalTest
+from tauscope.engine.seasonal.results import SeasonalTest
 
 _METHOD = {4: "HEGY test", 12: "Beaulieu-Miron test"}
 _TERMS = {
