@@ -33,7 +33,7 @@ import numpy as np
 
 from tauscope.engine.dfgls_many import dfgls_many, dfgls_tau_many, gls_detrend_many
 from tauscope.engine.simulate import DEFAULT_SEED, shock_chunks
-from tauscope.engine.trend_robust import trend_found, trend_statistics
+from tauscope.engine.trend_robust import trend_critical_value, trend_found, trend_statistics
 
 UNION_REPS = 20_000  # finite-sample constants: κ to about ±0.005
 ASYMPTOTIC_LENGTH = 2_000
@@ -141,15 +141,16 @@ class UnionOrders:
     levels: dict[int, UnionLevel]
 
 
-def max_lags_schwert(length: int, max_lags: int | None = None) -> int:
-    """Schwert (1989), ⌊12 (T/100)^{1/4}⌋, capped at T//2 − 3 as the engine does."""
-    wanted = int(np.floor(12.0 * (length / 100.0) ** 0.25)) if max_lags is None else max_lags
+def max_lags_schwert(length: int, max_lags: int | None = None, scale: float = 12.0) -> int:
+    """Schwert (1989), ⌊c (T/100)^{1/4}⌋ (c = 12 the long rule, 4 the short one), capped at
+    T//2 − 3 as the engine does; ``max_lags`` overrides it."""
+    wanted = int(np.floor(scale * (length / 100.0) ** 0.25)) if max_lags is None else max_lags
     return max(0, min(wanted, length // 2 - 3))
 
 
 def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_difference: int = 2,
                  max_lags: int | None = None, fixed: int | None = None,
-                 critical: str = "finite") -> UnionOrders:
+                 critical: str = "finite", lag_scale: float = 12.0) -> UnionOrders:
     """Order of integration of every row of ``xs`` by the union from the highest
     difference down (Dickey & Pantula 1987), and its deterministic label:
 
@@ -162,17 +163,20 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
     levels: dict[int, UnionLevel] = {}
     for d in range(max_difference, -1, -1):
         xd = np.diff(xs, n=d, axis=1) if d else xs
-        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags)
+        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
         levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical)
     order = orders_from_rejections({d: level.reject for d, level in levels.items()}, max_difference)
     z = np.full(rows, np.nan)
-    on_levels = (order == 0) | (order == 1)
-    if on_levels.any():
-        z[on_levels] = trend_statistics(xs[on_levels], levels[0].tau_trend[on_levels])["z"]
-    if (order == 2).any() and 1 in levels:
-        second = order == 2
-        z[second] = trend_statistics(np.diff(xs[second], axis=1), levels[1].tau_trend[second])["z"]
-    trend = trend_found(z, alpha)
+    trend = np.zeros(rows, dtype=bool)
+    for o, d in ((0, 0), (1, 0), (2, 1)):
+        chosen = order == o
+        if not chosen.any() or d not in levels:
+            continue
+        xd = np.diff(xs[chosen], axis=1) if d else xs[chosen]
+        z[chosen] = trend_statistics(xd, levels[d].tau_trend[chosen])["z"]
+        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
+        critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0))
+        trend[chosen] = trend_found(z[chosen], critical_value)
     labels: list[str | None] = []
     for o, t in zip(order, trend, strict=True):
         if o < 0:
@@ -206,6 +210,25 @@ def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "
             m = np.maximum(level.tau_constant / c.cv_constant, level.tau_trend / c.cv_trend) / c.kappa
         out[d] = np.asarray(m > 1.0)
     return out
+
+
+@lru_cache(maxsize=64)
+def union_power(length: int, phi: float, rule: str = "maic", alpha: float = 0.05,
+                lag_scale: float = 12.0, reps: int = 2_000, seed: int = DEFAULT_SEED) -> tuple[float, float]:
+    """Simulated power at ``length`` against a stationary Gaussian AR(1) with coefficient
+    ``phi``, started from its stationary distribution: (the union's rejection rate, the
+    trend component's alone).  Both statistics are invariant to the level and τ_τ to a
+    linear trend, so the first covers every "around a mean" alternative and the second
+    bounds the union's power against "around a trend" ones from below."""
+    rng = np.random.default_rng([seed, length, round(phi * 1000)])
+    e = rng.standard_normal((reps, length))
+    y = np.empty_like(e)
+    y[:, 0] = e[:, 0] / np.sqrt(1.0 - phi * phi)
+    for t in range(1, length):
+        y[:, t] = phi * y[:, t - 1] + e[:, t]
+    level = union_level(y, 0, rule, max_lags_schwert(length, None, lag_scale), alpha)
+    c = level.constants
+    return float(np.mean(level.reject)), float(np.mean(level.tau_trend < c.kappa * c.cv_trend))
 
 
 def _print_asymptotic() -> None:  # pragma: no cover - run by hand
