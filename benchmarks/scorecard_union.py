@@ -62,8 +62,10 @@ def _kpss_checks(x: np.ndarray, order: int, det: str | None, alpha: float) -> li
 
 def run_union(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
               max_lags: int | None, fixed: int | None, critical: str,
-              classic_order: np.ndarray | None, lag_scale: float = 12.0) -> UnionRun:
-    result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, critical, lag_scale)
+              classic_order: np.ndarray | None, lag_scale: float = 6.0,
+              components: str = "four") -> UnionRun:
+    result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, critical, lag_scale,
+                          components)
     order = result.order
     same = np.ones(order.shape[0], dtype=bool)
     for a in (0.01, 0.10):
@@ -76,7 +78,8 @@ def run_union(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         kpss_ok[i] = bool(checks) and all(checks)
         kpss_against[i] = bool(checks) and not any(checks)
     other_scale = 4.0 if lag_scale >= 8.0 else 12.0
-    other_lags = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, critical, other_scale)
+    other_lags = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, critical, other_scale,
+                              components)
     margin = np.full(order.shape[0], np.nan)
     for i, o in enumerate(order):
         level = max_difference if o < 0 else (int(o) - 1 if o > 0 else 0)
@@ -84,7 +87,8 @@ def run_union(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
     powerful = {phi: np.ones(order.shape[0], dtype=bool) for phi in POWER_PHIS}
     for i, (o, det) in enumerate(zip(order, result.deterministic, strict=True)):
         for phi in POWER_PHIS if o >= 1 else ():
-            union_rate, trend_rate = union_power(xs.shape[1] - (int(o) - 1), phi, rule, alpha, lag_scale)
+            union_rate, trend_rate = union_power(xs.shape[1] - (int(o) - 1), phi, rule, alpha, lag_scale,
+                                                 components)
             powerful[phi][i] = (trend_rate if det == "constant" else union_rate) >= POWER_NEEDED
     evidence = {
         "power90": powerful[0.90],

@@ -39,6 +39,7 @@ from scorecard_processes import Process, by_name, grid
 from scorecard_union import BADGE_RULES, badge, run_union
 
 from tauscope.engine import Settings, analyse_many
+from tauscope.engine.union import UNION_LAG_SCALE
 
 SEED = 20260513
 ACCEPT_POWER = (("AR(1) mean phi=0.5", 100, 0.90, "constant"),
@@ -92,10 +93,11 @@ def classic_cell(process: Process, length: int, xs: np.ndarray, settings: Settin
 
 
 def union_cell(process: Process, length: int, xs: np.ndarray, settings: Settings,
-               critical: str, classic: Cell | None, rule: str, lag_scale: float) -> Cell:
+               critical: str, classic: Cell | None, rule: str, lag_scale: float,
+               components: str) -> Cell:
     run = run_union(xs, settings.lag_rule, settings.alpha, settings.max_difference,
                     settings.max_lags, settings.lags, critical,
-                    classic.order if classic is not None else None, lag_scale)
+                    classic.order if classic is not None else None, lag_scale, components)
     return Cell(process, length, run.order, list(run.deterministic),
                 badge(run.order, run.evidence, rule), None, run.evidence)
 
@@ -194,8 +196,11 @@ def main(argv: list[str] | None = None) -> None:
     parser.add_argument("--max-lags", type=int, default=None)
     parser.add_argument("--lags", type=int, default=None)
     parser.add_argument("--union-critical", choices=("finite", "asymptotic"), default="finite")
-    parser.add_argument("--badge-rule", choices=tuple(BADGE_RULES), default="KPSS + classic + alpha + lags")
-    parser.add_argument("--union-lag-scale", type=float, default=12.0,
+    parser.add_argument("--badge-rule", choices=tuple(BADGE_RULES),
+                        default="KPSS + classic + alpha + lags + power95")
+    parser.add_argument("--union-components", choices=("four", "two"), default="four",
+                        help="four: GLS and OLS detrending (HLT 2012); two: the DF-GLS pair (HLT 2009)")
+    parser.add_argument("--union-lag-scale", type=float, default=UNION_LAG_SCALE,
                         help="the union's maximum lag is floor(c (T/100)^(1/4)); 12: Schwert's long rule")
     parser.add_argument("--only", default="",
                         help="only processes whose name contains one of these (comma-separated)")
@@ -207,7 +212,8 @@ def main(argv: list[str] | None = None) -> None:
     settings = Settings(lag_rule=args.lag_rule, alpha=args.alpha, max_lags=args.max_lags,
                         lags=args.lags, power=False)
     print(f"settings: {settings.to_dict()}; reps {reps}; lengths {lengths}; seed {args.seed}; "
-          f"union critical values {args.union_critical}, lag scale {args.union_lag_scale}; "
+          f"union {args.union_components} components, critical values {args.union_critical}, "
+          f"lag scale {args.union_lag_scale}; "
           f"badge rule {args.badge_rule!r}")
     wanted = args.only.split(",")
     jobs = [(p, n) for p in grid() if any(w in p.name for w in wanted) for n in lengths]
@@ -229,7 +235,7 @@ def main(argv: list[str] | None = None) -> None:
         if args.strategy in ("union", "both"):
             start = time.perf_counter()
             cell = union_cell(process, n, xs, settings, args.union_critical, classic, args.badge_rule,
-                                  args.union_lag_scale)
+                              args.union_lag_scale, args.union_components)
             clock["union"] += time.perf_counter() - start
             run["union"].append(cell)
             union_runs.append((cell, cell.evidence))
