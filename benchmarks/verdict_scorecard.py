@@ -1,7 +1,7 @@
 """The verdict scorecard: how often each strategy's verdict is right on known processes.
 
     python benchmarks/verdict_scorecard.py [--reps 500] [--quick] [--strategy both]
-        [--lag-rule maic] [--alpha 0.05] [--max-lags N] [--lags N]
+        [--lag-rule aic] [--union-lag-rule maic] [--alpha 0.05] [--max-lags N] [--lags N]
         [--union-critical finite|asymptotic] [--lengths 50,100,200,500] [--only TEXT]
 
 For every process of :mod:`scorecard_processes` and every length T it simulates
@@ -46,6 +46,7 @@ ACCEPT_POWER = (("AR(1) mean phi=0.5", 100, 0.90, "constant"),
                 ("AR(1) mean phi=0.8", 200, 0.85, "constant"),
                 ("AR(1) trend phi=0.7", 150, 0.80, "trend"))
 ORDERS = (0, 1, 2, -1, -2)  # -1 unresolved, -2 error
+SHORT = {"confirmed": "conf", "conflict": "cflt", "inconclusive": "inc"}
 ORDER_NAMES = {0: "I(0)", 1: "I(1)", 2: "I(2)", -1: "unres", -2: "error"}
 
 
@@ -94,8 +95,8 @@ def classic_cell(process: Process, length: int, xs: np.ndarray, settings: Settin
 
 def union_cell(process: Process, length: int, xs: np.ndarray, settings: Settings,
                critical: str, classic: Cell | None, rule: str, lag_scale: float,
-               components: str) -> Cell:
-    run = run_union(xs, settings.lag_rule, settings.alpha, settings.max_difference,
+               components: str, lag_rule: str) -> Cell:
+    run = run_union(xs, lag_rule, settings.alpha, settings.max_difference,
                     settings.max_lags, settings.lags, critical,
                     classic.order if classic is not None else None, lag_scale, components)
     return Cell(process, length, run.order, list(run.deterministic),
@@ -117,7 +118,7 @@ def print_table(strategy: str, cells: list[Cell]) -> None:
         for g in ("confirmed", "conflict", "inconclusive"):
             mask = c.badge == g
             if mask.any():
-                grades.append(f"{g[:4]} {_pct(float(np.mean(c.right[mask])))} {int(mask.sum())}")
+                grades.append(f"{SHORT[g]} {_pct(float(np.mean(c.right[mask])))} {int(mask.sum())}")
         print(f"{c.process.name:28s} {c.length:4d} {shares}  {_pct(float(np.mean(c.right_order)))} "
               f"{_pct(float(np.mean(c.right)))} {low} | " + "; ".join(grades))
 
@@ -185,19 +186,37 @@ def calibration(union_runs: list[tuple[Cell, dict[str, np.ndarray]]]) -> None:
         badge_check(cells, order_only=True)
 
 
+def save(path: str, run: dict[str, list[Cell]]) -> None:
+    """Every cell's arrays, keyed "strategy|process|T|field", for calibrating the badge offline."""
+    arrays: dict[str, np.ndarray] = {}
+    for strategy, cells in run.items():
+        for c in cells:
+            key = f"{strategy}|{c.process.name}|{c.length}"
+            arrays[f"{key}|order"] = c.order
+            arrays[f"{key}|deterministic"] = np.array([d or "" for d in c.deterministic])
+            arrays[f"{key}|badge"] = c.badge
+            arrays[f"{key}|right"] = c.right
+            arrays[f"{key}|right_order"] = c.right_order
+            for name, values in c.evidence.items():
+                arrays[f"{key}|evidence_{name}"] = values
+    np.savez_compressed(path, **arrays)
+
+
 def main(argv: list[str] | None = None) -> None:
     parser = argparse.ArgumentParser(description=__doc__.split("\n")[0])
     parser.add_argument("--reps", type=int, default=500)
     parser.add_argument("--quick", action="store_true")
     parser.add_argument("--lengths", default="50,100,200,500")
     parser.add_argument("--strategy", choices=("classic", "union", "both"), default="both")
-    parser.add_argument("--lag-rule", default="maic")
+    parser.add_argument("--lag-rule", default=Settings().lag_rule,
+                        help="the classic strategy's lag rule (default: the engine's default)")
+    parser.add_argument("--union-lag-rule", default="maic")
     parser.add_argument("--alpha", type=float, default=0.05)
     parser.add_argument("--max-lags", type=int, default=None)
     parser.add_argument("--lags", type=int, default=None)
     parser.add_argument("--union-critical", choices=("finite", "asymptotic"), default="finite")
     parser.add_argument("--badge-rule", choices=tuple(BADGE_RULES),
-                        default="KPSS + classic + alpha + lags + power95")
+                        default="proposed: strict KPSS + classic + alpha + lags + power95, T >= 150")
     parser.add_argument("--union-components", choices=("four", "two"), default="four",
                         help="four: GLS and OLS detrending (HLT 2012); two: the DF-GLS pair (HLT 2009)")
     parser.add_argument("--union-lag-scale", type=float, default=UNION_LAG_SCALE,
@@ -205,6 +224,10 @@ def main(argv: list[str] | None = None) -> None:
     parser.add_argument("--only", default="",
                         help="only processes whose name contains one of these (comma-separated)")
     parser.add_argument("--seed", type=int, default=SEED)
+    parser.add_argument("--classic-from", default="",
+                        help="take the classic verdicts (for the union's evidence) from a --save file "
+                             "instead of running the classic strategy")
+    parser.add_argument("--save", default="", help="write every cell's verdicts and evidence to this .npz")
     args = parser.parse_args(argv)
     reps, lengths = args.reps, [int(v) for v in args.lengths.split(",")]
     if args.quick:
@@ -212,7 +235,8 @@ def main(argv: list[str] | None = None) -> None:
     settings = Settings(lag_rule=args.lag_rule, alpha=args.alpha, max_lags=args.max_lags,
                         lags=args.lags, power=False)
     print(f"settings: {settings.to_dict()}; reps {reps}; lengths {lengths}; seed {args.seed}; "
-          f"union {args.union_components} components, critical values {args.union_critical}, "
+          f"union {args.union_components} components, lag rule {args.union_lag_rule}, "
+          f"critical values {args.union_critical}, "
           f"lag scale {args.union_lag_scale}; "
           f"badge rule {args.badge_rule!r}")
     wanted = args.only.split(",")
@@ -223,6 +247,7 @@ def main(argv: list[str] | None = None) -> None:
     classic_by: dict[tuple[str, int], Cell] = {}
     union_runs: list[tuple[Cell, dict[str, np.ndarray]]] = []
     clock = {"classic": 0.0, "union": 0.0}
+    saved = np.load(args.classic_from) if args.classic_from else None
     for process, n in jobs:
         xs = simulate(process, n, reps, args.seed)
         classic = None
@@ -232,10 +257,13 @@ def main(argv: list[str] | None = None) -> None:
             clock["classic"] += time.perf_counter() - start
             run["classic"].append(classic)
             classic_by[(process.name, n)] = classic
+        if classic is None and saved is not None:
+            order = saved[f"classic|{process.name}|{n}|order"]
+            classic = Cell(process, n, order, [None] * order.size, np.array(["none"] * order.size))
         if args.strategy in ("union", "both"):
             start = time.perf_counter()
             cell = union_cell(process, n, xs, settings, args.union_critical, classic, args.badge_rule,
-                              args.union_lag_scale, args.union_components)
+                              args.union_lag_scale, args.union_components, args.union_lag_rule)
             clock["union"] += time.perf_counter() - start
             run["union"].append(cell)
             union_runs.append((cell, cell.evidence))
@@ -245,6 +273,8 @@ def main(argv: list[str] | None = None) -> None:
         acceptance(strategy, cells, classic_by)
     if union_runs:
         calibration(union_runs)
+    if args.save:
+        save(args.save, run)
     print(f"\ntime: classic {clock['classic']:.1f} s, union (with its evidence) {clock['union']:.1f} s")
 
 
