@@ -30,6 +30,7 @@ import zlib
 from collections import defaultdict
 from dataclasses import dataclass, field
 from pathlib import Path
+from typing import Any
 
 import numpy as np
 
@@ -188,7 +189,7 @@ def calibration(union_runs: list[tuple[Cell, dict[str, np.ndarray]]]) -> None:
 
 def save(path: str, run: dict[str, list[Cell]]) -> None:
     """Every cell's arrays, keyed "strategy|process|T|field", for calibrating the badge offline."""
-    arrays: dict[str, np.ndarray] = {}
+    arrays: dict[str, Any] = {}
     for strategy, cells in run.items():
         for c in cells:
             key = f"{strategy}|{c.process.name}|{c.length}"
