@@ -259,7 +259,11 @@ def main(argv: list[str] | None = None) -> None:
             run["classic"].append(classic)
             classic_by[(process.name, n)] = classic
         if classic is None and saved is not None:
-            order = saved[f"classic|{process.name}|{n}|order"]
+            key = f"classic|{process.name}|{n}|order"
+            if key not in saved or saved[key].size != reps:
+                raise SystemExit(f"{args.classic_from} has no classic run of {reps} series for "
+                                 f"{process.name}, T = {n} (same --reps, --lengths and --seed needed)")
+            order = saved[key]
             classic = Cell(process, n, order, [None] * order.size, np.array(["none"] * order.size))
         if args.strategy in ("union", "both"):
             start = time.perf_counter()
