@@ -16,7 +16,7 @@ prints, per strategy:
 
 "classic" is the engine's own analysis (``tauscope.engine.analyse_many``, the batched
 fast path) with the settings given; "union" is the union of rejections from
-:mod:`tauscope.engine.union`, graded by the candidate rules of :mod:`scorecard_union`.
+:mod:`tauscope.engine.unitroot.union`, graded by the candidate rules of :mod:`scorecard_union`.
 Then the acceptance checks of issue 13 with PASS/FAIL, and the badge calibration.
 ``--quick``: 100 replications, T = 100 and 200, for development.
 """
@@ -40,7 +40,7 @@ from scorecard_processes import Process, by_name, grid
 from scorecard_union import BADGE_RULES, badge, run_union
 
 from tauscope.engine import Settings, analyse_many
-from tauscope.engine.union import UNION_LAG_SCALE
+from tauscope.engine.unitroot.union import UNION_LAG_SCALE
 
 SEED = 20260513
 ACCEPT_POWER = (("AR(1) mean phi=0.5", 100, 0.90, "constant"),

@@ -14,10 +14,14 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-from tauscope.engine.dfgls import dfgls
-from tauscope.engine.dfgls_many import dfgls_many
-from tauscope.engine.trend_robust import trend_critical_value, trend_found, trend_statistics
-from tauscope.engine.union import (
+from tauscope.engine.unitroot.dfgls import dfgls
+from tauscope.engine.unitroot.dfgls_many import dfgls_many
+from tauscope.engine.unitroot.trend_robust import (
+    trend_critical_value,
+    trend_found,
+    trend_statistics,
+)
+from tauscope.engine.unitroot.union import (
     ASYMPTOTIC,
     COMPONENTS,
     constants_from_draws,

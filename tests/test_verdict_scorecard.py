@@ -17,7 +17,7 @@ from types import ModuleType
 import numpy as np
 import pytest
 
-from tauscope.engine.union import union_orders
+from tauscope.engine.unitroot.union import union_orders
 
 ROOT = Path(__file__).resolve().parents[1]
 REPS = 200

@@ -35,8 +35,8 @@ from functools import lru_cache
 import numpy as np
 from scipy.stats import norm
 
-from tauscope.engine.dfgls_many import dfgls_many
-from tauscope.engine.simulate import DEFAULT_SEED
+from tauscope.engine.distributions.simulate import DEFAULT_SEED
+from tauscope.engine.unitroot.dfgls_many import dfgls_many
 
 HLT_G = 0.00025  # Harvey, Leybourne & Taylor (2007), two-sided 5% (from memory)
 

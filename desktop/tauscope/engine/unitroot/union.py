@@ -25,7 +25,7 @@ Ng & Perron 2001; Perron & Qu 2007), and used by both of its components.
 The order of integration comes from the highest difference down (Dickey, D.A. &
 Pantula, S.G. 1987, JBES 5(4)): the union on Δ^d y for d = max, …, 0 while it rejects;
 the first non-rejection at d gives I(d + 1).  The deterministic label comes from the
-trend test of :mod:`tauscope.engine.trend_robust`, valid under I(0) and I(1).
+trend test of :mod:`tauscope.engine.unitroot.trend_robust`, valid under I(0) and I(1).
 """
 
 from __future__ import annotations
@@ -35,14 +35,18 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine.dfgls_many import (
+from tauscope.engine.distributions.simulate import DEFAULT_SEED, shock_chunks
+from tauscope.engine.unitroot.dfgls_many import (
     choose_lags_many,
     dfgls_tau_many,
     gls_detrend_many,
     ols_detrend_many,
 )
-from tauscope.engine.simulate import DEFAULT_SEED, shock_chunks
-from tauscope.engine.trend_robust import trend_critical_value, trend_found, trend_statistics
+from tauscope.engine.unitroot.trend_robust import (
+    trend_critical_value,
+    trend_found,
+    trend_statistics,
+)
 
 COMPONENTS = {
     "two": ("gls-constant", "gls-trend"),
@@ -58,7 +62,7 @@ UNION_REPS = 20_000  # finite-sample constants: κ to about ±0.005
 ASYMPTOTIC_LENGTH = 2_000
 ASYMPTOTIC_REPS = 200_000
 # cv of each component and κ, simulated at T = 2,000 with 200,000 replications, seed
-# DEFAULT_SEED, by ``python -m tauscope.engine.union``.
+# DEFAULT_SEED, by ``python -m tauscope.engine.unitroot.union``.
 ASYMPTOTIC: dict[str, dict[float, tuple[tuple[float, ...], float]]] = {
     "two": {
         0.01: ((-2.5739, -3.4178), 1.0670),

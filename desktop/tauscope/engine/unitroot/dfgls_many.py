@@ -1,6 +1,6 @@
 """DF-GLS for many series of one length at once (rows of a 2-D array).
 
-The same statistic as :func:`tauscope.engine.dfgls.dfgls` (Elliott, Rothenberg &
+The same statistic as :func:`tauscope.engine.unitroot.dfgls.dfgls` (Elliott, Rothenberg &
 Stock 1996, "Efficient Tests for an Autoregressive Unit Root", Econometrica 64(4)),
 vectorised over series:
 
@@ -25,8 +25,8 @@ import math
 
 import numpy as np
 
-from tauscope.engine.dfgls import C_BAR, choose_dfgls_lag, deterministic_columns
-from tauscope.engine.simulate import CrossProducts, raw_moments, solve_moments
+from tauscope.engine.distributions.simulate import CrossProducts, raw_moments, solve_moments
+from tauscope.engine.unitroot.dfgls import C_BAR, choose_dfgls_lag, deterministic_columns
 
 GLS_SPECS = ("constant", "trend")
 _PENALTY = {"aic": lambda n: 2.0, "bic": math.log, "hqc": lambda n: 2.0 * math.log(math.log(n))}
@@ -87,7 +87,7 @@ def choose_lags_many(xs: np.ndarray, spec: str, rule: str, max_lags: int,
                      fixed: int | None = None) -> np.ndarray:
     """Lag order per row, chosen on the OLS-detrended series (Perron & Qu 2007); ties go
     to the shorter lag.  ``rule`` "fixed" uses ``fixed``; "tsig" asks the one-series
-    rule of :mod:`tauscope.engine.dfgls` row by row."""
+    rule of :mod:`tauscope.engine.unitroot.dfgls` row by row."""
     rows = xs.shape[0]
     if rule == "fixed":
         return np.full(rows, int(fixed or 0))
