@@ -53,7 +53,12 @@ def test_extra_tests_join_the_tests_and_notes() -> None:
 def test_default_settings_add_only_the_power_sentence_for_a_unit_root() -> None:
     walk = np.cumsum(np.random.default_rng(12).standard_normal(160))
     result = analyse_series(walk, Settings(), name="walk")
-    assert [t.test for t in result.tests if t.test in ("pp", "dfgls", "za")] == []
+    assert [t.test for t in result.tests if t.test in ("pp", "za")] == []
+    assert result.evidence is not None and result.evidence.tests == ()
+    # The only DF-GLS entries are the size-controlled strategy's components, one per spec and
+    # difference it looked at.
+    dfgls = [(t.spec, t.difference) for t in result.tests if t.test == "dfgls"]
+    assert len(dfgls) == len(set(dfgls)) and {s for s, _ in dfgls} == {"constant", "trend"}
     assert result.verdict.unit_root  # a random walk of 160 values (seed 12)
     assert any(note.startswith("How often the deciding ADF test") for note in result.notes)
     power = result.to_dict()["evidence"]["power"]

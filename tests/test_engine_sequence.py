@@ -24,7 +24,7 @@ def _ar1(rng: np.random.Generator, n: int, phi: float) -> np.ndarray:
 def test_trend_stationary_path_stops_after_trend_t() -> None:
     rng = np.random.default_rng(7)
     x = 2.0 + 0.1 * np.arange(200) + _ar1(rng, 200, 0.3)
-    result = analyse_series(x, Settings(max_difference=0))
+    result = analyse_series(x, Settings(max_difference=0, strategy="classic", lag_rule="aic"))
     names = [(s.statistic_name, s.spec, s.decision) for s in result.steps]
     assert names == [("tau", "trend", "reject"), ("z", "trend", "reject")]
     assert result.verdict.order == 0
@@ -35,7 +35,7 @@ def test_trend_stationary_path_stops_after_trend_t() -> None:
 def test_random_walk_with_drift_path_ends_with_normal_test() -> None:
     rng = np.random.default_rng(8)
     x = np.cumsum(1.0 + rng.standard_normal(200))
-    result = analyse_series(x, Settings(max_difference=1))
+    result = analyse_series(x, Settings(max_difference=1, strategy="classic", lag_rule="aic"))
     levels = [s for s in result.steps if s.difference == 0]
     assert [s.statistic_name for s in levels] == ["tau", "phi3", "tau", "phi1", "z"]
     last = levels[-1]
@@ -89,7 +89,7 @@ def test_to_dict_contract_keys_and_json() -> None:
         "decision",
         "text",
     }
-    assert all(step_keys <= set(s) for s in d["steps"])
+    assert all(step_keys | {"strategy"} <= set(s) for s in d["steps"])
     test_keys = {
         "test",
         "spec",
@@ -104,10 +104,21 @@ def test_to_dict_contract_keys_and_json() -> None:
     assert all(test_keys <= set(t) for t in d["tests"])
     assert all(set(t["critical_values"]) >= {"1%", "5%", "10%"} for t in d["tests"])
     assert d["verdict"]["agreement"] in ("confirmed", "conflict", "inconclusive")
+    assert d["verdict"]["strategy"] == "union"  # the default (DESIGN §3)
+    assert set(d["classic"]) >= {"order", "deterministic", "text"}
     for s in d["steps"]:
         assert s["decision"] in ("reject", "do not reject")
-        assert s["statistic_name"] in ("tau", "phi1", "phi2", "phi3", "z")
-        assert d["tests"][s["test_index"]]["difference"] == s["difference"]
+        assert s["strategy"] in ("union", "classic")
+        names = ("tau", "phi1", "phi2", "phi3", "z") if s["strategy"] == "classic" else (
+            "dfgls", "tau", "union", "trend")
+        assert s["statistic_name"] in names
+        if s["test_index"] is not None:
+            assert d["tests"][s["test_index"]]["difference"] == s["difference"]
+        else:  # only the union's own steps have no single test behind them
+            assert s["strategy"] == "union" and s["statistic_name"] in ("tau", "union", "trend")
+    # The union's steps come first, then the classic path, each in its own order.
+    kinds = [s["strategy"] for s in d["steps"]]
+    assert kinds == sorted(kinds, key=lambda k: k != "union")
 
 
 def test_notes_never_accept_the_null_and_carry_the_caution() -> None:
@@ -156,18 +167,26 @@ def test_kpss_matches_statsmodels() -> None:
 
 
 def test_stationarity_from_the_drift_normal_step_is_flagged_as_weak() -> None:
-    """statsmodels' macrodata, log real GDP: τ_μ is judged against the normal after Φ1 finds a
-    drift (West 1988); the note must warn that a drifting series is not stationary around a mean."""
+    """statsmodels' macrodata, log real GDP, classic sequence with AIC lags (issue 13's
+    figures): τ_τ and τ_μ do not reject, Φ1 finds a drift and τ_μ is then judged against the
+    normal (West 1988), which rejects.  A drifting series is not stationary around a mean:
+    the sequence's conclusion is trend-stationary, marked weak in the verdict, the step and
+    the notes."""
     from statsmodels.datasets import macrodata
 
     x = np.log(macrodata.load_pandas().data["realgdp"].to_numpy())
-    result = analyse_series(x, name="log realgdp")
+    result = analyse_series(x, Settings(strategy="classic", lag_rule="aic"), name="log realgdp")
     levels = [s for s in result.steps if s.difference == 0]
-    assert [s.statistic_name for s in levels][-2:] == ["phi1", "z"]
-    if result.verdict.order == 0:
-        assert any("read this verdict as weak" in n for n in result.notes)
-    else:
-        assert not any("read this verdict as weak" in n for n in result.notes)
+    assert [s.statistic_name for s in levels] == ["tau", "phi3", "tau", "phi1", "z"]
+    assert [s.decision for s in levels] == ["do not reject", "do not reject", "do not reject", "reject",
+                                            "reject"]
+    assert result.verdict.order == 0
+    assert result.verdict.deterministic == "trend"
+    assert "around a mean" not in result.verdict.text
+    assert "trend-stationary" in result.verdict.label and "weak" in result.verdict.label
+    assert "This conclusion is weak" in result.verdict.text
+    assert "weak" in levels[-1].text
+    assert any("read this verdict as weak" in n for n in result.notes)
 
 
 def test_numbers_read_as_a_reader_would_copy_them() -> None:

@@ -41,7 +41,13 @@ def test_default_run_states_sequence_rule_sources_level_and_caution() -> None:
                         "Kwiatkowski, D., Phillips, P.C.B., Schmidt, P. & Shin, Y. (1992)",
                         "Schwert, G.W. (1989)"):
         assert author_year in refs
-    assert "Ng, S. & Perron, P. (2001)" not in refs  # MAIC not used
+    # The default since issue 13: MAIC lags and the size-controlled strategy, described and cited.
+    assert "Ng, S. & Perron, P. (2001)" in refs
+    assert "union of rejections" in text
+    for author_year in ("Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2007)",
+                        "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2009)",
+                        "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2012)"):
+        assert author_year in refs
     assert list(methods.references) == sorted(methods.references)
 
 
@@ -53,6 +59,9 @@ def test_maic_cites_ng_perron_2001() -> None:
 
 def test_fixed_lags_and_user_bound_are_stated_without_schwert() -> None:
     fixed = methods_for(_with(Settings(lag_rule="fixed", lags=3)))
+    classic = methods_for(_with(Settings(lag_rule="aic", strategy="classic")))
+    assert "union of rejections" not in classic.text
+    assert not any(r.startswith(("Ng, S. & Perron, P. (2001)", "Harvey")) for r in classic.references)
     assert "fixed at 3" in fixed.text
     assert not any(r.startswith("Ng, S.") for r in fixed.references)
     assert not any(r.startswith("Schwert") for r in fixed.references)

@@ -45,7 +45,9 @@ def test_findings_show_pp_dfgls_and_za_rows_equal_to_the_result(
     from tauscope.ui.roles import KIND_ROLE
 
     window = main_window
-    window.apply_settings(Settings(confirm=("kpss", "pp", "dfgls", "za"), power=False))
+    # The classic strategy: under the size-controlled default the DF-GLS rows are the union's
+    # components (one per spec and difference), and the extra DF-GLS is not repeated.
+    window.apply_settings(Settings(confirm=("kpss", "pp", "dfgls", "za"), power=False, strategy="classic"))
     assert "PP, DF-GLS, ZA" in window.settings_label.text()
     open_in_window(window, small_workbook)
     series = window.series_panel.model.all_series()[:2]

@@ -30,7 +30,7 @@ from typing import NoReturn, TextIO
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
 from tauscope.data.notes import reader_notes
 from tauscope.data.sample import GAP_RULES, apply_gap_rule, cut_sample, parse_sample
-from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_many
+from tauscope.engine import LAG_RULES, STRATEGIES, SeriesResult, Settings, analyse_many
 from tauscope.engine.results import failed_result
 from tauscope.report import (
     WRITERS,
@@ -72,8 +72,11 @@ def _parser() -> _Parser:
                         help="analyse only this series (repeat for more)")
     parser.add_argument("--transform", choices=TRANSFORM_CHOICES, default="none",
                         help="transform each series first (default: none)")
-    parser.add_argument("--lag-rule", choices=LAG_RULES, default="aic",
-                        help="how the lag order is chosen (default: aic)")
+    parser.add_argument("--lag-rule", choices=LAG_RULES, default="maic",
+                        help="how the lag order is chosen (default: maic)")
+    parser.add_argument("--strategy", choices=STRATEGIES, default="union",
+                        help="how the verdict is decided: union (size-controlled, the default) or "
+                             "classic (the Dickey-Fuller sequence; it is shown in either case)")
     parser.add_argument("--lags", type=_count, help="lag order for --lag-rule fixed")
     parser.add_argument("--max-lags", type=_count, help="largest lag order tried")
     parser.add_argument("--alpha", type=float, choices=(0.01, 0.05, 0.10), default=0.05,
@@ -164,7 +167,8 @@ def _settings(args: argparse.Namespace) -> Settings:
         checks = tuple(t.strip() for t in args.check.split(",") if t.strip() not in ("", "none"))
         return Settings(lag_rule=args.lag_rule, lags=args.lags, max_lags=args.max_lags,
                         alpha=args.alpha, max_difference=args.max_difference, confirm=checks,
-                        critical_values="exact" if args.exact else "mackinnon")
+                        critical_values="exact" if args.exact else "mackinnon",
+                        strategy=args.strategy)
     except ValueError as exc:
         raise UsageError(str(exc)) from None
 

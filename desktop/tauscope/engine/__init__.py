@@ -31,7 +31,13 @@ if TYPE_CHECKING:
         TestResult,
         Verdict,
     )
-    from tauscope.engine.settings import LAG_RULE_LABELS, LAG_RULES, Settings
+    from tauscope.engine.settings import (
+        LAG_RULE_LABELS,
+        LAG_RULES,
+        STRATEGIES,
+        STRATEGY_LABELS,
+        Settings,
+    )
 
 _WHERE = {
     "analyse_series": "procedure.analyse",
@@ -49,6 +55,8 @@ _WHERE = {
     "RecursiveStatistic": "results",
     "LAG_RULE_LABELS": "settings",
     "LAG_RULES": "settings",
+    "STRATEGIES": "settings",
+    "STRATEGY_LABELS": "settings",
     "Settings": "settings",
     "exact_critical_values": "distributions.simulate",
     "exact_p_value": "distributions.simulate",
@@ -58,6 +66,8 @@ _WHERE = {
 __all__ = [
     "LAG_RULES",
     "LAG_RULE_LABELS",
+    "STRATEGIES",
+    "STRATEGY_LABELS",
     "BreakInfo",
     "Evidence",
     "LagPoint",

@@ -134,6 +134,7 @@ class Step:
     decision: str
     text: str
     test: TestResult | None = field(default=None, compare=False, repr=False)
+    strategy: str = "classic"  # the strategy the step belongs to ("union", "classic")
 
     @property
     def rejected(self) -> bool:
@@ -146,6 +147,7 @@ class Step:
             "spec": self.spec,
             "hypothesis": self.hypothesis,
             "statistic_name": self.statistic_name,
+            "strategy": self.strategy,
             "statistic": _num(self.statistic),
             "critical_value": _num(self.critical_value),
             "p_value": _num(self.p_value),
@@ -166,6 +168,7 @@ class Verdict:
     agreement: str | None
     label: str
     text: str
+    strategy: str | None = None  # which strategy decided ("union", "classic")
 
     def to_dict(self) -> dict[str, Any]:
         return asdict(self)
@@ -182,12 +185,8 @@ class LagPoint:
     reject: bool
 
     def to_dict(self) -> dict[str, Any]:
-        return {
-            "lag": self.lag,
-            "statistic": _num(self.statistic),
-            "critical_value": _num(self.critical_value),
-            "reject": self.reject,
-        }
+        return {"lag": self.lag, "statistic": _num(self.statistic),
+                "critical_value": _num(self.critical_value), "reject": self.reject}
 
 
 @dataclass(frozen=True)
@@ -210,6 +209,7 @@ class SeriesResult:
     values: pd.Series | None = field(default=None, compare=False, repr=False)
     fitted: np.ndarray | None = field(default=None, compare=False, repr=False)
     evidence: Evidence | None = field(default=None, compare=False, repr=False)
+    classic: Any = None  # results_strategy.ClassicVerdict when another strategy decided
 
     @property
     def ok(self) -> bool:
@@ -228,6 +228,7 @@ class SeriesResult:
             "nobs": self.nobs,
             "error": self.error,
             "verdict": self.verdict.to_dict(),
+            "classic": self.classic.to_dict() if self.classic is not None else None,
             "steps": [s.to_dict(self.tests) for s in self.steps],
             "tests": [t.to_dict() for t in self.tests],
             "notes": list(self.notes),

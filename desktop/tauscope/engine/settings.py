@@ -10,6 +10,11 @@ ALPHAS = (0.01, 0.05, 0.10)
 CONFIRMATION_TESTS = ("kpss", "pp", "dfgls", "za")
 CRITICAL_VALUE_SOURCES = ("mackinnon", "exact")
 BREAK_MODELS = ("c", "t", "ct")
+STRATEGIES = ("union", "classic")
+STRATEGY_LABELS = {
+    "union": "Size-controlled (recommended)",
+    "classic": "Classic Dickey-Fuller sequence",
+}
 
 LAG_RULE_LABELS = {
     "aic": "Akaike information criterion (AIC)",
@@ -33,10 +38,14 @@ class Settings:
     Schwert's (1989) rule floor(12 (T/100)^(1/4)).  ``alpha`` is the
     significance level of every test in the sequence; ``max_difference`` is the
     highest order of integration considered; ``confirm`` lists the
-    stationarity-null tests used as a cross-check.
+    stationarity-null tests used as a cross-check.  ``strategy`` decides the order:
+    ``"union"`` (the default) the union of rejections over the deterministic terms
+    (Harvey, Leybourne & Taylor 2009, 2012), whose size is controlled over the whole
+    decision; ``"classic"`` the Dickey-Fuller sequence (Dolado, Jenkinson &
+    Sosvilla-Rivero 1990), which is always computed and shown as well.
     """
 
-    lag_rule: str = "aic"
+    lag_rule: str = "maic"
     lags: int | None = None
     max_lags: int | None = None
     alpha: float = 0.05
@@ -45,6 +54,7 @@ class Settings:
     critical_values: str = "mackinnon"
     break_model: str = "ct"
     power: bool = True
+    strategy: str = "union"
 
     def __post_init__(self) -> None:
         if self.lag_rule not in LAG_RULES:
@@ -66,6 +76,8 @@ class Settings:
             raise ValueError("critical_values must be 'mackinnon' or 'exact'")
         if self.break_model not in BREAK_MODELS:
             raise ValueError("break_model must be 'c', 't' or 'ct'")
+        if self.strategy not in STRATEGIES:
+            raise ValueError(f"strategy must be one of {', '.join(STRATEGIES)}, not {self.strategy!r}")
         unknown = [c for c in self.confirm if c not in CONFIRMATION_TESTS]
         if unknown:
             raise ValueError(f"unknown confirmation test(s): {', '.join(unknown)}")

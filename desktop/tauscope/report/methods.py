@@ -52,6 +52,16 @@ REFERENCES = {
     "za1992": "Zivot, E. & Andrews, D.W.K. (1992), “Further Evidence on the Great Crash, the "
     "Oil-Price Shock, and the Unit-Root Hypothesis”, Journal of Business & Economic Statistics "
     "10(3), 251–270.",
+    "hlt2007": "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2007), “A Simple, Robust and "
+    "Powerful Test of the Trend Hypothesis”, Journal of Econometrics 141(2), 1302–1330.",
+    "hlt2009": "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2009), “Unit Root Testing in "
+    "Practice: Dealing with Uncertainty over the Trend and Initial Condition”, Econometric "
+    "Theory 25(3), 587–636.",
+    "hlt2012": "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2012), “Testing for Unit Roots in "
+    "the Presence of Uncertainty over Both the Trend and Initial Condition”, Journal of "
+    "Econometrics 169(2), 188–195.",
+    "pq2007": "Perron, P. & Qu, Z. (2007), “A Simple Modification to Improve the Finite Sample "
+    "Properties of Ng and Perron’s Unit Root Tests”, Economics Letters 94(1), 12–19.",
     "west1988": "West, K.D. (1988), “Asymptotic Normality, When Regressors Have a Unit Root”, "
     "Econometrica 56(6), 1397–1417.",
 }
@@ -220,6 +230,24 @@ def critical_words(run: RunRecord) -> str:
     return "published tables (MacKinnon 2010; Dickey & Fuller 1981)"
 
 
+def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
+    """The size-controlled strategy, when it decided the verdicts."""
+    if getattr(run.settings, "strategy", "classic") != "union":
+        return []
+    cited.update({"hlt2007", "hlt2009", "hlt2012", "ers1996", "pq2007"})
+    return [
+        "The verdict was decided by the union of rejections over the deterministic terms (Harvey, "
+        "Leybourne & Taylor 2009, 2012): Dickey-Fuller t statistics on the GLS-detrended (Elliott, "
+        "Rothenberg & Stock 1996) and OLS-detrended series, with a constant and with a trend, each "
+        "compared with its own critical value scaled by a constant simulated at the series' length, "
+        f"so that the whole decision on each difference has size {a}; the lag order by the same rule, "
+        "chosen on the OLS-detrended series (Perron & Qu 2007). The order was found from the highest "
+        "difference down, and the deterministic terms by the trend test of Harvey, Leybourne & Taylor "
+        "(2007), valid with or without a unit root. The sequence above was computed as well and is "
+        "reported beside it."
+    ]
+
+
 def methods_for(run: RunRecord) -> Methods:
     """The methods paragraph and reference list for this run, read from its record: the
     settings, the source of critical values, and the tests that ran."""
@@ -254,6 +282,6 @@ def methods_for(run: RunRecord) -> Methods:
             "difference only while the unit root was rejected."
         )
     second = _lag_sentence(run, cited) + _critical_sentence(run, a)
-    paragraphs = [first, second, *_cross_checks(run, a, cited)]
+    paragraphs = [first, second, *_union_paragraph(run, a, cited), *_cross_checks(run, a, cited)]
     paragraphs.append(CAUTION)
     return Methods(tuple(paragraphs), tuple(sorted(REFERENCES[key] for key in cited)))

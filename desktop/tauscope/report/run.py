@@ -106,6 +106,7 @@ SETTING_WORDS = {
     "critical_values": "source of critical values",
     "break_model": "break model",
     "power": "power check",
+    "strategy": "how the verdict is decided",
 }
 """Each setting in the words a reader knows (the note on findings left out of a report)."""
 

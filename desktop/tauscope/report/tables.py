@@ -24,7 +24,9 @@ Value = str | int | float | None
 DIFFERENCE_NAMES = {0: "levels", 1: "first difference", 2: "second difference"}
 DIFFERENCE_SHORT = {0: "levels", 1: "Δy", 2: "Δ²y"}
 SPEC_CODES = {"trend": "ct", "constant": "c", "none": "n"}
-STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z"}
+STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z", "dfgls": "DF-GLS t",
+                     "union": "M (union)", "trend": "z_λ (trend)"}
+UNION_SPEC_WORDS = "all deterministic cases"  # the union step's spec ("union")
 TEST_LABELS = {
     "adf": "ADF τ",
     "phi1": "Φ1 (joint F)",
@@ -160,7 +162,7 @@ def p_text(test: TestResult) -> Value:
 
 
 def step_place(step: Step) -> str:
-    return f"{where(step.difference)}, {SPEC_LABELS[step.spec]}"
+    return f"{where(step.difference)}, {SPEC_LABELS.get(step.spec, UNION_SPEC_WORDS)}"
 
 
 def _source_cells(finding: Finding) -> tuple[Value, ...]:
@@ -363,7 +365,7 @@ PATH_COLUMNS = (
 
 def path_table(result: SeriesResult) -> Table:
     rows = tuple(
-        (k, where(s.difference), SPEC_LABELS[s.spec], s.hypothesis,
+        (k, where(s.difference), SPEC_LABELS.get(s.spec, UNION_SPEC_WORDS), s.hypothesis,
          STATISTIC_SYMBOLS.get(s.statistic_name, s.statistic_name), s.statistic,
          s.critical_value, s.p_value, s.decision)
         for k, s in enumerate(result.steps, start=1)

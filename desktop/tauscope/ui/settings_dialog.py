@@ -16,7 +16,7 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from tauscope.engine import LAG_RULE_LABELS, LAG_RULES, Settings
+from tauscope.engine import LAG_RULE_LABELS, LAG_RULES, STRATEGIES, STRATEGY_LABELS, Settings
 
 ALPHAS = ((0.01, "1%"), (0.05, "5%"), (0.10, "10%"))
 CRITICAL_SOURCES = (("mackinnon", "Published tables (MacKinnon 1996, 2010)"),
@@ -45,6 +45,10 @@ class SettingsDialog(QDialog):
         for value, label in ALPHAS:
             self.alpha.addItem(label, value)
         self.alpha.setAccessibleName("Significance level")
+        self.strategy = QComboBox(self)
+        for name in STRATEGIES:
+            self.strategy.addItem(STRATEGY_LABELS[name], name)
+        self.strategy.setAccessibleName("How the verdict is decided")
         self.lag_rule = QComboBox(self)
         for rule in LAG_RULES:
             self.lag_rule.addItem(LAG_RULE_LABELS[rule], rule)
@@ -79,6 +83,10 @@ class SettingsDialog(QDialog):
         self.power.setAccessibleName("Power")
 
         form = QFormLayout()
+        form.addRow("&Verdict decided by", self.strategy)
+        form.addRow("", _explain("Size-controlled: calls a unit root stationary no more often than the "
+                                 "significance level over the whole decision. The classic sequence is "
+                                 "always shown too."))
         form.addRow("Significance &level", self.alpha)
         form.addRow("", _explain("How strong the evidence must be before a test rejects its null "
                                  "hypothesis; 5% is the usual choice."))
@@ -144,6 +152,7 @@ class SettingsDialog(QDialog):
         self.alpha.setCurrentIndex(
             min(range(len(ALPHAS)), key=lambda i: abs(ALPHAS[i][0] - settings.alpha)))
         self.lag_rule.setCurrentIndex(LAG_RULES.index(settings.lag_rule))
+        self.strategy.setCurrentIndex(STRATEGIES.index(settings.strategy))
         self.fixed_lags.setValue(settings.lags if settings.lags is not None else 4)
         self.max_lags.setValue(settings.max_lags if settings.max_lags is not None else AUTOMATIC)
         self.max_difference.setValue(settings.max_difference)
@@ -173,4 +182,5 @@ class SettingsDialog(QDialog):
             critical_values=str(self.critical_values.currentData()),
             break_model=str(self.break_model.currentData()),
             power=self.power.isChecked(),
+            strategy=str(self.strategy.currentData()),
         )

@@ -1,7 +1,9 @@
 """The assemble stage: one :class:`~tauscope.engine.results.SeriesResult` from the reading.
 
-``tests`` holds the ADF and Φ tests of every difference the strategy visited and of the
-levels (always), then KPSS, then the extra tests; ``fitted`` is the deterministic path
+``tests`` holds the ADF and Φ tests of every difference the classic sequence visited and
+of the levels (always), then the union's DF-GLS components (when it decided), then KPSS,
+then the extra tests (an extra DF-GLS only where the union has none for its spec and
+difference); ``fitted`` is the deterministic path
 the verdict implies, for the charts.
 """
 
@@ -26,8 +28,12 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
     for d in sorted({*decision.visited, 0}):
         tests.extend(estimates.levels[d].adf.values())
         tests.extend(estimates.levels[d].phi.values())
+    tests.extend(decision.union_tests)
     tests.extend(test for test, _ in checked.kpss)
-    tests.extend(reading.evidence.tests)
+    union_dfgls = {(t.spec, t.difference) for t in decision.union_tests}
+    # The union's DF-GLS entries already stand for DF-GLS on that difference and spec.
+    tests.extend(t for t in reading.evidence.tests
+                 if t.test != "dfgls" or (t.spec, t.difference) not in union_dfgls)
     deciding = decision.deciding
     index = prepared.index if prepared.index is not None else pd.RangeIndex(1, x.shape[0] + 1)
     return SeriesResult(
@@ -47,6 +53,7 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         values=pd.Series(x, index=index, name=name),
         fitted=fitted_deterministic(x, decision.order, decision.deterministic),
         evidence=reading.evidence,
+        classic=reading.classic,
     )
 
 

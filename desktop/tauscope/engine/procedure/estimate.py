@@ -5,7 +5,9 @@ of :mod:`tauscope.engine.regression.lagchoice`), τ is estimated on the longest 
 for that lag (Said & Dickey 1984; MacKinnon 2010 critical values) and Φ1, Φ2, Φ3 are
 computed on the same sample and lags (Dickey & Fuller 1981).  The fast path estimates
 each level for a whole batch of series of one length at once.  With exact critical
-values every τ and Φ is judged against its null simulated at its own size.
+values every τ and Φ is judged against its null simulated at its own size.  When the
+union of rejections decides, it is computed here too, for all series of one length at
+once on the fast path (:mod:`tauscope.engine.procedure.union_estimate`).
 """
 
 from __future__ import annotations
@@ -57,7 +59,12 @@ def estimate(prepared: PreparedSeries, options: EstimateOptions, estimation: Est
         if d == 0:
             reduced = cut
         levels[d] = _judged(estimation.level_tests(xd, d, options, max_lags[d]), options)
-    return Estimates(prepared, levels, max_lags, reduced)
+    union = None
+    if options.union:
+        union = estimation.union(x, options)
+        if union.problem is not None:
+            raise UntestableSeries(union.problem)
+    return Estimates(prepared, levels, max_lags, reduced, union)
 
 
 def _judged(level: LevelTests, options: EstimateOptions) -> LevelTests:

@@ -21,6 +21,7 @@ import numpy as np
 
 from tauscope.engine.distributions import tables as fast_tables
 from tauscope.engine.procedure.stages import EstimateOptions
+from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS, column_names
 from tauscope.engine.regression.lagchoice import TSIG_CRITICAL, LagChoice
 from tauscope.engine.regression.nested import (
@@ -281,6 +282,9 @@ class FastEstimation:
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
         return kpss_fast(x, spec, difference, alpha)
 
+    def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow:
+        return self._batch.union_row(self._index)
+
 
 class SeriesBatch:
     """Series of one length analysed together; each difference level is computed for
@@ -291,6 +295,7 @@ class SeriesBatch:
         self._options = options
         self._levels: dict[tuple[int, int], LevelBatch] = {}
         self._profiles: dict[tuple[int, str, int, int], tuple[np.ndarray, np.ndarray]] = {}
+        self._union: list[UnionRow] | None = None
 
     def __len__(self) -> int:
         return int(self._levels_in.shape[0])
@@ -304,6 +309,15 @@ class SeriesBatch:
             xs = np.diff(self._levels_in, n=difference, axis=1) if difference else self._levels_in
             self._levels[key] = level_batch(xs, difference, self._options, max_lags)
         return self._levels[key]
+
+    def union_row(self, index: int) -> UnionRow:
+        """The union of rejections for one series, computed for the whole batch at the
+        first request (row by row, so the same numbers as one series alone)."""
+        if self._union is None:
+            o = self._options
+            self._union = union_rows(self._levels_in, o.lag_rule, o.alpha, o.max_difference,
+                                     o.max_lags, o.lags if o.lag_rule == "fixed" else None)
+        return self._union[index]
 
     def prefetch_profiles(self, requests: list[tuple[int, str, int, int]]) -> None:
         """Compute the lag profiles (index, spec, difference, maximum lag) together, one

@@ -7,13 +7,30 @@ extra evidence's reading, the notes); this stage decides what is said about one 
 from __future__ import annotations
 
 from collections.abc import Sequence
+from dataclasses import replace
 
 from tauscope.engine.procedure.prepare import PreparedSeries
-from tauscope.engine.procedure.stages import CrossCheck, ExtraEvidence, Reading, ReadOptions
+from tauscope.engine.procedure.stages import (
+    CrossCheck,
+    Decision,
+    ExtraEvidence,
+    Reading,
+    ReadOptions,
+)
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
+from tauscope.engine.reading.grade import grade
 from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
+from tauscope.engine.reading.strategies import (
+    classic_sentence,
+    disagreement_note,
+    grade_note,
+    level_note,
+    short_label,
+    weak_verdict_sentence,
+)
 from tauscope.engine.reading.verdicts import agreement, agreement_note, build_verdict
-from tauscope.engine.results import Evidence, TestResult
+from tauscope.engine.results import Evidence, TestResult, Verdict
+from tauscope.engine.results_strategy import ClassicVerdict
 
 
 def read(checked: CrossCheck, options: ReadOptions) -> Reading:
@@ -27,8 +44,15 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
         kpss_status = "inconclusive"
     evidence = read_evidence(checked.extra, order, [t for t, _ in checks], kpss_status, options.alpha)
     status = evidence.agreement if evidence.tests else kpss_status
+    strategy_notes: list[str] = []
+    classic: ClassicVerdict | None = None
+    if decision.strategy == "union":
+        status, classic, strategy_notes = _union_reading(checked, evidence, options)
     verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
                             options.max_difference)
+    verdict = replace(verdict, strategy=decision.strategy)
+    if decision.strategy == "classic" and decision.weak:
+        verdict = _weak(verdict, decision, options.alpha)
     deciding = decision.deciding
     x = prepared.values
     ctx = NoteContext(
@@ -42,14 +66,49 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
         alpha=options.alpha,
         max_lags_reduced=estimates.reduced,
         trimmed=(prepared.leading_trimmed, prepared.trailing_trimmed),
-        agreement_text=agreement_note(order, kpss_status, checks, options.alpha) or checked.kpss_problem,
+        agreement_text=agreement_note(order, kpss_status, checks, options.alpha,
+                                      kpss_only=decision.strategy != "classic") or checked.kpss_problem,
         jump_at=_jump_label(prepared),
         seasonal_lag=seasonal_pattern(x, prepared.periods_per_year),
         level_sequence_tests=3,
         evidence_notes=evidence.notes,
         break_checked=evidence.break_info is not None,
     )
-    return Reading(checked, verdict, evidence, build_notes(ctx))
+    notes = build_notes(ctx)
+    return Reading(checked, verdict, evidence, (*notes[:1], *strategy_notes, *notes[1:]), classic)
+
+
+def _union_reading(checked: CrossCheck, evidence: Evidence,
+                   options: ReadOptions) -> tuple[str | None, ClassicVerdict, list[str]]:
+    """The union's grade from all the evidence, the classic sequence's verdict beside it,
+    and the notes on where the two differ and where the verdict is close to the line."""
+    decision = checked.decision
+    row = decision.estimates.union
+    classic = decision.classic
+    assert row is not None and classic is not None
+    order, deterministic = decision.order, decision.deterministic
+    nobs = int(decision.estimates.prepared.values.shape[0])
+    found = evidence.break_info is not None and evidence.break_info.reject
+    graded = grade(order, deterministic, list(checked.kpss), classic.order, row.orders_at,
+                   row.long_lag_order, row.power, nobs, found)
+    block = ClassicVerdict(classic.order, classic.deterministic,
+                           classic_sentence(classic.order, classic.deterministic, classic.weak,
+                                            options.alpha), classic.weak)
+    notes = [grade_note(graded.agreement, graded.missing),
+             disagreement_note(order, deterministic, classic.order, classic.deterministic, classic.weak,
+                               options.lag_rule),
+             level_note(order, row.orders_at, options.alpha)]
+    return graded.agreement, block, [n for n in notes if n]
+
+
+def _weak(verdict: Verdict, decision: Decision, alpha: float) -> Verdict:
+    """The classic sequence's verdict when it rests on the normal after a drift: its own
+    words, marked weak."""
+    if decision.order != 0:  # a weak step on a difference, but the verdict is a unit root
+        sentence = classic_sentence(decision.order, decision.deterministic, True, alpha)
+        return replace(verdict, text=f"{verdict.text} {sentence}")
+    return replace(verdict, label=short_label(decision.order, decision.deterministic, True),
+                   text=weak_verdict_sentence(alpha))
 
 
 def read_evidence(extra: ExtraEvidence, order: int | None, kpss: Sequence[TestResult],

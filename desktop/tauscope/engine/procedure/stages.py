@@ -28,6 +28,7 @@ from typing import Any, Protocol
 import numpy as np
 
 from tauscope.engine.procedure.prepare import PreparedSeries
+from tauscope.engine.procedure.union_estimate import UnionRow
 from tauscope.engine.results import (
     DFGLS,
     BreakInfo,
@@ -41,6 +42,7 @@ from tauscope.engine.results import (
     TestResult,
     Verdict,
 )
+from tauscope.engine.results_strategy import ClassicVerdict
 from tauscope.engine.settings import Settings
 
 EXTRA_TESTS = ("pp", "dfgls", "za")
@@ -56,6 +58,7 @@ class EstimateOptions:
     alpha: float
     max_difference: int
     exact: bool  # judge τ and Φ against nulls simulated at their own size
+    union: bool = False  # also compute the union of rejections (union_estimate.py)
 
 
 @dataclass(frozen=True)
@@ -63,6 +66,7 @@ class DecideOptions:
     strategy: str
     alpha: float
     max_difference: int
+    lag_rule: str = "maic"
 
 
 @dataclass(frozen=True)
@@ -82,6 +86,7 @@ class ReadOptions:
     alpha: float
     max_difference: int
     kpss: bool
+    lag_rule: str = "maic"
 
 
 @dataclass(frozen=True)
@@ -104,12 +109,12 @@ def plan_for(settings: Settings) -> Plan:
     s = settings
     return Plan(
         estimate=EstimateOptions(s.lag_rule, s.lags, s.max_lags, s.alpha, s.max_difference,
-                                 s.critical_values == "exact"),
-        decide=DecideOptions("classic", s.alpha, s.max_difference),
+                                 s.critical_values == "exact", s.strategy == "union"),
+        decide=DecideOptions(s.strategy, s.alpha, s.max_difference, s.lag_rule),
         cross_check=CrossCheckOptions(s.alpha, "kpss" in s.confirm,
                                       tuple(t for t in s.confirm if t in EXTRA_TESTS), s.lag_rule,
                                       s.lags, s.break_model, s.critical_values, s.power),
-        read=ReadOptions(s.alpha, s.max_difference, "kpss" in s.confirm),
+        read=ReadOptions(s.alpha, s.max_difference, "kpss" in s.confirm, s.lag_rule),
         record=tuple(s.to_dict().items()),
     )
 
@@ -127,6 +132,8 @@ class Estimation(Protocol):
 
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult: ...
 
+    def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow: ...
+
 
 @dataclass(frozen=True)
 class Estimates:
@@ -136,6 +143,7 @@ class Estimates:
     levels: dict[int, LevelTests]
     max_lags: dict[int, int]
     reduced: tuple[int, int] | None  # (wanted, used) when the levels' maximum lag was cut
+    union: UnionRow | None = None  # the union of rejections, when the plan asks for it
 
 
 @dataclass(frozen=True)
@@ -150,6 +158,9 @@ class Decision:
     order: int | None
     deterministic: str | None
     deciding: Step
+    classic: ClassicVerdict | None = None  # the classic sequence's verdict, when it did not decide
+    weak: bool = False  # the classic sequence's conclusion rests on the normal after a drift
+    union_tests: tuple[TestResult, ...] = ()  # the union's DF-GLS components as ``tests`` entries
 
     @property
     def profile_request(self) -> tuple[str, int, int]:
@@ -198,3 +209,4 @@ class Reading:
     verdict: Verdict
     evidence: Evidence
     notes: tuple[str, ...]
+    classic: ClassicVerdict | None = None  # the classic sequence's verdict when it did not decide

@@ -184,7 +184,7 @@ def _drift_branch_note(ctx: NoteContext) -> str | None:
     That step (West 1988) is justified under a unit root with drift; a series that drifts
     cannot also be stationary around a fixed mean, so the reading is weak.
     """
-    if ctx.verdict.order != 0 or ctx.verdict.deterministic not in ("constant", "none"):
+    if ctx.verdict.order != 0 or ctx.verdict.strategy != "classic":
         return None
     decisive = [s for s in ctx.steps if s.difference == 0 and s.statistic_name == "z" and s.spec == "constant"
                 and s.hypothesis.startswith("unit root") and s.rejected]
@@ -196,6 +196,7 @@ def _drift_branch_note(ctx: NoteContext) -> str | None:
     return (
         "The unit root was rejected only by the step that compares τ with the standard normal because a "
         "drift was found (West 1988). That step assumes a unit root with drift, and a series that drifts "
-        "cannot also be stationary around a fixed mean, so read this verdict as weak; a unit root with "
-        "drift remains a plausible description." + trend_text
+        "cannot be stationary around a fixed mean: the most the sequence can say is trend-stationary (the "
+        "level grows, but shocks fade), so read this verdict as weak; a unit root with drift remains a "
+        "plausible description." + trend_text
     )

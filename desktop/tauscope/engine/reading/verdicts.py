@@ -78,7 +78,23 @@ def agreement(order: int | None, checks: list[tuple[TestResult, bool]]) -> str |
     return "inconclusive"
 
 
+_KPSS_ONLY = {"confirmed": "KPSS agrees", "inconclusive": "KPSS agrees in part", "conflict": "KPSS disagrees"}
+
+
 def agreement_note(
+    order: int | None, status: str | None, checks: list[tuple[TestResult, bool]], alpha: float,
+    kpss_only: bool = False,
+) -> str | None:
+    """The KPSS cross-check in words.  ``kpss_only``: the grade is set by more than KPSS
+    (reading/grade.py), so the note names KPSS's side only, not the grade."""
+    note = _agreement_note(order, status, checks, alpha)
+    if note is None or not kpss_only or status is None:
+        return note
+    head, _, rest = note.partition(": ")
+    return f"{_KPSS_ONLY.get(status, head)}: {rest}" if head.startswith("Cross-check") else note
+
+
+def _agreement_note(
     order: int | None, status: str | None, checks: list[tuple[TestResult, bool]], alpha: float
 ) -> str | None:
     if status is None or not checks:

@@ -8,6 +8,7 @@ import numpy as np
 
 from tauscope.engine.distributions import tables
 from tauscope.engine.procedure.stages import EstimateOptions
+from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
 from tauscope.engine.regression.design import SPECS
 from tauscope.engine.regression.lagchoice import choose_lag
 from tauscope.engine.results import LagPoint, LevelTests, TestResult
@@ -55,6 +56,13 @@ class ReferenceEstimation:
 
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
         return kpss_test(x, spec, difference, alpha)
+
+    def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow:
+        """The union of rejections on this series alone (the same numbers as in a batch:
+        every operation of :mod:`tauscope.engine.procedure.union_estimate` is row by row)."""
+        o = options
+        return union_rows(x[None, :], o.lag_rule, o.alpha, o.max_difference, o.max_lags,
+                          o.lags if o.lag_rule == "fixed" else None)[0]
 
 
 REFERENCE = ReferenceEstimation()

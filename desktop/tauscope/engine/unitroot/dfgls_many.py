@@ -42,15 +42,17 @@ def gls_detrend_many(xs: np.ndarray, spec: str) -> np.ndarray:
     zq[1:] = z[1:] - abar * z[:-1]
     yq = xs.copy()
     yq[:, 1:] = xs[:, 1:] - abar * xs[:, :-1]
-    beta = yq @ np.linalg.pinv(zq).T
-    return np.asarray(xs - beta @ z.T)
+    # einsum, not @: each row's sums must not depend on how many rows share the call, so
+    # a series alone gets the same bits as in a batch.
+    beta = np.einsum("rn,kn->rk", yq, np.linalg.pinv(zq))
+    return np.asarray(xs - np.einsum("rk,nk->rn", beta, z))
 
 
 def ols_detrend_many(xs: np.ndarray, spec: str) -> np.ndarray:
     """OLS residuals of every row on [1] (constant) or [1, t] (trend)."""
     z = deterministic_columns(spec, xs.shape[1])
     q, _ = np.linalg.qr(z)
-    return np.asarray(xs - (xs @ q) @ q.T)
+    return np.asarray(xs - np.einsum("rk,nk->rn", np.einsum("rn,nk->rk", xs, q), q))
 
 
 def _columns(levels: np.ndarray, lags: int, first: int) -> tuple[np.ndarray, list[np.ndarray]]:

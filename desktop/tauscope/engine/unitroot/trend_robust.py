@@ -65,7 +65,7 @@ def trend_statistics(xs: np.ndarray, dfgls_trend: np.ndarray) -> dict[str, np.nd
     tc = t - t.mean()
     sxx = float(tc @ tc)
     mean = xs.mean(axis=1, keepdims=True)
-    slope = (xs - mean) @ tc / sxx
+    slope = np.einsum("rn,n->r", xs - mean, tc) / sxx  # row by row, the same bits alone or batched
     resid = xs - mean - slope[:, None] * tc[None, :]
     bandwidth = bartlett_bandwidth(n)
     with np.errstate(divide="ignore", invalid="ignore"):

@@ -6,12 +6,15 @@ only :class:`~tauscope.engine.procedure.stages.Estimates`; the cross-check, the 
 and the result are shared by every strategy.
 
 * ``classic``: the Dickey-Fuller testing sequence of Dolado, Jenkinson &
-  Sosvilla-Rivero (1990) on each difference, from the highest down (:mod:`.classic`).
+  Sosvilla-Rivero (1990) on each difference, from the highest down (:mod:`.classic`);
+* ``union``: the size-controlled default, the union of rejections over the deterministic
+  terms (Harvey, Leybourne & Taylor 2009, 2012) from the highest difference down, the
+  classic path shown beside it (:mod:`.union`).
 """
 
 from __future__ import annotations
 
-from tauscope.engine.procedure.decide import classic
+from tauscope.engine.procedure.decide import classic, union
 from tauscope.engine.procedure.stages import Strategy
 
-STRATEGIES: dict[str, Strategy] = {"classic": classic.decide}
+STRATEGIES: dict[str, Strategy] = {"union": union.decide, "classic": classic.decide}

@@ -48,6 +48,7 @@ class SequenceOutcome:
     unit_root: bool
     deterministic: str
     settled_spec: str
+    weak: bool = False  # γ rejected only against the normal after a drift or trend was found
 
 
 def _where(difference: int) -> str:
@@ -131,6 +132,12 @@ def _phi_step(test: TestResult, alpha: float) -> Step:
     )
 
 
+WEAK_WORDS = (
+    "this conclusion is weak: it rests on the normal critical value after a drift was found "
+    "(West 1988), a step at which the sequence often calls a unit root stationary"
+)
+
+
 def _gamma_normal_step(test: TestResult, alpha: float, why: str) -> Step:
     critical = normal_lower(alpha)
     reject = test.statistic < critical
@@ -140,7 +147,8 @@ def _gamma_normal_step(test: TestResult, alpha: float, why: str) -> Step:
     if reject:
         text = (
             f"Because {why}, τ is compared with the standard normal (West 1988): it rejects a unit "
-            f"root at {a} ({numbers})."
+            f"root at {a} ({numbers}), so the sequence concludes trend-stationary: the level grows, "
+            f"but shocks fade; {WEAK_WORDS}."
         )
     else:
         text = (
@@ -216,7 +224,7 @@ def run_sequence(level: LevelTests, alpha: float) -> SequenceOutcome:
     if phi3.rejected:
         z = _gamma_normal_step(trend, alpha, "the trend is significant")
         steps.append(z)
-        return SequenceOutcome(d, tuple(steps), not z.rejected, "trend", "trend")
+        return SequenceOutcome(d, tuple(steps), not z.rejected, "trend", "trend", z.rejected)
     steps.append(_tau_step(constant, alpha))
     if constant.reject:
         return stationary_terms(constant)
@@ -225,7 +233,10 @@ def run_sequence(level: LevelTests, alpha: float) -> SequenceOutcome:
     if phi1.rejected:
         z = _gamma_normal_step(constant, alpha, "a drift is present")
         steps.append(z)
-        return SequenceOutcome(d, tuple(steps), not z.rejected, "constant", "constant")
+        # A drift with the unit root rejected is a level that grows: trend-stationary, not
+        # "around a mean" (issue 13 §4).
+        det = "trend" if z.rejected else "constant"
+        return SequenceOutcome(d, tuple(steps), not z.rejected, det, "constant", z.rejected)
     last = _tau_step(none, alpha)
     steps.append(last)
     return SequenceOutcome(d, tuple(steps), not last.rejected, "none", "none")
@@ -244,5 +255,6 @@ def decide(estimates: Estimates, options: DecideOptions) -> Decision:
     steps = tuple(s for o in outcomes for s in o.steps)
     deterministic = None if order is None else outcomes[-1].deterministic
     deciding = [s for s in steps if s.statistic_name == "tau"][-1]
+    weak = order is not None and any(o.weak for o in outcomes)
     return Decision(estimates, "classic", tuple(o.difference for o in outcomes), steps, order,
-                    deterministic, deciding)
+                    deterministic, deciding, weak=weak)

@@ -1,0 +1,142 @@
+"""The union of rejections for a batch of series of one length, as plain data per series.
+
+:func:`union_rows` calls :func:`tauscope.engine.unitroot.union.union_orders` once for
+the whole batch (Harvey, Leybourne & Taylor 2009, 2012; from the highest difference
+down, Dickey & Pantula 1987) and splits its arrays into one :class:`UnionRow` per
+series, with what the reading and the grade need beside the order:
+
+* the order at 1% and at 10% from the same statistics (``rejections_at``);
+* the order with Schwert's (1989) long lag maximum ⌊12 (T/100)^{1/4}⌋;
+* the trend test's z_λ and critical value (Harvey, Leybourne & Taylor 2007);
+* for a unit-root verdict, the union's simulated power at that length against a
+  stationary AR(1) with φ = 0.95 (``union_power``).
+
+Every operation is row by row, so one series alone gets the same numbers as inside a
+batch: the fast path and the reference path share this computation.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from tauscope.engine.unitroot.trend_robust import trend_critical_value
+from tauscope.engine.unitroot.union import (
+    UNION_LAG_SCALE,
+    max_lags_schwert,
+    orders_from_rejections,
+    rejections_at,
+    union_constants,
+    union_orders,
+    union_power,
+)
+
+LONG_LAG_SCALE = 12.0  # Schwert's long rule
+POWER_PHI = 0.95
+OTHER_ALPHAS = (0.01, 0.10)
+
+
+@dataclass(frozen=True)
+class UnionLevelRow:
+    """The union on Δ^d y for one series: each component's statistic and lag order, its
+    own critical values at 1/5/10% (``component_values``), κ, M and the decision."""
+
+    difference: int
+    nobs: int
+    components: tuple[str, ...]
+    tau: tuple[float, ...]
+    lags: tuple[int, ...]
+    max_lags: int
+    critical_values: tuple[float, ...]  # cv_i at the level alpha
+    component_values: tuple[dict[str, float], ...]
+    kappa: float
+    statistic: float  # M = max_i τ_i / cv_i
+    reject: bool
+
+    @property
+    def margin(self) -> float:
+        return self.statistic / self.kappa
+
+
+@dataclass(frozen=True)
+class UnionRow:
+    """The union's verdict for one series and the evidence beside it."""
+
+    order: int | None
+    deterministic: str | None
+    levels: dict[int, UnionLevelRow]
+    trend_z: float
+    trend_critical_value: float
+    trend_difference: int | None  # where the trend test ran (0 levels, 1 first difference)
+    orders_at: dict[float, int | None]  # the order at 1% and at 10%
+    long_lag_order: int | None
+    power: tuple[float, float] | None  # (union, trend components) against AR(1) φ = 0.95
+    problem: str | None = None  # one sentence when a statistic the decision used is not a number
+
+
+def _order(value: int) -> int | None:
+    return None if value < 0 else int(value)
+
+
+def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
+               max_lags: int | None, fixed: int | None) -> list[UnionRow]:
+    """One :class:`UnionRow` per row of ``xs`` (series of one length)."""
+    xs = np.asarray(xs, dtype=float)
+    with np.errstate(all="ignore"):
+        result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed)
+        at = {a: orders_from_rejections(rejections_at(result.levels, a), max_difference)
+              for a in OTHER_ALPHAS}
+        long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
+                            lag_scale=LONG_LAG_SCALE).order
+    per_alpha = {d: {a: union_constants(level.constants.length, a) for a in (0.01, 0.05, 0.10)}
+                 for d, level in result.levels.items()}
+    rows = []
+    for i in range(xs.shape[0]):
+        order = _order(int(result.order[i]))
+        det = result.deterministic[i]
+        levels = {}
+        for d, level in result.levels.items():
+            c = level.constants
+            comps = c.components
+            values = tuple({f"{round(a * 100)}%": per_alpha[d][a].critical_values[j]
+                            for a in (0.01, 0.05, 0.10)} for j in range(len(comps)))
+            lags = tuple(int(level.lags[name.split("-")[1]][i]) for name in comps)
+            tau = tuple(float(level.tau[name][i]) for name in comps)
+            n = xs.shape[1] - d
+            levels[d] = UnionLevelRow(
+                d, n, comps, tau, lags, _level_max_lags(n, rule, max_lags, fixed),
+                c.critical_values, values, c.kappa, float(level.margin[i]) * c.kappa,
+                bool(level.reject[i]))
+        problem = _problem(levels, order, max_difference)
+        trend_d = None if order is None else (1 if order == 2 else 0)
+        trend_cv = float("nan")
+        if trend_d is not None:
+            n = xs.shape[1] - trend_d
+            trend_cv = trend_critical_value(n, alpha, rule, _level_max_lags(n, rule, max_lags, fixed))
+        power = None
+        if order is not None and order >= 1 and problem is None:
+            power = union_power(xs.shape[1] - (order - 1), POWER_PHI, rule, alpha)
+        rows.append(UnionRow(order, det, levels, float(result.trend_z[i]), trend_cv, trend_d,
+                             {a: _order(int(at[a][i])) for a in OTHER_ALPHAS},
+                             _order(int(long[i])), power, problem))
+    return rows
+
+
+def _level_max_lags(n: int, rule: str, max_lags: int | None, fixed: int | None) -> int:
+    """The union's maximum lag order on a level of n values (as ``union_orders``)."""
+    if rule == "fixed":
+        return int(fixed or 0)
+    return max_lags_schwert(n, max_lags, UNION_LAG_SCALE)
+
+
+def _problem(levels: dict[int, UnionLevelRow], order: int | None, max_difference: int) -> str | None:
+    """A statistic that is not a number on a level the decision used is an error (the
+    estimate stage raises it for that series), never a silent "do not reject"."""
+    lowest = max_difference if order is None else max(order - 1, 0)
+    for d in range(max_difference, lowest - 1, -1):
+        if not np.isfinite(levels[d].statistic):
+            where = {0: "the levels", 1: "the first difference", 2: "the second difference"}[d]
+            return (f"the size-controlled unit-root test could not be computed on {where} "
+                    "(a statistic is not a number)")
+    return None
