@@ -13,7 +13,7 @@ from typing import Any
 import numpy as np
 import pandas as pd
 
-from tauscope.engine.results_breaks import BreakInfo
+from tauscope.engine.results_breaks import BreakCheck, BreakInfo
 
 
 def _num(value: float | None) -> float | None:
@@ -212,6 +212,7 @@ class SeriesResult:
     values: pd.Series | None = field(default=None, compare=False, repr=False)
     fitted: np.ndarray | None = field(default=None, compare=False, repr=False)
     evidence: Evidence | None = field(default=None, compare=False, repr=False)
+    breaks: BreakCheck | None = field(default=None, compare=False, repr=False)
 
     @property
     def ok(self) -> bool:
@@ -242,6 +243,7 @@ class SeriesResult:
                 "points": [p.to_dict() for p in self.lag_profile],
             },
             "evidence": self.evidence.to_dict() if self.evidence is not None else None,
+            "breaks": self.breaks.to_dict() if self.breaks is not None else None,
         }
 
 

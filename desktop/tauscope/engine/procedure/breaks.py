@@ -1,0 +1,169 @@
+"""The break check of the cross-check stage: is a break suspected, and if so, does a unit
+root survive a test that allows one shift in level under both hypotheses?
+
+A break is suspected on any of three signs:
+
+* ``jump``: the jump detector (:func:`tauscope.engine.reading.notes.find_jump`) finds an
+  unusually large one-period change;
+* ``conflict``: the ADF verdict and KPSS contradict each other (agreement "conflict");
+* ``swing``: τ with a constant on an expanding window of the levels
+  (:func:`tauscope.engine.unitroot.recursive.recursive_tau`, the lag order the user's
+  rule chose for that regression but at most :data:`SWING_LAGS`: long lags chosen on the
+  whole sample soak up the shift and hide the swing) clearly rejects a unit root for a window ending at least
+  a quarter into the sample (τ below its critical value by more than :data:`SWING`), while
+  the full sample does not reject.  A shift in level later in the sample does exactly this
+  to a stationary series (Perron 1989).
+
+When one fires, the minimum LM test with one level shift (Lee & Strazicich 2013,
+:mod:`tauscope.engine.unitroot.lm_break`) runs on the levels, with one lag order for every
+candidate break (the order the user's rule chose for the ADF regression with constant and
+trend, at most 8) and critical values simulated at the series' length
+(:mod:`tauscope.engine.distributions.break_null`).  When it rejects, the slope's t ratio in
+the regression Δy_t = c + b·t + θ DU_t + d B_t + α y_{t−1} + Σ c_j Δy_{t−j} + e_t at the
+break (Perron 1989, model A) decides between a mean and a trend (normal critical value,
+two-sided at the chosen level: the regression is stationary under this alternative).
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+import numpy as np
+from scipy.stats import norm
+
+from tauscope.engine import formatting as fmt
+from tauscope.engine.distributions.break_null import (
+    BREAK_REPS,
+    break_critical_values,
+    break_p_value,
+)
+from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.procedure.prepare import PreparedSeries
+from tauscope.engine.reading.breaks import break_sentence
+from tauscope.engine.reading.notes import find_jump
+from tauscope.engine.reading.verdicts import agreement
+from tauscope.engine.results import RecursiveStatistic, TestResult
+from tauscope.engine.results_breaks import (
+    FAILED,
+    NOT_SUSPECTED,
+    STATIONARY_WITH_BREAK,
+    UNIT_ROOT_WITH_BREAK,
+    BreakCheck,
+    BreakTest,
+)
+from tauscope.engine.unitroot.lm_break import MAX_LAGS, lm_break
+from tauscope.engine.unitroot.recursive import recursive_tau
+
+SWING = 1.0  # how far below its critical value an earlier window's τ must be
+SWING_LAGS = 1  # at most this many lags in the expanding-window τ
+SWING_START = 0.25  # windows ending before this share of the sample are not counted
+SIMULATED_LENGTH_CAP = 300  # longer series use the null simulated at 300 observations
+_FAILURES = (UntestableSeries, np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
+
+
+def break_reasons(x: np.ndarray, order: int | None, kpss: Sequence[tuple[TestResult, bool]],
+                  recursive: RecursiveStatistic | None) -> tuple[tuple[str, ...], int | None]:
+    """(the signs of a break that fire, the jump detector's position or None)."""
+    reasons: list[str] = []
+    jump = find_jump(x)
+    if jump is not None:
+        reasons.append("jump")
+    if kpss and agreement(order, list(kpss)) == "conflict":
+        reasons.append("conflict")
+    if recursive is not None and swings(recursive, x.shape[0]):
+        reasons.append("swing")
+    return tuple(reasons), jump
+
+
+def swings(recursive: RecursiveStatistic, length: int) -> bool:
+    """An earlier window rejects clearly (τ < critical value − SWING) and the last does not."""
+    stats, critical = np.asarray(recursive.statistics), np.asarray(recursive.critical_values)
+    if stats.size < 2 or stats[-1] < critical[-1]:
+        return False
+    counted = np.asarray(recursive.ends) >= SWING_START * length
+    margin = (stats - critical)[counted[: stats.size]]
+    return bool(margin.size and np.nanmin(margin) < -SWING)
+
+
+def trend_t_ratio(x: np.ndarray, position: int, lags: int) -> float:
+    """t ratio of the slope b in Δy_t = c + b t + θ DU_t + d B_t + α y_{t−1} + Σ c_j Δy_{t−j} + e_t,
+    DU_t = 1(t > TB), B_t = 1(t = TB + 1), TB = ``position`` (0-based)."""
+    dx = np.diff(x)
+    rows = np.arange(lags, dx.shape[0])  # Δy index; its time is row + 1
+    t = (rows + 1).astype(float)
+    columns = [np.ones(rows.shape[0]), t / t[-1], (t > position).astype(float),
+               (t == position + 1).astype(float), x[rows] / np.std(x)]
+    columns += [dx[rows - j] for j in range(1, lags + 1)]
+    design = np.column_stack(columns)
+    beta, *_ = np.linalg.lstsq(design, dx[rows], rcond=None)
+    resid = dx[rows] - design @ beta
+    df = rows.shape[0] - design.shape[1]
+    if df <= 0:
+        raise UntestableSeries("too few observations to judge the trend at the break")
+    sigma2 = float(resid @ resid) / df
+    inverse = np.linalg.pinv(design.T @ design)
+    return float(beta[1] / np.sqrt(sigma2 * inverse[1, 1]))
+
+
+def run_break_test(prepared: PreparedSeries, lags: int, alpha: float) -> BreakTest:
+    """The minimum LM test on the levels, judged against the null simulated at this length."""
+    x = prepared.values
+    search = lm_break(x, lags=min(max(int(lags), 0), MAX_LAGS))
+    length = min(int(x.shape[0]), SIMULATED_LENGTH_CAP)
+    critical_values = break_critical_values(length)
+    level = fmt.percent(alpha)
+    p_value, bound = break_p_value(search.statistic, length)
+    reject = bool(search.statistic < critical_values[level])
+    trend_t = trend_t_ratio(x, search.position, search.lags)
+    trend = abs(trend_t) > float(norm.ppf(1.0 - alpha / 2.0))
+    return BreakTest(
+        statistic=search.statistic, critical_values=critical_values,
+        critical_value=critical_values[level], p_value=p_value, p_value_bound=bound,
+        reject=reject, lags=search.lags, nobs=search.nobs, position=search.position,
+        first_new=search.first_new, last_old_label=prepared.label(search.position),
+        first_new_label=prepared.label(search.first_new), shift=search.shift, slope=search.slope,
+        trend_t=trend_t, deterministic="trend" if trend else "constant", reps=BREAK_REPS,
+    )
+
+
+def check_breaks(prepared: PreparedSeries, order: int | None, kpss: Sequence[tuple[TestResult, bool]],
+                 constant_lags: int, trend_lags: int, alpha: float) -> BreakCheck:
+    """The break check for one series: the signs, and the break test when one fires.
+
+    ``constant_lags``/``trend_lags``: the lag orders the user's rule chose for the ADF
+    regressions on the levels with a constant (for the swing) and with a trend (for the
+    break test).
+    """
+    x = prepared.values
+    try:
+        recursive: RecursiveStatistic | None = recursive_tau(x, "constant", min(constant_lags, SWING_LAGS), alpha)
+    except _FAILURES:
+        recursive = None
+    reasons, jump = break_reasons(x, order, kpss, recursive)
+    jump_label = None if jump is None else prepared.label(jump)
+    if not reasons:
+        return BreakCheck(False, (), NOT_SUSPECTED)
+    try:
+        test = run_break_test(prepared, trend_lags, alpha)
+    except _FAILURES as exc:
+        check = BreakCheck(True, reasons, FAILED, None, jump_label, problem=str(exc))
+    else:
+        outcome = STATIONARY_WITH_BREAK if test.reject else UNIT_ROOT_WITH_BREAK
+        check = BreakCheck(True, reasons, outcome, test, jump_label)
+    return BreakCheck(check.suspected, check.reasons, check.outcome, check.test, check.jump_label,
+                      break_sentence(check, alpha), check.problem)
+
+
+def fitted_under_break(x: np.ndarray, check: BreakCheck | None) -> np.ndarray | None:
+    """The path a verdict given under the break implies, for charts: OLS of y on
+    [1, DU_t] (a mean that shifts) or [1, t, DU_t] (a trend whose level shifts)."""
+    if check is None or check.test is None:
+        return None
+    n = x.shape[0]
+    t = np.arange(n, dtype=float)
+    columns = [np.ones(n), (t > check.test.position).astype(float)]
+    if check.test.deterministic == "trend":
+        columns.append(t)
+    z = np.column_stack(columns)
+    beta, *_ = np.linalg.lstsq(z, x, rcond=None)
+    return np.asarray(z @ beta)
