@@ -1,0 +1,172 @@
+"""The break check: the minimum LM test with one level shift (Lee & Strazicich 2013), its
+simulated critical values against published tables, and the verdict given under a break."""
+
+from __future__ import annotations
+
+import numpy as np
+import pandas as pd
+import statsmodels.api as sm
+
+from tauscope.engine import Settings, analyse_series
+from tauscope.engine.distributions.break_null import break_critical_values, break_null_draws
+from tauscope.engine.reading.breaks import badge_cap, capped_agreement
+from tauscope.engine.unitroot.lm_break import (
+    candidate_positions,
+    lm_break,
+    lm_profile,
+    lm_statistic_no_lags,
+)
+
+
+def _lm_by_hand(x: np.ndarray, position: int, lags: int) -> float:
+    """One candidate by the paper's recipe with statsmodels OLS: δ̃ from Δy on ΔZ = [1, B],
+    S̃ the cumulated residuals, then Δy on [1, B, S̃_{t−1}, ΔS̃_{t−1..t−k}]."""
+    n = x.shape[0]
+    dx = np.diff(x)
+    impulse = (np.arange(n) == position + 1).astype(float)
+    dz = np.column_stack([np.ones(n - 1), impulse[1:]])
+    delta = sm.OLS(dx, dz).fit().params
+    s = np.concatenate([[0.0], np.cumsum(dx - dz @ delta)])
+    ds = np.diff(s)
+    rows = [[1.0, impulse[i], s[i - 1], *[ds[i - 1 - j] for j in range(1, lags + 1)]]
+            for i in range(lags + 1, n)]
+    fit = sm.OLS(dx[lags:], np.asarray(rows)).fit()
+    return float(fit.tvalues[2])
+
+
+def test_statistic_matches_statsmodels_at_every_lag_order() -> None:
+    rng = np.random.default_rng(11)
+    x = np.cumsum(rng.standard_normal(90))
+    positions = candidate_positions(90)
+    for lags in (0, 2):
+        ours, _ = lm_profile(x, positions, lags, fixed=True)
+        for i in (0, 25, len(positions) - 1):
+            assert abs(ours[i] - _lm_by_hand(x, int(positions[i]), lags)) < 1e-8
+
+
+def test_prefix_sum_form_equals_the_regressions() -> None:
+    rng = np.random.default_rng(12)
+    paths = np.cumsum(rng.standard_normal((4, 70)), axis=1)
+    positions = candidate_positions(70)
+    fast = lm_statistic_no_lags(paths, positions)
+    slow = np.array([lm_profile(p, positions, 0, fixed=True)[0] for p in paths])
+    np.testing.assert_allclose(fast, slow, atol=1e-9)
+
+
+def test_statistic_ignores_level_scale_and_the_shift_under_the_null() -> None:
+    rng = np.random.default_rng(13)
+    x = np.cumsum(rng.standard_normal(120))
+    base = lm_break(x, lags=1)
+    for moved in (lm_break(1e9 + x, lags=1), lm_break(1e-10 * x, lags=1)):
+        assert abs(base.statistic - moved.statistic) < 1e-6
+    # A jump exactly at a candidate is absorbed there (the LM test's invariance, Lee & Strazicich 2013).
+    jumped = x + 25.0 * (np.arange(120) > 60)
+    assert abs(lm_profile(jumped, np.array([60]), 1, fixed=True)[0][0]
+               - lm_profile(x, np.array([60]), 1, fixed=True)[0][0]) < 1e-9
+
+
+def test_known_break_values_against_schmidt_phillips() -> None:
+    """At one fixed break the statistic has the no-break LM distribution (Amsler & Lee 1995);
+    Schmidt & Phillips (1992), Oxford Bulletin 54(3), Table 1A, T = 100 with trend:
+    −3.63 (1%), −3.06 (5%), −2.77 (10%) (from memory).  Tolerance 0.05 (20,000 replications)."""
+    rng = np.random.default_rng(14)
+    paths = np.cumsum(rng.standard_normal((20_000, 100)), axis=1)
+    stats = lm_statistic_no_lags(paths, np.array([49]))[:, 0]
+    for level, published in ((0.01, -3.63), (0.05, -3.06), (0.10, -2.77)):
+        assert abs(np.quantile(stats, level) - published) < 0.05
+
+
+def test_simulated_critical_values_against_lee_strazicich_table() -> None:
+    """Lee & Strazicich (2013), Economics Bulletin 33(4), Table 1, model A (level shift),
+    T = 100: −4.239 (1%), −3.566 (5%), −3.211 (10%) (from memory).
+
+    Our simulation (no lags, 10% trimming, 20,000 replications) gives −4.13, −3.48, −3.17:
+    less negative by 0.11, 0.08 and 0.04.  The published values lie between ours and those
+    of the same search with the lag order chosen at every candidate (measured: −4.52,
+    −3.74, −3.47 at T = 100), which is why the analysis uses one lag order for every
+    candidate and its own simulated values.  Stated tolerance: 0.12, ours never more negative
+    than the table's by more than 0.02."""
+    ours = break_critical_values(100)
+    for label, published in (("1%", -4.239), ("5%", -3.566), ("10%", -3.211)):
+        assert abs(ours[label] - published) < 0.12
+        assert ours[label] > published - 0.02
+    assert ours["1%"] < ours["5%"] < ours["10%"]
+
+
+def test_null_draws_are_cached_and_fixed() -> None:
+    first = break_null_draws(60)
+    assert break_null_draws(60) is first
+    assert not first.flags.writeable
+
+
+def _level_shift(rng: np.random.Generator, n: int, shift: float) -> np.ndarray:
+    e = rng.standard_normal(n + 100)
+    u = np.zeros_like(e)
+    for t in range(1, e.shape[0]):
+        u[t] = 0.5 * u[t - 1] + e[t]
+    return 3.0 + shift * (np.arange(n) >= n // 2) + u[100:]
+
+
+def test_verdict_under_a_level_shift_with_its_date() -> None:
+    """Stationary AR(0.5) with a shift of 5 shock standard deviations at mid-sample, T = 200
+    (issue 14): the verdict is I(0) around a shifting mean in at least 70% of 40 series
+    (the benchmark's 150 series: 79%); the break is dated from the index."""
+    rng = np.random.default_rng(15)
+    index = pd.period_range("1960Q1", periods=200, freq="Q")
+    right = dated = 0
+    for _ in range(40):
+        result = analyse_series(pd.Series(_level_shift(rng, 200, 5.0), index=index), name="s")
+        check = result.breaks
+        assert check is not None
+        if result.verdict.order == 0 and result.verdict.deterministic == "constant":
+            right += 1
+        if check.stationary_with_break and check.test is not None:
+            assert str(index[check.test.first_new]) in result.verdict.text
+            assert "shifts in" in result.verdict.text and result.verdict.agreement != "confirmed"
+            dated += abs(check.test.first_new - 100) <= 2
+            assert result.to_dict()["breaks"]["break_suspected"] is True
+    assert right >= 28
+    assert dated >= 24
+
+
+def test_random_walk_is_rarely_called_stationary_with_a_break() -> None:
+    """Size: 60 random walks at T = 200 (the benchmark's 150: 2.7%); at most 5 here."""
+    rng = np.random.default_rng(16)
+    called = sum(bool(analyse_series(np.cumsum(rng.standard_normal(200))).breaks.stationary_with_break)  # type: ignore[union-attr]
+                 for _ in range(60))
+    assert called <= 5
+
+
+def test_unit_root_with_a_jump_is_not_explained_away() -> None:
+    """A random walk with a large jump: the jump is seen, the break test runs, and (its null
+    allowing the jump) it does not turn the unit root into stationarity."""
+    rng = np.random.default_rng(17)
+    x = np.cumsum(rng.standard_normal(200)) + 30.0 * (np.arange(200) >= 120)
+    result = analyse_series(x)
+    check = result.breaks
+    assert check is not None and check.suspected and "jump" in check.reasons
+    assert check.test is not None and not check.test.reject
+    assert result.verdict.order == 1
+    assert check.sentence is not None and "finds no evidence against a unit root" in check.sentence
+    assert check.sentence in result.notes
+
+
+def test_quiet_series_has_no_break_check_and_no_cap() -> None:
+    rng = np.random.default_rng(18)
+    result = analyse_series(np.cumsum(rng.standard_normal(150)), settings=Settings())
+    check = result.breaks
+    assert check is not None
+    if not check.suspected:
+        assert check.test is None and check.sentence is None
+        assert badge_cap(check) is None
+        assert capped_agreement("confirmed", check) == "confirmed"
+    assert result.to_dict()["breaks"]["break_suspected"] == check.suspected
+
+
+def test_badge_cap_when_a_break_is_suspected() -> None:
+    rng = np.random.default_rng(19)
+    check = analyse_series(_level_shift(rng, 200, 8.0)).breaks
+    assert check is not None and check.suspected
+    assert badge_cap(check) == "inconclusive"
+    assert capped_agreement("confirmed", check) == "inconclusive"
+    assert capped_agreement("conflict", check) == "conflict"
