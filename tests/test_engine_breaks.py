@@ -170,3 +170,23 @@ def test_badge_cap_when_a_break_is_suspected() -> None:
     assert badge_cap(check) == "inconclusive"
     assert capped_agreement("confirmed", check) == "inconclusive"
     assert capped_agreement("conflict", check) == "conflict"
+
+
+def test_demo_fish_landings_read_under_its_break() -> None:
+    """The demo's fish landings are built as I(0) around a mean that falls by 35 in 2009Q1
+    (resources/demo/make_demo.py): the verdict names the date, and the no-break cross-check
+    is said of the sequence's own verdict, not of this one."""
+    rng = np.random.default_rng(20)
+    index = pd.period_range("1990Q1", periods=140, freq="Q")
+    e = rng.standard_normal(240) * 5.0
+    u = np.zeros(240)
+    for t in range(1, 240):
+        u[t] = 0.4 * u[t - 1] + e[t]
+    values = 100.0 - 35.0 * (np.arange(140) >= 76) + u[100:]
+    result = analyse_series(pd.Series(values, index=index), name="fish")
+    assert result.verdict.order == 0
+    assert result.verdict.text.startswith("The series is stationary around a mean that shifts in 2009Q1")
+    assert "(2009Q1)" in result.verdict.label
+    assert any(n.startswith("Without allowing for a break, the testing sequence gives") for n in result.notes)
+    assert not any(n.startswith("Cross-check confirmed") for n in result.notes)
+    assert result.fitted is not None and abs((result.fitted[100] - result.fitted[10]) + 35.0) < 5.0

@@ -21,6 +21,8 @@ SHIFTING = {
 }
 TEST_WORDS = ("the break test (an LM unit-root test that allows one shift in level, at a date it "
               "picks from the data, with or without a unit root; Lee & Strazicich 2013)")
+NEITHER = ("Neither the ADF test nor KPSS allows a shift in level, so neither can confirm or "
+           "contradict the verdict given under the break.")
 
 
 def _join(words: list[str]) -> str:
@@ -45,7 +47,7 @@ def break_sentence(check: BreakCheck, alpha: float) -> str | None:
     if test is None:
         return lead + (f" The break test could not be run ({check.problem})." if check.problem else "")
     if test.reject:
-        return (f"{lead} Allowing for one shift in level, {TEST_WORDS} rejects a unit root at {a} "
+        return (f"{lead} {TEST_WORDS[0].upper()}{TEST_WORDS[1:]} rejects a unit root at {a} "
                 f"({_numbers(test, alpha)}): the series is {SHIFTING[test.deterministic]} in "
                 f"{test.first_new_label} (estimated shift {fmt.stat(test.shift)}). Suggestion: check "
                 f"the source near {test.first_new_label}, and use the levels with a shift from that date.")
@@ -75,6 +77,16 @@ def verdict_under_break(verdict: Verdict, check: BreakCheck | None, alpha: float
               f"the break test rejects a unit root at {a} ({_numbers(test, alpha)}); use it in levels "
               f"with a shift from {test.first_new_label}."),
     )
+
+
+def agreement_under_break(previous: Verdict, text: str | None, check: BreakCheck | None) -> str | None:
+    """The cross-check's sentence, said of the verdict without the break when the verdict is
+    given under the break (``previous``: the verdict the testing sequence gave); unchanged
+    otherwise."""
+    if check is None or not check.stationary_with_break:
+        return text
+    return " ".join(part for part in (
+        f"Without allowing for a break, the testing sequence gives {previous.label}.", text, NEITHER) if part)
 
 
 def badge_cap(check: BreakCheck | None) -> str | None:
