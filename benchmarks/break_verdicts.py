@@ -5,7 +5,11 @@ Processes (T = 200 by default, Gaussian shocks e_t ~ N(0, 1), 100 values of burn
 
 * level shift: y_t = 3 + 5·1(t ≥ T/2) + u_t, u_t = 0.5 u_{t−1} + e_t (a shift of five shock
   standard deviations halfway); the right verdict is I(0) around a mean that shifts;
-* random walk: y_t = y_{t−1} + e_t; the wrong verdict counted is "stationary with a break".
+* random walk: y_t = y_{t−1} + e_t; the wrong verdict counted is "stationary with a break";
+* random walk with a jump of 10 shock standard deviations at 60% of the sample (a break
+  under the null: the break test must not explain the unit root away);
+* ARIMA(1,1,0), Δy_t = 0.5 Δy_{t−1} + e_t (serially correlated changes);
+* AR(0.5) around a mean, no break (the break reading must leave it alone).
 
 Run: PYTHONPATH=desktop python benchmarks/break_verdicts.py [--reps 300] [--length 200]
 """
@@ -38,6 +42,14 @@ def level_shift(rng: np.random.Generator, reps: int, length: int, shift: float =
 
 def random_walk(rng: np.random.Generator, reps: int, length: int) -> np.ndarray:
     return np.cumsum(rng.standard_normal((reps, length)), axis=1)
+
+
+def walk_with_jump(rng: np.random.Generator, reps: int, length: int) -> np.ndarray:
+    return random_walk(rng, reps, length) + 10.0 * (np.arange(length) >= int(0.6 * length))
+
+
+def arima110(rng: np.random.Generator, reps: int, length: int) -> np.ndarray:
+    return np.cumsum(level_shift(rng, reps, length, 0.0) - 3.0, axis=1)
 
 
 def measure(series: np.ndarray, settings: Settings, true_order: int,
@@ -80,6 +92,9 @@ def main() -> None:
     for name, data, order, true_break in (
         ("level shift (AR 0.5, 5σ at mid-sample)", level_shift(rng, args.reps, n), 0, n // 2),
         ("random walk (no break)", random_walk(rng, args.reps, n), 1, None),
+        ("random walk with a 10σ jump at 60%", walk_with_jump(rng, args.reps, n), 1, None),
+        ("ARIMA(1,1,0), φ = 0.5", arima110(rng, args.reps, n), 1, None),
+        ("AR(0.5) around a mean, no break", level_shift(rng, args.reps, n, 0.0), 0, None),
     ):
         start = time.perf_counter()
         shares = measure(data, settings, order, true_break)

@@ -19,8 +19,9 @@ REASONS = {
 
 # ``BreakCheck.outcome``
 NOT_SUSPECTED = "not suspected"  # no sign of a break: the test did not run
-STATIONARY_WITH_BREAK = "stationary with a break"  # the test rejects a unit root allowing a shift
-UNIT_ROOT_WITH_BREAK = "unit root even with a break"  # it does not
+STATIONARY_WITH_BREAK = "stationary with a break"  # the test rejects a unit root and the shift is clear
+SHIFT_UNCLEAR = "no unit root, shift unclear"  # it rejects, but the verdict stays (see procedure/breaks.py)
+UNIT_ROOT_WITH_BREAK = "unit root even with a break"  # it does not reject
 NOT_RUN = "not run"  # suspected, but switched off or too short
 FAILED = "failed"  # suspected, but the test could not be computed
 
@@ -63,7 +64,9 @@ class BreakTest:
     one (0-based, in the levels); the labels come from the series' index.  ``shift`` is
     the estimated jump in level and ``slope`` the slope per period, in the series' units.
     ``deterministic``: "constant" when the stationary path is a mean that shifts,
-    "trend" when the slope is significant (``trend_t``, its t ratio at the break).
+    "trend" when the slope is significant (``trend_t``, its t ratio at the break);
+    ``shift_t``: the shift's t ratio at the break, ``shift_clear`` whether it passes the
+    sup-type critical value (the break date was searched for).
     """
 
     statistic: float
@@ -83,6 +86,8 @@ class BreakTest:
     trend_t: float
     deterministic: str
     reps: int
+    shift_t: float = float("nan")
+    shift_clear: bool = False
 
     def to_dict(self) -> dict[str, Any]:
         return {
@@ -95,6 +100,7 @@ class BreakTest:
             "position": self.position, "first_new": self.first_new,
             "last_old_label": self.last_old_label, "first_new_label": self.first_new_label,
             "shift": _num(self.shift), "slope": _num(self.slope), "trend_t": _num(self.trend_t),
+            "shift_t": _num(self.shift_t), "shift_clear": self.shift_clear,
             "deterministic": self.deterministic, "reps": self.reps,
         }
 

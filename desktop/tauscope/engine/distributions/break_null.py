@@ -25,7 +25,7 @@ _CHUNK_VALUES = 1_000_000
 LEVELS = {"1%": 0.01, "5%": 0.05, "10%": 0.10}
 
 
-@lru_cache(maxsize=16)
+@lru_cache(maxsize=64)
 def break_null_draws(length: int, reps: int = BREAK_REPS, seed: int = BREAK_SEED,
                      trim: float = TRIM) -> np.ndarray:
     """Sorted simulated minimum LM statistics for series of ``length`` observations."""

@@ -46,6 +46,12 @@ def break_sentence(check: BreakCheck, alpha: float) -> str | None:
     test = check.test
     if test is None:
         return lead + (f" The break test could not be run ({check.problem})." if check.problem else "")
+    if test.reject and not check.stationary_with_break:
+        return (f"{lead} {TEST_WORDS[0].upper()}{TEST_WORDS[1:]} rejects a unit root at {a} "
+                f"({_numbers(test, alpha)}), but the shift it allows (most likely at "
+                f"{test.first_new_label}, estimated {fmt.stat(test.shift)}) is not clear "
+                f"(t = {fmt.stat(test.shift_t)}) or the verdict is not about the levels, so the verdict "
+                "stands; a break remains possible.")
     if test.reject:
         return (f"{lead} {TEST_WORDS[0].upper()}{TEST_WORDS[1:]} rejects a unit root at {a} "
                 f"({_numbers(test, alpha)}): the series is {SHIFTING[test.deterministic]} in "

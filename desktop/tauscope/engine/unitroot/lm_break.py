@@ -25,7 +25,7 @@ null the statistic's distribution does not depend on the size or place of the sh
 
 All candidate breaks are solved as one batch: the regressors are arrays of shape
 (candidates, rows, columns); the impulse B_t takes its row out of the fit, which is done
-with 0/1 weights instead of a column.
+by taking that row's products out of the cross products instead of adding a column.
 """
 
 from __future__ import annotations
@@ -89,22 +89,30 @@ def _fit(dx: np.ndarray, s: np.ndarray, e: np.ndarray, positions: np.ndarray,
          k: int) -> tuple[np.ndarray, np.ndarray]:
     """(τ̃, t ratio of the last lag) for every candidate with k lags, rows r = k … T−2 of Δy."""
     c = positions.shape[0]
-    rows = np.arange(k, dx.shape[0])
-    n = rows.shape[0]
-    columns = [np.ones((c, n)), s[:, rows]] + [e[:, rows - i] for i in range(1, k + 1)]
-    design = np.stack(columns, axis=2)  # (c, n, m)
-    m = design.shape[2]
-    weight = (rows[None, :] != positions[:, None]).astype(float)  # the impulse's row leaves the fit
-    y = dx[rows]
-    weighted = design * weight[:, :, None]
-    gram = np.einsum("cni,cnj->cij", weighted, design)
-    cross = np.einsum("cni,n->ci", weighted, y)
+    n = dx.shape[0] - k
+    m = 2 + k
+    design = np.empty((c, n, m))
+    design[:, :, 0] = 1.0
+    design[:, :, 1] = s[:, k:k + n]
+    for i in range(1, k + 1):
+        design[:, :, 1 + i] = e[:, k - i:k - i + n]
+    y = dx[k:]
+    gram = np.matmul(design.transpose(0, 2, 1), design)
+    cross = np.matmul(design.transpose(0, 2, 1), y)
+    yy = np.full(c, float(y @ y))
+    # The impulse's row r = TB leaves the fit: take its products out again.
+    inside = np.flatnonzero(positions >= k)
+    dropped = design[inside, positions[inside] - k, :]  # (candidates, m)
+    y_dropped = y[positions[inside] - k]
+    gram[inside] -= dropped[:, :, None] * dropped[:, None, :]
+    cross[inside] -= dropped * y_dropped[:, None]
+    yy[inside] -= y_dropped * y_dropped
     scale = np.sqrt(np.einsum("cii->ci", gram))
     scale = np.where(scale > 0, scale, 1.0)
     inverse = np.linalg.inv(gram / scale[:, :, None] / scale[:, None, :]) / scale[:, :, None] / scale[:, None, :]
     beta = np.einsum("cij,cj->ci", inverse, cross)
-    rss = np.einsum("cn,n->c", weight, y * y) - np.einsum("ci,ci->c", beta, cross)
-    df = weight.sum(axis=1) - m
+    rss = yy - np.einsum("ci,ci->c", beta, cross)
+    df = n - m - (positions >= k).astype(float)
     sigma2 = np.maximum(rss, 0.0) / df
     with np.errstate(invalid="ignore", divide="ignore"):
         tau = beta[:, 1] / np.sqrt(sigma2 * inverse[:, 1, 1])
