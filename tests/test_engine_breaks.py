@@ -9,7 +9,7 @@ import statsmodels.api as sm
 
 from tauscope.engine import Settings, analyse_series
 from tauscope.engine.distributions.break_null import break_critical_values, break_null_draws
-from tauscope.engine.procedure.breaks import SHIFT_T, break_outcome
+from tauscope.engine.procedure.breaks import SHIFT_T, break_outcome, break_t_ratios
 from tauscope.engine.reading.breaks import badge_cap, capped_agreement
 from tauscope.engine.results_breaks import (
     SHIFT_UNCLEAR,
@@ -66,6 +66,9 @@ def test_statistic_ignores_level_scale_and_the_shift_under_the_null() -> None:
     base = lm_break(x, lags=1)
     for moved in (lm_break(1e9 + x, lags=1), lm_break(1e-10 * x, lags=1)):
         assert abs(base.statistic - moved.statistic) < 1e-6
+    t_ratios = break_t_ratios(x, base.position, 1)
+    for other in (1e9 + x, 1e-10 * x):
+        assert np.allclose(break_t_ratios(other, base.position, 1), t_ratios, atol=1e-5)
     # A jump exactly at a candidate is absorbed there (the LM test's invariance, Lee & Strazicich 2013).
     jumped = x + 25.0 * (np.arange(120) > 60)
     assert abs(lm_profile(jumped, np.array([60]), 1, fixed=True)[0][0]

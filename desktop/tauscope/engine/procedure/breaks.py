@@ -104,11 +104,12 @@ def break_t_ratios(x: np.ndarray, position: int, lags: int) -> tuple[float, floa
     """t ratios of the slope b and the shift θ in
     Δy_t = c + b t + θ DU_t + d B_t + α y_{t−1} + Σ c_j Δy_{t−j} + e_t,
     DU_t = 1(t > TB), B_t = 1(t = TB + 1), TB = ``position`` (0-based)."""
+    x = (x - x.mean()) / np.std(x)  # t ratios depend on neither level nor scale
     dx = np.diff(x)
     rows = np.arange(lags, dx.shape[0])  # Δy index; its time is row + 1
     t = (rows + 1).astype(float)
     columns = [np.ones(rows.shape[0]), t / t[-1], (t > position).astype(float),
-               (t == position + 1).astype(float), x[rows] / np.std(x)]
+               (t == position + 1).astype(float), x[rows]]
     columns += [dx[rows - j] for j in range(1, lags + 1)]
     design = np.column_stack(columns)
     beta, *_ = np.linalg.lstsq(design, dx[rows], rcond=None)
