@@ -9,7 +9,7 @@ import statsmodels.api as sm
 
 from tauscope.engine import Settings, analyse_series
 from tauscope.engine.distributions.break_null import break_critical_values, break_null_draws
-from tauscope.engine.procedure.breaks import SHIFT_T, break_outcome, break_t_ratios
+from tauscope.engine.procedure.breaks import SHIFT_T, break_outcome, break_t_ratios, swings
 from tauscope.engine.reading.breaks import badge_cap, capped_agreement
 from tauscope.engine.results_breaks import (
     SHIFT_UNCLEAR,
@@ -23,6 +23,7 @@ from tauscope.engine.unitroot.lm_break import (
     lm_profile,
     lm_statistic_no_lags,
 )
+from tauscope.engine.unitroot.recursive import recursive_tau
 
 
 def _lm_by_hand(x: np.ndarray, position: int, lags: int) -> float:
@@ -237,3 +238,13 @@ def test_when_the_verdict_is_given_under_the_break() -> None:
         assert break_outcome(_test(True, True), order) == SHIFT_UNCLEAR
     assert break_outcome(_test(True, False), 1) == SHIFT_UNCLEAR
     assert break_outcome(_test(False, True), 1) == UNIT_ROOT_WITH_BREAK
+
+
+def test_swing_sign_on_a_shift_and_not_on_a_stationary_series() -> None:
+    """τ with a constant on an expanding window: deep below its critical value before a
+    late shift, then rising (Perron 1989); a stationary series without a shift only falls."""
+    rng = np.random.default_rng(22)
+    shifted = _level_shift(rng, 300, 6.0)
+    plain = _level_shift(rng, 300, 0.0)
+    assert swings(recursive_tau(shifted, "constant", 1), 300)
+    assert not swings(recursive_tau(plain, "constant", 1), 300)
