@@ -248,3 +248,21 @@ def test_swing_sign_on_a_shift_and_not_on_a_stationary_series() -> None:
     plain = _level_shift(rng, 300, 0.0)
     assert swings(recursive_tau(shifted, "constant", 1), 300)
     assert not swings(recursive_tau(plain, "constant", 1), 300)
+
+
+def test_lag_order_chosen_candidate_by_candidate() -> None:
+    """General-to-specific from k_max (Lee & Strazicich's choice): every candidate's τ̃ is the
+    fixed-lag statistic at its own chosen order, and the last lag kept is significant at 10%
+    (Ng & Perron 1995), so an AR(2) in the changes keeps at least one lag somewhere."""
+    rng = np.random.default_rng(23)
+    e = rng.standard_normal(260)
+    dx = np.zeros(260)
+    for t in range(2, 260):
+        dx[t] = 0.5 * dx[t - 1] + 0.3 * dx[t - 2] + e[t]
+    x = np.cumsum(dx[60:])
+    search = lm_break(x, max_lags=4)
+    positions, chosen = search.positions, search.lags_by_candidate
+    assert chosen.max() >= 1 and chosen.min() >= 0 and chosen.max() <= 4
+    for i in (0, len(positions) // 2, len(positions) - 1):
+        fixed, _ = lm_profile(x, positions[i:i + 1], int(chosen[i]), fixed=True)
+        assert abs(fixed[0] - search.statistics[i]) < 1e-10
