@@ -13,6 +13,8 @@ from typing import Any
 import numpy as np
 import pandas as pd
 
+from tauscope.engine.results_breaks import BreakCheck, BreakInfo
+
 
 def _num(value: float | None) -> float | None:
     if value is None:
@@ -210,6 +212,7 @@ class SeriesResult:
     values: pd.Series | None = field(default=None, compare=False, repr=False)
     fitted: np.ndarray | None = field(default=None, compare=False, repr=False)
     evidence: Evidence | None = field(default=None, compare=False, repr=False)
+    breaks: BreakCheck | None = field(default=None, compare=False, repr=False)
 
     @property
     def ok(self) -> bool:
@@ -240,6 +243,7 @@ class SeriesResult:
                 "points": [p.to_dict() for p in self.lag_profile],
             },
             "evidence": self.evidence.to_dict() if self.evidence is not None else None,
+            "breaks": self.breaks.to_dict() if self.breaks is not None else None,
         }
 
 
@@ -331,29 +335,6 @@ class DFGLS:
     max_lags: int
     nobs: int
     detrended: np.ndarray
-
-
-@dataclass(frozen=True)
-class BreakInfo:
-    """Where the Zivot-Andrews search put the break, in the series' own dates.
-
-    ``position`` is the last observation (0-based, in the levels) of the old
-    regime, ``first_new`` the first of the new one; labels come from the index.
-    """
-
-    model: str
-    description: str
-    position: int
-    first_new: int
-    last_old_label: str
-    first_new_label: str
-    statistic: float
-    critical_value: float
-    reject: bool
-    difference: int
-
-    def to_dict(self) -> dict[str, Any]:
-        return asdict(self)
 
 
 @dataclass(frozen=True)

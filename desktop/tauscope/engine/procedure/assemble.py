@@ -12,6 +12,7 @@ from typing import Any
 import numpy as np
 import pandas as pd
 
+from tauscope.engine.procedure.breaks import fitted_under_break
 from tauscope.engine.procedure.stages import Reading
 from tauscope.engine.results import SeriesResult, TestResult
 
@@ -45,8 +46,11 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         lag_profile_difference=deciding.difference,
         span=(prepared.label(0), prepared.label(x.shape[0] - 1)),
         values=pd.Series(x, index=index, name=name),
-        fitted=fitted_deterministic(x, decision.order, decision.deterministic),
+        fitted=fitted_under_break(x, checked.breaks)
+        if checked.breaks is not None and checked.breaks.stationary_with_break
+        else fitted_deterministic(x, decision.order, decision.deterministic),
         evidence=reading.evidence,
+        breaks=checked.breaks,
     )
 
 

@@ -9,7 +9,9 @@
   with one break (Zivot & Andrews 1992);
 * the power of the deciding ADF test against AR(1) coefficients 0.90 and 0.95 at this
   sample size, and τ on an expanding window;
-* τ of the deciding regression for every lag order (the lag profile).
+* τ of the deciding regression for every lag order (the lag profile);
+* the break check (:mod:`tauscope.engine.procedure.breaks`): when a break is suspected,
+  the minimum LM test with one level shift (Lee & Strazicich 2013).
 """
 
 from __future__ import annotations
@@ -32,6 +34,7 @@ from tauscope.engine.distributions.simulate import (
 )
 from tauscope.engine.distributions.tables import tau_critical_value
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.procedure.breaks import check_breaks
 from tauscope.engine.procedure.stages import (
     EXTRA_TESTS,
     CrossCheck,
@@ -85,7 +88,10 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     decisive_x = np.diff(x, n=difference) if difference else x
     profile = _with_alpha(estimation.lag_profile(decisive_x, spec, difference, max_lags),
                           decisive_x, spec, options.alpha)
-    return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile)
+    level_adf = estimates.levels[0].adf
+    breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, level_adf["trend"].lags,
+                          options.alpha)
+    return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks)
 
 
 def kpss_checks(x: np.ndarray, order: int | None, deterministic: str | None,

@@ -10,6 +10,7 @@ from collections.abc import Sequence
 
 from tauscope.engine.procedure.prepare import PreparedSeries
 from tauscope.engine.procedure.stages import CrossCheck, ExtraEvidence, Reading, ReadOptions
+from tauscope.engine.reading.breaks import agreement_under_break, verdict_under_break
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
 from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
 from tauscope.engine.reading.verdicts import agreement, agreement_note, build_verdict
@@ -27,8 +28,10 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
         kpss_status = "inconclusive"
     evidence = read_evidence(checked.extra, order, [t for t, _ in checks], kpss_status, options.alpha)
     status = evidence.agreement if evidence.tests else kpss_status
-    verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
-                            options.max_difference)
+    sequence_verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
+                                     options.max_difference)
+    breaks = checked.breaks  # a verdict given under a break replaces the one without (reading/breaks.py)
+    verdict = verdict_under_break(sequence_verdict, breaks, options.alpha)
     deciding = decision.deciding
     x = prepared.values
     ctx = NoteContext(
@@ -42,12 +45,14 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
         alpha=options.alpha,
         max_lags_reduced=estimates.reduced,
         trimmed=(prepared.leading_trimmed, prepared.trailing_trimmed),
-        agreement_text=agreement_note(order, kpss_status, checks, options.alpha) or checked.kpss_problem,
+        agreement_text=agreement_under_break(
+            sequence_verdict,
+            agreement_note(order, kpss_status, checks, options.alpha) or checked.kpss_problem, breaks),
         jump_at=_jump_label(prepared),
         seasonal_lag=seasonal_pattern(x, prepared.periods_per_year),
         level_sequence_tests=3,
-        evidence_notes=evidence.notes,
-        break_checked=evidence.break_info is not None,
+        evidence_notes=evidence.notes + ((breaks.sentence,) if breaks is not None and breaks.sentence else ()),
+        break_checked=evidence.break_info is not None or (breaks is not None and breaks.test is not None),
     )
     return Reading(checked, verdict, evidence, build_notes(ctx))
 
