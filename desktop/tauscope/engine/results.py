@@ -2,25 +2,19 @@
 read these, so a number shown anywhere is the same number (DESIGN.md §2).
 
 This module imports none of the tests, the regressions or the simulation: every
-module of the engine may import it, and it imports nothing of the engine."""
+module of the engine may import it, and it imports nothing of the engine but the two
+plain-data leaves `finite` and `results_breaks`."""
 
 from __future__ import annotations
 
-import math
 from dataclasses import asdict, dataclass, field
 from typing import Any
 
 import numpy as np
 import pandas as pd
 
+from tauscope.engine.finite import finite_or_none as _num
 from tauscope.engine.results_breaks import BreakCheck, BreakInfo
-
-
-def _num(value: float | None) -> float | None:
-    if value is None:
-        return None
-    value = float(value)
-    return value if math.isfinite(value) else None
 
 
 @dataclass(frozen=True)

@@ -1,14 +1,16 @@
 """Plain data for breaks: where the Zivot-Andrews search put its break, why a break was
 suspected, the break test's outcome and its reading.  Frozen dataclasses with ``to_dict()``,
-like :mod:`tauscope.engine.results`; this module imports nothing of the engine, so
+like :mod:`tauscope.engine.results`; this module imports nothing of the engine but the
+plain-number rule of :mod:`tauscope.engine.finite`, so
 :mod:`tauscope.engine.results` can carry its types.
 """
 
 from __future__ import annotations
 
-import math
 from dataclasses import asdict, dataclass
 from typing import Any
+
+from tauscope.engine.finite import finite_or_none as _num
 
 # Why a break was suspected (``BreakCheck.reasons``), in plain words for the reading.
 REASONS = {
@@ -24,13 +26,6 @@ SHIFT_UNCLEAR = "no unit root, shift unclear"  # it rejects, but the verdict sta
 UNIT_ROOT_WITH_BREAK = "unit root even with a break"  # it does not reject
 NOT_RUN = "not run"  # suspected, but switched off or too short
 FAILED = "failed"  # suspected, but the test could not be computed
-
-
-def _num(value: float | None) -> float | None:
-    if value is None:
-        return None
-    value = float(value)
-    return value if math.isfinite(value) else None
 
 
 @dataclass(frozen=True)
