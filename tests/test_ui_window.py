@@ -38,10 +38,14 @@ def row_texts(model, parent):  # type: ignore[no-untyped-def]
 
 
 def check_findings_match_engine(window, settings: Settings) -> int:  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import Qt
+
+    from tauscope.engine.reading.words import cross_check_word
     from tauscope.ui import findings_model as fm
     from tauscope.ui.texts import decision_text, statistic_text
 
     model = window.findings_panel.model
+    assert model.headerData(fm.VERDICT, Qt.Orientation.Horizontal) == "Verdict · null tested"
     model.populate_all()  # children are built when first shown
     checked = 0
     for series in window.series_panel.model.all_series():
@@ -58,6 +62,8 @@ def check_findings_match_engine(window, settings: Settings) -> int:  # type: ign
             checked += 1
             continue
         assert top[fm.VERDICT] == expected.verdict.label
+        # the one vocabulary (tauscope.engine.reading.words), not the contract's own value
+        assert top[fm.CHECK] == cross_check_word(expected.verdict.agreement)
         if expected.error is not None:
             assert children[0][fm.NAME] == expected.error
             checked += 1

@@ -21,6 +21,7 @@ from typing import NoReturn, TextIO
 
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
 from tauscope.engine import LAG_RULES, SeriesResult, Settings, analyse_many
+from tauscope.engine.reading.words import cross_check_word
 from tauscope.engine.results import failed_result
 from tauscope.report import WRITERS, ExportError, Finding, RunRecord, SourceFile, export
 from tauscope.ui import pdf_report  # noqa: F401  (registers ".pdf"; Qt loads only when used)
@@ -234,7 +235,7 @@ def summary_table(findings: Sequence[Finding]) -> str:
         r = f.result
         span = f"{r.span[0]} to {r.span[1]}" if r.span else "—"
         verdict = r.verdict.label if r.ok else "Not tested"
-        kpss = r.verdict.agreement or "—"
+        kpss = cross_check_word(r.verdict.agreement) if r.ok else "—"
         last = tau_steps(r) if r.ok else (r.error or "")
         rows.append((r.name, str(r.nobs), span, verdict, kpss, last))
     widths = [max(len(row[i]) for row in (header, *rows)) for i in range(len(header) - 1)]
