@@ -5,15 +5,12 @@ returns and never computes statistics."""
 
 from __future__ import annotations
 
-from collections.abc import Callable
-from pathlib import Path
 from typing import Any
 
 from PySide6.QtCore import QSize, Qt
 from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence
 from PySide6.QtWidgets import (
     QApplication,
-    QMessageBox,
     QStyle,
     QToolBar,
 )
@@ -30,16 +27,14 @@ from tauscope.ui.controllers.runs import RunsController
 from tauscope.ui.controllers.session import Session
 from tauscope.ui.controllers.studies import StudiesController
 from tauscope.ui.guide_window import GuideWindow
-from tauscope.ui.loader import WorkbookLoader
-from tauscope.ui.problem_dialog import ProblemDialog
 from tauscope.ui.settings_dialog import SettingsDialog
+from tauscope.ui.window_api import WindowApi
 from tauscope.ui.window_frame import WindowFrame, settings_summary
-from tauscope.ui.worker import AnalysisRunner
 
 UNTITLED_STUDY = "Untitled study"
 
 
-class MainWindow(WindowFrame):
+class MainWindow(WindowFrame, WindowApi):
     def __init__(self) -> None:
         settings = store.load_settings()
         super().__init__(settings)
@@ -88,59 +83,6 @@ class MainWindow(WindowFrame):
         self.copy = self.export.copy
         self.tell = self.prompts.tell
         self._dropped_paths = dropped_paths
-
-    # state the controllers hold, read (and the questions replaced) through the window
-    @property
-    def settings(self) -> Settings:
-        return self.session.settings
-
-    @property
-    def study_path(self) -> Path | None:
-        return self.session.study_path
-
-    @property
-    def runner(self) -> AnalysisRunner:
-        return self.runs.runner
-
-    @property
-    def last_run(self) -> tuple[bool, int] | None:
-        return self.runs.last_run
-
-    @property
-    def loader(self) -> WorkbookLoader:
-        return self.files.loader
-
-    @property
-    def message_box(self) -> QMessageBox | None:
-        return self.prompts.message_box
-
-    @property
-    def problem_dialog(self) -> ProblemDialog | None:
-        return self.prompts.problem_dialog
-
-    @property
-    def ask_save_path(self) -> Callable[[str, str, str], str]:
-        return self.prompts.ask_save_path
-
-    @ask_save_path.setter
-    def ask_save_path(self, ask: Callable[[str, str, str], str]) -> None:
-        self.prompts.ask_save_path = ask
-
-    @property
-    def ask_open_path(self) -> Callable[[str, str, str], str]:
-        return self.prompts.ask_open_path
-
-    @ask_open_path.setter
-    def ask_open_path(self, ask: Callable[[str, str, str], str]) -> None:
-        self.prompts.ask_open_path = ask
-
-    @property
-    def ask_yes_no(self) -> Callable[[str, str], bool]:
-        return self.prompts.ask_yes_no
-
-    @ask_yes_no.setter
-    def ask_yes_no(self, ask: Callable[[str, str], bool]) -> None:
-        self.prompts.ask_yes_no = ask
 
     # actions ------------------------------------------------------------
     def _action(self, text: str, slot: Any, shortcut: Any = None, tip: str = "",
