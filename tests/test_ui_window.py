@@ -247,3 +247,33 @@ def test_a_second_run_replaces_rows_instead_of_adding(main_window, open_in_windo
     model = main_window.findings_panel.model
     assert model.rowCount() == 2
     assert all(r.settings["alpha"] == 0.10 for r in model.results().values())
+
+
+def test_select_all_is_the_platform_key_on_the_series_and_find_keeps_its_own(
+        main_window, open_in_window, workbook_path, qtbot):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import Qt
+    from PySide6.QtGui import QKeySequence
+
+    window = main_window
+    assert QKeySequence(QKeySequence.StandardKey.SelectAll) in window.select_all_action.shortcuts()
+    assert QKeySequence(QKeySequence.StandardKey.Find) in window.find_action.shortcuts()
+    open_in_window(window, workbook_path)
+    view = window.series_panel.view
+    view.clearSelection()
+    window.activateWindow()
+    view.setFocus()
+    qtbot.waitUntil(view.hasFocus)
+    qtbot.keyClick(view, Qt.Key.Key_A, Qt.KeyboardModifier.ControlModifier)
+    total = len(read_workbook(workbook_path).series())
+    qtbot.waitUntil(lambda: len(window.series_panel.selected_series()) == total
+                    and bool(view.selectionModel().selectedRows()))
+    # in the filter box the same key selects its text, not the series
+    view.clearSelection()
+    box = window.series_panel.filter_box
+    box.setText("output")
+    box.setFocus()
+    qtbot.waitUntil(box.hasFocus)
+    box.deselect()
+    qtbot.keyClick(box, Qt.Key.Key_A, Qt.KeyboardModifier.ControlModifier)
+    assert box.selectedText() == "output"
+    assert not view.selectionModel().selectedRows()

@@ -10,8 +10,11 @@ from typing import Any
 from PySide6.QtCore import QSize, Qt
 from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence
 from PySide6.QtWidgets import (
+    QAbstractItemView,
     QApplication,
+    QLineEdit,
     QStyle,
+    QTextEdit,
     QToolBar,
 )
 
@@ -133,8 +136,10 @@ class MainWindow(WindowFrame, WindowApi):
         self.copy_action = self._action("&Copy", self.export.copy, QKeySequence.StandardKey.Copy,
                                         "Copy the selected findings as a table")
         self.copy_action.setShortcutContext(Qt.ShortcutContext.WindowShortcut)
-        self.select_all_action = self._action("Select &all series", self.select_all_series,
-                                              "Ctrl+Shift+A", "Select every series of every workbook")
+        self.select_all_action = self._action("Select &all", self.select_all,
+                                              QKeySequence.StandardKey.SelectAll,
+                                              "Select every series of every workbook (every "
+                                              "finding when the Findings have the focus)")
         self.find_action = self._action("&Filter series", self.focus_filter,
                                         QKeySequence.StandardKey.Find,
                                         "Type part of a name to show only matching series")
@@ -264,6 +269,16 @@ class MainWindow(WindowFrame, WindowApi):
 
     def select_series(self, key: str) -> bool:
         return self.series_panel.select_key(key)
+
+    def select_all(self) -> None:
+        """Edit → Select all: the text or rows of the focused box or list when it has its own
+        (filter, reading, findings), else every series."""
+        focus = QApplication.focusWidget()
+        if focus is not None and focus is not self.series_panel.view \
+                and isinstance(focus, QLineEdit | QTextEdit | QAbstractItemView):
+            focus.selectAll()
+            return
+        self.select_all_series()
 
     def select_all_series(self) -> None:
         self.series_panel.select_all_series()
