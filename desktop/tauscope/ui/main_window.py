@@ -332,7 +332,20 @@ class MainWindow(WindowFrame, WindowApi):
                   "Press F1 for the guide.", title="About Tauscope")
 
     # closing ------------------------------------------------------------
+    def may_close(self) -> bool:
+        """With unsaved changes, ask: save them (and close if saved), discard them, or stay."""
+        if not self.session.modified or self.session.closing:
+            return True
+        path = self.session.study_path
+        answer = self.prompts.ask_save_changes(path.name if path is not None else UNTITLED_STUDY)
+        if answer == "save":
+            return self.studies.save_study()
+        return answer == "discard"
+
     def closeEvent(self, event: QCloseEvent) -> None:
+        if not self.may_close():
+            event.ignore()
+            return
         self.session.closing = True
         self.runs.stop_and_wait(30_000)
         self.files.loader.wait(10_000)

@@ -87,6 +87,7 @@ def _snapshot(source: Path, out: Path, settings_dir: str, timeout: float,
     app = prepare_application([])
     apply_appearance(app, "light")
     window = MainWindow()
+    window.prompts.ask_save_changes = lambda _name: "discard"  # a picture, not a study
     window.resize(*size)
     window.show()
     window.add_workbook(workbook)

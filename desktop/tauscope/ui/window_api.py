@@ -78,3 +78,11 @@ class WindowApi:
     @ask_yes_no.setter
     def ask_yes_no(self, ask: Callable[[str, str], bool]) -> None:
         self.prompts.ask_yes_no = ask
+
+    @property
+    def ask_save_changes(self) -> Callable[[str], str]:
+        return self.prompts.ask_save_changes
+
+    @ask_save_changes.setter
+    def ask_save_changes(self, ask: Callable[[str], str]) -> None:
+        self.prompts.ask_save_changes = ask
