@@ -277,3 +277,34 @@ def test_select_all_is_the_platform_key_on_the_series_and_find_keeps_its_own(
     qtbot.keyClick(box, Qt.Key.Key_A, Qt.KeyboardModifier.ControlModifier)
     assert box.selectedText() == "output"
     assert not view.selectionModel().selectedRows()
+
+
+def test_undo_restores_a_removed_transformed_series_with_its_finding(
+        main_window, open_in_window, run_in_window, workbook_path, qtbot):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import Qt
+    from PySide6.QtGui import QKeySequence
+
+    window = main_window
+    open_in_window(window, workbook_path)
+    model = window.series_panel.model
+    first = model.all_series()[0]
+    window.add_transform(first.key, "logdiff")
+    copy = next(s for s in model.all_series() if s.parent)
+    run_in_window(window, [copy])
+    shown = window.findings_panel.model.result_for_key(copy.key)
+    assert shown is not None
+    window.remove_transform(copy.key)
+    assert model.series_for_key(copy.key) is None
+    assert window.findings_panel.model.result_for_key(copy.key) is None
+    assert window.undo_action.isEnabled() and "Remove" in window.undo_action.text()
+    assert QKeySequence(QKeySequence.StandardKey.Undo) in window.undo_action.shortcuts()
+    window.activateWindow()
+    window.series_panel.view.setFocus()
+    qtbot.waitUntil(window.series_panel.view.hasFocus)
+    qtbot.keyClick(window.series_panel.view, Qt.Key.Key_Z, Qt.KeyboardModifier.ControlModifier)
+    qtbot.waitUntil(lambda: model.series_for_key(copy.key) is copy)
+    assert window.findings_panel.model.result_for_key(copy.key) is shown
+    assert [s.key for s in model.all_series()].index(copy.key) == 1  # under its parent
+    assert window.current_key() == copy.key
+    window.redo_action.trigger()
+    assert model.series_for_key(copy.key) is None

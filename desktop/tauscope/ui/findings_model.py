@@ -188,6 +188,14 @@ class FindingsModel(QStandardItemModel):
             self.setData(self.index(row, VERDICT), label, Qt.ItemDataRole.DisplayRole)
         return stale
 
+    def remove_result(self, key: str) -> SeriesResult | None:
+        """Take a series' finding out (its series left the window); returns it."""
+        row = self.row_for_key(key)
+        if row is not None:
+            self.removeRow(row)
+        self._rows.pop(key, None)
+        return self._results.pop(key, None)
+
     def row_for_key(self, key: str) -> int | None:
         index = self._rows.get(key)
         return index.row() if index is not None and index.isValid() else None

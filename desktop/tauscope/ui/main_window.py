@@ -72,6 +72,8 @@ class MainWindow(WindowFrame, WindowApi):
         self.close_all = self.files.close_all
         self.add_transform = self.files.add_transform
         self.mend_gaps = self.files.mend_gaps
+        self.remove_transform = self.files.remove_transform
+        self.undo_stack = self.files.undo_stack
         self.run_selected = self.runs.run_selected
         self.run_all = self.runs.run_all
         self.run_series = self.runs.run_series
@@ -133,6 +135,13 @@ class MainWindow(WindowFrame, WindowApi):
                                         "Close Tauscope")
         if not self.quit_action.shortcuts():
             self.quit_action.setShortcut(QKeySequence("Ctrl+Q"))
+        stack = self.files.undo_stack
+        self.undo_action = stack.createUndoAction(self, "&Undo")
+        self.redo_action = stack.createRedoAction(self, "&Redo")
+        for action, standard in ((self.undo_action, QKeySequence.StandardKey.Undo),
+                                 (self.redo_action, QKeySequence.StandardKey.Redo)):
+            action.setShortcuts(QKeySequence.keyBindings(standard))
+            self.addAction(action)
         self.copy_action = self._action("&Copy", self.export.copy, QKeySequence.StandardKey.Copy,
                                         "Copy the selected findings as a table")
         self.copy_action.setShortcutContext(Qt.ShortcutContext.WindowShortcut)
@@ -191,6 +200,9 @@ class MainWindow(WindowFrame, WindowApi):
         file_menu.addSeparator()
         file_menu.addAction(self.quit_action)
         edit_menu = bar.addMenu("&Edit")
+        edit_menu.addAction(self.undo_action)
+        edit_menu.addAction(self.redo_action)
+        edit_menu.addSeparator()
         edit_menu.addAction(self.copy_action)
         edit_menu.addAction(self.select_all_action)
         edit_menu.addAction(self.find_action)
@@ -230,6 +242,7 @@ class MainWindow(WindowFrame, WindowApi):
         self.series_panel.current_changed.connect(self.current.follow_series_panel)
         self.series_panel.transform_requested.connect(self.files.add_transform)
         self.series_panel.gaps_requested.connect(self.files.mend_gaps)
+        self.series_panel.remove_requested.connect(self.files.remove_transform)
         self.series_panel.run_requested.connect(self.runs.run_selected)
         self.findings_panel.current_changed.connect(self.current.follow_findings_panel)
         self.findings_panel.guide_requested.connect(self.open_guide)

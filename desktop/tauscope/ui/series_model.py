@@ -159,17 +159,47 @@ class SeriesTreeModel(QStandardItemModel):
     def spark(self, key: str) -> np.ndarray | None:
         return self._sparks.get(key)
 
-    def add_transformed(self, parent_key: str, series: SeriesData) -> QStandardItem | None:
-        """Add a transformed copy under the series it came from (replacing an equal one)."""
+    def add_transformed(self, parent_key: str, series: SeriesData,
+                        position: int | None = None) -> QStandardItem | None:
+        """Add a transformed copy under the series it came from (replacing an equal one), last
+        or at row ``position`` among its siblings."""
         parent = self.item_for_key(parent_key)
         if parent is None:
             return None
         existing = self.item_for_key(series.key)
         if existing is not None and existing.parent() is not None:
-            existing.parent().removeRow(existing.row())
+            self.remove_transformed(series.key)
         row = self._series_row(series)
-        parent.appendRow(row)
+        if position is None or not 0 <= position <= parent.rowCount():
+            parent.appendRow(row)
+        else:
+            parent.insertRow(position, row)
         return row[0]
+
+    def remove_transformed(self, key: str) -> list[tuple[str, int, SeriesData]]:
+        """Take a transformed copy (and the copies made from it) out of the tree; returns each
+        removed series with its parent's key and its row there, parents first, so that adding
+        them back in that order restores the tree."""
+        item = self.item_for_key(key)
+        parent = item.parent() if item is not None else None
+        if item is None or parent is None or parent.data(KIND_ROLE) != "series":
+            return []
+        removed: list[tuple[str, int, SeriesData]] = []
+
+        def collect(node: QStandardItem, parent_key: str) -> None:
+            node_key = str(node.data(KEY_ROLE))
+            removed.append((parent_key, node.row(), self._series[node_key]))
+            for r in range(node.rowCount()):
+                child = node.child(r, 0)
+                if child is not None and child.data(KIND_ROLE) == "series":
+                    collect(child, node_key)
+
+        collect(item, str(parent.data(KEY_ROLE)))
+        for _parent_key, _row, series in removed:
+            self._series.pop(series.key, None)
+            self._sparks.pop(series.key, None)
+        parent.removeRow(item.row())
+        return removed
 
     def replace_series(self, series: SeriesData) -> bool:
         """Show new data for a series already in the tree (same key), e.g. after its gaps

@@ -38,6 +38,7 @@ class SeriesPanel(QWidget):
     current_changed = Signal(str)  # key of the current series ("" when none)
     transform_requested = Signal(str, str)  # series key, transform key
     gaps_requested = Signal(str, str)  # series key, "cut" or "fill"
+    remove_requested = Signal(str)  # key of a transformed copy to take out
     run_requested = Signal()
 
     def __init__(self, parent: QWidget | None = None) -> None:
@@ -144,6 +145,10 @@ class SeriesPanel(QWidget):
             transforms = self._transform_menu(menu, key)
             menu.addMenu(transforms)
             series = self.model.series_for_key(key)
+            if series is not None and series.parent:
+                remove = QAction("Remove this transformed copy", menu)
+                remove.triggered.connect(lambda: self.remove_requested.emit(key))
+                menu.addAction(remove)
             if series is not None and series.gaps:
                 cut = QAction("Keep the longest stretch without gaps", menu)
                 cut.triggered.connect(lambda: self.gaps_requested.emit(key, "cut"))
