@@ -25,7 +25,8 @@ COLUMN_TIPS = (
     "Stretches of missing values inside the series. A series with gaps must be cut to its "
     "longest stretch or filled before it can be tested.",
     "First and last date (or observation number when the dates could not be read).",
-    "How often the series is observed, as read from its dates.",
+    "How often the series is observed, as read from its dates (shown when the panel is wide "
+    "enough; always in the series' tooltip).",
 )
 NAME, SHAPE, OBS, GAPS, SPAN, FREQUENCY = range(6)
 
@@ -57,7 +58,8 @@ def series_tooltip(series: SeriesData) -> str:
     lines.append(f"From {src.file}, sheet {src.sheet}, column {src.column}")
     if series.parent:
         lines.append(f"Derived from {series.parent}")
-    lines.append(f"{series.nobs} observations, {series.span[0]} to {series.span[1]}")
+    lines.append(f"{series.nobs} {series.frequency or 'irregular'} observations, "
+                 f"{series.span[0]} to {series.span[1]}")
     if series.gaps:
         lines.append("Gaps: " + "; ".join(f"{g.start} to {g.end} ({g.count})" for g in series.gaps))
     lines.extend(series.notes)
@@ -78,7 +80,7 @@ def series_row(series: SeriesData) -> list[QStandardItem]:
     obs.setData(series.nobs, SORT_ROLE)
     obs.setTextAlignment(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
     freq = _item(series.frequency or "irregular", tip)
-    span = _item(f"{series.span[0]} – {series.span[1]}", tip)
+    span = _item(f"{series.span[0]}–{series.span[1]}", tip)
     gaps = _item(gaps_text(series), tip)
     row = [name, shape, obs, gaps, span, freq]
     for cell in row[1:]:
