@@ -260,11 +260,14 @@ def _clipped(view, index):  # type: ignore[no-untyped-def]
     return "" if needed <= rect.width() and inside else text
 
 
-@pytest.mark.parametrize("size", [(1280, 800), (1920, 1080)])
+@pytest.mark.parametrize(("size", "checks"), [((1280, 800), ("kpss",)), ((1920, 1080), ("kpss",)),
+                                              ((1280, 800), ("kpss", "pp", "dfgls", "za"))])
 def test_every_label_fits_at_the_usual_window_sizes(main_window, open_in_window, run_in_window,
-                                                    size, qtbot):  # type: ignore[no-untyped-def]
+                                                    size, checks, qtbot):  # type: ignore[no-untyped-def]
     """Names, spans and verdicts in the Series panel, and verdicts, null hypotheses and numbers
-    in the Findings, are whole at 1280×800 and 1920×1080 (the default layout)."""
+    in the Findings (every cross-check turned on, too), are whole at 1280×800 and 1920×1080
+    (the default layout)."""
+    from tauscope.engine import Settings
     from tauscope.resources_path import demo_workbook
 
     demo = demo_workbook()
@@ -273,6 +276,7 @@ def test_every_label_fits_at_the_usual_window_sizes(main_window, open_in_window,
     window = main_window
     window.resize(*size)
     window._default_sizes()
+    window.apply_settings(Settings(confirm=checks))
     open_in_window(window, demo)
     run_in_window(window, window.series_panel.model.all_series())
     findings = window.findings_panel

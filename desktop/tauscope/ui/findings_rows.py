@@ -216,7 +216,8 @@ def unit_root_test_row(key: str, test: TestResult, result: SeriesResult) -> list
                         "decisions"),
         LAGS: _right(_cell(lag_text(test.lags, test.lag_rule),
                            "Bandwidth of the long-run variance (Phillips-Perron) or number of "
-                           "lagged differences.", guide)),
+                           f"lagged differences; chosen by: {test.lag_rule or 'the settings'}.",
+                           guide)),
         NOBS: _right(_cell(str(test.nobs), COLUMN_TIPS[NOBS], guide)),
     }
     return _row(test.test, key, cells)

@@ -32,7 +32,7 @@ SAMPLES = {  # the widest texts these columns show
     PVALUE: ("below 0.001", "above 0.999"),
     DECISION: ("not rejected",),
     CHECK: tuple(CROSS_CHECK_WORDS.values()),
-    LAGS: ("12 (MAIC)",),
+    LAGS: ("12 (MAIC)", "12 (fixed)", "12 (auto)"),
     NOBS: ("10000",),
 }
 

@@ -60,8 +60,15 @@ def statistic_text(statistic_name: str, value: float | None) -> str:
 
 
 def lag_text(lags: int, rule: str) -> str:
-    rule_text = LAG_RULE_SHORT.get(rule, rule.upper()) if rule else ""
-    return f"{lags} ({rule_text})" if rule_text else str(lags)
+    """The lag order (or bandwidth) and, in a word, the rule that chose it, e.g. "4 (AIC)",
+    "6 (auto)" for an automatic bandwidth; the cell's tooltip names the rule in full."""
+    if not rule:
+        return str(lags)
+    short = LAG_RULE_SHORT.get(rule) or LAG_RULE_SHORT.get(rule.lower())
+    if short is None:
+        words = rule.lower()
+        short = "auto" if "automatic" in words else "fixed" if "fixed" in words else ""
+    return f"{lags} ({short})" if short else str(lags)
 
 
 def where_text(difference: int, spec: str) -> str:
