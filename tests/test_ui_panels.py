@@ -283,6 +283,8 @@ def test_every_label_fits_at_the_usual_window_sizes(main_window, open_in_window,
     findings.view.expand(findings.proxy.index(0, 0))
     qtbot.waitUntil(lambda: findings.proxy.rowCount(findings.proxy.index(0, 0)) > 3)
     series_view = window.series_panel.view
+    qtbot.waitUntil(lambda: not (window.series_panel.columns.pending()
+                                 or findings.columns.pending()))  # the columns fitted to the end
     qtbot.waitUntil(lambda: series_view.horizontalScrollBar().maximum() == 0)
     qtbot.waitUntil(lambda: findings.view.horizontalScrollBar().maximum() == 0)
     clipped = []

@@ -40,6 +40,10 @@ class ColumnFitter(QObject):
         if not self.by_hand:
             self._timer.start()
 
+    def pending(self) -> bool:
+        """A fit is due once the events in hand are handled."""
+        return self._timer.isActive()
+
     def fit(self) -> None:
         if self.by_hand:
             return
