@@ -45,9 +45,17 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         lag_profile_difference=deciding.difference,
         span=(prepared.label(0), prepared.label(x.shape[0] - 1)),
         values=pd.Series(x, index=index, name=name),
-        fitted=fitted_deterministic(x, decision.order, decision.deterministic),
+        fitted=_fitted_in_units(prepared.standardised, prepared.scale, decision.order,
+                                decision.deterministic),
         evidence=reading.evidence,
     )
+
+
+def _fitted_in_units(z: np.ndarray, scale: float, order: int | None,
+                     deterministic: str | None) -> np.ndarray | None:
+    """The fitted path computed on y / s (no overflow near ±1e308) and multiplied back."""
+    fitted = fitted_deterministic(z, order, deterministic)
+    return None if fitted is None else fitted * scale
 
 
 def fitted_deterministic(x: np.ndarray, order: int | None, deterministic: str | None) -> np.ndarray | None:

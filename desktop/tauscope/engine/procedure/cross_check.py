@@ -15,6 +15,7 @@
 from __future__ import annotations
 
 from collections.abc import Sequence
+from dataclasses import replace
 
 import numpy as np
 import pandas as pd
@@ -64,7 +65,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     """KPSS, the extra evidence and the lag profile for a decided series."""
     estimates = decision.estimates
     prepared = estimates.prepared
-    x = prepared.values
+    x = prepared.standardised  # y / s (exact); the statistics do not depend on s
     order, deterministic = decision.order, decision.deterministic
     checks: list[tuple[TestResult, bool]] = []
     kpss_problem: str | None = None
@@ -81,11 +82,27 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
         za_lags=estimates.levels[settled].adf["trend"].lags, break_model=options.break_model,
         critical_values=options.critical_values, power=options.power,
     )
+    extra = _in_units(extra, prepared.scale)
     spec, difference, max_lags = decision.profile_request
     decisive_x = np.diff(x, n=difference) if difference else x
     profile = _with_alpha(estimation.lag_profile(decisive_x, spec, difference, max_lags),
                           decisive_x, spec, options.alpha)
     return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile)
+
+
+def _in_units(extra: ExtraEvidence, scale: float) -> ExtraEvidence:
+    """The few numbers of the extra evidence that carry the series' unit, put back:
+    the Phillips-Perron variances (× s²) and the GLS-detrended series (× s)."""
+    if scale == 1.0:
+        return extra
+    pp, gls = extra.phillips_perron, extra.dfgls
+    return replace(
+        extra,
+        phillips_perron=None if pp is None else replace(
+            pp, short_run_variance=pp.short_run_variance * scale * scale,
+            long_run_variance=pp.long_run_variance * scale * scale),
+        dfgls=None if gls is None else replace(gls, detrended=gls.detrended * scale),
+    )
 
 
 def kpss_checks(x: np.ndarray, order: int | None, deterministic: str | None,
