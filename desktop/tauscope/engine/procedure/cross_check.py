@@ -96,12 +96,14 @@ def _in_units(extra: ExtraEvidence, scale: float) -> ExtraEvidence:
     if scale == 1.0:
         return extra
     pp, gls = extra.phillips_perron, extra.dfgls
+    with np.errstate(over="ignore"):  # a detrended value beyond the float range reads as inf
+        detrended = None if gls is None else gls.detrended * scale
     return replace(
         extra,
         phillips_perron=None if pp is None else replace(
             pp, short_run_variance=pp.short_run_variance * scale * scale,
             long_run_variance=pp.long_run_variance * scale * scale),
-        dfgls=None if gls is None else replace(gls, detrended=gls.detrended * scale),
+        dfgls=None if gls is None or detrended is None else replace(gls, detrended=detrended),
     )
 
 

@@ -21,6 +21,7 @@ from dataclasses import replace
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS
 from tauscope.engine.results import Coefficient, LevelTests, Regression, TestResult
 
+
 def regression_in_units(regression: Regression, scale: float) -> Regression:
     """The same regression as if fitted to y itself (see the module docstring)."""
     if scale == 1.0:

@@ -80,8 +80,9 @@ def fit(y: np.ndarray, x: np.ndarray) -> OLSFit:
         )
     if np.linalg.matrix_rank(x) < k:
         raise UntestableSeries(
-            "the regression terms are linearly dependent (for example a series that is "
-            "constant or a straight line over the sample), so the test cannot be computed"
+            "the regression terms are linearly dependent: over much of the sample the series "
+            "does not move at random (it stays constant, changes in only a few observations or "
+            "repeats an exact pattern), so the test cannot be computed"
         )
     result = OLS(y, x).fit()
     ssr = float(result.ssr)

@@ -48,6 +48,7 @@ from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.regression.design import adf_design
 from tauscope.engine.regression.lagchoice import choose_lag, detrend
 from tauscope.engine.regression.ols import fit
+from tauscope.engine.regression.scaling import centred
 from tauscope.engine.results import DFGLS, TestResult
 
 C_BAR = {"constant": -7.0, "trend": -13.5}
@@ -134,7 +135,7 @@ def dfgls(x: np.ndarray, spec: str, lag_rule: str = "maic", max_lags: int = 0,
           lags: int | None = None) -> DFGLS:
     """The DF-GLS statistic; ``lags`` fixes the lag order, else ``lag_rule`` chooses it
     up to ``max_lags`` on the OLS-detrended series (Perron & Qu 2007)."""
-    x = np.asarray(x, dtype=float)
+    x = centred(np.asarray(x, dtype=float), "constant")  # GLS detrending removes any level
     if lags is None:
         lag, rule, top = choose_dfgls_lag(x, spec, lag_rule, max_lags), lag_rule, max_lags
     else:
