@@ -27,7 +27,7 @@ import pytest
 from arch.unitroot.unitroot import mackinnoncrit as arch_mackinnoncrit
 from statsmodels.tsa.adfvalues import mackinnoncrit
 
-from tauscope.engine.distributions import simulate
+from tauscope.engine.distributions import batched, simulate
 from tauscope.engine.distributions.simulate import (
     exact_critical_values,
     exact_p_value,
@@ -123,7 +123,7 @@ def test_null_distribution_is_cached_read_only_and_reproducible(monkeypatch: pyt
         first[0] = 0.0
     simulate._simulate.cache_clear()
     simulate.null_distribution.cache_clear()
-    monkeypatch.setattr(simulate, "_CHUNK_VALUES", 1_000)  # many small chunks, same stream
+    monkeypatch.setattr(batched, "_CHUNK_VALUES", 1_000)  # many small chunks, same stream
     again = null_distribution("constant", 80, reps=500, seed=11)
     # Same random numbers; only the summation order of the batched products differs.
     np.testing.assert_allclose(again, first, rtol=1e-12, atol=1e-12)
