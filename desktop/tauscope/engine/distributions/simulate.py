@@ -45,12 +45,14 @@ from tauscope.engine.distributions.batched import regression_parts as regression
 from tauscope.engine.distributions.batched import shock_chunks as shock_chunks
 from tauscope.engine.distributions.batched import solve_moments as solve_moments
 from tauscope.engine.distributions.batched import tau_statistics as tau_statistics
+from tauscope.engine.distributions.exact import EXACT_REPS as EXACT_REPS
+from tauscope.engine.distributions.exact import streamed_quantiles
 from tauscope.engine.regression.design import SPECS
 from tauscope.engine.results import TestResult
 
 DEFAULT_SEED = 19790601
 DEFAULT_REPS = 2_000
-EXACT_REPS = 10_000
+P_VALUE_REPS = 100_000  # draws kept for exact p-values and the chart (p near 0.05: ±0.0007)
 LEVELS = {"1%": 0.01, "5%": 0.05, "10%": 0.10}
 PHI_SPEC = {"phi1": "constant", "phi2": "trend", "phi3": "trend"}
 
@@ -135,55 +137,66 @@ def reportable_bound(p_value: float, bound: str | None) -> str | None:
     return None if bound == "below" and p_value <= 0.001 else bound
 
 
+def _p_reps(reps: int) -> int:
+    return min(int(reps), P_VALUE_REPS)
+
+
 def exact_critical_values(spec: str, nobs: int, lags: int = 0, reps: int = EXACT_REPS,
                           seed: int = DEFAULT_SEED) -> dict[str, float]:
-    """Finite-sample τ critical values at the user's exact regression sample size."""
-    return lower_critical_values(null_distribution(spec, nobs, reps, seed, lags))
+    """Finite-sample τ critical values at the user's exact regression size, from ``reps``
+    streamed replications (:mod:`tauscope.engine.distributions.exact`)."""
+    _check(spec, nobs, reps, lags)
+    return dict(streamed_quantiles(int(nobs), int(lags), int(reps), int(seed))[f"tau_{spec}"].values)
 
 
 def exact_p_value(statistic: float, spec: str, nobs: int, lags: int = 0, reps: int = EXACT_REPS,
                   seed: int = DEFAULT_SEED) -> float:
-    """Finite-sample lower-tail p-value of τ (the share of null draws at or below it)."""
-    return empirical_p_value(statistic, null_distribution(spec, nobs, reps, seed, lags))[0]
+    """Finite-sample lower-tail p-value of τ (the share of null draws at or below it;
+    at most :data:`P_VALUE_REPS` draws)."""
+    return empirical_p_value(statistic, null_distribution(spec, nobs, _p_reps(reps), seed, lags))[0]
 
 
 def exact_phi_critical_values(name: str, nobs: int, lags: int = 0, reps: int = EXACT_REPS,
                               seed: int = DEFAULT_SEED) -> dict[str, float]:
-    """Finite-sample upper-tail critical values of Φ1, Φ2 or Φ3."""
-    return upper_critical_values(phi_null_distribution(name, nobs, reps, seed, lags))
+    """Finite-sample upper-tail critical values of Φ1, Φ2 or Φ3 (streamed, as τ's)."""
+    if name not in PHI_SPEC:
+        raise ValueError(f"name must be one of {', '.join(PHI_SPEC)}, not {name!r}")
+    _check(PHI_SPEC[name], nobs, reps, lags)
+    return dict(streamed_quantiles(int(nobs), int(lags), int(reps), int(seed))[name].values)
 
 
 def exact_phi_p_value(statistic: float, name: str, nobs: int, lags: int = 0,
                       reps: int = EXACT_REPS, seed: int = DEFAULT_SEED) -> float:
     """Finite-sample upper-tail p-value of Φ1, Φ2 or Φ3."""
-    return empirical_p_value(statistic, phi_null_distribution(name, nobs, reps, seed, lags),
+    return empirical_p_value(statistic, phi_null_distribution(name, nobs, _p_reps(reps), seed, lags),
                              lower=False)[0]
 
 
 def exact_critical_value(spec: str, nobs: int, alpha: float, lags: int = 0,
                          reps: int = EXACT_REPS, seed: int = DEFAULT_SEED) -> float:
     """One finite-sample τ critical value at level ``alpha`` (0.01, 0.05 or 0.10)."""
-    return float(np.quantile(null_distribution(spec, nobs, reps, seed, lags), alpha))
+    return exact_critical_values(spec, nobs, lags, reps, seed)[f"{round(alpha * 100):d}%"]
 
 
 def with_exact_values(test: TestResult, alpha: float, use_lags: bool = True, reps: int = EXACT_REPS,
                       seed: int = DEFAULT_SEED) -> TestResult:
     """The same ADF τ or Φ test judged against its simulated null at the test's own
-    regression size (and lag order, unless ``use_lags`` is False): critical values,
-    decision and p-value replaced; other tests, and tests on samples too short to
+    regression size (and lag order, unless ``use_lags`` is False): critical values
+    (``reps`` streamed replications), decision and p-value (at most
+    :data:`P_VALUE_REPS` draws) replaced; other tests, and tests on samples too short to
     simulate, are returned unchanged."""
     lags = test.lags if use_lags else 0
     level = f"{round(alpha * 100):d}%"
     if test.nobs < lags + 4:
         return test  # too few observations to simulate: the published values stay
     if test.test == "adf":
-        draws = null_distribution(test.spec, test.nobs, reps, seed, lags)
-        values = lower_critical_values(draws)
+        values = exact_critical_values(test.spec, test.nobs, lags, reps, seed)
+        draws = null_distribution(test.spec, test.nobs, _p_reps(reps), seed, lags)
         p_value, bound = empirical_p_value(test.statistic, draws)
         reject = test.statistic < values[level]
     elif test.test in PHI_SPEC:
-        draws = phi_null_distribution(test.test, test.nobs, reps, seed, lags)
-        values = upper_critical_values(draws)
+        values = exact_phi_critical_values(test.test, test.nobs, lags, reps, seed)
+        draws = phi_null_distribution(test.test, test.nobs, _p_reps(reps), seed, lags)
         p_value, bound = empirical_p_value(test.statistic, draws, lower=False)
         reject = test.statistic > values[level]
     else:

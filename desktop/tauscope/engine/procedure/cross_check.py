@@ -26,6 +26,7 @@ from tauscope.engine.distributions.simulate import (
     DEFAULT_REPS,
     DEFAULT_SEED,
     EXACT_REPS,
+    P_VALUE_REPS,
     empirical_p_value,
     exact_critical_values,
     null_distribution,
@@ -217,14 +218,14 @@ def extra_evidence(
         try:
             pp, pp_details = pp_test(xd, spec, alpha, d)
             if critical_values == "exact":
-                draws = null_distribution(spec, pp.nobs, exact_reps, seed)
+                draws = null_distribution(spec, pp.nobs, min(exact_reps, P_VALUE_REPS), seed)
                 cv = exact_critical_values(spec, pp.nobs, reps=exact_reps, seed=seed)
                 p_value, bound = empirical_p_value(pp.statistic, draws)
                 level = fmt.percent(alpha)
                 pp = TestResult(pp.test, pp.spec, pp.difference, pp.statistic, p_value, pp.lags,
                                 pp.nobs, cv, bool(pp.statistic < cv[level]), cv[level],
                                 reportable_bound(p_value, bound), pp.lag_rule)
-                z_alpha_cv = z_alpha_critical_values(spec, pp.nobs, exact_reps, seed)
+                z_alpha_cv = z_alpha_critical_values(spec, pp.nobs, min(exact_reps, P_VALUE_REPS), seed)
             results.append(pp)
         except _FAILURES as exc:
             problems.append(f"The Phillips-Perron test could not be computed ({exc}).")
