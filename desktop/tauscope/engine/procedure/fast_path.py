@@ -162,7 +162,7 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
     phi = {name: restricted_rss(estimates[PHI_SPEC[name]], name, p) for name in PHI_NAMES}
     for values in phi.values():
         declined |= ~np.isfinite(values)
-    return LevelBatch(difference, p, n, design[:, :p, :], common, choices, estimates, phi,
+    return LevelBatch(difference, p, n, design[:, :p, :].copy(), common, choices, estimates, phi,
                       declined, centres)
 
 
