@@ -17,6 +17,7 @@ import warnings
 from fractions import Fraction
 
 import numpy as np
+import pandas as pd
 import pytest
 from statsmodels.tsa.stattools import adfuller
 
@@ -155,3 +156,21 @@ def test_a_refusal_names_the_real_reason() -> None:
         result = analyse_series(values, Settings(lag_rule="aic"), "flat")
         assert result.error is not None
         assert "changes in only a few observations" in result.error
+
+
+def test_dated_series_near_the_float_limit_read_the_same_as_at_unit_scale() -> None:
+    # Quarterly dates bring the seasonal check and the jump detector in; both are
+    # scale-free, so the verdict and every note must be those of the same data at unit
+    # scale, and no overflow warning may escape on the way.
+    rng = np.random.default_rng(5)
+    index = pd.period_range("1990Q1", periods=120, freq="Q")
+    noise = np.clip(rng.standard_normal(120) / 3.0, -1.0, 1.0)
+    walk = np.cumsum(rng.standard_normal(120))
+    for unit in (noise, walk / np.abs(walk).max()):
+        base = analyse_series(pd.Series(unit, index=index), Settings(), "s")
+        with warnings.catch_warnings():
+            warnings.simplefilter("error", RuntimeWarning)
+            big = analyse_series(pd.Series(1.7e308 * unit, index=index), Settings(), "s")
+        assert big.error is None and base.error is None
+        assert big.verdict.text == base.verdict.text
+        assert big.notes == base.notes
