@@ -147,6 +147,14 @@ def test_scale_is_a_power_of_two_with_changes_of_order_one() -> None:
             assert 0.5 <= float(np.sqrt(np.mean(changes * changes))) < 1.0
 
 
+def test_scale_stays_a_normal_float_at_the_ends_of_the_range() -> None:
+    # Found by the fuzz test: values of 1.49e308 and 0 would ask for 2^1024.
+    for values in (np.r_[np.zeros(5), 1.49e308, 0.0, 1.49e308], np.r_[0.0, 5e-324, 0.0, 1e-323]):
+        scale = power_of_two_scale(values)
+        assert np.isfinite(scale) and scale >= np.finfo(float).tiny
+        assert np.isfinite(values / scale).all()
+
+
 def test_a_refusal_names_the_real_reason() -> None:
     # A series that stays put except for three changes: the lagged changes are linearly
     # dependent on the common sample; the sentence must say so, not blame a scale.

@@ -38,12 +38,17 @@ def power_of_two_scale(x: np.ndarray) -> float:
     first = math.frexp(largest)[1]  # largest < 2^first
     u = np.ldexp(finite, -first)
     if u.size < 2:
-        return math.ldexp(1.0, first)
+        return _power_of_two(first)
     changes = np.diff(u)
     rms = math.sqrt(float(np.mean(changes * changes)))
     if not rms > 0.0:
-        return math.ldexp(1.0, first)
-    return math.ldexp(1.0, first + math.frexp(rms)[1])
+        return _power_of_two(first)
+    return _power_of_two(first + math.frexp(rms)[1])
+
+
+def _power_of_two(exponent: int) -> float:
+    """2^exponent, kept among the normal floats (2^-1022 … 2^1023)."""
+    return math.ldexp(1.0, min(max(exponent, -1022), 1023))
 
 
 def scaled(x: np.ndarray, scale: float) -> np.ndarray:
