@@ -55,7 +55,10 @@ def _fitted_in_units(z: np.ndarray, scale: float, order: int | None,
                      deterministic: str | None) -> np.ndarray | None:
     """The fitted path computed on y / s (no overflow near ±1e308) and multiplied back."""
     fitted = fitted_deterministic(z, order, deterministic)
-    return None if fitted is None else fitted * scale
+    if fitted is None:
+        return None
+    with np.errstate(over="ignore"):  # a fitted value beyond the float range draws as inf
+        return np.asarray(fitted * scale)
 
 
 def fitted_deterministic(x: np.ndarray, order: int | None, deterministic: str | None) -> np.ndarray | None:
