@@ -48,10 +48,21 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         values=pd.Series(x, index=index, name=name),
         fitted=fitted_under_break(x, checked.breaks)
         if checked.breaks is not None and checked.breaks.stationary_with_break
-        else fitted_deterministic(x, decision.order, decision.deterministic),
+        else _fitted_in_units(prepared.standardised, prepared.scale, decision.order,
+                              decision.deterministic),
         evidence=reading.evidence,
         breaks=checked.breaks,
     )
+
+
+def _fitted_in_units(z: np.ndarray, scale: float, order: int | None,
+                     deterministic: str | None) -> np.ndarray | None:
+    """The fitted path computed on y / s (no overflow near ±1e308) and multiplied back."""
+    fitted = fitted_deterministic(z, order, deterministic)
+    if fitted is None:
+        return None
+    with np.errstate(over="ignore"):  # a fitted value beyond the float range draws as inf
+        return np.asarray(fitted * scale)
 
 
 def fitted_deterministic(x: np.ndarray, order: int | None, deterministic: str | None) -> np.ndarray | None:

@@ -49,7 +49,7 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
             sequence_verdict,
             agreement_note(order, kpss_status, checks, options.alpha) or checked.kpss_problem, breaks),
         jump_at=_jump_label(prepared),
-        seasonal_lag=seasonal_pattern(x, prepared.periods_per_year),
+        seasonal_lag=seasonal_pattern(prepared.standardised, prepared.periods_per_year),
         level_sequence_tests=3,
         evidence_notes=evidence.notes + ((breaks.sentence,) if breaks is not None and breaks.sentence else ()),
         break_checked=evidence.break_info is not None or (breaks is not None and breaks.test is not None),
@@ -74,7 +74,7 @@ def read_evidence(extra: ExtraEvidence, order: int | None, kpss: Sequence[TestRe
 
 
 def _jump_label(prepared: PreparedSeries) -> str | None:
-    position = find_jump(prepared.values)
+    position = find_jump(prepared.standardised)  # scale-free; no overflow near 1e308
     if position is None:
         return None
     return f"{prepared.label(position)} (from {prepared.label(position - 1)})"
