@@ -22,7 +22,7 @@ import time
 import numpy as np
 import statsmodels.api as sm
 
-from tauscope.engine import seasonal_critical
+from tauscope.engine.seasonal import critical as seasonal_critical
 from tauscope.engine.seasonal.design import build, deterministic_columns, statistics_for
 
 

@@ -62,6 +62,7 @@ def main() -> int:
         write_workbook(path, args.series, args.length)
         app = prepare_application([])
         window = MainWindow()
+        window.prompts.ask_save_changes = lambda _name: "discard"  # closing asks nothing here
         window.resize(1280, 800)
         window.show()
         window.open_files([path])

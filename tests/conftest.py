@@ -66,6 +66,18 @@ def _widgets_application_first(request: pytest.FixtureRequest) -> None:
 _APP_KEY = pytest.StashKey[object]()
 
 
+@pytest.fixture(autouse=True)
+def _closing_asks_nothing(request: pytest.FixtureRequest, monkeypatch: pytest.MonkeyPatch) -> None:
+    """A window closed by a test (or by pytest-qt at the end of one) with unsaved changes
+    would wait for an answer in a modal box: in window tests the closing question answers
+    "discard", as closing did before it asked.  A test of the question sets its own answer."""
+    if not Path(str(request.node.fspath)).name.startswith("test_ui_"):
+        return
+    from tauscope.ui.controllers.prompts import Prompts
+
+    monkeypatch.setattr(Prompts, "_ask_save_changes", lambda _self, _name: "discard")
+
+
 @pytest.fixture
 def qt_settings_dir(tmp_path: Path) -> Iterator[Path]:
     """Point Tauscope's QSettings (INI, user scope) at a temporary folder."""

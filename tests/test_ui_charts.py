@@ -97,3 +97,41 @@ def test_a_chart_on_its_own_draws_in_given_colours(qtbot, analysed):  # type: ig
     assert chart.has_plot() and not chart.stale
     assert curve(chart, "series").opts["pen"].color() == QColor("#123456")
     assert curve(chart, "deterministic path").opts["pen"].color() == QColor("#654321")
+
+
+def test_keys_sit_below_the_plots_and_cover_nothing(panel, analysed, qtbot):  # type: ignore[no-untyped-def]
+    """No key floats over a plot (where it covered the τ line and the chosen lag's label): each
+    chart with named curves has its key on a line of its own under the plot, naming them."""
+    series, result = analysed
+    panel.display(series, result)
+    for number in (panel.FITTED, panel.LAGS, panel.RECURSIVE, panel.NULL):
+        panel.tabs.setCurrentIndex(number)
+        page = panel.pages()[number]
+        qtbot.waitUntil(page.has_plot, timeout=30_000)
+        plot = page._shown[0]
+        assert plot.legend is None
+        names = [c.name() for c in plot.listDataItems() if c.name()]
+        assert names
+        (key,) = page._shown_keys
+        assert all(name in key.text for name in names)
+        plot_box = plot.sceneBoundingRect()
+        key_box = key.sceneBoundingRect()
+        assert key_box.top() >= plot_box.bottom() - 1  # below the plot, not over it
+
+
+def test_the_null_distribution_axis_is_a_true_density_however_often_drawn(panel, analysed, qtbot):  # type: ignore[no-untyped-def]
+    """The histogram integrates to one (numpy's density), so the axis must read 0 to about 0.6;
+    pyqtgraph's automatic scaling once turned it into 0 to 600 on a redraw."""
+    series, result = analysed
+    panel.display(series, result)
+    panel.tabs.setCurrentIndex(panel.NULL)
+    page = panel.null_page
+    qtbot.waitUntil(page.has_plot, timeout=30_000)
+    for _ in range(2):  # drawn again: the second drawing once took the scale of the first
+        page.layout_widget.grab()  # painted, so the axis knows the range it shows
+        page.draw_for(series, result)
+        axis = page._shown[0].getAxis("left")
+        _low, high = page._shown[0].viewRange()[1]
+        assert 0.2 < high < 1.5
+        assert axis.autoSIPrefixScale == 1.0
+        assert axis.tickStrings([0.2, 0.4], axis.autoSIPrefixScale * axis.scale, 0.2) == ["0.2", "0.4"]

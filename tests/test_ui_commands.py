@@ -33,6 +33,22 @@ def test_snapshot_writes_a_picture_of_the_whole_window(small_workbook, tmp_path)
     assert not (tmp_path / ".config" / "Tauscope").exists()  # the user's settings are untouched
 
 
+def test_snapshot_at_a_given_size_and_view(small_workbook, tmp_path):  # type: ignore[no-untyped-def]
+    from PySide6.QtGui import QImage
+
+    out = tmp_path / "wide.png"
+    done = run_cli("snapshot", str(small_workbook), "--out", str(out), "--size", "1920x1080",
+                   "--chart", "null", home=tmp_path)
+    assert done.returncode == 0, done.stderr
+    image = QImage(str(out))
+    assert (image.width(), image.height()) == (1920, 1080)
+    for wrong in ("1920", "10x10", "wide"):
+        refused = run_cli("snapshot", "--out", str(tmp_path / "z.png"), "--size", wrong,
+                          home=tmp_path)
+        assert refused.returncode == 2 and "size" in refused.stderr
+        assert "Traceback" not in refused.stderr
+
+
 def test_snapshot_usage_and_unreadable_input(tmp_path):  # type: ignore[no-untyped-def]
     missing = run_cli("snapshot", str(tmp_path / "nope.xlsx"), "--out", str(tmp_path / "x.png"),
                       home=tmp_path)

@@ -136,3 +136,36 @@ def test_the_recent_menu_lists_opened_workbooks(parts, qtbot, small_workbook):  
     files.fill_recent_menu(menu)
     texts = [a.text() for a in menu.actions()]
     assert texts[0] == "&1 small.xlsx" and texts[-1] == "Clear the list"
+
+
+def test_the_edits_of_the_series_list_undo_and_redo(parts, qtbot, small_workbook):  # type: ignore[no-untyped-def]
+    files = files_controller(parts)
+    open_and_wait(qtbot, files, small_workbook)
+    model = parts.series_panel.model
+    read = [s.key for s in model.all_series()]
+    first, gappy = model.all_series()[0], next(s for s in model.all_series() if s.name == "with a gap")
+    files.add_transform(first.key, "log")
+    logged = next(s for s in model.all_series() if s.transform == "log")
+    files.add_transform(logged.key, "diff")  # a copy of the copy
+    made = [s.key for s in model.all_series()]
+    assert len(made) == len(read) + 2
+    files.remove_transform(logged.key)  # takes the copy made from it along
+    assert [s.key for s in model.all_series()] == read
+    files.undo_stack.undo()
+    assert [s.key for s in model.all_series()] == made  # both back, in their places
+    files.undo_stack.undo()
+    files.undo_stack.undo()
+    assert [s.key for s in model.all_series()] == read
+    files.undo_stack.redo()
+    assert [s.key for s in model.all_series()] == [*read[:1], logged.key, *read[1:]]
+    files.remove_transform(first.key)  # a series as read is not removed
+    assert model.series_for_key(first.key) is first
+    files.mend_gaps(gappy.key, "fill")
+    assert parts.session.gap_handling == {gappy.key: "interpolate"}
+    assert not model.series_for_key(gappy.key).gaps
+    files.undo_stack.undo()
+    assert parts.session.gap_handling == {} and model.series_for_key(gappy.key) is gappy
+    files.undo_stack.redo()
+    assert parts.session.gap_handling == {gappy.key: "interpolate"}
+    files.close_all()
+    assert not files.undo_stack.canUndo()

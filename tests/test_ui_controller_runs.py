@@ -130,3 +130,17 @@ def test_a_closing_window_gets_no_dialog_and_no_autosave(parts, qtbot, series, m
     runs.stop_and_wait(30_000)
     qtbot.waitUntil(lambda: runs.last_run is not None, timeout=30_000)
     assert ended == [] and not parts.session.modified
+
+
+def test_the_status_line_counts_only_the_series_of_that_run(parts, qtbot, small_workbook):  # type: ignore[no-untyped-def]
+    """A run of one good series after a run with untestable ones says nothing about them."""
+    everything = read_workbook(small_workbook).series()
+    untestable = [s for s in everything if s.name in ("flat", "with a gap")]
+    runs = runs_controller(parts)
+    run_and_wait(qtbot, runs, everything)
+    assert parts.status.text() == (f"Done: {len(everything)} series analysed. "
+                                   f"{len(untestable)} could not be tested (see Findings).")
+    run_and_wait(qtbot, runs, everything[:1])
+    assert parts.status.text() == "Done: 1 series analysed."
+    run_and_wait(qtbot, runs, untestable[:1])
+    assert parts.status.text() == "Done: 1 series analysed. 1 could not be tested (see Findings)."

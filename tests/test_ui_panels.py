@@ -36,7 +36,7 @@ def test_series_tree_lists_workbook_sheets_and_series_with_their_facts(
     assert child_texts(model, sheet_index) == [s.name for s in book.series()]
     for column, expected in ((sm.OBS, [str(s.nobs) for s in book.series()]),
                              (sm.FREQUENCY, [s.frequency for s in book.series()]),
-                             (sm.SPAN, [f"{s.span[0]} – {s.span[1]}" for s in book.series()])):
+                             (sm.SPAN, [f"{s.span[0]}–{s.span[1]}" for s in book.series()])):
         assert child_texts(model, sheet_index, column) == expected
     gaps = child_texts(model, sheet_index, sm.GAPS)
     assert gaps[-1] == "3 missing" and gaps[0] == "none"
@@ -244,3 +244,91 @@ def test_gaps_can_be_cut_or_filled_and_the_series_becomes_testable(
     run_in_window(main_window, [cut])
     result = main_window.findings_panel.model.result_for_key(gappy.key)
     assert result.error is None and result.nobs > 0
+
+
+def _clipped(view, index):  # type: ignore[no-untyped-def]
+    """The text of a cell when it does not fit in the cell as shown (else "")."""
+    from PySide6.QtCore import Qt
+
+    text = str(index.data(Qt.ItemDataRole.DisplayRole) or "")
+    if not text:
+        return ""
+    rect = view.visualRect(index)
+    icon = 22 if index.data(Qt.ItemDataRole.DecorationRole) is not None else 0
+    needed = view.fontMetrics().horizontalAdvance(text) + icon + 6
+    inside = rect.right() <= view.viewport().width() and rect.left() >= 0
+    return "" if needed <= rect.width() and inside else text
+
+
+@pytest.mark.parametrize(("size", "checks"), [((1280, 800), ("kpss",)), ((1920, 1080), ("kpss",)),
+                                              ((1280, 800), ("kpss", "pp", "dfgls", "za"))])
+def test_every_label_fits_at_the_usual_window_sizes(main_window, open_in_window, run_in_window,
+                                                    size, checks, qtbot):  # type: ignore[no-untyped-def]
+    """Names, spans and verdicts in the Series panel, and verdicts, null hypotheses and numbers
+    in the Findings (every cross-check turned on, too), are whole at 1280×800 and 1920×1080
+    (the default layout)."""
+    from tauscope.engine import Settings
+    from tauscope.resources_path import demo_workbook
+
+    demo = demo_workbook()
+    if demo is None:
+        pytest.skip("the demo workbook is not installed")
+    window = main_window
+    window.resize(*size)
+    window._default_sizes()
+    window.apply_settings(Settings(confirm=checks))
+    open_in_window(window, demo)
+    run_in_window(window, window.series_panel.model.all_series())
+    findings = window.findings_panel
+    findings.view.expand(findings.proxy.index(0, 0))
+    qtbot.waitUntil(lambda: findings.proxy.rowCount(findings.proxy.index(0, 0)) > 3)
+    series_view = window.series_panel.view
+    qtbot.waitUntil(lambda: not (window.series_panel.columns.pending()
+                                 or findings.columns.pending()))  # the columns fitted to the end
+    qtbot.waitUntil(lambda: series_view.horizontalScrollBar().maximum() == 0)
+    qtbot.waitUntil(lambda: findings.view.horizontalScrollBar().maximum() == 0)
+    clipped = []
+    for view, columns in ((series_view, range(5)), (findings.view, range(9))):
+        model = view.model()
+        stack = [model.index(r, 0) for r in range(model.rowCount())]
+        while stack:
+            index = stack.pop()
+            if not view.isExpanded(index.parent()) and index.parent().isValid():
+                continue
+            for column in columns:
+                cell = index.siblingAtColumn(column)
+                if view.isColumnHidden(column) or view.isFirstColumnSpanned(index.row(), index.parent()):
+                    continue
+                if (text := _clipped(view, cell)):
+                    clipped.append(text)
+            stack.extend(model.index(r, 0, index) for r in range(model.rowCount(index)))
+    assert clipped == []
+
+
+def test_column_widths_set_by_hand_are_remembered(qtbot, qt_settings_dir, small_workbook):  # type: ignore[no-untyped-def]
+    from tauscope.ui.main_window import MainWindow
+
+    first = MainWindow()
+    qtbot.addWidget(first)
+    first.resize(780, 560)
+    first.show()
+    first.open_files([small_workbook])
+    qtbot.waitUntil(lambda: first.loader.pending == 0, timeout=30_000)
+    first.series_panel.view.header().resizeSection(0, 151)  # as a drag of the column edge does
+    first.findings_panel.view.header().resizeSection(2, 133)
+    assert first.series_panel.columns.by_hand and first.findings_panel.columns.by_hand
+    widths = ([first.series_panel.view.columnWidth(c) for c in range(6)],
+              [first.findings_panel.view.columnWidth(c) for c in range(9)])
+    first.close()
+    second = MainWindow()
+    qtbot.addWidget(second)
+    second.show()
+    second.open_files([small_workbook])
+    qtbot.waitUntil(lambda: second.loader.pending == 0, timeout=30_000)
+    assert second.series_panel.view.columnWidth(0) == 151
+    assert second.findings_panel.view.columnWidth(2) == 133
+    assert ([second.series_panel.view.columnWidth(c) for c in range(6)],
+            [second.findings_panel.view.columnWidth(c) for c in range(9)]) == widths
+    second.reset_layout_action.trigger()  # the default layout: fitted widths again
+    assert not second.series_panel.columns.by_hand
+    assert second.series_panel.view.columnWidth(0) != 151

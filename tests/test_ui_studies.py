@@ -6,6 +6,7 @@ from __future__ import annotations
 
 import json
 import shutil
+from pathlib import Path
 
 import pytest
 
@@ -160,3 +161,38 @@ def test_autosave_is_offered_back_after_a_crash_and_removed_after_a_clean_close(
     third.ask_yes_no = lambda *_args: pytest.fail("nothing should be offered")
     assert not third.offer_recovery()
     third.close()
+
+
+def test_closing_with_unsaved_changes_asks_save_discard_or_cancel(
+        main_window, open_in_window, small_workbook, study_folder, qtbot):  # type: ignore[no-untyped-def]
+    from tauscope.report.study import load_study
+
+    window = main_window
+    open_in_window(window, small_workbook)
+    assert window.session.modified
+    asked: list[str] = []
+    window.ask_save_changes = lambda name: asked.append(name) or "cancel"
+    assert not window.close()  # cancel: the window stays, with its changes
+    assert asked == ["Untitled study"] and window.isVisible() and window.session.modified
+    target = study_folder / "kept.tauscope"
+    window.ask_save_path = lambda *_args: ""  # save, but the save dialog is cancelled
+    window.ask_save_changes = lambda name: asked.append(name) or "save"
+    assert not window.close() and window.isVisible()
+    window.ask_save_path = lambda *_args: str(target)
+    assert window.close()  # saved, then closed
+    assert not window.isVisible()
+    assert [Path(w.path).name for w in load_study(target).workbooks] == [small_workbook.name]
+
+
+def test_closing_without_changes_or_after_discarding_asks_no_more(
+        main_window, open_in_window, small_workbook, qtbot):  # type: ignore[no-untyped-def]
+    window = main_window
+    open_in_window(window, small_workbook)
+    asked: list[str] = []
+    window.ask_save_changes = lambda name: asked.append(name) or "discard"
+    assert window.close() and asked == ["Untitled study"]
+    window.show()
+    window.session.closing = False
+    window.set_modified(False)
+    window.ask_save_changes = lambda _name: pytest.fail("nothing to save: no question")
+    assert window.close()

@@ -38,10 +38,14 @@ def row_texts(model, parent):  # type: ignore[no-untyped-def]
 
 
 def check_findings_match_engine(window, settings: Settings) -> int:  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import Qt
+
+    from tauscope.engine.reading.words import cross_check_word
     from tauscope.ui import findings_model as fm
     from tauscope.ui.texts import decision_text, statistic_text
 
     model = window.findings_panel.model
+    assert model.headerData(fm.VERDICT, Qt.Orientation.Horizontal) == "Verdict · null tested"
     model.populate_all()  # children are built when first shown
     checked = 0
     for series in window.series_panel.model.all_series():
@@ -58,6 +62,8 @@ def check_findings_match_engine(window, settings: Settings) -> int:  # type: ign
             checked += 1
             continue
         assert top[fm.VERDICT] == expected.verdict.label
+        # the one vocabulary (tauscope.engine.reading.words), not the contract's own value
+        assert top[fm.CHECK] == cross_check_word(expected.verdict.agreement)
         if expected.error is not None:
             assert children[0][fm.NAME] == expected.error
             checked += 1
@@ -241,3 +247,64 @@ def test_a_second_run_replaces_rows_instead_of_adding(main_window, open_in_windo
     model = main_window.findings_panel.model
     assert model.rowCount() == 2
     assert all(r.settings["alpha"] == 0.10 for r in model.results().values())
+
+
+def test_select_all_is_the_platform_key_on_the_series_and_find_keeps_its_own(
+        main_window, open_in_window, workbook_path, qtbot):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import Qt
+    from PySide6.QtGui import QKeySequence
+
+    window = main_window
+    assert QKeySequence(QKeySequence.StandardKey.SelectAll) in window.select_all_action.shortcuts()
+    assert QKeySequence(QKeySequence.StandardKey.Find) in window.find_action.shortcuts()
+    open_in_window(window, workbook_path)
+    view = window.series_panel.view
+    view.clearSelection()
+    window.activateWindow()
+    view.setFocus()
+    qtbot.waitUntil(view.hasFocus)
+    qtbot.keyClick(view, Qt.Key.Key_A, Qt.KeyboardModifier.ControlModifier)
+    total = len(read_workbook(workbook_path).series())
+    qtbot.waitUntil(lambda: len(window.series_panel.selected_series()) == total
+                    and bool(view.selectionModel().selectedRows()))
+    # in the filter box the same key selects its text, not the series
+    view.clearSelection()
+    box = window.series_panel.filter_box
+    box.setText("output")
+    box.setFocus()
+    qtbot.waitUntil(box.hasFocus)
+    box.deselect()
+    qtbot.keyClick(box, Qt.Key.Key_A, Qt.KeyboardModifier.ControlModifier)
+    assert box.selectedText() == "output"
+    assert not view.selectionModel().selectedRows()
+
+
+def test_undo_restores_a_removed_transformed_series_with_its_finding(
+        main_window, open_in_window, run_in_window, workbook_path, qtbot):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import Qt
+    from PySide6.QtGui import QKeySequence
+
+    window = main_window
+    open_in_window(window, workbook_path)
+    model = window.series_panel.model
+    first = model.all_series()[0]
+    window.add_transform(first.key, "logdiff")
+    copy = next(s for s in model.all_series() if s.parent)
+    run_in_window(window, [copy])
+    shown = window.findings_panel.model.result_for_key(copy.key)
+    assert shown is not None
+    window.remove_transform(copy.key)
+    assert model.series_for_key(copy.key) is None
+    assert window.findings_panel.model.result_for_key(copy.key) is None
+    assert window.undo_action.isEnabled() and "Remove" in window.undo_action.text()
+    assert QKeySequence(QKeySequence.StandardKey.Undo) in window.undo_action.shortcuts()
+    window.activateWindow()
+    window.series_panel.view.setFocus()
+    qtbot.waitUntil(window.series_panel.view.hasFocus)
+    qtbot.keyClick(window.series_panel.view, Qt.Key.Key_Z, Qt.KeyboardModifier.ControlModifier)
+    qtbot.waitUntil(lambda: model.series_for_key(copy.key) is copy)
+    assert window.findings_panel.model.result_for_key(copy.key) is shown
+    assert [s.key for s in model.all_series()].index(copy.key) == 1  # under its parent
+    assert window.current_key() == copy.key
+    window.redo_action.trigger()
+    assert model.series_for_key(copy.key) is None

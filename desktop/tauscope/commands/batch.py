@@ -31,6 +31,7 @@ from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_
 from tauscope.data.notes import reader_notes
 from tauscope.data.sample import GAP_RULES, apply_gap_rule, cut_sample, parse_sample
 from tauscope.engine import LAG_RULES, STRATEGIES, SeriesResult, Settings, analyse_many
+from tauscope.engine.reading.words import cross_check_word
 from tauscope.engine.results import failed_result
 from tauscope.report import (
     WRITERS,
@@ -311,7 +312,7 @@ def summary_table(findings: Sequence[Finding]) -> str:
         r = f.result
         span = f"{r.span[0]} to {r.span[1]}" if r.span else "—"
         verdict = r.verdict.label if r.ok else "Not tested"
-        kpss = r.verdict.agreement or "—"
+        kpss = cross_check_word(r.verdict.agreement) if r.ok else "—"
         last = tau_steps(r) if r.ok else (r.error or "")
         rows.append((r.name, str(r.nobs), span, verdict, kpss, last))
     widths = [max(len(row[i]) for row in (header, *rows)) for i in range(len(header) - 1)]

@@ -2,23 +2,20 @@
 read these, so a number shown anywhere is the same number (DESIGN.md §2).
 
 This module imports none of the tests, the regressions or the simulation: every
-module of the engine may import it, and it imports nothing of the engine."""
+module of the engine may import it, and it imports nothing of the engine but the two
+plain-data leaves `finite` and `results_breaks`."""
 
 from __future__ import annotations
 
-import math
 from dataclasses import asdict, dataclass, field
 from typing import Any
 
 import numpy as np
 import pandas as pd
 
-
-def _num(value: float | None) -> float | None:
-    if value is None:
-        return None
-    value = float(value)
-    return value if math.isfinite(value) else None
+from tauscope.engine.finite import finite_or_none as _num
+from tauscope.engine.results_breaks import BreakCheck, BreakInfo
+from tauscope.engine.results_strategy import ClassicVerdict
 
 
 @dataclass(frozen=True)
@@ -209,7 +206,8 @@ class SeriesResult:
     values: pd.Series | None = field(default=None, compare=False, repr=False)
     fitted: np.ndarray | None = field(default=None, compare=False, repr=False)
     evidence: Evidence | None = field(default=None, compare=False, repr=False)
-    classic: Any = None  # results_strategy.ClassicVerdict when another strategy decided
+    classic: ClassicVerdict | None = None  # the classic verdict when another strategy decided
+    breaks: BreakCheck | None = field(default=None, compare=False, repr=False)
 
     @property
     def ok(self) -> bool:
@@ -241,6 +239,7 @@ class SeriesResult:
                 "points": [p.to_dict() for p in self.lag_profile],
             },
             "evidence": self.evidence.to_dict() if self.evidence is not None else None,
+            "breaks": self.breaks.to_dict() if self.breaks is not None else None,
         }
 
 
@@ -332,29 +331,6 @@ class DFGLS:
     max_lags: int
     nobs: int
     detrended: np.ndarray
-
-
-@dataclass(frozen=True)
-class BreakInfo:
-    """Where the Zivot-Andrews search put the break, in the series' own dates.
-
-    ``position`` is the last observation (0-based, in the levels) of the old
-    regime, ``first_new`` the first of the new one; labels come from the index.
-    """
-
-    model: str
-    description: str
-    position: int
-    first_new: int
-    last_old_label: str
-    first_new_label: str
-    statistic: float
-    critical_value: float
-    reject: bool
-    difference: int
-
-    def to_dict(self) -> dict[str, Any]:
-        return asdict(self)
 
 
 @dataclass(frozen=True)

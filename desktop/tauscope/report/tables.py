@@ -16,6 +16,7 @@ from statistics import NormalDist
 
 from tauscope.engine import LAG_RULE_LABELS, SeriesResult, Settings, Step, TestResult
 from tauscope.engine import formatting as fmt
+from tauscope.engine.reading.words import CROSS_CHECK_WORDS
 from tauscope.engine.regression.design import SPEC_LABELS
 from tauscope.report.run import Finding, RunRecord
 
@@ -34,11 +35,7 @@ TEST_LABELS = {
     "phi3": "Φ3 (joint F)",
     "kpss": "KPSS",
 }
-AGREEMENT_WORDS = {
-    "confirmed": "confirmed",
-    "conflict": "in conflict",
-    "inconclusive": "inconclusive",
-}
+AGREEMENT_WORDS = {k: v for k, v in CROSS_CHECK_WORDS.items() if k is not None}
 MARKER_LEVELS = (("1%", "***"), ("5%", "**"), ("10%", "*"))
 _NORMAL = NormalDist()
 MARKER_NOTE = (
@@ -205,7 +202,7 @@ def summary_table(run: RunRecord) -> Table:
             Column(f"kpss{d}_p", f"KPSS, {name}, p", "p"),
             Column(f"kpss{d}_sig", f"KPSS, {name}, sig."),
         ]
-    columns += [Column("agreement", "KPSS agreement"), Column("problem", "Problem")]
+    columns += [Column("agreement", "Cross-check"), Column("problem", "Problem")]
 
     rule = lag_rule_label(run.settings)
     rows = []
@@ -253,7 +250,7 @@ def compact_table(run: RunRecord) -> Table:
         columns += [Column(f"tau{d}", f"τ, {DIFFERENCE_SHORT[d]}", "stat"),
                     Column(f"tau{d}_sig", "", "text"),
                     Column(f"tau{d}_spec", f"Terms, lags ({DIFFERENCE_SHORT[d]})")]
-    columns += [Column("kpss", "KPSS"), Column("agreement", "Agreement")]
+    columns += [Column("kpss", "KPSS"), Column("agreement", "Cross-check")]
     problems = any(f.result.error for f in run.findings)
     if problems:  # why a series could not be tested, only when one could not
         columns.append(Column("error", "Problem"))

@@ -10,6 +10,7 @@ from PySide6.QtCore import QModelIndex, QPersistentModelIndex, QSortFilterProxyM
 from PySide6.QtGui import QColor, QStandardItem, QStandardItemModel
 
 from tauscope.engine import SeriesResult, Settings
+from tauscope.engine.reading.words import cross_check_meaning, cross_check_word
 from tauscope.ui.findings_rows import (
     CHECK,
     COLUMN_GUIDE,
@@ -36,7 +37,7 @@ from tauscope.ui.findings_rows import (
 from tauscope.ui.markers import MARKERS, marker_icon, marker_kind
 from tauscope.ui.qtcompat import item_value
 from tauscope.ui.roles import GUIDE_ROLE, KEY_ROLE, KIND_ROLE, PENDING_ROLE, SORT_ROLE, VALUE_ROLE
-from tauscope.ui.texts import AGREEMENT_TIPS, AGREEMENT_WORDS, GUIDE_HINT, OUT_OF_DATE
+from tauscope.ui.texts import GUIDE_HINT, OUT_OF_DATE
 
 # The column numbers and p_text are used from here by the panel and the tests.
 __all__ = ["CHECK", "COLUMNS", "CRITICAL", "DECISION", "LAGS", "NAME", "NOBS", "PVALUE",
@@ -77,9 +78,9 @@ class FindingsModel(QStandardItemModel):
             GUIDE_ROLE: "verdicts", SORT_ROLE: f"{ORDER_SORT[kind]} {verdict.label}",
             Qt.ItemDataRole.DecorationRole: marker_icon(kind, self.marker_color),
             Qt.ItemDataRole.AccessibleTextRole: f"{word}: {verdict.label}"})
-        cells[CHECK].update({display: AGREEMENT_WORDS.get(agreement, str(agreement)),
-                             tooltip: AGREEMENT_TIPS.get(agreement, "") + GUIDE_HINT,
-                             SORT_ROLE: AGREEMENT_WORDS.get(agreement, "")})
+        cells[CHECK].update({display: cross_check_word(agreement),
+                             tooltip: cross_check_meaning(agreement) + GUIDE_HINT,
+                             SORT_ROLE: cross_check_word(agreement)})
         cells[NOBS].update({display: str(result.nobs), SORT_ROLE: float(result.nobs),
                             VALUE_ROLE: float(result.nobs), Qt.ItemDataRole.TextAlignmentRole: right})
         if result.error is not None:
@@ -186,6 +187,14 @@ class FindingsModel(QStandardItemModel):
             label = result.verdict.label + (f" {OUT_OF_DATE}" if out_of_date else "")
             self.setData(self.index(row, VERDICT), label, Qt.ItemDataRole.DisplayRole)
         return stale
+
+    def remove_result(self, key: str) -> SeriesResult | None:
+        """Take a series' finding out (its series left the window); returns it."""
+        row = self.row_for_key(key)
+        if row is not None:
+            self.removeRow(row)
+        self._rows.pop(key, None)
+        return self._results.pop(key, None)
 
     def row_for_key(self, key: str) -> int | None:
         index = self._rows.get(key)

@@ -10,14 +10,16 @@ from PySide6.QtCore import QItemSelectionModel, QMimeData, QModelIndex, QPoint, 
 from PySide6.QtGui import QAction, QGuiApplication, QKeySequence
 from PySide6.QtWidgets import QAbstractItemView, QMenu, QTreeView, QVBoxLayout, QWidget
 
+from tauscope.ui.columns import ColumnFitter
 from tauscope.ui.findings_model import (
     NAME,
     VERDICT,
     FindingsModel,
     FindingsSortProxy,
 )
+from tauscope.ui.findings_widths import natural_widths
 from tauscope.ui.qtcompat import item_value
-from tauscope.ui.roles import GUIDE_ROLE, KEY_ROLE
+from tauscope.ui.roles import GUIDE_ROLE, KEY_ROLE, KIND_ROLE
 
 if TYPE_CHECKING:
     from tauscope.report import RunRecord
@@ -59,8 +61,12 @@ class FindingsPanel(QWidget):
         self.view.selectionModel().currentRowChanged.connect(self._current_row_changed)
         self.view.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
         self.view.expanded.connect(self._expanded)
-        for column, width in enumerate((164, 186, 96, 90, 84, 90, 82, 62, 38)):
-            self.view.setColumnWidth(column, width)
+        self.view.header().setStretchLastSection(False)
+        # Every column as wide as its text; spare width to the names and the verdicts.
+        self.columns = ColumnFitter(self.view, self._natural_widths, stretch=(NAME, VERDICT))
+        self.model.rowsInserted.connect(self._rows_inserted)
+        self.model.dataChanged.connect(lambda *_args: self.columns.fit_soon())
+        self.columns.fit()
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
         layout.addWidget(self.view)
@@ -69,12 +75,28 @@ class FindingsPanel(QWidget):
     def _current_row_changed(self, current: QModelIndex, _previous: QModelIndex) -> None:
         self.current_changed.emit(str(item_value(current, KEY_ROLE, "")))
 
+    def _rows_inserted(self, parent: QModelIndex, *_rows: int) -> None:
+        if not parent.isValid():  # a series' row (the rows below it are measured with it)
+            self.columns.fit_soon()
+
     def _expanded(self, index: QModelIndex) -> None:
         self.model.populate(self.proxy.mapToSource(index))
+        self._span_sentences(index)
+
+    def _span_sentences(self, index: QModelIndex) -> None:
+        """A sentence under a series (why it could not be tested) spans the whole row."""
+        for r in range(self.proxy.rowCount(index)):
+            if item_value(self.proxy.index(r, NAME, index), KIND_ROLE) == "error":
+                self.view.setFirstColumnSpanned(r, index, True)
+
+    def _natural_widths(self) -> list[int]:
+        return natural_widths(self.view, self.model)
 
     def expand_all(self) -> None:
         self.model.populate_all()
         self.view.expandAll()
+        for r in range(self.proxy.rowCount()):
+            self._span_sentences(self.proxy.index(r, NAME))
 
     def select_key(self, key: str) -> None:
         row = self.model.row_for_key(key)
@@ -146,5 +168,3 @@ class FindingsPanel(QWidget):
             menu.addAction(explain)
         menu.popup(self.view.viewport().mapToGlobal(pos))
 
-    def resize_for_content(self) -> None:
-        self.view.resizeColumnToContents(VERDICT)

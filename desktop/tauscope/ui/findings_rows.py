@@ -9,6 +9,7 @@ from PySide6.QtGui import QStandardItem
 
 from tauscope.engine import SeriesResult, Step, TestResult
 from tauscope.engine import formatting as fmt
+from tauscope.engine.reading.words import CROSS_CHECK_TITLE, VERDICT_TITLE, decision_word
 from tauscope.ui.roles import GUIDE_ROLE, KEY_ROLE, KIND_ROLE, PENDING_ROLE, SORT_ROLE, VALUE_ROLE
 from tauscope.ui.texts import (
     DIFFERENCE_NAMES,
@@ -26,15 +27,15 @@ from tauscope.ui.texts import (
     where_text,
 )
 
-COLUMNS = ("Series and steps", "Verdict", "Statistic", "Critical value", "p-value", "Decision",
-           "Cross-check", "Lags", "Obs.")
+COLUMNS = ("Series and steps", VERDICT_TITLE, "Statistic", "Critical value", "p-value", "Decision",
+           CROSS_CHECK_TITLE, "Lags", "Obs.")
 NAME, VERDICT, STATISTIC, CRITICAL, PVALUE, DECISION, CHECK, LAGS, NOBS = range(len(COLUMNS))
 COLUMN_TIPS = (
     "Each analysed series. Expand a row to see the decision path step by step, and under each "
     "step the regression behind it.",
     "The order of integration the testing sequence arrived at, and the deterministic terms "
     "(mean, drift, trend). The shape beside it tells the verdicts apart without colour. "
-    "On a step: the null hypothesis that step tests.",
+    "On a step below a series: the null hypothesis that step tests.",
     "The test statistic of this step: τ for the unit-root t ratio, Φ1/Φ2/Φ3 for the joint "
     "F tests, z when the normal distribution applies, KPSS for the cross-check.",
     "The value the statistic must pass for the step to reject, at the chosen significance level.",
@@ -169,7 +170,8 @@ def kpss_row(key: str, test: TestResult) -> list[QStandardItem]:
                                COLUMN_TIPS[CRITICAL], "critical"),
         PVALUE: _number_cell(fmt.p_value(test.p_value, test.p_value_bound), test.p_value,
                              COLUMN_TIPS[PVALUE], "pvalues"),
-        DECISION: _cell("rejected" if test.reject else "not rejected", text, "decisions"),
+        DECISION: _cell(decision_word("reject" if test.reject else "do not reject"), text,
+                        "decisions"),
         LAGS: _right(_cell(str(test.lags), "Bandwidth (lags) of the long-run variance "
                            "estimate used by KPSS.", "kpss")),
         NOBS: _right(_cell(str(test.nobs), COLUMN_TIPS[NOBS], "kpss")),
@@ -210,10 +212,12 @@ def unit_root_test_row(key: str, test: TestResult, result: SeriesResult) -> list
                              if test.p_value is not None else "n/a", test.p_value,
                              COLUMN_TIPS[PVALUE] if test.p_value is not None else NO_P_VALUE,
                              "pvalues"),
-        DECISION: _cell("rejected" if test.reject else "not rejected", text, "decisions"),
+        DECISION: _cell(decision_word("reject" if test.reject else "do not reject"), text,
+                        "decisions"),
         LAGS: _right(_cell(lag_text(test.lags, test.lag_rule),
                            "Bandwidth of the long-run variance (Phillips-Perron) or number of "
-                           "lagged differences.", guide)),
+                           f"lagged differences; chosen by: {test.lag_rule or 'the settings'}.",
+                           guide)),
         NOBS: _right(_cell(str(test.nobs), COLUMN_TIPS[NOBS], guide)),
     }
     return _row(test.test, key, cells)

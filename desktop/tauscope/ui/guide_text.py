@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from tauscope.engine.reading.words import CROSS_CHECK_WORDS, cross_check_meaning
+
 SECTIONS = (
     ("start", "Getting started"),
     ("sequence", "What the testing sequence does"),
@@ -29,6 +31,15 @@ SECTIONS = (
     ("settings", "Settings"),
     ("references", "References"),
 )
+
+
+
+def _cross_check_list() -> str:
+    """The Cross-check column's words and what each means (from the one vocabulary)."""
+    items = "".join(f"<li><b>{word}</b>: {cross_check_meaning(value)}</li>"
+                    for value, word in CROSS_CHECK_WORDS.items())
+    return f"<ul>{items}</ul>"
+
 
 _BODY = {
     "start": """
@@ -94,9 +105,11 @@ standard normal. The label <b>z</b> marks these steps.</p>""",
     "kpss": """
 <p>The KPSS test (Kwiatkowski, Phillips, Schmidt &amp; Shin 1992) starts from the opposite null:
 the series is stationary (around a mean or a trend). Rejecting points to a unit root. Tauscope
-runs it on the levels and the differences the verdict concerns and reports whether it
-<b>agrees</b> with the ADF verdict, <b>disagrees</b>, or is <b>unclear</b>. Disagreement is common
-with short spans or persistent but stationary series; read the verdict with care then.</p>""",
+runs it on the levels and the differences the verdict concerns, with the other cross-checks
+turned on in Settings, and the Cross-check column says what they make of the verdict:</p>"""
+    + _cross_check_list() + """
+<p>Disagreement is common with short spans or persistent but stationary series; read the verdict
+with care then.</p>""",
     "lags": """
 <p>The lagged differences Σ β<sub>i</sub> Δy<sub>t−i</sub> soak up short-run dynamics so that
 the errors are white noise (Said &amp; Dickey 1984). Too few lags distort τ; too many cost power.
@@ -132,7 +145,8 @@ check the data.</li>
 <li><b>Not tested</b>: the series could not be tested (too short, constant, gaps); the reason is
 given.</li></ul>
 <p>Each verdict carries a shape (circle, triangle, square, diamond, cross) so the verdicts can be
-told apart without colour.</p>""",
+told apart without colour. On the steps below a series, the same column (“Verdict · null
+tested”) shows the null hypothesis each step tests.</p>""",
     "regression": """
 <p>Under every step of the decision path the regression behind it is shown: the number of
 observations used, the lag order and how it was chosen, and each coefficient with its estimate,

@@ -5,16 +5,16 @@ returns and never computes statistics."""
 
 from __future__ import annotations
 
-from collections.abc import Callable
-from pathlib import Path
 from typing import Any
 
 from PySide6.QtCore import QSize, Qt
 from PySide6.QtGui import QAction, QActionGroup, QCloseEvent, QKeySequence
 from PySide6.QtWidgets import (
+    QAbstractItemView,
     QApplication,
-    QMessageBox,
+    QLineEdit,
     QStyle,
+    QTextEdit,
     QToolBar,
 )
 
@@ -30,16 +30,14 @@ from tauscope.ui.controllers.runs import RunsController
 from tauscope.ui.controllers.session import Session
 from tauscope.ui.controllers.studies import StudiesController
 from tauscope.ui.guide_window import GuideWindow
-from tauscope.ui.loader import WorkbookLoader
-from tauscope.ui.problem_dialog import ProblemDialog
 from tauscope.ui.settings_dialog import SettingsDialog
+from tauscope.ui.window_api import WindowApi
 from tauscope.ui.window_frame import WindowFrame, settings_summary
-from tauscope.ui.worker import AnalysisRunner
 
 UNTITLED_STUDY = "Untitled study"
 
 
-class MainWindow(WindowFrame):
+class MainWindow(WindowFrame, WindowApi):
     def __init__(self) -> None:
         settings = store.load_settings()
         super().__init__(settings)
@@ -74,6 +72,8 @@ class MainWindow(WindowFrame):
         self.close_all = self.files.close_all
         self.add_transform = self.files.add_transform
         self.mend_gaps = self.files.mend_gaps
+        self.remove_transform = self.files.remove_transform
+        self.undo_stack = self.files.undo_stack
         self.run_selected = self.runs.run_selected
         self.run_all = self.runs.run_all
         self.run_series = self.runs.run_series
@@ -88,59 +88,6 @@ class MainWindow(WindowFrame):
         self.copy = self.export.copy
         self.tell = self.prompts.tell
         self._dropped_paths = dropped_paths
-
-    # state the controllers hold, read (and the questions replaced) through the window
-    @property
-    def settings(self) -> Settings:
-        return self.session.settings
-
-    @property
-    def study_path(self) -> Path | None:
-        return self.session.study_path
-
-    @property
-    def runner(self) -> AnalysisRunner:
-        return self.runs.runner
-
-    @property
-    def last_run(self) -> tuple[bool, int] | None:
-        return self.runs.last_run
-
-    @property
-    def loader(self) -> WorkbookLoader:
-        return self.files.loader
-
-    @property
-    def message_box(self) -> QMessageBox | None:
-        return self.prompts.message_box
-
-    @property
-    def problem_dialog(self) -> ProblemDialog | None:
-        return self.prompts.problem_dialog
-
-    @property
-    def ask_save_path(self) -> Callable[[str, str, str], str]:
-        return self.prompts.ask_save_path
-
-    @ask_save_path.setter
-    def ask_save_path(self, ask: Callable[[str, str, str], str]) -> None:
-        self.prompts.ask_save_path = ask
-
-    @property
-    def ask_open_path(self) -> Callable[[str, str, str], str]:
-        return self.prompts.ask_open_path
-
-    @ask_open_path.setter
-    def ask_open_path(self, ask: Callable[[str, str, str], str]) -> None:
-        self.prompts.ask_open_path = ask
-
-    @property
-    def ask_yes_no(self) -> Callable[[str, str], bool]:
-        return self.prompts.ask_yes_no
-
-    @ask_yes_no.setter
-    def ask_yes_no(self, ask: Callable[[str, str], bool]) -> None:
-        self.prompts.ask_yes_no = ask
 
     # actions ------------------------------------------------------------
     def _action(self, text: str, slot: Any, shortcut: Any = None, tip: str = "",
@@ -188,11 +135,20 @@ class MainWindow(WindowFrame):
                                         "Close Tauscope")
         if not self.quit_action.shortcuts():
             self.quit_action.setShortcut(QKeySequence("Ctrl+Q"))
+        stack = self.files.undo_stack
+        self.undo_action = stack.createUndoAction(self, "&Undo")
+        self.redo_action = stack.createRedoAction(self, "&Redo")
+        for action, standard in ((self.undo_action, QKeySequence.StandardKey.Undo),
+                                 (self.redo_action, QKeySequence.StandardKey.Redo)):
+            action.setShortcuts(QKeySequence.keyBindings(standard))
+            self.addAction(action)
         self.copy_action = self._action("&Copy", self.export.copy, QKeySequence.StandardKey.Copy,
                                         "Copy the selected findings as a table")
         self.copy_action.setShortcutContext(Qt.ShortcutContext.WindowShortcut)
-        self.select_all_action = self._action("Select &all series", self.select_all_series,
-                                              "Ctrl+Shift+A", "Select every series of every workbook")
+        self.select_all_action = self._action("Select &all", self.select_all,
+                                              QKeySequence.StandardKey.SelectAll,
+                                              "Select every series of every workbook (every "
+                                              "finding when the Findings have the focus)")
         self.find_action = self._action("&Filter series", self.focus_filter,
                                         QKeySequence.StandardKey.Find,
                                         "Type part of a name to show only matching series")
@@ -244,6 +200,9 @@ class MainWindow(WindowFrame):
         file_menu.addSeparator()
         file_menu.addAction(self.quit_action)
         edit_menu = bar.addMenu("&Edit")
+        edit_menu.addAction(self.undo_action)
+        edit_menu.addAction(self.redo_action)
+        edit_menu.addSeparator()
         edit_menu.addAction(self.copy_action)
         edit_menu.addAction(self.select_all_action)
         edit_menu.addAction(self.find_action)
@@ -283,6 +242,7 @@ class MainWindow(WindowFrame):
         self.series_panel.current_changed.connect(self.current.follow_series_panel)
         self.series_panel.transform_requested.connect(self.files.add_transform)
         self.series_panel.gaps_requested.connect(self.files.mend_gaps)
+        self.series_panel.remove_requested.connect(self.files.remove_transform)
         self.series_panel.run_requested.connect(self.runs.run_selected)
         self.findings_panel.current_changed.connect(self.current.follow_findings_panel)
         self.findings_panel.guide_requested.connect(self.open_guide)
@@ -322,6 +282,16 @@ class MainWindow(WindowFrame):
 
     def select_series(self, key: str) -> bool:
         return self.series_panel.select_key(key)
+
+    def select_all(self) -> None:
+        """Edit → Select all: the text or rows of the focused box or list when it has its own
+        (filter, reading, findings), else every series."""
+        focus = QApplication.focusWidget()
+        if focus is not None and focus is not self.series_panel.view \
+                and isinstance(focus, QLineEdit | QTextEdit | QAbstractItemView):
+            focus.selectAll()
+            return
+        self.select_all_series()
 
     def select_all_series(self) -> None:
         self.series_panel.select_all_series()
@@ -375,7 +345,20 @@ class MainWindow(WindowFrame):
                   "Press F1 for the guide.", title="About Tauscope")
 
     # closing ------------------------------------------------------------
+    def may_close(self) -> bool:
+        """With unsaved changes, ask: save them (and close if saved), discard them, or stay."""
+        if not self.session.modified or self.session.closing:
+            return True
+        path = self.session.study_path
+        answer = self.prompts.ask_save_changes(path.name if path is not None else UNTITLED_STUDY)
+        if answer == "save":
+            return self.studies.save_study()
+        return answer == "discard"
+
     def closeEvent(self, event: QCloseEvent) -> None:
+        if not self.may_close():
+            event.ignore()
+            return
         self.session.closing = True
         self.runs.stop_and_wait(30_000)
         self.files.loader.wait(10_000)

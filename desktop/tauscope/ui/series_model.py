@@ -25,7 +25,8 @@ COLUMN_TIPS = (
     "Stretches of missing values inside the series. A series with gaps must be cut to its "
     "longest stretch or filled before it can be tested.",
     "First and last date (or observation number when the dates could not be read).",
-    "How often the series is observed, as read from its dates.",
+    "How often the series is observed, as read from its dates (shown when the panel is wide "
+    "enough; always in the series' tooltip).",
 )
 NAME, SHAPE, OBS, GAPS, SPAN, FREQUENCY = range(6)
 
@@ -57,7 +58,8 @@ def series_tooltip(series: SeriesData) -> str:
     lines.append(f"From {src.file}, sheet {src.sheet}, column {src.column}")
     if series.parent:
         lines.append(f"Derived from {series.parent}")
-    lines.append(f"{series.nobs} observations, {series.span[0]} to {series.span[1]}")
+    lines.append(f"{series.nobs} {series.frequency or 'irregular'} observations, "
+                 f"{series.span[0]} to {series.span[1]}")
     if series.gaps:
         lines.append("Gaps: " + "; ".join(f"{g.start} to {g.end} ({g.count})" for g in series.gaps))
     lines.extend(series.notes)
@@ -78,7 +80,7 @@ def series_row(series: SeriesData) -> list[QStandardItem]:
     obs.setData(series.nobs, SORT_ROLE)
     obs.setTextAlignment(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
     freq = _item(series.frequency or "irregular", tip)
-    span = _item(f"{series.span[0]} – {series.span[1]}", tip)
+    span = _item(f"{series.span[0]}–{series.span[1]}", tip)
     gaps = _item(gaps_text(series), tip)
     row = [name, shape, obs, gaps, span, freq]
     for cell in row[1:]:
@@ -159,17 +161,47 @@ class SeriesTreeModel(QStandardItemModel):
     def spark(self, key: str) -> np.ndarray | None:
         return self._sparks.get(key)
 
-    def add_transformed(self, parent_key: str, series: SeriesData) -> QStandardItem | None:
-        """Add a transformed copy under the series it came from (replacing an equal one)."""
+    def add_transformed(self, parent_key: str, series: SeriesData,
+                        position: int | None = None) -> QStandardItem | None:
+        """Add a transformed copy under the series it came from (replacing an equal one), last
+        or at row ``position`` among its siblings."""
         parent = self.item_for_key(parent_key)
         if parent is None:
             return None
         existing = self.item_for_key(series.key)
         if existing is not None and existing.parent() is not None:
-            existing.parent().removeRow(existing.row())
+            self.remove_transformed(series.key)
         row = self._series_row(series)
-        parent.appendRow(row)
+        if position is None or not 0 <= position <= parent.rowCount():
+            parent.appendRow(row)
+        else:
+            parent.insertRow(position, row)
         return row[0]
+
+    def remove_transformed(self, key: str) -> list[tuple[str, int, SeriesData]]:
+        """Take a transformed copy (and the copies made from it) out of the tree; returns each
+        removed series with its parent's key and its row there, parents first, so that adding
+        them back in that order restores the tree."""
+        item = self.item_for_key(key)
+        parent = item.parent() if item is not None else None
+        if item is None or parent is None or parent.data(KIND_ROLE) != "series":
+            return []
+        removed: list[tuple[str, int, SeriesData]] = []
+
+        def collect(node: QStandardItem, parent_key: str) -> None:
+            node_key = str(node.data(KEY_ROLE))
+            removed.append((parent_key, node.row(), self._series[node_key]))
+            for r in range(node.rowCount()):
+                child = node.child(r, 0)
+                if child is not None and child.data(KIND_ROLE) == "series":
+                    collect(child, node_key)
+
+        collect(item, str(parent.data(KEY_ROLE)))
+        for _parent_key, _row, series in removed:
+            self._series.pop(series.key, None)
+            self._sparks.pop(series.key, None)
+        parent.removeRow(item.row())
+        return removed
 
     def replace_series(self, series: SeriesData) -> bool:
         """Show new data for a series already in the tree (same key), e.g. after its gaps

@@ -23,13 +23,17 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
+from tauscope.ui.columns import ColumnFitter, header_width
 from tauscope.ui.qtcompat import item_value
 from tauscope.ui.roles import KEY_ROLE, KIND_ROLE, SORT_ROLE
-from tauscope.ui.series_model import FREQUENCY, GAPS, NAME, OBS, SHAPE, SPAN, SeriesTreeModel
+from tauscope.ui.series_model import FREQUENCY, NAME, SHAPE, SeriesTreeModel
 from tauscope.ui.sparkline import SparklineDelegate
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData
+
+
+SHAPE_WIDTH = 56  # the small drawing of each series (and "5 series" on a sheet's row)
 
 
 class SeriesPanel(QWidget):
@@ -38,6 +42,7 @@ class SeriesPanel(QWidget):
     current_changed = Signal(str)  # key of the current series ("" when none)
     transform_requested = Signal(str, str)  # series key, transform key
     gaps_requested = Signal(str, str)  # series key, "cut" or "fill"
+    remove_requested = Signal(str)  # key of a transformed copy to take out
     run_requested = Signal()
 
     def __init__(self, parent: QWidget | None = None) -> None:
@@ -73,10 +78,16 @@ class SeriesPanel(QWidget):
         self.view.selectionModel().currentRowChanged.connect(self._current_row_changed)
         header = self.view.header()
         header.setStretchLastSection(False)
-        header.setSectionResizeMode(NAME, QHeaderView.ResizeMode.Interactive)
-        for column, width in ((NAME, 178), (SHAPE, 54), (OBS, 34), (GAPS, 66), (SPAN, 122),
-                              (FREQUENCY, 72)):
-            self.view.setColumnWidth(column, width)
+        header.setSectionResizeMode(QHeaderView.ResizeMode.Interactive)
+        self.view.setIndentation(14)
+        # Every column as wide as its text; the names get the spare width; the frequency
+        # (also in each series' tooltip and readable from the span) goes first when short.
+        self.columns = ColumnFitter(self.view, self._natural_widths, stretch=(NAME,),
+                                    optional=(FREQUENCY,))
+        self.model.rowsInserted.connect(lambda *_args: self.columns.fit_soon())
+        self.model.dataChanged.connect(lambda *_args: self.columns.fit_soon())
+        self.view.expanded.connect(lambda _index: self.columns.fit_soon())
+        self.columns.fit()
 
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
@@ -84,6 +95,12 @@ class SeriesPanel(QWidget):
         layout.addWidget(self.filter_box)
         layout.addWidget(self.view)
         self.setFocusProxy(self.view)
+
+    def _natural_widths(self) -> list[int]:
+        view = self.view
+        widths = [max(view.sizeHintForColumn(c), header_width(view, c)) for c in range(6)]
+        widths[SHAPE] = max(SHAPE_WIDTH, header_width(view, SHAPE))
+        return widths
 
     # selection ----------------------------------------------------------
     def _filter(self, text: str) -> None:
@@ -144,6 +161,10 @@ class SeriesPanel(QWidget):
             transforms = self._transform_menu(menu, key)
             menu.addMenu(transforms)
             series = self.model.series_for_key(key)
+            if series is not None and series.parent:
+                remove = QAction("Remove this transformed copy", menu)
+                remove.triggered.connect(lambda: self.remove_requested.emit(key))
+                menu.addAction(remove)
             if series is not None and series.gaps:
                 cut = QAction("Keep the longest stretch without gaps", menu)
                 cut.triggered.connect(lambda: self.gaps_requested.emit(key, "cut"))

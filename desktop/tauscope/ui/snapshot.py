@@ -1,9 +1,11 @@
-"""``tauscope snapshot [FILE] --out PNG``: a picture of the analysed window.
+"""``tauscope snapshot [FILE] --out PNG [--size WxH] [--chart VIEW]``: a picture of the
+analysed window.
 
-Opens the window offscreen at 1280×800 with a throw-away settings folder (the
+Opens the window offscreen at 1280×800 (or ``--size``) with a throw-away settings folder (the
 user's remembered layout and settings are neither used nor changed), reads
 FILE or the demo workbook, analyses every series, waits for the end, selects
-the first series and saves the whole window as a PNG.
+the first series, shows the chart view asked for (``--chart``, default: the data) and saves
+the whole window as a PNG.
 """
 
 from __future__ import annotations
@@ -15,6 +17,19 @@ import tempfile
 from pathlib import Path
 
 WIDTH, HEIGHT = 1280, 800
+CHART_VIEWS = ("data", "fitted", "lags", "window", "null")  # the Chart panel's tabs, in order
+
+
+def window_size(text: str) -> tuple[int, int]:
+    """"1280x800" (or "1280×800") as (width, height), each between 640 and 7680."""
+    parts = text.lower().replace("×", "x").split("x")
+    try:
+        width, height = (int(p) for p in parts)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"size must look like 1280x800, not {text!r}") from None
+    if not (640 <= width <= 7680 and 480 <= height <= 4320):
+        raise argparse.ArgumentTypeError(f"size {width}x{height} is outside 640x480 to 7680x4320")
+    return width, height
 
 
 class _Parser(argparse.ArgumentParser):
@@ -29,6 +44,10 @@ def parse(argv: list[str]) -> argparse.Namespace:
                      description="Save a picture of the window after analysing a workbook.")
     parser.add_argument("file", nargs="?", help="workbook to open (default: the demo workbook)")
     parser.add_argument("--out", required=True, help="PNG file to write")
+    parser.add_argument("--size", type=window_size, default=(WIDTH, HEIGHT), metavar="WxH",
+                        help=f"window size in pixels (default {WIDTH}x{HEIGHT})")
+    parser.add_argument("--chart", choices=CHART_VIEWS, default="data",
+                        help="the chart view to show (default: data)")
     parser.add_argument("--timeout", type=float, default=600.0, help=argparse.SUPPRESS)
     return parser.parse_args(argv)
 
@@ -46,10 +65,12 @@ def main(argv: list[str]) -> int:
         print(f"tauscope snapshot: {source} does not exist.", file=sys.stderr)
         return 3
     with tempfile.TemporaryDirectory(prefix="tauscope-snapshot-") as settings_dir:
-        return _snapshot(source, Path(args.out), settings_dir, args.timeout)
+        return _snapshot(source, Path(args.out), settings_dir, args.timeout, args.size,
+                         CHART_VIEWS.index(args.chart))
 
 
-def _snapshot(source: Path, out: Path, settings_dir: str, timeout: float) -> int:
+def _snapshot(source: Path, out: Path, settings_dir: str, timeout: float,
+              size: tuple[int, int] = (WIDTH, HEIGHT), chart: int = 0) -> int:
     from PySide6.QtCore import QElapsedTimer, QSettings, QThread
     from PySide6.QtWidgets import QApplication
 
@@ -66,7 +87,8 @@ def _snapshot(source: Path, out: Path, settings_dir: str, timeout: float) -> int
     app = prepare_application([])
     apply_appearance(app, "light")
     window = MainWindow()
-    window.resize(WIDTH, HEIGHT)
+    window.prompts.ask_save_changes = lambda _name: "discard"  # a picture, not a study
+    window.resize(*size)
     window.show()
     window.add_workbook(workbook)
     QApplication.processEvents()
@@ -86,6 +108,7 @@ def _snapshot(source: Path, out: Path, settings_dir: str, timeout: float) -> int
         window.series_panel.view.clearSelection()
         window.select_series(first)
         window.findings_panel.view.expand(window.findings_panel.proxy.index(0, 0))
+    window.chart_panel.tabs.setCurrentIndex(chart)
     _settle(app, 3000, window)
     picture = window.grab()
     out.parent.mkdir(parents=True, exist_ok=True)

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from tauscope.engine import formatting as fmt
+from tauscope.engine.reading.words import decision_word
 
 STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z", "kpss": "KPSS",
                      "adf": "τ", "pp": "Zτ", "dfgls": "τ-GLS", "za": "ZA"}
@@ -46,21 +47,12 @@ SPEC_NAMES = {"trend": "constant and trend", "constant": "constant only",
 SPEC_SHORT = {"trend": "trend", "constant": "constant", "none": "no terms"}
 LAG_RULE_SHORT = {"aic": "AIC", "bic": "BIC", "hqc": "HQC", "tsig": "t-sig", "maic": "MAIC",
                   "fixed": "fixed"}
-AGREEMENT_WORDS = {"confirmed": "agrees", "conflict": "disagrees", "inconclusive": "unclear",
-                   None: "not run"}
-AGREEMENT_TIPS = {
-    "confirmed": "The cross-checks point the same way as the verdict.",
-    "conflict": "The cross-checks point the other way: treat the verdict with care.",
-    "inconclusive": "The cross-checks neither clearly support nor contradict the verdict.",
-    None: "No cross-check was run (see Settings).",
-}
-
 GUIDE_HINT = "\nPress F1 for the guide's section on this."
 
 
 def decision_text(decision: str) -> str:
     """The engine's decision in the window's words (never "accept")."""
-    return "rejected" if decision == "reject" else "not rejected"
+    return decision_word(decision)
 
 
 def statistic_text(statistic_name: str, value: float | None) -> str:
@@ -68,8 +60,15 @@ def statistic_text(statistic_name: str, value: float | None) -> str:
 
 
 def lag_text(lags: int, rule: str) -> str:
-    rule_text = LAG_RULE_SHORT.get(rule, rule.upper()) if rule else ""
-    return f"{lags} ({rule_text})" if rule_text else str(lags)
+    """The lag order (or bandwidth) and, in a word, the rule that chose it, e.g. "4 (AIC)",
+    "6 (auto)" for an automatic bandwidth; the cell's tooltip names the rule in full."""
+    if not rule:
+        return str(lags)
+    short = LAG_RULE_SHORT.get(rule) or LAG_RULE_SHORT.get(rule.lower())
+    if short is None:
+        words = rule.lower()
+        short = "auto" if "automatic" in words else "fixed" if "fixed" in words else ""
+    return f"{lags} ({short})" if short else str(lags)
 
 
 def where_text(difference: int, spec: str) -> str:

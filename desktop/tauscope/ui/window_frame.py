@@ -57,7 +57,8 @@ def settings_summary(settings: Settings) -> str:
 
 
 class WindowFrame(QMainWindow):
-    """Series (left), Chart and Reading (top right), Findings (bottom right), status bar."""
+    """Series, Chart and Reading side by side at the top, the Findings across the window
+    below them, the status bar."""
 
     def __init__(self, settings: Settings) -> None:
         super().__init__()
@@ -74,15 +75,15 @@ class WindowFrame(QMainWindow):
         self.chart_box = _panel("Chart", self.chart_panel)
         self.reading_box = _panel("Reading", self.reading_panel)
         self.findings_box = _panel("Findings", self.findings_panel)
+        # Series, Chart and Reading side by side; the Findings below across the whole width
+        # (its columns need it: verdicts, null hypotheses and numbers, all readable).
         self.top_splitter = QSplitter(Qt.Orientation.Horizontal)
+        self.top_splitter.addWidget(self.series_box)
         self.top_splitter.addWidget(self.chart_box)
         self.top_splitter.addWidget(self.reading_box)
-        self.right_splitter = QSplitter(Qt.Orientation.Vertical)
-        self.right_splitter.addWidget(self.top_splitter)
-        self.right_splitter.addWidget(self.findings_box)
-        self.outer_splitter = QSplitter(Qt.Orientation.Horizontal)
-        self.outer_splitter.addWidget(self.series_box)
-        self.outer_splitter.addWidget(self.right_splitter)
+        self.outer_splitter = QSplitter(Qt.Orientation.Vertical)
+        self.outer_splitter.addWidget(self.top_splitter)
+        self.outer_splitter.addWidget(self.findings_box)
         for splitter in self._splitters():
             splitter.setChildrenCollapsible(False)
         self.setCentralWidget(self.outer_splitter)
@@ -92,13 +93,23 @@ class WindowFrame(QMainWindow):
         QWidget.setTabOrder(self.chart_panel.tabs, self.reading_panel.browser)
         QWidget.setTabOrder(self.reading_panel.browser, self.findings_panel.view)
 
-    def _splitters(self) -> tuple[QSplitter, QSplitter, QSplitter]:
-        return (self.outer_splitter, self.right_splitter, self.top_splitter)
+    def _splitters(self) -> tuple[QSplitter, QSplitter]:
+        return (self.outer_splitter, self.top_splitter)
 
     def _default_sizes(self) -> None:
-        self.outer_splitter.setSizes([356, 924])
-        self.right_splitter.setSizes([420, 310])
-        self.top_splitter.setSizes([560, 348])
+        """The Series as wide as its columns need at 1280 pixels (40%, at most 600), the Chart
+        as wide as its tabs need (or 38%), the Reading the rest; the top 57% of the height
+        for them, the Findings the rest; and fitted column widths."""
+        width = max(self.width(), 1000)
+        central = self.centralWidget()
+        height = max(central.height() if central is not None else 0, 560)
+        series = min(max(int(width * 0.40), 420), 600)
+        chart = max(self.chart_panel.tabs.tabBar().sizeHint().width() + 12, int(width * 0.38))
+        self.top_splitter.setSizes([series, chart, max(width - series - chart, 240)])
+        top = int(height * 0.57)
+        self.outer_splitter.setSizes([top, height - top])
+        for fitter in (self.series_panel.columns, self.findings_panel.columns):
+            fitter.reset()
 
     def _build_status_bar(self, settings: Settings) -> None:
         bar = self.statusBar()
@@ -122,6 +133,7 @@ class WindowFrame(QMainWindow):
             self.restoreGeometry(geometry)
         else:
             self.resize(1280, 800)
+            self._default_sizes()
         states = store.get_value(store.KEY_SPLITTERS)
         if isinstance(states, list) and len(states) == len(self._splitters()):
             for splitter, state in zip(self._splitters(), states, strict=True):
@@ -130,11 +142,17 @@ class WindowFrame(QMainWindow):
         window_state = store.get_value(store.KEY_STATE)
         if isinstance(window_state, QByteArray):
             self.restoreState(window_state)
+        columns = store.get_value(store.KEY_COLUMNS)
+        if isinstance(columns, list) and len(columns) == 2:
+            self.series_panel.columns.restore(columns[0])
+            self.findings_panel.columns.restore(columns[1])
 
     def save_window_state(self) -> None:
         store.set_value(store.KEY_GEOMETRY, self.saveGeometry())
         store.set_value(store.KEY_STATE, self.saveState())
         store.set_value(store.KEY_SPLITTERS, [s.saveState() for s in self._splitters()])
+        store.set_value(store.KEY_COLUMNS, [self.series_panel.columns.state() or QByteArray(),
+                                            self.findings_panel.columns.state() or QByteArray()])
 
     def showEvent(self, event: Any) -> None:
         super().showEvent(event)

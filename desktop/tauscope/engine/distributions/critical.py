@@ -8,7 +8,8 @@
 * Φ1, Φ2, Φ3: Dickey, D.A. & Fuller, W.A. (1981), "Likelihood Ratio
   Statistics for Autoregressive Time Series with a Unit Root", Econometrica
   49(4), Tables IV-VI, interpolated linearly in 1/n between the tabulated
-  sample sizes (so the value moves monotonically between table rows).
+  sample sizes (so the value moves monotonically between table rows); below the
+  table's n = 25, simulated at the regression's own size.
 * Standard normal values for the steps where a drift or trend makes the
   statistic asymptotically normal (West 1988).
 """
@@ -20,6 +21,8 @@ import math
 import numpy as np
 from scipy import special
 from statsmodels.tsa.adfvalues import mackinnoncrit, mackinnonp
+
+from tauscope.engine.distributions.small_sample import SMALLEST, small_sample_phi_values
 
 SPEC_CODES = {"trend": "ct", "constant": "c", "none": "n"}
 LEVELS = ("1%", "5%", "10%")
@@ -84,10 +87,14 @@ def tau_p_value(statistic: float, spec: str) -> float:
 def phi_critical_value(name: str, nobs: float, alpha: float) -> float:
     """Dickey & Fuller (1981) critical value of Φ1/Φ2/Φ3 at sample size ``nobs``.
 
-    Linear interpolation in 1/n between tabulated sizes; below n = 25 the
-    n = 25 entry is used (the table does not go lower).
+    Linear interpolation in 1/n between tabulated sizes; below n = 25, where the
+    table stops, the value simulated at this size
+    (:mod:`tauscope.engine.distributions.small_sample`).
     """
-    column = _PHI_ALPHAS.index(_alpha_key(alpha))
+    key = _alpha_key(alpha)
+    if SMALLEST <= nobs < _PHI_SIZES[0]:
+        return small_sample_phi_values(name, int(nobs))[f"{round(key * 100):d}%"]
+    column = _PHI_ALPHAS.index(key)
     table = PHI_TABLES[name]
     inverse_sizes = np.array([1.0 / n for n in _PHI_SIZES])  # decreasing, ends at 0
     values = np.array([row[column] for row in table])

@@ -60,7 +60,7 @@ def analyse_series(values: Any, settings: Settings | None = None, name: str = "s
         return failed(name, plan, _computation_failed(name, exc))
     if path == "fast":
         return analyse_prepared(prepared, plan, name,
-                                SeriesBatch([prepared.values], plan.estimate).estimation(0))
+                                SeriesBatch([prepared.standardised], plan.estimate).estimation(0))
     return analyse_prepared(prepared, plan, name, REFERENCE)
 
 

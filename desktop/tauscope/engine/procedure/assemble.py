@@ -14,6 +14,7 @@ from typing import Any
 import numpy as np
 import pandas as pd
 
+from tauscope.engine.procedure.breaks import fitted_under_break
 from tauscope.engine.procedure.stages import Reading
 from tauscope.engine.results import SeriesResult, TestResult
 
@@ -51,10 +52,24 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         lag_profile_difference=deciding.difference,
         span=(prepared.label(0), prepared.label(x.shape[0] - 1)),
         values=pd.Series(x, index=index, name=name),
-        fitted=fitted_deterministic(x, decision.order, decision.deterministic),
+        fitted=fitted_under_break(x, checked.breaks)
+        if checked.breaks is not None and checked.breaks.stationary_with_break
+        else _fitted_in_units(prepared.standardised, prepared.scale, decision.order,
+                              decision.deterministic),
         evidence=reading.evidence,
         classic=reading.classic,
+        breaks=checked.breaks,
     )
+
+
+def _fitted_in_units(z: np.ndarray, scale: float, order: int | None,
+                     deterministic: str | None) -> np.ndarray | None:
+    """The fitted path computed on y / s (no overflow near ±1e308) and multiplied back."""
+    fitted = fitted_deterministic(z, order, deterministic)
+    if fitted is None:
+        return None
+    with np.errstate(over="ignore"):  # a fitted value beyond the float range draws as inf
+        return np.asarray(fitted * scale)
 
 
 def fitted_deterministic(x: np.ndarray, order: int | None, deterministic: str | None) -> np.ndarray | None:

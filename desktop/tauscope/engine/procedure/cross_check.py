@@ -9,12 +9,15 @@
   with one break (Zivot & Andrews 1992);
 * the power of the deciding ADF test against AR(1) coefficients 0.90 and 0.95 at this
   sample size, and τ on an expanding window;
-* τ of the deciding regression for every lag order (the lag profile).
+* τ of the deciding regression for every lag order (the lag profile);
+* the break check (:mod:`tauscope.engine.procedure.breaks`): when a break is suspected,
+  the minimum LM test with one level shift (Lee & Strazicich 2013).
 """
 
 from __future__ import annotations
 
 from collections.abc import Sequence
+from dataclasses import replace
 
 import numpy as np
 import pandas as pd
@@ -25,6 +28,7 @@ from tauscope.engine.distributions.simulate import (
     DEFAULT_REPS,
     DEFAULT_SEED,
     EXACT_REPS,
+    P_VALUE_REPS,
     empirical_p_value,
     exact_critical_values,
     null_distribution,
@@ -32,6 +36,7 @@ from tauscope.engine.distributions.simulate import (
 )
 from tauscope.engine.distributions.tables import tau_critical_value
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.procedure.breaks import check_breaks
 from tauscope.engine.procedure.stages import (
     EXTRA_TESTS,
     CrossCheck,
@@ -64,7 +69,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     """KPSS, the extra evidence and the lag profile for a decided series."""
     estimates = decision.estimates
     prepared = estimates.prepared
-    x = prepared.values
+    x = prepared.standardised  # y / s (exact); the statistics do not depend on s
     order, deterministic = decision.order, decision.deterministic
     checks: list[tuple[TestResult, bool]] = []
     kpss_problem: str | None = None
@@ -81,11 +86,32 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
         za_lags=estimates.levels[settled].adf["trend"].lags, break_model=options.break_model,
         critical_values=options.critical_values, power=options.power,
     )
+    extra = _in_units(extra, prepared.scale)
     spec, difference, max_lags = decision.profile_request
     decisive_x = np.diff(x, n=difference) if difference else x
     profile = _with_alpha(estimation.lag_profile(decisive_x, spec, difference, max_lags),
                           decisive_x, spec, options.alpha)
-    return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile)
+    level_adf = estimates.levels[0].adf
+    breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, level_adf["trend"].lags,
+                          options.alpha)
+    return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks)
+
+
+def _in_units(extra: ExtraEvidence, scale: float) -> ExtraEvidence:
+    """The few numbers of the extra evidence that carry the series' unit, put back:
+    the Phillips-Perron variances (× s²) and the GLS-detrended series (× s)."""
+    if scale == 1.0:
+        return extra
+    pp, gls = extra.phillips_perron, extra.dfgls
+    with np.errstate(over="ignore"):  # a detrended value beyond the float range reads as inf
+        detrended = None if gls is None else gls.detrended * scale
+    return replace(
+        extra,
+        phillips_perron=None if pp is None else replace(
+            pp, short_run_variance=pp.short_run_variance * scale * scale,
+            long_run_variance=pp.long_run_variance * scale * scale),
+        dfgls=None if gls is None or detrended is None else replace(gls, detrended=detrended),
+    )
 
 
 def kpss_checks(x: np.ndarray, order: int | None, deterministic: str | None,
@@ -198,14 +224,14 @@ def extra_evidence(
         try:
             pp, pp_details = pp_test(xd, spec, alpha, d)
             if critical_values == "exact":
-                draws = null_distribution(spec, pp.nobs, exact_reps, seed)
+                draws = null_distribution(spec, pp.nobs, min(exact_reps, P_VALUE_REPS), seed)
                 cv = exact_critical_values(spec, pp.nobs, reps=exact_reps, seed=seed)
                 p_value, bound = empirical_p_value(pp.statistic, draws)
                 level = fmt.percent(alpha)
                 pp = TestResult(pp.test, pp.spec, pp.difference, pp.statistic, p_value, pp.lags,
                                 pp.nobs, cv, bool(pp.statistic < cv[level]), cv[level],
                                 reportable_bound(p_value, bound), pp.lag_rule)
-                z_alpha_cv = z_alpha_critical_values(spec, pp.nobs, exact_reps, seed)
+                z_alpha_cv = z_alpha_critical_values(spec, pp.nobs, min(exact_reps, P_VALUE_REPS), seed)
             results.append(pp)
         except _FAILURES as exc:
             problems.append(f"The Phillips-Perron test could not be computed ({exc}).")

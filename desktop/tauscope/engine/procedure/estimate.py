@@ -5,7 +5,9 @@ of :mod:`tauscope.engine.regression.lagchoice`), τ is estimated on the longest 
 for that lag (Said & Dickey 1984; MacKinnon 2010 critical values) and Φ1, Φ2, Φ3 are
 computed on the same sample and lags (Dickey & Fuller 1981).  The fast path estimates
 each level for a whole batch of series of one length at once.  With exact critical
-values every τ and Φ is judged against its null simulated at its own size.  When the
+values every τ and Φ is judged against its null simulated at its own size.  The regressions
+see the standardised series (:mod:`tauscope.engine.regression.scaling`); their numbers are
+put back in the series' units (:mod:`tauscope.engine.procedure.units`).  When the
 union of rejections decides, it is computed here too, for all series of one length at
 once on the fast path (:mod:`tauscope.engine.procedure.union_estimate`).
 """
@@ -20,6 +22,7 @@ from tauscope.engine.distributions.simulate import with_exact_values
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.procedure.prepare import PreparedSeries
 from tauscope.engine.procedure.stages import EstimateOptions, Estimates, Estimation
+from tauscope.engine.procedure.units import level_in_units
 from tauscope.engine.regression.design import max_lag_cap, schwert_max_lag
 from tauscope.engine.results import LevelTests
 
@@ -44,7 +47,7 @@ def max_lags_for(n: int, options: EstimateOptions) -> tuple[int, tuple[int, int]
 
 def estimate(prepared: PreparedSeries, options: EstimateOptions, estimation: Estimation) -> Estimates:
     """The tests on Δ^d y for d = max_difference … 0 (Dickey & Pantula 1987 order)."""
-    x = prepared.values
+    x = prepared.standardised  # y / s (exact): the regressions' numbers are put back in units below
     levels: dict[int, LevelTests] = {}
     max_lags: dict[int, int] = {}
     reduced: tuple[int, int] | None = None
@@ -58,7 +61,8 @@ def estimate(prepared: PreparedSeries, options: EstimateOptions, estimation: Est
         max_lags[d], cut = max_lags_for(xd.shape[0], options)
         if d == 0:
             reduced = cut
-        levels[d] = _judged(estimation.level_tests(xd, d, options, max_lags[d]), options)
+        level = estimation.level_tests(xd, d, options, max_lags[d])
+        levels[d] = _judged(level_in_units(level, prepared.scale), options)
     union = None
     if options.union:
         union = estimation.union(x, options)

@@ -65,12 +65,13 @@ class LevelBatch:
     difference: int
     max_lags: int
     n: int
-    first_rows: np.ndarray  # (B, p, K+1): the rows before the common sample
+    first_rows: np.ndarray  # (B, p, K+1): the rows before the common sample (full design)
     common: dict[str, np.ndarray]
     choices: dict[str, list[LagChoice]]
     estimates: dict[str, Estimates]
     phi: dict[str, np.ndarray]
     declined: np.ndarray  # (B,) bool: the reference path must take these
+    centres: np.ndarray  # (B,): y(t−1) is measured from these in the specs with a constant
 
 
 def _sanitise(a: np.ndarray, declined: np.ndarray) -> np.ndarray:
@@ -111,21 +112,27 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
     nobs = n - 1 - p
     if nobs <= k:
         raise NeedsReference
-    design = full_design(xs, p)
+    centres = xs.mean(axis=1)
+    design = full_design(xs, p, centres)
     rows = design[:, p:, :]
     a_trend = r_factor(rows)
     y_sq = np.einsum("bi,bi->b", rows[:, :, k], rows[:, :, k])
     declined = ~np.isfinite(a_trend).all(axis=(1, 2))
     declined |= a_trend[:, k, k] ** 2 < MIN_RSS_SHARE * np.maximum(1.0, y_sq)
-    norms = column_norms(rows)
+    # Without a constant y(t−1) enters as it is: X = X_c + m·1·e_y' gives R = R_c + m·R_c[:, 0]e_y'.
+    a_level = a_trend.copy()
+    a_level[:, :, Y_LAG] += centres[:, None] * a_trend[:, :, 0]
+    norms = {id(a_trend): column_norms(a_trend), id(a_level): column_norms(a_level)}
     common: dict[str, np.ndarray] = {}
     first_rows: dict[str, np.ndarray] = {}
     for spec in SPECS:
         order = [*spec_order(spec, p), k]
-        first_rows[spec] = design[:, :p, order]
-        common[spec] = a_trend if spec == "trend" else r_factor(a_trend[:, :, order])
+        source, rows_in = (a_level, _uncentred_rows(design[:, :p, :], centres)) if spec == "none" \
+            else (a_trend, design[:, :p, :])
+        first_rows[spec] = rows_in[:, :, order]
+        common[spec] = a_trend if spec == "trend" else r_factor(source[:, :, order])
         used = order[:len(DETERMINISTIC_TERMS[spec]) + 1 + p]
-        declined |= column_share(common[spec], norms[:, used]) < MIN_COLUMN_SHARE
+        declined |= column_share(common[spec], norms[id(source)][:, used]) < MIN_COLUMN_SHARE
     common = {spec: _sanitise(a, declined) for spec, a in common.items()}
 
     rule = options.lag_rule
@@ -137,7 +144,7 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
             continue
         fits = block_fits(common[spec], len(DETERMINISTIC_TERMS[spec]), p, nobs)
         if rule == "maic":
-            values, maic_declined = _maic(xs, spec, p, fits, rows[:, :, Y_LAG])
+            values, maic_declined = _maic(xs, spec, p, fits, rows[:, :, Y_LAG] + centres[:, None])
             declined |= maic_declined
         elif rule in ("aic", "bic", "hqc"):
             values = criterion_values(fits, rule, nobs)
@@ -150,14 +157,21 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
     for spec in SPECS:
         lags = np.array([c.lag for c in choices[spec]], dtype=int)
         est = longest_sample(common[spec], first_rows[spec],
-                             len(DETERMINISTIC_TERMS[spec]), lags, n - 1)
+                             len(DETERMINISTIC_TERMS[spec]), lags, n - 1, centres)
         declined |= ~(np.isfinite(est.params).all(axis=1) & np.isfinite(est.bse).all(axis=1))
         estimates[spec] = est
     phi = {name: restricted_rss(estimates[PHI_SPEC[name]], name, p) for name in PHI_NAMES}
     for values in phi.values():
         declined |= ~np.isfinite(values)
-    return LevelBatch(difference, p, n, first_rows["trend"], common, choices, estimates, phi,
-                      declined)
+    return LevelBatch(difference, p, n, design[:, :p, :].copy(), common, choices, estimates, phi,
+                      declined, centres)
+
+
+def _uncentred_rows(rows: np.ndarray, centres: np.ndarray) -> np.ndarray:
+    """Design rows (B, M, K+1) with y(t−1) back to its own level."""
+    out = rows.copy()
+    out[:, :, Y_LAG] += centres[:, None]
+    return out
 
 
 def _maic(xs: np.ndarray, spec: str, p: int, fits: BlockFits,
@@ -171,7 +185,7 @@ def _maic(xs: np.ndarray, spec: str, p: int, fits: BlockFits,
         lag_column = y_lag
     else:
         columns = [*range(Y_LAG, Y_LAG + 1 + p), p + 3]
-        rows = full_design(detrended(xs, spec), p)[:, p:, columns]
+        rows = full_design(detrended(xs - xs.mean(axis=1)[:, None], spec), p)[:, p:, columns]
         a = r_factor(rows)
         declined |= ~np.isfinite(a).all(axis=(1, 2))
         declined |= column_share(a, column_norms(rows[:, :, :p + 1])) < MIN_COLUMN_SHARE
@@ -345,5 +359,8 @@ class SeriesBatch:
         # well conditioned.
         level = self.level(difference, max_lags)
         order = [*spec_order(spec, max_lags), max_lags + 3]
-        return profile_tau(level.common[spec][indices], level.first_rows[indices][:, :, order],
+        first = level.first_rows[indices]
+        if spec == "none":
+            first = _uncentred_rows(first, level.centres[indices])
+        return profile_tau(level.common[spec][indices], first[:, :, order],
                            len(DETERMINISTIC_TERMS[spec]), level.n - 1)

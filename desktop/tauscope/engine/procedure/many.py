@@ -147,4 +147,4 @@ def _finish_one(item: PreparedSeries, plan: Plan, name: str,
 
 def _values(item: PreparedSeries | None) -> np.ndarray:
     assert item is not None
-    return item.values
+    return item.standardised

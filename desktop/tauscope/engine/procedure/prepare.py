@@ -3,12 +3,14 @@
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import cached_property
 from typing import Any
 
 import numpy as np
 import pandas as pd
 
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.regression.scaling import power_of_two_scale, scaled
 
 MIN_OBSERVATIONS = 12
 # Largest magnitude accepted: the regressions square and cross-multiply the values (and
@@ -25,6 +27,16 @@ class PreparedSeries:
     index: pd.Index | None
     leading_trimmed: int
     trailing_trimmed: int
+
+    @cached_property
+    def scale(self) -> float:
+        """The power of two the regressions divide the values by (the regression.scaling module)."""
+        return power_of_two_scale(self.values)
+
+    @cached_property
+    def standardised(self) -> np.ndarray:
+        """values / scale: exact, with changes of order 1, safe from overflow."""
+        return scaled(self.values, self.scale)
 
     def label(self, position: int) -> str:
         """A readable name for observation ``position`` (0-based, after trimming)."""
@@ -98,6 +110,6 @@ def prepare(values: Any) -> PreparedSeries:
         raise UntestableSeries(
             f"it has only {trimmed.size} observations; at least {MIN_OBSERVATIONS} are needed"
         )
-    if np.ptp(trimmed) == 0:
+    if trimmed.min() == trimmed.max():  # np.ptp would overflow near ±1e308
         raise UntestableSeries("it is constant, so there is nothing to test")
     return prepared

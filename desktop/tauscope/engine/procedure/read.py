@@ -17,6 +17,7 @@ from tauscope.engine.procedure.stages import (
     Reading,
     ReadOptions,
 )
+from tauscope.engine.reading.breaks import agreement_under_break, capped_agreement, verdict_under_break
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
 from tauscope.engine.reading.grade import grade
 from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
@@ -46,13 +47,16 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
     status = evidence.agreement if evidence.tests else kpss_status
     strategy_notes: list[str] = []
     classic: ClassicVerdict | None = None
+    breaks = checked.breaks  # a verdict given under a break replaces the one without (reading/breaks.py)
     if decision.strategy == "union":
         status, classic, strategy_notes = _union_reading(checked, evidence, options)
-    verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
-                            options.max_difference)
-    verdict = replace(verdict, strategy=decision.strategy)
+        status = capped_agreement(status, breaks)
+    sequence_verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
+                                     options.max_difference)
+    sequence_verdict = replace(sequence_verdict, strategy=decision.strategy)
     if decision.strategy == "classic" and decision.weak:
-        verdict = _weak(verdict, decision, options.alpha)
+        sequence_verdict = _weak(sequence_verdict, decision, options.alpha)
+    verdict = verdict_under_break(sequence_verdict, breaks, options.alpha)
     deciding = decision.deciding
     x = prepared.values
     ctx = NoteContext(
@@ -66,13 +70,15 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
         alpha=options.alpha,
         max_lags_reduced=estimates.reduced,
         trimmed=(prepared.leading_trimmed, prepared.trailing_trimmed),
-        agreement_text=agreement_note(order, kpss_status, checks, options.alpha,
-                                      kpss_only=decision.strategy != "classic") or checked.kpss_problem,
+        agreement_text=agreement_under_break(
+            sequence_verdict,
+            agreement_note(order, kpss_status, checks, options.alpha, kpss_only=decision.strategy != "classic")
+            or checked.kpss_problem, breaks),
         jump_at=_jump_label(prepared),
-        seasonal_lag=seasonal_pattern(x, prepared.periods_per_year),
+        seasonal_lag=seasonal_pattern(prepared.standardised, prepared.periods_per_year),
         level_sequence_tests=3,
-        evidence_notes=evidence.notes,
-        break_checked=evidence.break_info is not None,
+        evidence_notes=evidence.notes + ((breaks.sentence,) if breaks is not None and breaks.sentence else ()),
+        break_checked=evidence.break_info is not None or (breaks is not None and breaks.test is not None),
     )
     notes = build_notes(ctx)
     return Reading(checked, verdict, evidence, (*notes[:1], *strategy_notes, *notes[1:]), classic)
@@ -88,7 +94,8 @@ def _union_reading(checked: CrossCheck, evidence: Evidence,
     assert row is not None and classic is not None
     order, deterministic = decision.order, decision.deterministic
     nobs = int(decision.estimates.prepared.values.shape[0])
-    found = evidence.break_info is not None and evidence.break_info.reject
+    found = (evidence.break_info is not None and evidence.break_info.reject) or (
+        checked.breaks is not None and checked.breaks.suspected)
     graded = grade(order, deterministic, list(checked.kpss), classic.order, row.orders_at,
                    row.long_lag_order, row.power, nobs, found)
     block = ClassicVerdict(classic.order, classic.deterministic,
@@ -128,7 +135,7 @@ def read_evidence(extra: ExtraEvidence, order: int | None, kpss: Sequence[TestRe
 
 
 def _jump_label(prepared: PreparedSeries) -> str | None:
-    position = find_jump(prepared.values)
+    position = find_jump(prepared.standardised)  # scale-free; no overflow near 1e308
     if position is None:
         return None
     return f"{prepared.label(position)} (from {prepared.label(position - 1)})"

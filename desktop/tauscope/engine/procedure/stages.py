@@ -43,6 +43,7 @@ from tauscope.engine.results import (
     Verdict,
 )
 from tauscope.engine.results_strategy import ClassicVerdict
+from tauscope.engine.results_breaks import BreakCheck
 from tauscope.engine.settings import Settings
 
 EXTRA_TESTS = ("pp", "dfgls", "za")
@@ -194,13 +195,14 @@ class ExtraEvidence:
 @dataclass(frozen=True)
 class CrossCheck:
     """KPSS checks as (result, whether the verdict expects it to reject), the extra
-    evidence, and τ of the deciding regression for every lag order."""
+    evidence, τ of the deciding regression for every lag order, and the break check."""
 
     decision: Decision
     kpss: tuple[tuple[TestResult, bool], ...]
     kpss_problem: str | None
     extra: ExtraEvidence
     lag_profile: tuple[LagPoint, ...]
+    breaks: BreakCheck | None = None  # the break check (procedure/breaks.py)
 
 
 @dataclass(frozen=True)

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from tauscope.engine import formatting as fmt
+from tauscope.engine.reading.words import cross_check_word
 from tauscope.engine.results import TestResult, Verdict
 
 _I0 = {
@@ -113,23 +114,24 @@ def _agreement_note(
             f"p {fmt.p_value(test.p_value, test.p_value_bound)})"
         )
     detail = "; ".join(parts)
+    word = cross_check_word(status)  # the same word as the window's Cross-check column
     if status == "confirmed":
-        return f"Cross-check confirmed: {detail}. Both kinds of test point the same way."
+        return f"Cross-check {word}: {detail}. Both kinds of test point the same way."
     if status == "inconclusive" and order is None:
         return f"Cross-check: {detail}. With the order unresolved, the cross-check cannot confirm anything."
     if status == "inconclusive":
         return (
-            f"Cross-check inconclusive: {detail}. The stationarity test agrees with the verdict on one "
+            f"Cross-check {word}: {detail}. The stationarity test agrees with the verdict on one "
             "difference but not on the other; read the verdict as tentative."
         )
     if order == 0:
         return (
-            f"Cross-check in conflict: {detail}. Both tests reject their null; this often means a break "
+            f"Cross-check {word}: {detail}. Both tests reject their null; this often means a break "
             "in level or trend, a slowly changing mean, or long memory, and the verdict should be read "
             "with care."
         )
     return (
-        f"Cross-check in conflict: {detail}. Neither test rejects its null; the data cannot tell a unit "
+        f"Cross-check {word}: {detail}. Neither test rejects its null; the data cannot tell a unit "
         "root from a persistent stationary process, which is common over a short span or with a "
         "root close to one."
     )

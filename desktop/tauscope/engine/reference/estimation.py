@@ -11,6 +11,7 @@ from tauscope.engine.procedure.stages import EstimateOptions
 from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
 from tauscope.engine.regression.design import SPECS
 from tauscope.engine.regression.lagchoice import choose_lag
+from tauscope.engine.regression.scaling import level_centre
 from tauscope.engine.results import LagPoint, LevelTests, TestResult
 from tauscope.engine.unitroot.adf import adf_test, estimate
 from tauscope.engine.unitroot.kpss import kpss_test
@@ -18,11 +19,13 @@ from tauscope.engine.unitroot.phi import phi_test
 
 
 def level_tests(x: np.ndarray, difference: int, options: EstimateOptions, max_lags: int) -> LevelTests:
-    """ADF for the three specs with the lag the rule chooses, and Φ1, Φ2, Φ3, on Δ^d y = x."""
+    """ADF for the three specs with the lag the rule chooses, and Φ1, Φ2, Φ3, on Δ^d y = x
+    (with a constant, y(t−1) measured from its mean: :mod:`tauscope.engine.regression.scaling`)."""
     adf: dict[str, TestResult] = {}
     for spec in SPECS:
-        choice = choose_lag(x, spec, options.lag_rule, max_lags, options.lags)
-        adf[spec] = adf_test(estimate(x, spec, choice.lag, difference, choice), options.alpha)
+        centre = level_centre(x, spec)
+        choice = choose_lag(x, spec, options.lag_rule, max_lags, options.lags, centre)
+        adf[spec] = adf_test(estimate(x, spec, choice.lag, difference, choice, centre), options.alpha)
     trend_reg, constant_reg = adf["trend"].regression, adf["constant"].regression
     assert trend_reg is not None and constant_reg is not None
     phi = {
@@ -36,8 +39,9 @@ def level_tests(x: np.ndarray, difference: int, options: EstimateOptions, max_la
 def lag_profile(x: np.ndarray, spec: str, difference: int, max_lags: int) -> tuple[LagPoint, ...]:
     """τ for every lag order 0…max on its longest sample, with the 5% critical value."""
     points = []
+    centre = level_centre(x, spec)
     for lag in range(max_lags + 1):
-        reg = estimate(x, spec, lag, difference)
+        reg = estimate(x, spec, lag, difference, centre=centre)
         critical = tables.tau_critical_value(spec, reg.nobs, 0.05)
         points.append(LagPoint(lag, reg.tau, critical, bool(reg.tau < critical)))
     return tuple(points)

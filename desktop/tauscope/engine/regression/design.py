@@ -28,14 +28,18 @@ def column_names(spec: str, lags: int) -> tuple[str, ...]:
 
 
 def adf_design(
-    x: np.ndarray, spec: str, lags: int, first: int | None = None
+    x: np.ndarray, spec: str, lags: int, first: int | None = None, centre: float = 0.0
 ) -> tuple[np.ndarray, np.ndarray]:
     """Response Δy_t and design for lag order ``lags``.
 
     ``first`` is the first usable row of Δy (default ``lags``: the longest
     sample for this lag order; pass the maximum lag to get the common sample
-    used when comparing lag orders, Ng & Perron 1995).
+    used when comparing lag orders, Ng & Perron 1995).  ``centre``: y(t−1) enters
+    as y(t−1) − centre (only with a constant, which then absorbs γ·centre; see
+    :mod:`tauscope.engine.regression.scaling`).
     """
+    if centre != 0.0 and spec == "none":
+        raise ValueError("only a regression with a constant can measure y(t-1) from a centre")
     start = lags if first is None else first
     if start < lags:
         raise ValueError("the sample cannot start before the lags are available")
@@ -46,7 +50,7 @@ def adf_design(
         columns.append(np.ones(rows.shape[0]))
     if spec == "trend":
         columns.append((rows + 1).astype(float))
-    columns.append(x[rows])
+    columns.append(x[rows] - centre if centre != 0.0 else x[rows])
     for i in range(1, lags + 1):
         columns.append(dx[rows - i])
     return dx[rows], np.column_stack(columns)

@@ -50,14 +50,17 @@ def detrend(x: np.ndarray, spec: str) -> np.ndarray:
     return np.asarray(x - z @ beta)
 
 
-def choose_lag(x: np.ndarray, spec: str, rule: str, max_lags: int, fixed: int | None = None) -> LagChoice:
+def choose_lag(x: np.ndarray, spec: str, rule: str, max_lags: int, fixed: int | None = None,
+               centre: float = 0.0) -> LagChoice:
+    """The lag order by ``rule``; ``centre`` as in :func:`adf_design` (the choice does
+    not depend on it)."""
     if rule == "fixed":
         lag = int(fixed if fixed is not None else 0)
         return LagChoice(rule, lag, max(lag, max_lags))
     if rule in ("aic", "bic", "hqc"):
         values = []
         for lag in range(max_lags + 1):
-            y, design = adf_design(x, spec, lag, first=max_lags)
+            y, design = adf_design(x, spec, lag, first=max_lags, centre=centre)
             values.append(fit(y, design).criterion(rule))
         best = min((v, k) for k, v in enumerate(values))[1]
         return LagChoice(rule, best, max_lags, tuple(values))
@@ -65,14 +68,14 @@ def choose_lag(x: np.ndarray, spec: str, rule: str, max_lags: int, fixed: int | 
         t_last: list[float] = [math.nan] * (max_lags + 1)
         chosen = 0
         for lag in range(max_lags, 0, -1):
-            y, design = adf_design(x, spec, lag, first=max_lags)
+            y, design = adf_design(x, spec, lag, first=max_lags, centre=centre)
             t_last[lag] = float(fit(y, design).tvalues[-1])
             if abs(t_last[lag]) >= TSIG_CRITICAL:
                 chosen = lag
                 break
         return LagChoice(rule, chosen, max_lags, tuple(t_last))
     if rule == "maic":
-        return _maic(x, spec, max_lags)
+        return _maic(x - centre if centre != 0.0 else x, spec, max_lags)
     raise ValueError(f"unknown lag rule {rule!r}")
 
 

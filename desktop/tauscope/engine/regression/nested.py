@@ -63,12 +63,13 @@ def spec_order(spec: str, p: int) -> list[int]:
     return [*terms, *range(Y_LAG, Y_LAG + 1 + p), *dropped]
 
 
-def full_design(xs: np.ndarray, p: int) -> np.ndarray:
+def full_design(xs: np.ndarray, p: int, centres: np.ndarray | None = None) -> np.ndarray:
     """Every row of Δy with the regressors and y last: shape (B, T−1, p + 4).
 
     Row r is Δy_{r+1} (r counts the differences from 0); lags that fall before the
     start are zero, and only models with at most r lags ever use row r.  The trend
-    is r + 1, as in :func:`tauscope.engine.regression.design.adf_design`.
+    is r + 1, as in :func:`tauscope.engine.regression.design.adf_design`.  With
+    ``centres`` (B,), y(t−1) is measured from them (as ``adf_design``'s ``centre``).
     """
     batch, n = xs.shape
     k = p + 3
@@ -77,7 +78,7 @@ def full_design(xs: np.ndarray, p: int) -> np.ndarray:
     columns = np.empty((batch, k + 1, n - 1))
     columns[:, 0, :] = 1.0
     columns[:, 1, :] = np.arange(1, n, dtype=float)
-    columns[:, Y_LAG, :] = xs[:, :-1]
+    columns[:, Y_LAG, :] = xs[:, :-1] if centres is None else xs[:, :-1] - centres[:, None]
     for i in range(1, p + 1):
         columns[:, Y_LAG + i, :i] = 0.0
         columns[:, Y_LAG + i, i:] = dx[:, :-i]
@@ -181,9 +182,13 @@ class Estimates:
 
 
 def longest_sample(a_common: np.ndarray, first_rows: np.ndarray, n_terms: int,
-                   lags: np.ndarray, n_rows: int) -> Estimates:
+                   lags: np.ndarray, n_rows: int, centres: np.ndarray | None = None) -> Estimates:
     """Lag ``lags[b]`` on its longest sample (rows lags[b]… of n_rows), by adding the
-    rows lags[b]…p−1 (``first_rows``, (B, p, K+1)) to the common-sample factor."""
+    rows lags[b]…p−1 (``first_rows``, (B, p, K+1)) to the common-sample factor.
+
+    ``centres``: y(t−1) entered measured from them; the constant is reported as for
+    y(t−1) itself, a0 = a0* − m·γ̂ with Var a0 = Var a0* + m² Var γ̂ − 2m Cov(a0*, γ̂),
+    the covariance σ̂² Σ_l (R⁻¹)_0l (R⁻¹)_γl (as OLSFit.uncentred)."""
     p = first_rows.shape[1]
     extra = first_rows * (np.arange(p)[None, :] >= lags[:, None])[:, :, None]
     a = r_factor(np.concatenate([a_common, extra], axis=1))
@@ -197,6 +202,11 @@ def longest_sample(a_common: np.ndarray, first_rows: np.ndarray, n_terms: int,
     rss = a[:, width, width] ** 2 + np.where(inside, 0.0, c * c).sum(axis=1)
     sigma2 = rss / (nobs - used)
     bse = np.sqrt(sigma2[:, None] * np.einsum("bij,bij->bi", r_inv, r_inv * inside[:, None, :]))
+    if centres is not None and n_terms > 0:
+        cov = sigma2 * np.einsum("bj,bj->b", r_inv[:, 0, :], r_inv[:, n_terms, :] * inside)
+        params[:, 0] = params[:, 0] - centres * params[:, n_terms]
+        variance = bse[:, 0] ** 2 + centres**2 * bse[:, n_terms] ** 2 - 2.0 * centres * cov
+        bse[:, 0] = np.sqrt(np.maximum(variance, 0.0))
     return Estimates(a, params, bse, rss, nobs, used)
 
 

@@ -27,6 +27,22 @@ class OLSFit:
     ssr: float
     nobs: int
     df_resid: int
+    cov: np.ndarray | None = None  # σ̂² (X'X)⁻¹
+
+    def uncentred(self, constant: int, gamma: int, centre: float) -> tuple[np.ndarray, np.ndarray]:
+        """(params, bse) of the same regression with y(t−1) measured from 0 instead of
+        ``centre``: a0 = a0* − centre·γ̂, Var a0 = Var a0* + centre² Var γ̂ − 2 centre
+        Cov(a0*, γ̂); every other coefficient is unchanged."""
+        params, bse = self.params.copy(), self.bse.copy()
+        if centre == 0.0:
+            return params, bse
+        assert self.cov is not None
+        cov = self.cov
+        params[constant] = params[constant] - centre * params[gamma]
+        variance = (cov[constant, constant] + centre * centre * cov[gamma, gamma]
+                    - 2.0 * centre * cov[constant, gamma])
+        bse[constant] = math.sqrt(max(float(variance), 0.0))
+        return params, bse
 
     @property
     def k(self) -> int:
@@ -64,8 +80,9 @@ def fit(y: np.ndarray, x: np.ndarray) -> OLSFit:
         )
     if np.linalg.matrix_rank(x) < k:
         raise UntestableSeries(
-            "the regression terms are linearly dependent (for example a series that is "
-            "constant or a straight line over the sample), so the test cannot be computed"
+            "the regression terms are linearly dependent: over much of the sample the series "
+            "does not move at random (it stays constant, changes in only a few observations or "
+            "repeats an exact pattern), so the test cannot be computed"
         )
     result = OLS(y, x).fit()
     ssr = float(result.ssr)
@@ -79,4 +96,5 @@ def fit(y: np.ndarray, x: np.ndarray) -> OLSFit:
         ssr=ssr,
         nobs=int(nobs),
         df_resid=int(nobs - k),
+        cov=np.asarray(result.cov_params(), dtype=float),
     )

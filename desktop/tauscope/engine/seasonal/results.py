@@ -4,16 +4,10 @@ window, the reports and the command line read these objects."""
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 from typing import Any
 
-
-def _num(value: float | None) -> float | None:
-    if value is None:
-        return None
-    value = float(value)
-    return value if math.isfinite(value) else None
+from tauscope.engine.finite import finite_or_none as _num
 
 
 @dataclass(frozen=True)

@@ -14,21 +14,26 @@ from tauscope.engine.distributions.critical import (
     tau_critical_values,
     tau_p_value,
 )
-from tauscope.engine.regression.design import adf_design, column_names
+from tauscope.engine.regression.design import adf_design, column_names, gamma_column
 from tauscope.engine.regression.lagchoice import LagChoice
 from tauscope.engine.regression.ols import fit
 from tauscope.engine.results import Coefficient, Regression, TestResult
 
 
 def estimate(x: np.ndarray, spec: str, lags: int, difference: int = 0,
-             choice: LagChoice | None = None) -> Regression:
-    """Estimate the ADF regression with ``lags`` lags on the longest sample."""
-    y, design = adf_design(x, spec, lags)
+             choice: LagChoice | None = None, centre: float = 0.0) -> Regression:
+    """Estimate the ADF regression with ``lags`` lags on the longest sample.
+
+    ``centre`` (specs with a constant): y(t−1) enters the regression measured from it,
+    which keeps the design well conditioned for a series far from zero; the constant
+    is reported as for y(t−1) itself (:meth:`OLSFit.uncentred`)."""
+    y, design = adf_design(x, spec, lags, centre=centre)
     result = fit(y, design)
+    params, bse = result.uncentred(0, gamma_column(spec), centre)
     names = column_names(spec, lags)
     coefficients = tuple(
         Coefficient(name, float(b), float(se), float(b / se))
-        for name, b, se in zip(names, result.params, result.bse, strict=True)
+        for name, b, se in zip(names, params, bse, strict=True)
     )
     return Regression(
         spec=spec,

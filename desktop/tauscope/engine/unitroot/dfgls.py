@@ -17,13 +17,14 @@ the lag chosen on the OLS-detrended series (Perron, P. & Qu, Z. 2007,
 Economics Letters 94); the other rules of :mod:`tauscope.engine.regression.lagchoice`
 work the same way.
 
-Critical values: constant case, the Dickey-Fuller values without deterministic
-terms (ERS 1996 show the limit law is the same; MacKinnon 2010 finite-sample
-values via statsmodels); trend case, ERS (1996) Table 1, interpolated linearly
-in 1/T between T = 50, 100, 200 and ∞.  P-values: constant case, MacKinnon's
-response surface for τ without deterministic terms; trend case, the share of
-a simulated null distribution at the same T at or below the statistic.
-Optionally both come from the simulation at the user's T ("exact").
+Critical values and p-values at the series' own length T: with the lag chosen by
+MAIC, response surfaces fitted to a simulation of the whole procedure, lag choice
+included (:mod:`tauscope.engine.distributions.dfgls_values`; the asymptotic values,
+the Dickey-Fuller ones without deterministic terms for the constant case and ERS 1996
+Table 1 for the trend case, hold only for long series: at T = 30 the constant case's
+asymptotic −1.95 rejects a true unit root about 9-14% of the time); with a fixed lag
+order, the null simulated at T with that lag ("exact": always the latter).
+:func:`table_critical_values` keeps the published asymptotic and ERS values.
 """
 
 from __future__ import annotations
@@ -33,7 +34,12 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine.distributions.critical import tau_critical_values, tau_p_value
+from tauscope.engine.distributions.critical import tau_critical_values
+from tauscope.engine.distributions.dfgls_values import (
+    covers,
+    surface_critical_values,
+    surface_p_value,
+)
 from tauscope.engine.distributions.simulate import (
     DEFAULT_SEED,
     EXACT_REPS,
@@ -48,10 +54,11 @@ from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.regression.design import adf_design
 from tauscope.engine.regression.lagchoice import choose_lag, detrend
 from tauscope.engine.regression.ols import fit
+from tauscope.engine.regression.scaling import centred
 from tauscope.engine.results import DFGLS, TestResult
 
 C_BAR = {"constant": -7.0, "trend": -13.5}
-DFGLS_P_VALUE_REPS = 2_000  # trend-case p-values: Monte Carlo error about ±0.005 near p = 0.05
+DFGLS_P_VALUE_REPS = 50_000  # a fixed lag order: Monte Carlo error of the 5% value about ±0.01
 LEVELS = ("1%", "5%", "10%")
 
 # Elliott, Rothenberg & Stock (1996), Table 1, trend case (from memory; checked by
@@ -134,7 +141,7 @@ def dfgls(x: np.ndarray, spec: str, lag_rule: str = "maic", max_lags: int = 0,
           lags: int | None = None) -> DFGLS:
     """The DF-GLS statistic; ``lags`` fixes the lag order, else ``lag_rule`` chooses it
     up to ``max_lags`` on the OLS-detrended series (Perron & Qu 2007)."""
-    x = np.asarray(x, dtype=float)
+    x = centred(np.asarray(x, dtype=float), "constant")  # GLS detrending removes any level
     if lags is None:
         lag, rule, top = choose_dfgls_lag(x, spec, lag_rule, max_lags), lag_rule, max_lags
     else:
@@ -203,24 +210,23 @@ def dfgls_test(x: np.ndarray, spec: str, alpha: float, difference: int = 0,
                lag_rule: str = "maic", max_lags: int = 0, lags: int | None = None,
                critical: str = "table", reps: int = DFGLS_P_VALUE_REPS,
                seed: int = DEFAULT_SEED) -> tuple[TestResult, DFGLS]:
-    """DF-GLS as a :class:`TestResult` (test "dfgls").  ``critical`` "table" uses the
-    published values above; "exact" simulates the null at this series' length with the
-    chosen lag order.  ``reps``: replications of the simulated null (trend-case
-    p-values in "table" mode, everything in "exact" mode)."""
+    """DF-GLS as a :class:`TestResult` (test "dfgls").  ``critical`` "table": finite-sample
+    values at this series' length T, from the response surfaces of the whole procedure
+    with its lag choice (:mod:`tauscope.engine.distributions.dfgls_values`), or, when the
+    lag order is fixed, from the null simulated at T with that lag; "exact" simulates the
+    null at T with the chosen lag order.  ``reps``: replications of those simulations."""
     result = dfgls(x, spec, lag_rule, max_lags, lags)
     length = int(np.asarray(x).shape[0])
     bound: str | None = None
-    if critical == "exact":
+    if critical != "exact" and lags is None and covers(length):
+        # the lag was chosen (by MAIC): the whole procedure's null at this length
+        critical_values = surface_critical_values(spec, length)
+        p_value, bound = surface_p_value(result.statistic, spec, length)
+    else:
+        # "exact", or a lag order fixed by the user: the null at this length and this lag
         draws = dfgls_null_distribution(spec, length, reps, seed, result.lags)
         critical_values = lower_critical_values(draws)
         p_value, bound = empirical_p_value(result.statistic, draws)
-    else:
-        critical_values = table_critical_values(spec, length, result.nobs)
-        if spec == "constant":
-            p_value = tau_p_value(result.statistic, "none")
-        else:
-            p_value, bound = empirical_p_value(result.statistic,
-                                               dfgls_null_distribution(spec, length, reps, seed))
     level = f"{round(alpha * 100):d}%"
     return TestResult(
         test="dfgls",

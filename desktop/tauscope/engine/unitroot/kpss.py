@@ -12,6 +12,7 @@ import numpy as np
 from statsmodels.tools.sm_exceptions import InterpolationWarning
 from statsmodels.tsa.stattools import kpss
 
+from tauscope.engine.regression.scaling import centred
 from tauscope.engine.results import TestResult
 
 _KPSS_LEVEL = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
@@ -20,6 +21,7 @@ _KPSS_LEVEL = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
 def kpss_test(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
     """``spec`` is ``"constant"`` (level null) or ``"trend"`` (trend null).  Raises
     ValueError (one sentence) when the automatic bandwidth is not finite."""
+    x = centred(np.asarray(x, dtype=float), spec)  # the level only moves the fitted mean
     with warnings.catch_warnings():
         warnings.simplefilter("ignore", InterpolationWarning)
         try:

@@ -28,6 +28,7 @@ import math
 
 import numpy as np
 
+from tauscope.engine.regression.scaling import centred
 from tauscope.engine.results import TestResult
 from tauscope.engine.unitroot.kpss import kpss_test
 
@@ -96,6 +97,7 @@ def kpss_statistic(x: np.ndarray, spec: str) -> tuple[float, int] | None:
 
 def kpss_fast(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
     """Same result as :func:`tauscope.engine.unitroot.kpss.kpss_test`."""
+    x = centred(np.asarray(x, dtype=float), spec)  # as kpss_test: the level only moves the mean
     if x.shape[0] < 3:
         return kpss_test(x, spec, difference, alpha)
     try:

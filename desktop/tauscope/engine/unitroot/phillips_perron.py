@@ -43,6 +43,7 @@ from tauscope.engine.distributions.simulate import (
     lower_critical_values,
 )
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.regression.scaling import centred
 from tauscope.engine.results import PhillipsPerron, TestResult
 
 BANDWIDTH_RULE = "Newey-West automatic bandwidth (Hobijn, Franses & Ooms 1998)"
@@ -75,8 +76,10 @@ def long_run_variance(resid: np.ndarray, bandwidth: int) -> float:
 
 
 def phillips_perron(x: np.ndarray, spec: str, bandwidth: int | None = None) -> PhillipsPerron:
-    """Zτ and Zα for ``spec`` "trend", "constant" or "none"; ``bandwidth`` None: automatic."""
-    x = np.asarray(x, dtype=float)
+    """Zτ and Zα for ``spec`` "trend", "constant" or "none"; ``bandwidth`` None: automatic.
+    With a constant the series is first measured from its mean (the statistics do not
+    depend on the level; the arithmetic does)."""
+    x = centred(np.asarray(x, dtype=float), spec)
     n = x.shape[0] - 1
     columns = [x[:-1]]
     if spec in ("constant", "trend"):

@@ -22,6 +22,7 @@ from statsmodels.tsa.adfvalues import tau_2010s
 
 from tauscope.engine.distributions.critical import SPEC_CODES
 from tauscope.engine.regression.design import adf_design, gamma_column
+from tauscope.engine.regression.scaling import centred
 from tauscope.engine.results import RecursiveStatistic
 
 MIN_WINDOW = 20  # regression observations in the first window (common practice: ≥ 20)
@@ -45,7 +46,7 @@ def first_window(columns: int) -> int:
 
 def recursive_tau(x: np.ndarray, spec: str, lags: int, alpha: float = 0.05) -> RecursiveStatistic:
     """τ for every expanding window from :func:`first_window` to the whole sample."""
-    x = np.asarray(x, dtype=float)
+    x = centred(np.asarray(x, dtype=float), spec)  # with a constant, the level only moves it
     y, design = adf_design(x, spec, lags)
     n, k = design.shape
     start = first_window(k)

@@ -30,6 +30,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.regression.scaling import centred
 from tauscope.engine.results import TestResult
 
 MODELS = ("c", "t", "ct")
@@ -182,7 +183,7 @@ def zivot_andrews(x: np.ndarray, model: str = "ct", lags: int = 0, trim: float =
     """Search every candidate break and return the smallest t ratio of α̂."""
     if not 0.0 <= trim < 1.0 / 3.0:
         raise ValueError("trim must be in [0, 1/3)")
-    x = np.asarray(x, dtype=float)
+    x = centred(np.asarray(x, dtype=float), "constant")  # the level only moves the constant
     positions = candidate_positions(x.shape[0], trim, lags)
     statistics = break_profile(x, model, lags, positions)
     if not np.all(np.isfinite(statistics)):

@@ -4,6 +4,7 @@ colours of the palette, and the base of each chart (``Chart``)."""
 
 from __future__ import annotations
 
+import html
 from dataclasses import dataclass
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
@@ -55,6 +56,8 @@ class ChartPage(QStackedWidget):
         self.dates = dates
         self._plots: dict[tuple[int, bool], pg.PlotItem] = {}
         self._shown: list[pg.PlotItem] = []
+        self._keys: dict[int, pg.LabelItem] = {}
+        self._shown_keys: list[pg.LabelItem] = []
 
     def say(self, text: str) -> None:
         self.message.setText(text)
@@ -75,28 +78,29 @@ class ChartPage(QStackedWidget):
         else:
             self.layout_widget.addItem(plot, row=row, col=0)
             plot.clear()
-            if plot.legend is not None:
-                plot.legend.clear()
             plot.setXLink(None)
             plot.enableAutoRange()
         plot.setTitle(title or None)
         self._shown.append(plot)
         return plot
 
-    def legend(self, plot: pg.PlotItem, color: QColor, background: QColor,
-               corner: str = "top-right") -> None:
-        """A legend on a half-transparent background in one corner (negative offsets count
-        from the right or bottom edge)."""
-        offsets = {"top-right": (-10, 10), "top-left": (10, 10), "bottom-right": (-10, -10),
-                   "bottom-left": (10, -10)}
-        fill = QColor(background)
-        fill.setAlpha(215)
-        if plot.legend is None:
-            plot.addLegend(offset=offsets[corner], labelTextColor=color, brush=pg.mkBrush(fill))
-        else:
-            plot.legend.setLabelTextColor(color)
-            plot.legend.setBrush(pg.mkBrush(fill))
-            plot.legend.setOffset(offsets[corner])
+    def key_below(self, plot: pg.PlotItem, row: int, color: QColor) -> pg.LabelItem:
+        """The key to a plot's named curves, on a line of its own below the plot (row
+        ``row`` of the page), so that it never covers a line, a point or a label."""
+        entries = []
+        for item in plot.listDataItems():
+            name = item.name()
+            if name:
+                entries.append(f"{_sample(item)}&nbsp;{html.escape(str(name))}")
+        key = self._keys.get(row)
+        if key is None:
+            key = pg.LabelItem(justify="center")
+            self._keys[row] = key
+        self.layout_widget.addItem(key, row=row, col=0)
+        key.setText("&nbsp;&nbsp;&nbsp;&nbsp;".join(entries), color=color.name(), size="9pt")
+        key.setAttr("justify", "center")
+        self._shown_keys.append(key)
+        return key
 
     def show_plots(self) -> None:
         self.setCurrentWidget(self.layout_widget)
@@ -138,7 +142,10 @@ class ChartPage(QStackedWidget):
         """Take the plots off the page (they are kept for the next drawing)."""
         for plot in self._shown:
             self.layout_widget.removeItem(plot)
+        for key in self._shown_keys:
+            self.layout_widget.removeItem(key)
         self._shown = []
+        self._shown_keys = []
 
 
 @dataclass(frozen=True)
@@ -198,20 +205,51 @@ class Chart(ChartPage):
         """Draw ``self.series`` and ``self.result`` (either may be None)."""
         raise NotImplementedError
 
-    def add_legend(self, plot: pg.PlotItem, corner: str) -> None:
-        self.legend(plot, self.colors.text, self.colors.background, corner)
+    def add_key(self, plot: pg.PlotItem, row: int = 1) -> None:
+        """The key to the plot's named curves, below it (call after the curves are drawn)."""
+        self.key_below(plot, row, self.colors.text)
 
     def style_plot(self, plot: pg.PlotItem) -> None:
         """Axes and title in the text colour, plain numbers on the axes."""
         fg = self.colors.text
         for name in ("left", "bottom"):
             axis = plot.getAxis(name)
-            axis.enableAutoSIPrefix(False)  # plain numbers, no "(x0.001)" scaling
+            plain_numbers(axis)
             axis.setPen(fg)
             axis.setTextPen(fg)
         title = plot.titleLabel.text
         if title:  # the colour applies when the text is set again
             plot.titleLabel.setText(title, color=fg.name())
+
+
+def plain_numbers(axis: pg.AxisItem) -> None:
+    """Numbers on an axis as they are, never scaled by a power of ten ("(x0.001)").
+
+    Turning pyqtgraph's automatic prefix off still takes the scale of the range shown at that
+    moment (a density from 0 to 0.6 read 0 to 600), so the ranges where it may scale are
+    emptied first."""
+    if hasattr(axis, "setSIPrefixEnableRanges"):
+        axis.setSIPrefixEnableRanges(())
+    axis.enableAutoSIPrefix(False)
+    axis.autoSIPrefixScale = 1.0
+    axis.labelUnitPrefix = ""
+    axis.picture = None
+    axis.update()
+
+
+def _sample(item: Any) -> str:
+    """A short drawing of a curve in text: a filled square for a filled area, else a line
+    (solid, dashed or dotted) in the curve's colour."""
+    opts = item.opts
+    pen = pg.mkPen(opts.get("pen"))
+    if opts.get("fillLevel") is not None and opts.get("fillBrush") is not None:
+        color = pg.mkBrush(opts["fillBrush"]).color()
+        color.setAlpha(255)
+        return f"<span style='color:{color.name()}'>&#9632;</span>"
+    glyph = {Qt.PenStyle.DashLine: "&#9476;&#9476;", Qt.PenStyle.DotLine: "&#9480;&#9480;"}.get(
+        pen.style(), "&#9473;&#9473;")
+    symbol = "&#9679;" if opts.get("symbol") else ""
+    return f"<span style='color:{pen.color().name()}'>{glyph[:7]}{symbol}{glyph[7:]}</span>"
 
 
 def profile_test(result: SeriesResult) -> Any:

@@ -32,11 +32,11 @@ class FittedChart(Chart):
         self.clear()
         x, dates = x_positions(result.values.index)
         plot = self.new_plot(0, dates, f"{result.name}: {result.verdict.label}")
-        self.add_legend(plot, "bottom-right")
         plot.plot(x, np.asarray(result.values, dtype=float), pen=pg.mkPen(colors.line, width=1.5),
                   name="series")
         plot.plot(x, np.asarray(result.fitted, dtype=float),
                   pen=pg.mkPen(colors.accent, width=2, style=Qt.PenStyle.DashLine),
                   name="deterministic path")
+        self.add_key(plot)
         self.style_plot(plot)
         self.show_plots()

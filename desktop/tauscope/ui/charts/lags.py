@@ -34,25 +34,25 @@ class LagsChart(Chart):
         spec = SPEC_NAMES.get(result.lag_profile_spec or "", "")
         where = DIFFERENCE_NAMES.get(result.lag_profile_difference or 0, "")
         plot = self.new_plot(0, False, f"τ by lag order · {where}, {spec}")
-        self.add_legend(plot, "top-right")
         plot.plot(lags, taus, pen=pg.mkPen(colors.line, width=1.5), symbol="o", symbolSize=6,
                   symbolBrush=colors.line, name="τ")
         alpha = float(result.settings.get("alpha", 0.05))
         plot.plot(lags, crit, pen=pg.mkPen(colors.text, width=1.2, style=Qt.PenStyle.DashLine),
                   name=f"{alpha:.0%} critical value")
-        # Head-room above both lines, so the legend in the top corner covers no point.
+        # Head-room above both lines for the chosen lag order's label.
         low, high = float(min(taus.min(), crit.min())), float(max(taus.max(), crit.max()))
         span = max(high - low, 0.5)
-        plot.setYRange(low - 0.08 * span, high + 0.45 * span, padding=0)
+        plot.setYRange(low - 0.08 * span, high + 0.2 * span, padding=0)
         test = profile_test(result)
         if test is not None:
             chosen = pg.InfiniteLine(pos=test.lags, angle=90,
                                      pen=pg.mkPen(colors.accent, width=1.5, style=Qt.PenStyle.DotLine),
                                      label=f"chosen: {test.lags}",
-                                     labelOpts={"position": 0.9, "color": colors.text,
+                                     labelOpts={"position": 0.95, "color": colors.text,
                                                 "fill": colors.legend_fill()})
             plot.addItem(chosen)
         plot.setLabel("bottom", "lag order", color=colors.text.name())
         plot.setLabel("left", "τ", color=colors.text.name())
+        self.add_key(plot)
         self.style_plot(plot)
         self.show_plots()

@@ -94,7 +94,6 @@ class NullChart(Chart):
         picture = density_picture(draws)
         spec = SPEC_NAMES.get(test.spec, test.spec)
         plot = self.new_plot(0, False, f"τ under a unit root · {spec}, {test.nobs} obs.")
-        self.add_legend(plot, "top-right")
         line = colors.line
         plot.plot(picture.edges, picture.heights, stepMode="center", fillLevel=0,
                   brush=pg.mkBrush(line.red(), line.green(), line.blue(), 70),
@@ -116,5 +115,6 @@ class NullChart(Chart):
         plot.addItem(critical)
         plot.setLabel("bottom", "τ", color=colors.text.name())
         plot.setLabel("left", "density", color=colors.text.name())
+        self.add_key(plot)
         self.style_plot(plot)
         self.show_plots()

@@ -41,7 +41,6 @@ class RecursiveChart(Chart):
         spec = SPEC_NAMES.get(recursive.spec, recursive.spec)
         level = fmt.percent(recursive.alpha)
         plot = self.new_plot(0, dates, f"τ on an expanding window · {spec}, {recursive.lags} lags")
-        self.add_legend(plot, "top-right")
         plot.plot(x, np.asarray(recursive.statistics, dtype=float),
                   pen=pg.mkPen(colors.line, width=1.5), name="τ up to this date", connect="finite")
         plot.plot(x, np.asarray(recursive.critical_values, dtype=float),
@@ -50,5 +49,6 @@ class RecursiveChart(Chart):
         plot.setLabel("bottom", "last observation used" if not dates else "",
                       color=colors.text.name())
         plot.setLabel("left", "τ", color=colors.text.name())
+        self.add_key(plot)
         self.style_plot(plot)
         self.show_plots()

@@ -1,5 +1,6 @@
 """Files: opening workbooks (from the dialog, the recent list, the demo or a drop) and
-reading them in the background; transformed copies and mended gaps of the series."""
+reading them in the background; transformed copies and mended gaps of the series, each an
+undoable edit (controllers/edits.py) on the controller's undo stack."""
 
 from __future__ import annotations
 
@@ -7,7 +8,7 @@ from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
 from PySide6.QtCore import QEvent, QObject, Signal
-from PySide6.QtGui import QDragEnterEvent, QDropEvent
+from PySide6.QtGui import QDragEnterEvent, QDropEvent, QUndoStack
 from PySide6.QtWidgets import QLabel, QMenu, QWidget
 
 from tauscope.data.notes import reader_notes
@@ -15,6 +16,7 @@ from tauscope.report.study import STUDY_SUFFIX
 from tauscope.resources_path import demo_workbook
 from tauscope.ui import store
 from tauscope.ui.controllers.current import CurrentSeries
+from tauscope.ui.controllers.edits import AddTransformed, EditContext, MendGaps, RemoveTransformed
 from tauscope.ui.controllers.prompts import Prompts
 from tauscope.ui.controllers.session import Session
 from tauscope.ui.findings_panel import FindingsPanel
@@ -55,6 +57,8 @@ class FilesController(QObject):
         self.loader = WorkbookLoader(self)
         self.loader.loaded.connect(self._workbook_loaded)
         self.loader.failed.connect(self._workbook_failed)
+        self.undo_stack = QUndoStack(self)
+        self.edits = EditContext(series_panel, findings_panel, current, session)
 
     # opening ------------------------------------------------------------
     def choose_files(self) -> None:
@@ -80,6 +84,8 @@ class FilesController(QObject):
         self.open_files([path])
 
     def add_workbook(self, workbook: Workbook) -> None:
+        if str(workbook.path) in self.series_panel.model.workbook_paths():
+            self.undo_stack.clear()  # the edits were made to the copy read before
         item = self.series_panel.model.add_workbook(workbook)
         self.series_panel.expand_workbook(item)
         store.add_recent_file(workbook.path)
@@ -106,6 +112,7 @@ class FilesController(QObject):
             self.prompts.tell(message)
 
     def close_all(self) -> None:
+        self.undo_stack.clear()
         self.series_panel.model.clear_all()
         self.findings_panel.model.clear_results()
         self.session.gap_handling.clear()
@@ -160,11 +167,16 @@ class FilesController(QObject):
         except DataError as exc:
             self.prompts.tell(str(exc))
             return
-        item = self.series_panel.model.add_transformed(key, derived)
-        if item is not None:
-            self.series_panel.select_key(derived.key)
-            self.status.setText(f"Added {derived.name}")
-            self.session.set_modified(True)
+        self.undo_stack.push(AddTransformed(self.edits, key, derived))
+        self.status.setText(f"Added {derived.name} (Edit → Undo takes it back)")
+
+    def remove_transform(self, key: str) -> None:
+        """Take a transformed copy (and the copies made from it) out of the window."""
+        series = self.series_panel.model.series_for_key(key)
+        if series is None or not series.parent:
+            return
+        self.undo_stack.push(RemoveTransformed(self.edits, key, series.name))
+        self.status.setText(f"Removed {series.name} (Edit → Undo brings it back)")
 
     def mend_gaps(self, key: str, how: str) -> None:
         """Cut a series to its longest gap-free stretch, or fill its gaps (the file is untouched;
@@ -172,11 +184,6 @@ class FilesController(QObject):
         series = self.series_panel.model.series_for_key(key)
         if series is None or not series.gaps:
             return
-        mended = series.longest_stretch() if how == "cut" else series.interpolated()
-        self.series_panel.model.replace_series(mended)
-        self.session.gap_handling[key] = "longest" if how == "cut" else "interpolate"
-        self.session.set_modified(True)
-        if key == self.current.key:
-            self.current.show(key)
+        self.undo_stack.push(MendGaps(self.edits, series, how))
         what = "cut to its longest stretch without gaps" if how == "cut" else "gaps filled"
         self.status.setText(f"{series.name}: {what}. Press F5 to analyse it.")

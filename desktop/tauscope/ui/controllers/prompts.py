@@ -1,5 +1,6 @@
 """The window's questions and messages.  The questions are attributes, replaceable in
-tests: (title, folder, filter) -> path or "", and (title, text) -> yes or no."""
+tests: (title, folder, filter) -> path or "", (title, text) -> yes or no, and (study name)
+-> "save", "discard" or "cancel"."""
 
 from __future__ import annotations
 
@@ -23,6 +24,7 @@ class Prompts(QObject):
         self.ask_save_path: Callable[[str, str, str], str] = self._ask_save_path
         self.ask_open_path: Callable[[str, str, str], str] = self._ask_open_path
         self.ask_yes_no: Callable[[str, str], bool] = self._ask_yes_no
+        self.ask_save_changes: Callable[[str], str] = self._ask_save_changes
 
     def _ask_open_paths(self, title: str, start: str, filters: str) -> list[str]:
         paths, _chosen = QFileDialog.getOpenFileNames(self.window, title, start, filters)
@@ -39,6 +41,19 @@ class Prompts(QObject):
     def _ask_yes_no(self, title: str, text: str) -> bool:
         answer = QMessageBox.question(self.window, title, text)
         return answer == QMessageBox.StandardButton.Yes
+
+    def _ask_save_changes(self, name: str) -> str:
+        buttons = QMessageBox.StandardButton
+        box = QMessageBox(QMessageBox.Icon.Question, "Unsaved changes",
+                          f"Save the changes to {name} before closing?",
+                          buttons.Save | buttons.Discard | buttons.Cancel, self.window)
+        box.setInformativeText("A study keeps the workbooks, the transformed series, the "
+                               "settings and the findings. Changes not saved are lost.")
+        box.setDefaultButton(buttons.Save)
+        box.setEscapeButton(buttons.Cancel)
+        answer = box.exec()
+        return {buttons.Save: "save", buttons.Discard: "discard"}.get(
+            buttons(answer), "cancel")
 
     def tell(self, text: str, title: str = "Tauscope") -> None:
         """A short message in a window-modal box that does not block the event loop."""

@@ -36,6 +36,7 @@ class RunsController(QObject):
         self.progress = progress
         self.last_run: tuple[bool, int] | None = None  # (stopped, results) of the last run
         self._quiet = False  # a study's re-run does not count as a change
+        self._untested = 0  # series of the run in hand that could not be tested
         self.runner = AnalysisRunner(self)
         self.runner.started.connect(self._run_started)
         self.runner.progress.connect(self._run_progress)
@@ -78,6 +79,7 @@ class RunsController(QObject):
 
     def _run_started(self, total: int) -> None:
         self.last_run = None
+        self._untested = 0
         self.progress.setRange(0, total)
         self.progress.setValue(0)
         self.progress.show()
@@ -91,6 +93,7 @@ class RunsController(QObject):
 
     def _result_ready(self, key: str, result: SeriesResult) -> None:
         self.findings_panel.model.set_result(key, result)
+        self._untested += result.error is not None
         if key == self.current.key:
             self.current.show(key)
 
@@ -105,7 +108,7 @@ class RunsController(QObject):
         self._quiet = False
         self.ended.emit()
         total = self.progress.maximum()
-        errors = sum(1 for r in self.findings_panel.model.results().values() if r.error)
+        errors = self._untested  # of this run only, not of earlier findings still shown
         if stopped:
             text = f"Stopped: {received} of {total} series analysed; their results are kept."
         else:
