@@ -15,7 +15,8 @@ prints, per strategy:
 * P(right | badge) and the count for each badge value.
 
 "classic" is the engine's own analysis (``tauscope.engine.analyse_many``, the batched
-fast path) with the settings given; "union" is the union of rejections from
+fast path) with the settings given and strategy "classic"; "engine" is the engine's default
+analysis as wired (strategy "union", its own grade); "union" is the union of rejections from
 :mod:`tauscope.engine.unitroot.union`, graded by the candidate rules of :mod:`scorecard_union`.
 Then the acceptance checks of issue 13 with PASS/FAIL, and the badge calibration.
 ``--quick``: 100 replications, T = 100 and 200, for development.
@@ -28,7 +29,7 @@ import sys
 import time
 import zlib
 from collections import defaultdict
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import Any
 
@@ -208,7 +209,10 @@ def main(argv: list[str] | None = None) -> None:
     parser.add_argument("--reps", type=int, default=500)
     parser.add_argument("--quick", action="store_true")
     parser.add_argument("--lengths", default="50,100,200,500")
-    parser.add_argument("--strategy", choices=("classic", "union", "both"), default="both")
+    parser.add_argument("--strategy", choices=("classic", "union", "both", "engine", "all"), default="both",
+                        help="classic: the engine with strategy 'classic'; union: the union from its "
+                             "functions with the candidate badge rules; engine: the engine's default "
+                             "analysis as wired (strategy 'union', its own badge); all: the three")
     parser.add_argument("--lag-rule", default=Settings().lag_rule,
                         help="the classic strategy's lag rule (default: the engine's default)")
     parser.add_argument("--union-lag-rule", default="maic")
@@ -234,7 +238,8 @@ def main(argv: list[str] | None = None) -> None:
     if args.quick:
         reps, lengths = min(reps, 100), [100, 200]
     settings = Settings(lag_rule=args.lag_rule, alpha=args.alpha, max_lags=args.max_lags,
-                        lags=args.lags, power=False)
+                        lags=args.lags, power=False, strategy="classic")
+    engine_settings = replace(settings, strategy="union", lag_rule=args.union_lag_rule)
     print(f"settings: {settings.to_dict()}; reps {reps}; lengths {lengths}; seed {args.seed}; "
           f"union {args.union_components} components, lag rule {args.union_lag_rule}, "
           f"critical values {args.union_critical}, "
@@ -247,12 +252,12 @@ def main(argv: list[str] | None = None) -> None:
     run: dict[str, list[Cell]] = defaultdict(list)
     classic_by: dict[tuple[str, int], Cell] = {}
     union_runs: list[tuple[Cell, dict[str, np.ndarray]]] = []
-    clock = {"classic": 0.0, "union": 0.0}
+    clock = {"classic": 0.0, "union": 0.0, "engine": 0.0}
     saved = np.load(args.classic_from) if args.classic_from else None
     for process, n in jobs:
         xs = simulate(process, n, reps, args.seed)
         classic = None
-        if args.strategy in ("classic", "both"):
+        if args.strategy in ("classic", "both", "all"):
             start = time.perf_counter()
             classic = classic_cell(process, n, xs, settings)
             clock["classic"] += time.perf_counter() - start
@@ -265,7 +270,11 @@ def main(argv: list[str] | None = None) -> None:
                                  f"{process.name}, T = {n} (same --reps, --lengths and --seed needed)")
             order = saved[key]
             classic = Cell(process, n, order, [None] * order.size, np.array(["none"] * order.size))
-        if args.strategy in ("union", "both"):
+        if args.strategy in ("engine", "all"):
+            start = time.perf_counter()
+            run["engine"].append(classic_cell(process, n, xs, engine_settings))
+            clock["engine"] += time.perf_counter() - start
+        if args.strategy in ("union", "both", "all"):
             start = time.perf_counter()
             cell = union_cell(process, n, xs, settings, args.union_critical, classic, args.badge_rule,
                               args.union_lag_scale, args.union_components, args.union_lag_rule)
@@ -280,7 +289,8 @@ def main(argv: list[str] | None = None) -> None:
         calibration(union_runs)
     if args.save:
         save(args.save, run)
-    print(f"\ntime: classic {clock['classic']:.1f} s, union (with its evidence) {clock['union']:.1f} s")
+    print(f"\ntime: classic {clock['classic']:.1f} s, union (with its evidence) {clock['union']:.1f} s, "
+          f"engine default {clock['engine']:.1f} s")
 
 
 if __name__ == "__main__":

@@ -2,8 +2,8 @@
 read these, so a number shown anywhere is the same number (DESIGN.md §2).
 
 This module imports none of the tests, the regressions or the simulation: every
-module of the engine may import it, and it imports nothing of the engine but the two
-plain-data leaves `finite` and `results_breaks`."""
+module of the engine may import it, and it imports nothing of the engine but the
+plain-data leaves `finite`, `results_breaks` and `results_strategy`."""
 
 from __future__ import annotations
 

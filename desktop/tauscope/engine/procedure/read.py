@@ -17,7 +17,11 @@ from tauscope.engine.procedure.stages import (
     Reading,
     ReadOptions,
 )
-from tauscope.engine.reading.breaks import agreement_under_break, capped_agreement, verdict_under_break
+from tauscope.engine.reading.breaks import (
+    agreement_under_break,
+    capped_agreement,
+    verdict_under_break,
+)
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
 from tauscope.engine.reading.grade import grade
 from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern

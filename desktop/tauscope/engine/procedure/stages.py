@@ -42,8 +42,8 @@ from tauscope.engine.results import (
     TestResult,
     Verdict,
 )
-from tauscope.engine.results_strategy import ClassicVerdict
 from tauscope.engine.results_breaks import BreakCheck
+from tauscope.engine.results_strategy import ClassicVerdict
 from tauscope.engine.settings import Settings
 
 EXTRA_TESTS = ("pp", "dfgls", "za")
