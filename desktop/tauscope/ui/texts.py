@@ -6,7 +6,8 @@ from tauscope.engine import formatting as fmt
 from tauscope.engine.reading.words import decision_word
 
 STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z", "kpss": "KPSS",
-                     "adf": "τ", "pp": "Zτ", "dfgls": "τ-GLS", "za": "ZA"}
+                     "adf": "τ", "pp": "Zτ", "dfgls": "τ-GLS", "za": "ZA", "union": "M",
+                     "trend": "z_λ"}
 
 STATISTIC_TIPS = {
     "tau": "τ (tau) is the t ratio on y(t−1) in the ADF regression. Strongly negative values are "
@@ -38,13 +39,14 @@ EXTRA_TEST_NAMES = {"kpss": "KPSS", "pp": "Phillips-Perron", "dfgls": "DF-GLS",
 OUT_OF_DATE = "(settings changed — run again)"
 
 GUIDE_ANCHORS = {"tau": "tau", "adf": "tau", "phi1": "phi", "phi2": "phi", "phi3": "phi",
-                 "z": "z", "kpss": "kpss", "pp": "pp", "dfgls": "dfgls", "za": "za"}
+                 "z": "z", "kpss": "kpss", "pp": "pp", "dfgls": "dfgls", "za": "za",
+                 "union": "strategy", "trend": "strategy"}
 
 DIFFERENCE_NAMES = {0: "Levels", 1: "First difference", 2: "Second difference"}
 DIFFERENCE_SHORT = {0: "Levels", 1: "1st diff.", 2: "2nd diff."}
 SPEC_NAMES = {"trend": "constant and trend", "constant": "constant only",
               "none": "no constant or trend"}
-SPEC_SHORT = {"trend": "trend", "constant": "constant", "none": "no terms"}
+SPEC_SHORT = {"trend": "trend", "constant": "constant", "none": "no terms", "union": "all terms"}
 LAG_RULE_SHORT = {"aic": "AIC", "bic": "BIC", "hqc": "HQC", "tsig": "t-sig", "maic": "MAIC",
                   "fixed": "fixed"}
 GUIDE_HINT = "\nPress F1 for the guide's section on this."

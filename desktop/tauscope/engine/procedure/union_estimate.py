@@ -18,12 +18,14 @@ batch: the fast path and the reference path share this computation.
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
 from tauscope.engine.unitroot.trend_robust import trend_critical_value
 from tauscope.engine.unitroot.union import (
     UNION_LAG_SCALE,
+    UnionConstants,
     max_lags_schwert,
     orders_from_rejections,
     rejections_at,
@@ -75,6 +77,12 @@ class UnionRow:
     problem: str | None = None  # one sentence when a statistic the decision used is not a number
 
 
+@lru_cache(maxsize=256)
+def _constants(length: int | None, alpha: float) -> UnionConstants:
+    """The union's constants at this length and level, kept for the next batch."""
+    return union_constants(length, alpha)
+
+
 def _order(value: int) -> int | None:
     return None if value < 0 else int(value)
 
@@ -89,7 +97,7 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
               for a in OTHER_ALPHAS}
         long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
                             lag_scale=LONG_LAG_SCALE).order
-    per_alpha = {d: {a: union_constants(level.constants.length, a) for a in (0.01, 0.05, 0.10)}
+    per_alpha = {d: {a: _constants(level.constants.length, a) for a in (0.01, 0.05, 0.10)}
                  for d, level in result.levels.items()}
     rows = []
     for i in range(xs.shape[0]):

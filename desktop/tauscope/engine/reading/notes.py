@@ -142,10 +142,17 @@ def build_notes(ctx: NoteContext) -> tuple[str, ...]:
         notes.append(
             f"Missing values at the start ({lead}) and end ({trail}) of the series were left out before testing."
         )
-    notes.append(
-        f"The testing sequence runs up to {ctx.level_sequence_tests} tests at {a} on each difference, so the "
-        f"chance that at least one of them points the wrong way is larger than {a}."
-    )
+    if ctx.verdict.strategy == "union":
+        notes.append(
+            f"The verdict comes from four unit-root tests taken together with a scaling simulated at this "
+            f"length (Harvey, Leybourne & Taylor 2009, 2012), so the chance of calling a unit root stationary "
+            f"stays at {a} on each difference, whatever the deterministic terms."
+        )
+    else:
+        notes.append(
+            f"The testing sequence runs up to {ctx.level_sequence_tests} tests at {a} on each difference, so the "
+            f"chance that at least one of them points the wrong way is larger than {a}."
+        )
     notes.append(
         "A test is an aid to judgement, not proof: data definitions, breaks in the source and the purpose "
         "of the model matter as much as the statistics."

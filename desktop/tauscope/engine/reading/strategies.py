@@ -11,6 +11,7 @@ from __future__ import annotations
 
 from tauscope.engine import formatting as fmt
 from tauscope.engine.reading.verdicts import verdict_label
+from tauscope.engine.reading.words import cross_check_word
 
 # Random walks called I(0) by the classic sequence on the scorecard, by lag rule.
 CLASSIC_RANDOM_WALK_I0 = {"aic": "15–21%", "maic": "10–13%"}
@@ -91,9 +92,9 @@ def grade_note(agreement: str | None, missing: tuple[str, ...]) -> str | None:
     """Why the grade is what it is."""
     if agreement is None:
         return None
+    word = cross_check_word(agreement)
     if agreement == "confirmed":
-        return ("Confirmed: KPSS backs the verdict strictly, the classic sequence agrees, and neither the "
-                "level (1%, 10%) nor a longer maximum lag changes it; on the verdict scorecard such verdicts "
-                "were right about 98% of the time.")
-    label = "In conflict" if agreement == "conflict" else "Not confirmed"
-    return f"{label}: {'; '.join(missing)}."
+        return (f"Cross-check {word}: KPSS backs the verdict strictly, the classic sequence agrees, and "
+                "neither the level (1%, 10%) nor a longer maximum lag changes it; on the verdict scorecard "
+                "such verdicts were right 97.9% of the time.")
+    return f"Cross-check {word}: the verdict is not confirmed, because {'; '.join(missing)}."

@@ -1,0 +1,65 @@
+"""The graded badge of a size-controlled verdict and the sentences on the two strategies
+(reading/grade.py, reading/strategies.py).  The rule is the one calibrated on the verdict
+scorecard (benchmarks/verdict_scorecard.py; DEVELOPERS.md): KPSS p-values from KPSS (1992)
+Table 1 interpolation are bounded to 0.01-0.10, so "strict" means at those bounds."""
+
+from __future__ import annotations
+
+from tauscope.engine.reading.grade import grade
+from tauscope.engine.reading.strategies import disagreement_note, grade_note, level_note
+from tauscope.engine.results import TestResult
+
+
+def _kpss(p: float, reject: bool, difference: int = 0) -> TestResult:
+    return TestResult("kpss", "constant", difference, 0.5, p, 4, 200, {"1%": 0.739, "5%": 0.463, "10%": 0.347},
+                      reject, 0.463)
+
+
+GOOD_I1 = dict(order=1, deterministic="constant",
+               checks=[(_kpss(0.01, True), True), (_kpss(0.10, False, 1), False)],
+               classic_order=1, orders_at={0.01: 1, 0.10: 1}, long_lag_order=1, power=(0.99, 0.95),
+               nobs=200, break_found=False)
+
+
+def test_every_condition_met_is_confirmed() -> None:
+    assert grade(**GOOD_I1).agreement == "confirmed"  # type: ignore[arg-type]
+
+
+def test_each_missing_condition_withholds_confirmed() -> None:
+    changes = {
+        "checks": [(_kpss(0.02, True), True), (_kpss(0.10, False, 1), False)],  # KPSS not at 1%
+        "classic_order": 0,
+        "orders_at": {0.01: 1, 0.10: 0},
+        "long_lag_order": 2,
+        "power": (0.99, 0.80),  # drift found: the trend components' power counts
+        "nobs": 149,
+        "break_found": True,
+    }
+    for key, value in changes.items():
+        graded = grade(**{**GOOD_I1, key: value})  # type: ignore[arg-type]
+        assert graded.agreement == "inconclusive", key
+        assert len(graded.missing) == 1, key
+
+
+def test_every_kpss_check_against_the_verdict_is_a_conflict() -> None:
+    against = [(_kpss(0.2, False), True), (_kpss(0.01, True, 1), False)]
+    assert grade(**{**GOOD_I1, "checks": against}).agreement == "conflict"  # type: ignore[arg-type]
+
+
+def test_no_kpss_means_no_grade_and_unresolved_is_inconclusive() -> None:
+    assert grade(**{**GOOD_I1, "checks": []}).agreement is None  # type: ignore[arg-type]
+    assert grade(**{**GOOD_I1, "order": None}).agreement == "inconclusive"  # type: ignore[arg-type]
+
+
+def test_notes_say_when_the_level_or_the_strategy_changes_the_verdict() -> None:
+    assert level_note(1, {0.01: 1, 0.10: 1}, 0.05) is None
+    note = level_note(1, {0.01: 1, 0.10: 0}, 0.05)
+    assert note is not None and "at 10% it would be I(0)" in note
+    assert disagreement_note(1, "constant", 1, "constant", False, "maic") is None
+    lower = disagreement_note(1, "constant", 0, "trend", True, "maic")
+    assert lower is not None and "trust" in lower and "10–13%" in lower and "weak" in lower
+    # Figures are quoted only for lag rules the scorecard measured.
+    other = disagreement_note(1, "constant", 0, "trend", False, "bic")
+    assert other is not None and "%" not in other
+    assert grade_note("inconclusive", ("fewer than 150 observations",)) == (
+        "Cross-check unclear: the verdict is not confirmed, because fewer than 150 observations.")
