@@ -30,7 +30,7 @@ from collections.abc import Callable
 from dataclasses import dataclass
 
 import numpy as np
-from tauscope.engine.kpss_numpy import kpss_fast
+from tauscope.engine.unitroot.kpss_fast import kpss_fast
 
 from tauscope.engine.unitroot.union import (
     orders_from_rejections,
