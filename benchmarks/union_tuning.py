@@ -270,6 +270,7 @@ def evaluate(name: str, config: Config, rows: list[str], reps: int, seed: int) -
     out = []
     for group in rows:
         worst = (0.0, "")
+        by_length: dict[int, tuple[float, str]] = {}
         for pname, n in ROWS[group]:
             process = by_name(pname)
             order = orders(simulate(process, n, reps, seed), config)
@@ -277,6 +278,8 @@ def evaluate(name: str, config: Config, rows: list[str], reps: int, seed: int) -
                 low = float(np.mean((order >= 0) & (order < process.order)))
                 if low > worst[0]:
                     worst = (low, f"{pname} T={n}")
+                if low >= by_length.get(n, (-1.0, ""))[0]:
+                    by_length[n] = (low, pname)
             elif group == "power50":
                 out.append(f"{pname} T={n} I(0) {100 * float(np.mean(order == 0)):.1f}% (no limit)")
             elif group == "power":
@@ -288,6 +291,8 @@ def evaluate(name: str, config: Config, rows: list[str], reps: int, seed: int) -
                 share = float(np.mean(order == 0))
                 ok &= share <= 0.25
                 out.append(f"theta=-0.8 T={n} I(0) {100 * share:.1f}% {'ok' if share <= 0.25 else 'FAIL'}")
+        if group == "size":
+            out.append("size per T: " + "; ".join(f"T={n} {100 * v:.1f}% ({p})" for n, (v, p) in by_length.items()))
         if group in ("size50", "size"):
             ok &= worst[0] <= 0.07
             out.append(f"{group} worst too-low {100 * worst[0]:.1f}% ({worst[1]}) "
