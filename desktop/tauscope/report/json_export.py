@@ -4,6 +4,10 @@ Each entry of "series" is exactly ``SeriesResult.to_dict()``; where each series
 came from is kept alongside in "origins" (same order).  "critical_values" ("tables" or
 "simulated") and "tests_run" describe the run; "left_out" lists the findings kept out
 because they were made with other settings.
+
+The file is compact (no indentation, no spaces after separators): that lets ``json`` use its
+C encoder, which for 500 series is many times faster than the indented pure-Python one and
+makes the file about a third the size.  Any JSON viewer lays it out again for reading.
 """
 
 from __future__ import annotations
@@ -14,6 +18,9 @@ from typing import Any
 
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.run import RunRecord
+
+COMPACT = (",", ":")
+"""``json.dumps`` separators without spaces."""
 
 
 def run_to_json(run: RunRecord) -> dict[str, Any]:
@@ -34,4 +41,5 @@ def run_to_json(run: RunRecord) -> dict[str, Any]:
 
 
 def write_json(path: Path, run: RunRecord) -> None:
-    write_text_atomic(path, json.dumps(run_to_json(run), indent=2, ensure_ascii=False) + "\n")
+    text = json.dumps(run_to_json(run), ensure_ascii=False, separators=COMPACT)
+    write_text_atomic(path, text + "\n")
