@@ -47,9 +47,12 @@ class Style:
     color: str = "#1d2428"
     line_height: float = 1.3
     metrics: QFontMetricsF = field(init=False, compare=False)
+    key: str = field(init=False, compare=False)
+    """Tells fonts apart in the wrapping cache (the font's description)."""
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "metrics", QFontMetricsF(self.font))
+        object.__setattr__(self, "key", self.font.key())
 
 
 @dataclass(frozen=True)
@@ -58,9 +61,23 @@ class Line:
     width: float
 
 
-def wrap(text: str, style: Style, room: float) -> list[Line]:
+_WRAPPED: dict[tuple[str, str, float], tuple[Line, ...]] = {}
+"""Lines already wrapped, by text, font and room (a report repeats most of its cell texts)."""
+
+
+def wrap(text: str, style: Style, room: float) -> tuple[Line, ...]:
     """``text`` in lines at most ``room`` wide ("\\n" starts a new line; a no-break space never
     breaks)."""
+    key = (text, style.key, room)
+    lines = _WRAPPED.get(key)
+    if lines is None:
+        if len(_WRAPPED) > 50_000:
+            _WRAPPED.clear()
+        lines = _WRAPPED[key] = tuple(_wrap(text, style, room))
+    return lines
+
+
+def _wrap(text: str, style: Style, room: float) -> list[Line]:
     lines: list[Line] = []
     metrics = style.metrics
     for part in text.split("\n"):
@@ -184,7 +201,7 @@ class Flow:
     def _row(self, key: int, index: int, header: bool, cells: Sequence[Cell],
              columns: Sequence[Column], edges: list[float], style: Style, fill: str | None,
              line: str | None) -> None:
-        placed: list[tuple[float, float, bool, list[Line]]] = []
+        placed: list[tuple[float, float, bool, tuple[Line, ...]]] = []
         column = 0
         for text, span in cells:
             left, right = edges[column], edges[min(column + span, len(columns))]
