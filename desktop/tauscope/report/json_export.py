@@ -13,6 +13,7 @@ makes the file about a third the size.  Any JSON viewer lays it out again for re
 from __future__ import annotations
 
 import json
+import math
 from pathlib import Path
 from typing import Any
 
@@ -21,6 +22,17 @@ from tauscope.report.run import RunRecord
 
 COMPACT = (",", ":")
 """``json.dumps`` separators without spaces."""
+
+
+def json_clean(value: Any) -> Any:
+    """``value`` with non-finite floats as None and tuples as lists: what JSON gives back."""
+    if isinstance(value, float):
+        return value if math.isfinite(value) else None
+    if isinstance(value, dict):
+        return {str(k): json_clean(v) for k, v in value.items()}
+    if isinstance(value, (list, tuple)):
+        return [json_clean(v) for v in value]
+    return value
 
 
 def run_to_json(run: RunRecord) -> dict[str, Any]:

@@ -16,7 +16,6 @@ from __future__ import annotations
 
 import datetime as dt
 import json
-import math
 import os
 from collections.abc import Iterable
 from dataclasses import dataclass, field, replace
@@ -28,6 +27,7 @@ from tauscope.data import file_sha256
 from tauscope.engine import SeriesResult, Settings
 from tauscope.report import study_check as check
 from tauscope.report.atomic import write_text_atomic
+from tauscope.report.json_export import json_clean
 from tauscope.report.run import RunRecord, SourceLike
 from tauscope.report.study_text import ends_before_complete
 
@@ -87,17 +87,6 @@ class Study:
 
 
 # ----------------------------------------------------------------------------- building
-
-
-def json_clean(value: Any) -> Any:
-    """``value`` with non-finite floats as None and tuples as lists: what JSON gives back."""
-    if isinstance(value, float):
-        return value if math.isfinite(value) else None
-    if isinstance(value, dict):
-        return {str(k): json_clean(v) for k, v in value.items()}
-    if isinstance(value, (list, tuple)):
-        return [json_clean(v) for v in value]
-    return value
 
 
 def finding_entry(result: SeriesResult, key: str | None) -> dict[str, Any]:
