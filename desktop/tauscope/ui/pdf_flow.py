@@ -16,6 +16,7 @@ same report as a rich-text document.
 
 from __future__ import annotations
 
+import bisect
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass, field
 
@@ -237,8 +238,6 @@ def draw_slice(painter: QPainter, pieces: Sequence[Piece], tops: Sequence[float]
                bottom: float) -> None:
     """Every piece that reaches into [``top``, ``bottom``), clipped to it (a piece is only ever
     cut when it is taller than a page)."""
-    import bisect
-
     painter.save()
     painter.setClipRect(QRectF(0, top, WIDTH, bottom - top))
     start = bisect.bisect_left(tops, top)
