@@ -56,7 +56,7 @@ def test_a_table_row_is_never_cut_and_its_header_is_repeated() -> None:
 
 
 def test_a_heading_unit_that_reaches_into_the_next_keeps_them_together() -> None:
-    # document_units makes a heading one unit with the first line after it (10..35 here)
+    # the layout makes a heading one unit with the first line after it (80..105 here)
     units = [Unit(0, 80), Unit(80, 95), Unit(80, 105), Unit(105, 120)]
     pages = cut_pages(units, 120, 100)
     assert pages[0].bottom == 80  # not at 95, inside the heading's unit
