@@ -81,6 +81,11 @@ def _se(estimates: list[float]) -> float:
 def null_entry(length: int, reps: int | None = None) -> NullEntry:
     """Per α: (cv of the four components, κ four, κ two, SE of κ four, SE of κ two)."""
     draws = union_null(length, null_reps(length) if reps is None else reps, DEFAULT_SEED, COMPONENTS["four"])
+    return null_summary(draws)
+
+
+def null_summary(draws: np.ndarray) -> NullEntry:
+    """:func:`null_entry` from (reps, 4) draws of the four components."""
     out = {}
     for alpha in ALPHAS:
         cvs, kappa4 = constants_from_draws(draws, alpha)
@@ -184,7 +189,8 @@ def render(entries: list[Entry]) -> str:
              "|z_λ| (under I(1), under I(0), their SEs).  POWER at φ = 0.95: (four union, four trend",
              "components, two union, two trend components, largest SE).  SEs: batch means.", '"""', "",
              f"SEED = {DEFAULT_SEED}", f"GRID = {tuple(e[0] for e in entries)!r}",
-             f"NULL_REPS = {{{', '.join(f'{e[0]}: {null_reps(e[0])}' for e in entries)}}}",
+             "NULL_REPS = {",
+             *(f"    {e[0]}: {null_reps(e[0])}," for e in entries), "}",
              f"TREND_REPS = {TREND_REPS}", f"POWER_REPS = {POWER_REPS}", f"POWER_PHI = {POWER_PHI}",
              f"LAG_SCALE = {UNION_LAG_SCALE}", ""]
     for name, hint in (("NULL", "tuple[tuple[float, ...], float, float, float, float]"),
