@@ -25,6 +25,7 @@ from tauscope.engine.unitroot.union import (
     constants_from_draws,
     max_lags_schwert,
     union_constants,
+    union_level,
     union_null,
     union_power,
 )
@@ -126,3 +127,16 @@ def test_table_power_matches_direct_simulation_off_the_grid() -> None:
             assert t == pytest.approx(d, abs=4 * se)
     # another alternative is simulated, with the table's constants
     assert union_power(60, 0.5, "maic", 0.05) == union_power(60, 0.5, "maic", 0.05, source="table")
+
+
+def test_simulate_keeps_the_direct_path() -> None:
+    """``critical="simulate"`` reaches the direct simulation at the series' length (20,000
+    replications); the default reads the table, which agrees within simulation error."""
+    xs = np.cumsum(np.random.default_rng(3).standard_normal((5, 30)), axis=1)
+    direct = union_level(xs, 0, "maic", 4, 0.05, critical="simulate").constants
+    assert direct.reps == 20_000
+    cvs, kappa = constants_from_draws(union_null(30, 20_000, components=COMPONENTS["four"]), 0.05)
+    assert direct.critical_values == cvs and direct.kappa == kappa
+    tabled = union_level(xs, 0, "maic", 4, 0.05).constants
+    assert tabled.reps == table.NULL_REPS[30]
+    assert tabled.kappa == pytest.approx(kappa, abs=0.02)
