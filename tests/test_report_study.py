@@ -5,6 +5,8 @@ from __future__ import annotations
 
 import json
 import os
+import re
+from dataclasses import replace
 from pathlib import Path
 
 import numpy as np
@@ -154,9 +156,11 @@ def test_study_edited_into_invalid_json_names_line_and_column(tmp_path: Path) ->
     path = tmp_path / "edited.tauscope"
     save_study(path, _study(tmp_path))
     text = path.read_text(encoding="utf-8")
-    broken = text.replace('"settings": {', '"settings": {,', 1)
+    opening = re.search(r'"settings":\s*\{', text)  # the file is compact JSON; any spacing
+    assert opening is not None
+    broken = text[: opening.end()] + "," + text[opening.end():]
     path.write_text(broken, encoding="utf-8")
-    line = broken[: broken.index('"settings": {,')].count("\n") + 1
+    line = broken[: opening.start()].count("\n") + 1
     with pytest.raises(StudyError, match=rf"edited\.tauscope .*not valid JSON at line {line}, "):
         load_study(path)
     assert path.read_text(encoding="utf-8") == broken
@@ -298,3 +302,14 @@ def test_study_reruns_to_identical_numbers(tmp_path: Path) -> None:
     assert [f.key for f in again.findings] == list(reopened.keys)
     assert findings_from_run(again) == reopened.findings  # every number, exactly
     assert again.findings[0].name == "Δ(log(Real output))"
+
+
+def test_findings_handed_over_unclean_are_cleaned_when_saved(tmp_path: Path) -> None:
+    """A finding with a non-finite number (JSON has none) is saved with null in its place."""
+    path = tmp_path / "unclean.tauscope"
+    study = _study(tmp_path)
+    unclean = {"key": "k", "result": {"statistic": float("nan"), "values": (1.0, float("inf"))}}
+    save_study(path, replace(study, findings=(*study.findings, unclean)))
+    saved = json.loads(path.read_text(encoding="utf-8"))["findings"][-1]
+    assert saved == {"key": "k", "result": {"statistic": None, "values": [1.0, None]}}
+    assert load_study(path).findings[:-1] == study.findings

@@ -150,11 +150,27 @@ def _merge_markers(table: Table) -> Table:
     return Table(columns, tuple(rows))
 
 
-def _normal_note(run: RunRecord) -> str:
-    """The note on † when a τ in the summary was judged against the standard normal."""
+def summary_note(run: RunRecord) -> str:
+    """The note under the summary: markers, terms, and † when a τ in the summary was judged
+    against the standard normal."""
+    note = (f"{MARKER_NOTE} Terms: ct constant and trend, c constant, n none; then the lag "
+            "order.")
     if any(normal_step(f.result, d) is not None for f in run.findings for d in range(3)):
-        return " " + _esc(NORMAL_NOTE)
-    return ""
+        note += " " + NORMAL_NOTE
+    return note
+
+
+def meta_line(run: RunRecord) -> str:
+    """Version, date, series, level, lag rule, critical values and tests, in one line."""
+    settings = run.settings
+    return (f"Tauscope {run.version} · {run.created} · {len(run.findings)} series · "
+            f"significance level {fmt.percent(settings.alpha)} · lag rule: "
+            f"{lag_rule_label(settings)} · critical values: {critical_words(run)} · "
+            f"tests that ran: {tests_words(run)}")
+
+
+def sources_line(run: RunRecord) -> str:
+    return "; ".join(f"{s.name} (SHA-256 {s.sha256[:16]}…)" for s in run.sources)
 
 
 def _origin(finding: Finding) -> str:
@@ -198,12 +214,8 @@ def _series_section(number: int, finding: Finding, image: str | None) -> str:
 def run_to_html(run: RunRecord, charts: Charts | None = None,
                 image_source: ImageSource = data_uri) -> str:
     """The whole report as one HTML document (charts embedded by ``image_source``)."""
-    settings = run.settings
-    sources = "; ".join(f"{s.name} (SHA-256 {s.sha256[:16]}…)" for s in run.sources)
-    meta = (f"Tauscope {run.version} · {run.created} · {len(run.findings)} series · "
-            f"significance level {fmt.percent(settings.alpha)} · lag rule: "
-            f"{lag_rule_label(settings)} · critical values: {critical_words(run)} · "
-            f"tests that ran: {tests_words(run)}")
+    sources = sources_line(run)
+    meta = meta_line(run)
     parts = [
         "<!DOCTYPE html>",
         '<html lang="en"><head><meta charset="utf-8">',
@@ -219,8 +231,7 @@ def run_to_html(run: RunRecord, charts: Charts | None = None,
         parts.append(f'<p class="left-out"><b>{_esc(left)}</b></p>')
     parts += ["<h2>Summary</h2>", table_html(_merge_markers(compact_table(run)), "summary",
                                                 SUMMARY_WIDTHS, note_column="error"),
-              f'<p class="note">{_esc(MARKER_NOTE)} Terms: ct constant and trend, c constant, '
-              f"n none; then the lag order.{_normal_note(run)}</p>",
+              f'<p class="note">{_esc(summary_note(run))}</p>',
               "<h2>Series</h2>"]
     index = 0
     for number, finding in enumerate(run.findings, start=1):

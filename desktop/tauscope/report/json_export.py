@@ -4,16 +4,35 @@ Each entry of "series" is exactly ``SeriesResult.to_dict()``; where each series
 came from is kept alongside in "origins" (same order).  "critical_values" ("tables" or
 "simulated") and "tests_run" describe the run; "left_out" lists the findings kept out
 because they were made with other settings.
+
+The file is compact (no indentation, no spaces after separators): that lets ``json`` use its
+C encoder, which for 500 series is many times faster than the indented pure-Python one and
+makes the file about a third the size.  Any JSON viewer lays it out again for reading.
 """
 
 from __future__ import annotations
 
 import json
+import math
 from pathlib import Path
 from typing import Any
 
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.run import RunRecord
+
+COMPACT = (",", ":")
+"""``json.dumps`` separators without spaces."""
+
+
+def json_clean(value: Any) -> Any:
+    """``value`` with non-finite floats as None and tuples as lists: what JSON gives back."""
+    if isinstance(value, float):
+        return value if math.isfinite(value) else None
+    if isinstance(value, dict):
+        return {str(k): json_clean(v) for k, v in value.items()}
+    if isinstance(value, (list, tuple)):
+        return [json_clean(v) for v in value]
+    return value
 
 
 def run_to_json(run: RunRecord) -> dict[str, Any]:
@@ -34,4 +53,5 @@ def run_to_json(run: RunRecord) -> dict[str, Any]:
 
 
 def write_json(path: Path, run: RunRecord) -> None:
-    write_text_atomic(path, json.dumps(run_to_json(run), indent=2, ensure_ascii=False) + "\n")
+    text = json.dumps(run_to_json(run), ensure_ascii=False, separators=COMPACT)
+    write_text_atomic(path, text + "\n")

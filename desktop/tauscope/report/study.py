@@ -16,7 +16,6 @@ from __future__ import annotations
 
 import datetime as dt
 import json
-import math
 import os
 from collections.abc import Iterable
 from dataclasses import dataclass, field, replace
@@ -28,6 +27,7 @@ from tauscope.data import file_sha256
 from tauscope.engine import SeriesResult, Settings
 from tauscope.report import study_check as check
 from tauscope.report.atomic import write_text_atomic
+from tauscope.report.json_export import json_clean
 from tauscope.report.run import RunRecord, SourceLike
 from tauscope.report.study_text import ends_before_complete
 
@@ -89,17 +89,6 @@ class Study:
 # ----------------------------------------------------------------------------- building
 
 
-def json_clean(value: Any) -> Any:
-    """``value`` with non-finite floats as None and tuples as lists: what JSON gives back."""
-    if isinstance(value, float):
-        return value if math.isfinite(value) else None
-    if isinstance(value, dict):
-        return {str(k): json_clean(v) for k, v in value.items()}
-    if isinstance(value, (list, tuple)):
-        return [json_clean(v) for v in value]
-    return value
-
-
 def finding_entry(result: SeriesResult, key: str | None) -> dict[str, Any]:
     return {"key": key, "result": json_clean(result.to_dict())}
 
@@ -139,7 +128,10 @@ def workbook_entry(path: Path | str, sha256: str | None = None,
 # ----------------------------------------------------------------------------- JSON
 
 
-def study_to_json(study: Study, study_path: Path | None = None) -> dict[str, Any]:
+def study_to_json(study: Study, study_path: Path | None = None,
+                  clean: bool = True) -> dict[str, Any]:
+    """The study as JSON data; ``clean=False`` takes the findings as they are (they are
+    clean when made by :func:`finding_entry` or read from a file)."""
     folder = study_path.resolve().parent if study_path is not None else None
     workbooks = []
     for wb in study.workbooks:
@@ -162,7 +154,7 @@ def study_to_json(study: Study, study_path: Path | None = None) -> dict[str, Any
         "series": [{"key": s.key, "name": s.name, "file": s.file, "sheet": s.sheet,
                     "column": s.column, "transforms": list(s.transforms), "gaps": s.gaps}
                    for s in study.series],
-        "findings": [json_clean(f) for f in study.findings],
+        "findings": [json_clean(f) for f in study.findings] if clean else list(study.findings),
     })
     return data
 
@@ -233,14 +225,22 @@ def save_study(path: Path | str, study: Study) -> Study:
     """Write ``study`` to ``path`` atomically; returns the study as saved (time stamped)."""
     target = Path(path)
     stamped = replace(study, saved=_now(), program=__version__)
-    text = json.dumps(study_to_json(stamped, target), indent=2, ensure_ascii=False,
-                      allow_nan=False) + "\n"
+    # Compact, so that json uses its C encoder, and the findings cleaned again only when they
+    # need it: with 500 findings the indented text took seconds, and the window waits for it.
+    try:
+        text = _dumps(study_to_json(stamped, target, clean=False))
+    except (ValueError, TypeError):  # a non-finite number or a tuple key: clean, then write
+        text = _dumps(study_to_json(stamped, target))
     try:
         write_text_atomic(target, text)
     except OSError as exc:
         raise StudyError(f"The study {target.name} could not be saved in {target.parent} "
                          f"({exc.strerror or exc}); the previous version is unchanged.") from exc
     return stamped
+
+
+def _dumps(data: dict[str, Any]) -> str:
+    return json.dumps(data, ensure_ascii=False, allow_nan=False, separators=(",", ":")) + "\n"
 
 
 _CUT_SHORT = "it ends too early, as if it had been cut short"

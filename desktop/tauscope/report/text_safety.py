@@ -10,6 +10,8 @@ file).  Each writer passes its text through the helper for its format:
   usual escaping.
 * LaTeX: a control character in the source stops or confuses TeX (a blank line ends
   a table cell's paragraph); tab and line breaks become spaces, the others "?".
+* PDF (drawn line by line): tab and line breaks become spaces, as they are in HTML, and the
+  others U+FFFD.
 """
 
 from __future__ import annotations
@@ -34,3 +36,8 @@ def html_text(text: str) -> str:
 def tex_text(text: str) -> str:
     """``text`` with tab and line breaks as spaces and other control characters as "?"."""
     return _ANY_CONTROL.sub(lambda m: " " if m.group() in "\t\n\r" else "?", text)
+
+
+def pdf_text(text: str) -> str:
+    """``text`` with tab and line breaks as spaces and other control characters as U+FFFD."""
+    return _ANY_CONTROL.sub(lambda m: " " if m.group() in "\t\n\r" else REPLACEMENT, text)

@@ -18,13 +18,14 @@ from __future__ import annotations
 import io
 import struct
 from pathlib import Path
+from typing import TypeAlias
 
 from openpyxl import Workbook
-from openpyxl.cell.cell import Cell
+from openpyxl.cell.cell import Cell, WriteOnlyCell
 from openpyxl.drawing.image import Image
 from openpyxl.styles import Alignment, Border, Font, PatternFill, Side
 from openpyxl.utils import get_column_letter
-from openpyxl.worksheet.worksheet import Worksheet
+from openpyxl.worksheet._write_only import WriteOnlyWorksheet
 
 from tauscope.report.atomic import write_bytes_atomic
 from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
@@ -60,6 +61,59 @@ def put(cell: Cell, value: Value) -> None:
         cell.quotePrefix = True
 
 
+Entry: TypeAlias = Value | Cell
+"""What a row appended to a write-only sheet holds: a plain value, or a cell with a style."""
+
+
+def entry(sheet: WriteOnlyWorksheet, value: Value, number_format: str | None = None) -> Entry:
+    """``value`` ready to append: as it is when openpyxl may take it plain (a number, or text
+    that cannot be read as a formula), else as a cell made by :func:`put`."""
+    if isinstance(value, str):
+        value = xml_text(value)
+        if not looks_like_formula(value):
+            return value
+    elif number_format is None or not isinstance(value, (int, float)):
+        return value
+    cell = WriteOnlyCell(sheet)
+    put(cell, value)
+    if number_format is not None:
+        cell.number_format = number_format
+    return cell
+
+
+def styled(sheet: WriteOnlyWorksheet, value: Value, font: Font | None = None,
+           border: Border | None = None, fill: PatternFill | None = None,
+           alignment: Alignment | None = None) -> Cell:
+    cell = WriteOnlyCell(sheet)
+    put(cell, value)
+    if font is not None:
+        cell.font = font
+    if border is not None:
+        cell.border = border
+    if fill is not None:
+        cell.fill = fill
+    if alignment is not None:
+        cell.alignment = alignment
+    return cell
+
+
+class Rows:
+    """A write-only sheet and the number of rows appended to it so far."""
+
+    def __init__(self, sheet: WriteOnlyWorksheet) -> None:
+        self.sheet = sheet
+        self.written = 0
+
+    def add(self, cells: list[Entry]) -> None:
+        self.sheet.append(cells)
+        self.written += 1
+
+    def skip_to(self, row: int) -> None:
+        """Append empty rows until the next row appended is ``row`` (1-based)."""
+        while self.written < row - 1:
+            self.add([])
+
+
 class _PngImage(Image):
     """An openpyxl image made from PNG bytes without the imaging library.
 
@@ -79,28 +133,31 @@ class _PngImage(Image):
         return self._png
 
 
-def _write_table(sheet: Worksheet, table: Table, first_row: int = 1) -> None:
-    for j, column in enumerate(table.columns, start=1):
-        cell = sheet.cell(row=first_row, column=j)
-        put(cell, column.header)
-        cell.font = HEADER_FONT
-        cell.fill = HEADER_FILL
-        cell.border = HEADER_BORDER
-        cell.alignment = Alignment(vertical="center", wrap_text=True)
-    for i, row in enumerate(table.rows, start=first_row + 1):
-        for j, (column, value) in enumerate(zip(table.columns, row, strict=True), start=1):
-            cell = sheet.cell(row=i, column=j)
-            put(cell, value)
-            if isinstance(value, (int, float)) and column.kind in NUMBER_FORMATS:
-                cell.number_format = NUMBER_FORMATS[column.kind]
-    sheet.freeze_panes = sheet.cell(row=first_row + 1, column=2)
+def _header_cells(sheet: WriteOnlyWorksheet, table: Table) -> list[Entry]:
+    header = Alignment(vertical="center", wrap_text=True)
+    return [styled(sheet, c.header, HEADER_FONT, HEADER_BORDER, HEADER_FILL, header)
+            for c in table.columns]
+
+
+def _body_cells(sheet: WriteOnlyWorksheet, table: Table, values: tuple[Value, ...]) -> list[Entry]:
+    return [entry(sheet, value, NUMBER_FORMATS.get(column.kind))
+            for column, value in zip(table.columns, values, strict=True)]
+
+
+def _write_table(rows: Rows, table: Table) -> None:
+    """The table from the sheet's first row: styled header, frozen below it and right of the
+    first column, a filter over the table, numbers formatted by kind, widths to fit."""
+    sheet = rows.sheet
+    sheet.freeze_panes = "B2"
     if table.rows:
-        last = get_column_letter(len(table.columns))
-        sheet.auto_filter.ref = f"A{first_row}:{last}{first_row + len(table.rows)}"
+        sheet.auto_filter.ref = f"A1:{get_column_letter(len(table.columns))}{1 + len(table.rows)}"
     _fit_widths(sheet, table)
+    rows.add(_header_cells(sheet, table))
+    for values in table.rows:
+        rows.add(_body_cells(sheet, table, values))
 
 
-def _fit_widths(sheet: Worksheet, table: Table) -> None:
+def _fit_widths(sheet: WriteOnlyWorksheet, table: Table) -> None:
     for j, column in enumerate(table.columns, start=1):
         lengths = [len(column.header) * 0.9 + 2]
         for row in table.rows:
@@ -112,54 +169,39 @@ def _fit_widths(sheet: Worksheet, table: Table) -> None:
         sheet.column_dimensions[get_column_letter(j)].width = min(MAX_WIDTH, max(8, *lengths))
 
 
-def _summary(sheet: Worksheet, run: RunRecord) -> None:
+def _summary(rows: Rows, run: RunRecord) -> None:
     table = summary_table(run)
-    _write_table(sheet, table)
-    note = sheet.cell(row=len(table.rows) + 3, column=1)
-    put(note, MARKER_NOTE)
-    note.font = NOTE_FONT
+    rows.sheet.row_dimensions[1].height = 32
+    _write_table(rows, table)
+    rows.skip_to(len(table.rows) + 3)
+    rows.add([styled(rows.sheet, MARKER_NOTE, NOTE_FONT)])
     left = left_out_note(run)
     if left is not None:
-        cell = sheet.cell(row=len(table.rows) + 4, column=1)
-        put(cell, left)
-        cell.font = Font(bold=True, color="8A3B12")
-    sheet.row_dimensions[1].height = 32
+        rows.add([styled(rows.sheet, left, Font(bold=True, color="8A3B12"))])
 
 
-def _all_tests(sheet: Worksheet, run: RunRecord) -> None:
-    _write_table(sheet, tests_table(run))
+def _all_tests(rows: Rows, run: RunRecord) -> None:
+    _write_table(rows, tests_table(run))
 
 
-def _paths(sheet: Worksheet, run: RunRecord) -> None:
-    row = 1
-    for finding in run.findings:
-        result = finding.result
-        title = sheet.cell(row=row, column=1)
-        put(title, f"{finding.name}: {result.verdict.label}")
-        title.font = Font(bold=True, size=12)
-        row += 1
-        if not result.ok:
-            put(sheet.cell(row=row, column=1), result.error)
-            row += 2
-            continue
-        table = path_table(result)
-        for j, column in enumerate(table.columns, start=1):
-            cell = sheet.cell(row=row, column=j)
-            put(cell, column.header)
-            cell.font = Font(bold=True)
-            cell.border = HEADER_BORDER
-        for values in table.rows:
-            row += 1
-            for j, (column, value) in enumerate(zip(table.columns, values, strict=True), start=1):
-                cell = sheet.cell(row=row, column=j)
-                put(cell, value)
-                if isinstance(value, (int, float)) and column.kind in NUMBER_FORMATS:
-                    cell.number_format = NUMBER_FORMATS[column.kind]
-        row += 1
-        put(sheet.cell(row=row, column=1), result.verdict.text)
-        row += 2
+def _paths(rows: Rows, run: RunRecord) -> None:
+    sheet = rows.sheet
     for letter, width in zip("ABCDEFGHI", (6, 18, 22, 48, 10, 10, 14, 10, 14), strict=True):
         sheet.column_dimensions[letter].width = width
+    title_font, bold = Font(bold=True, size=12), Font(bold=True)
+    for finding in run.findings:
+        result = finding.result
+        rows.add([styled(sheet, f"{finding.name}: {result.verdict.label}", title_font)])
+        if not result.ok:
+            rows.add([entry(sheet, result.error)])
+            rows.add([])
+            continue
+        table = path_table(result)
+        rows.add([styled(sheet, c.header, bold, HEADER_BORDER) for c in table.columns])
+        for values in table.rows:
+            rows.add(_body_cells(sheet, table, values))
+        rows.add([entry(sheet, result.verdict.text)])
+        rows.add([])
 
 
 def about_rows(run: RunRecord) -> list[tuple[str, Value]]:
@@ -184,65 +226,55 @@ def about_rows(run: RunRecord) -> list[tuple[str, Value]]:
     return rows
 
 
-def _about(sheet: Worksheet, run: RunRecord) -> None:
-    rows = about_rows(run)
-    for i, (label, value) in enumerate(rows, start=1):
-        put(sheet.cell(row=i, column=1), label)
-        sheet.cell(row=i, column=1).font = Font(bold=True)
-        put(sheet.cell(row=i, column=2), value)
-    row = len(rows) + 2
-    put(sheet.cell(row=row, column=1), "Source file")
-    put(sheet.cell(row=row, column=2), "SHA-256")
-    for j in (1, 2):
-        sheet.cell(row=row, column=j).font = Font(bold=True)
-        sheet.cell(row=row, column=j).border = HEADER_BORDER
-    for source in run.sources:
-        row += 1
-        put(sheet.cell(row=row, column=1), source.name)
-        put(sheet.cell(row=row, column=2), source.sha256)
-        put(sheet.cell(row=row, column=3), source.path)
-    row += 2
-    put(sheet.cell(row=row, column=1), "Methods")
-    sheet.cell(row=row, column=1).font = Font(bold=True)
-    methods = methods_for(run)
-    for paragraph in (*methods.paragraphs, "References:", *methods.references):
-        row += 1
-        cell = sheet.cell(row=row, column=2)
-        put(cell, paragraph)
-        cell.alignment = Alignment(wrap_text=True, vertical="top")
+def _about(rows: Rows, run: RunRecord) -> None:
+    sheet = rows.sheet
     sheet.column_dimensions["A"].width = 28
     sheet.column_dimensions["B"].width = 100
     sheet.column_dimensions["C"].width = 60
+    bold = Font(bold=True)
+    for label, value in about_rows(run):
+        rows.add([styled(sheet, label, bold), entry(sheet, value)])
+    rows.add([])
+    rows.add([styled(sheet, "Source file", bold, HEADER_BORDER),
+              styled(sheet, "SHA-256", bold, HEADER_BORDER)])
+    for source in run.sources:
+        rows.add([entry(sheet, source.name), entry(sheet, source.sha256),
+                  entry(sheet, source.path)])
+    rows.add([])
+    rows.add([styled(sheet, "Methods", bold)])
+    methods = methods_for(run)
+    wrap = Alignment(wrap_text=True, vertical="top")
+    for paragraph in (*methods.paragraphs, "References:", *methods.references):
+        rows.add([None, styled(sheet, paragraph, alignment=wrap)])
 
 
-def _charts(sheet: Worksheet, run: RunRecord, charts: Charts) -> None:
+def _charts(rows: Rows, run: RunRecord, charts: Charts) -> None:
     row = 1
     for finding in run.findings:
         png = chart_for(finding, charts)
         if png is None:
             continue
-        title = sheet.cell(row=row, column=1)
-        put(title, finding.name)
-        title.font = Font(bold=True, size=12)
+        rows.skip_to(row)
+        rows.add([styled(rows.sheet, finding.name, Font(bold=True, size=12))])
         image = _PngImage(png)
         if image.width > 900:
             scale = 900 / image.width
             image.width, image.height = 900, int(image.height * scale)
-        sheet.add_image(image, f"A{row + 1}")
+        rows.sheet.add_image(image, f"A{row + 1}")
         row += 2 + int(image.height / 20) + 1
 
 
 def run_to_xlsx(run: RunRecord, charts: Charts | None = None) -> bytes:
-    book = Workbook()
-    summary = book.active
-    assert summary is not None
-    summary.title = "Summary"
-    _summary(summary, run)
-    _all_tests(book.create_sheet("All tests"), run)
-    _paths(book.create_sheet("Decision path"), run)
-    _about(book.create_sheet("About this run"), run)
+    """The workbook, written in openpyxl's write-only mode: each sheet is streamed row by row
+    (settings that go before the rows, such as widths and frozen panes, are made first), so
+    the cells never sit in memory as a whole workbook of objects."""
+    book = Workbook(write_only=True)
+    _summary(Rows(book.create_sheet("Summary")), run)
+    _all_tests(Rows(book.create_sheet("All tests")), run)
+    _paths(Rows(book.create_sheet("Decision path")), run)
+    _about(Rows(book.create_sheet("About this run")), run)
     if charts and any(chart_for(f, charts) is not None for f in run.findings):
-        _charts(book.create_sheet("Charts"), run, charts)
+        _charts(Rows(book.create_sheet("Charts")), run, charts)
     buffer = io.BytesIO()
     book.save(buffer)
     return buffer.getvalue()

@@ -2,8 +2,8 @@
 
 Qt's own paging (``QTextDocument.print_``) moves a table row to the next page
 line by line, so one step of a decision path can start at the foot of a page
-and end at the head of the next.  Here the document is laid out once as one
-long page, and the cuts are chosen by hand:
+and end at the head of the next.  Here the report is laid out once as one
+long page (:mod:`tauscope.ui.pdf_flow`), and the cuts are chosen by hand:
 
 * a *unit* is a stretch of the page that must stay whole: a table row (all its
   cells), a line of text, a line holding a chart; a heading is one unit with
@@ -12,16 +12,14 @@ long page, and the cuts are chosen by hand:
   unit taller than a whole page is ever cut;
 * a page that starts inside a table repeats that table's header rows first.
 
-The geometry comes from the document's layout (``blockBoundingRect`` of every
-block, ``QTextLine`` positions within a block); the arithmetic on intervals is
-plain Python, so it is tested without Qt.
+The geometry comes from the layout (every line, table row and chart it placed);
+the arithmetic on intervals is plain Python, so it is tested without Qt.
 """
 
 from __future__ import annotations
 
 import bisect
 from dataclasses import dataclass
-from typing import Any
 
 
 @dataclass(frozen=True)
@@ -106,48 +104,3 @@ def cut_pages(units: list[Unit], height: float, page_height: float) -> list[Page
         if header[1] - header[0] >= page_height / 2:
             header = (0.0, 0.0)  # a header too tall to repeat is not repeated
     return pages
-
-
-def document_units(document: Any) -> list[Unit]:
-    """The units of a laid-out ``QTextDocument`` (layout coordinates, top to bottom)."""
-    from PySide6.QtGui import QTextCursor
-
-    layout = document.documentLayout()
-    rows: dict[tuple[int, int], list[float]] = {}
-    header_rows: dict[int, int] = {}
-    pads: dict[int, float] = {}
-    units: list[Unit] = []
-    heading_pending: list[int] = []
-    block = document.begin()
-    while block.isValid():
-        rect = layout.blockBoundingRect(block)
-        table = QTextCursor(block).currentTable()
-        if table is not None:
-            for index in heading_pending:  # a heading stays with the table's first row
-                units[index] = Unit(units[index].top, rect.bottom())
-            heading_pending = []
-            key = table.firstPosition()
-            row = table.cellAt(block.position()).row()
-            if key not in pads:
-                form = table.format()
-                pads[key] = form.cellPadding() + form.border() + form.cellSpacing()
-                header_rows[key] = form.headerRowCount()
-            span = rows.setdefault((key, row), [rect.top(), rect.bottom()])
-            span[0], span[1] = min(span[0], rect.top()), max(span[1], rect.bottom())
-        else:
-            text_layout = block.layout()
-            first = len(units)
-            for i in range(text_layout.lineCount()):
-                line = text_layout.lineAt(i)
-                units.append(Unit(rect.top() + line.y(), rect.top() + line.y() + line.height()))
-            for index in heading_pending:  # a heading stays with the line after it
-                if len(units) > first:
-                    units[index] = Unit(units[index].top, units[first].bottom)
-            heading_pending = []
-            if block.blockFormat().headingLevel() > 0 and len(units) > first:
-                heading_pending = [len(units) - 1]
-        block = block.next()
-    for (key, row), (top, bottom) in rows.items():
-        pad = pads[key]
-        units.append(Unit(top - pad, bottom + pad, key, row, row < header_rows[key]))
-    return units

@@ -1,5 +1,12 @@
-"""PDF of the HTML report through Qt's own PDF writer (QTextDocument + QPdfWriter), cut
-into pages where no table row, line or chart is split (:mod:`tauscope.ui.pdf_pages`).
+"""PDF findings drawn with QPainter straight onto Qt's PDF writer (QPdfWriter).
+
+The report says what the HTML report says, in the same order (title, run, summary table, one
+section per series with its decision path, chart and reading, methods, references); it is
+laid out by :mod:`tauscope.ui.pdf_flow` (lines, table rows and charts, measured with the
+fonts' metrics) and cut into pages by :func:`tauscope.ui.pdf_pages.cut_pages`, so no table row,
+line or chart is split and a table running onto a new page repeats its header.  Laying the
+report out as a rich-text document and drawing that page by page cost about four times as
+much (``benchmarks/batch_writers.py``).
 
 Lives in ``ui/`` because it needs Qt ("Qt only in ui/").  Importing this module
 registers the ``.pdf`` writer with :func:`tauscope.report.register_writer`, so
@@ -12,17 +19,32 @@ started for the fonts and images.
 from __future__ import annotations
 
 from pathlib import Path
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from tauscope.report import register_writer
 from tauscope.report.atomic import write_bytes_atomic
-from tauscope.report.html_export import CHART_WIDTH, run_to_html
-from tauscope.report.run import Charts, RunRecord
-from tauscope.ui.pdf_pages import Page, cut_pages, document_units
+from tauscope.report.html_export import (
+    CHART_WIDTH,
+    ONE_LINE_EACH,
+    PATH_WIDTHS,
+    SUMMARY_WIDTHS,
+    _format,
+    _merge_markers,
+    _origin,
+    meta_line,
+    sources_line,
+    summary_note,
+)
+from tauscope.report.methods import left_out_note, methods_for
+from tauscope.report.run import Charts, RunRecord, chart_for
+from tauscope.report.tables import Table, Value, compact_table, path_table
+from tauscope.report.text_safety import pdf_text
+
+if TYPE_CHECKING:
+    from tauscope.ui.pdf_flow import Column, Flow
 
 PAGE_MARGIN_MM = 18.0
 RESOLUTION_DPI = 300
-LAYOUT_WIDTH = 1000.0
 _APP: list[Any] = []  # keeps an application started here alive
 
 
@@ -36,43 +58,130 @@ def _ensure_application() -> None:
         _APP.append(QApplication(["tauscope", "-platform", "offscreen"]))
 
 
+class _Styles:
+    """The report's type, as in the HTML report's style sheet (sizes in points)."""
+
+    def __init__(self) -> None:
+        from tauscope.ui.pdf_flow import Style, font
+
+        teal = "#2f5d62"
+        self.h1 = Style(font(18, bold=True), teal)
+        self.h2 = Style(font(14, bold=True), teal)
+        self.h3 = Style(font(12, bold=True))
+        self.h4 = Style(font(10.5, bold=True))
+        self.body = Style(font(10.5))
+        self.meta = Style(font(10.5), "#55606a")
+        self.left_out = Style(font(10.5, bold=True), "#8a3b12")
+        self.note = Style(font(9, italic=True), "#55606a")
+        self.verdict = Style(font(11.5, bold=True), teal)
+        self.cell = Style(font(9.5), line_height=1.2)
+        self.head = Style(font(9, bold=True), "#ffffff", line_height=1.2)
+
+
+def _text(table: Table, index: int, value: Value) -> str:
+    column = table.columns[index]
+    text = pdf_text(_format(value, column.kind))
+    if column.ident in ONE_LINE_EACH:  # one item a line, never broken inside
+        return "\n".join(item.replace(" ", "\u00a0") for item in text.split("; "))
+    return text
+
+
+def _table(flow: Flow, styles: _Styles, table: Table, widths: dict[str, int],
+           note_column: str | None = None) -> None:
+    """The table as the HTML report shows it: ``widths`` in percent by column, the others
+    sharing what is left; ``note_column`` shown only where it has text, across the
+    statistics of its row."""
+    from tauscope.ui.pdf_flow import Column
+
+    note = next((i for i, c in enumerate(table.columns) if c.ident == note_column), None)
+    shown = [i for i in range(len(table.columns)) if i != note]
+    fixed = sum(widths.get(table.columns[i].ident, 0) for i in shown)
+    free = [i for i in shown if table.columns[i].ident not in widths]
+    rest = max(100 - fixed, 0) / len(free) if free else 0.0
+    columns: list[Column] = [
+        Column(table.columns[i].header, widths.get(table.columns[i].ident, rest) / 100,
+               table.columns[i].kind in ("stat", "p", "int"))
+        for i in shown]
+    first_stat = next((k for k, i in enumerate(shown)
+                       if table.columns[i].kind in ("stat", "p")), len(shown))
+    rows = []
+    for row in table.rows:
+        if note is not None and row[note]:
+            cells = [(_text(table, i, row[i]), 1) for i in shown[:first_stat]]
+            cells.append((pdf_text(str(row[note])), len(shown) - first_stat))
+        else:
+            cells = [(_text(table, i, row[i]), 1) for i in shown]
+        rows.append(cells)
+    flow.table(columns, rows, styles.head, styles.cell, fill="#2f5d62", line="#d5dfe0")
+
+
+def _chart(png: bytes) -> Any:
+    from PySide6.QtGui import QImage
+
+    image = QImage()
+    image.loadFromData(png, "PNG")
+    return image
+
+
+def layout_report(run: RunRecord, charts: Charts | None = None) -> Flow:
+    """The whole report laid out in one long column."""
+    from tauscope.ui.pdf_flow import Flow
+
+    styles = _Styles()
+    flow = Flow()
+    flow.paragraph("Order of integration: findings", styles.h1, after=4)
+    flow.paragraph(meta_line(run), styles.meta, after=2)
+    sources = sources_line(run)
+    if sources:
+        flow.paragraph(f"Data: {sources}", styles.meta, after=2)
+    left = left_out_note(run)
+    if left is not None:
+        flow.paragraph(left, styles.left_out)
+    _heading2(flow, styles, "Summary")
+    _table(flow, styles, _merge_markers(compact_table(run)), SUMMARY_WIDTHS, note_column="error")
+    flow.paragraph(summary_note(run), styles.note)
+    _heading2(flow, styles, "Series")
+    for number, finding in enumerate(run.findings, start=1):
+        result = finding.result
+        flow.paragraph(f"{number}. {finding.name}", styles.h3, before=14, after=2, heading=True)
+        flow.paragraph(_origin(finding), styles.meta, after=2)
+        flow.paragraph(result.verdict.label, styles.verdict, after=4)
+        if not result.ok:
+            flow.paragraph(result.error or "", styles.body)
+            continue
+        flow.paragraph("Decision path", styles.h4, before=4, after=2, heading=True)
+        _table(flow, styles, path_table(result), PATH_WIDTHS)
+        png = chart_for(finding, charts)
+        if png is not None:
+            flow.paragraph("Chart", styles.h4, before=4, after=2, heading=True)
+            flow.image(_chart(png), CHART_WIDTH)
+        flow.paragraph("Reading", styles.h4, before=4, after=2, heading=True)
+        for note in result.notes:
+            flow.paragraph(note, styles.body)
+    methods = methods_for(run)
+    _heading2(flow, styles, "Methods")
+    for paragraph in methods.paragraphs:
+        flow.paragraph(paragraph, styles.body)
+    flow.paragraph("References", styles.h3, before=10, after=4, heading=True)
+    for number, reference in enumerate(methods.references, start=1):
+        flow.paragraph(f"{number}. {reference}", styles.body, indent=12, after=3)
+    return flow
+
+
+def _heading2(flow: Flow, styles: _Styles, text: str) -> None:
+    flow.paragraph(text, styles.h2, before=18, after=8, heading=True, rule="#9fb8ba")
+
+
 def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
-    """The HTML report laid out on A4 pages, as PDF bytes."""
+    """The report on A4 pages, as PDF bytes."""
     _ensure_application()
-    from PySide6.QtCore import QBuffer, QByteArray, QIODevice, QMarginsF, QUrl
-    from PySide6.QtGui import (
-        QImage,
-        QPageLayout,
-        QPageSize,
-        QPainter,
-        QPdfWriter,
-        QTextDocument,
-    )
+    from PySide6.QtCore import QBuffer, QByteArray, QIODevice, QMarginsF
+    from PySide6.QtGui import QPageLayout, QPageSize, QPainter, QPdfWriter
 
-    images: list[tuple[str, bytes]] = []
+    from tauscope.ui.pdf_flow import WIDTH, draw_slice
+    from tauscope.ui.pdf_pages import cut_pages
 
-    def resource_name(index: int, png: bytes) -> str:
-        name = f"tauscope-chart-{index}.png"
-        images.append((name, png))
-        return name
-
-    markup = run_to_html(run, charts, image_source=resource_name)
-    # The report's line height (1.4) would stretch a line holding a chart in QTextDocument
-    # (it scales the whole line, image included), leaving a gap below every chart.
-    markup = markup.replace("<p><img ", '<p style="line-height: 100%;"><img ')
-    document = QTextDocument()
-    for name, png in images:
-        image = QImage()
-        image.loadFromData(png, "PNG")
-        # Lay a chart out at the report's chart width whatever its pixel size (QTextDocument
-        # would otherwise reserve its full pixel height and leave a gap below it).
-        if image.width() > CHART_WIDTH:
-            image.setDevicePixelRatio(image.width() / CHART_WIDTH)
-        document.addResource(QTextDocument.ResourceType.ImageResource, QUrl(name), image)
-    document.setHtml(markup)
-
-    document.setTextWidth(LAYOUT_WIDTH)  # one long page; cut_pages chooses the page breaks
-
+    flow = layout_report(run, charts)
     data = QByteArray()
     buffer = QBuffer(data)
     buffer.open(QIODevice.OpenModeFlag.WriteOnly)
@@ -85,47 +194,31 @@ def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
         QMarginsF(PAGE_MARGIN_MM, PAGE_MARGIN_MM, PAGE_MARGIN_MM, PAGE_MARGIN_MM),
         QPageLayout.Unit.Millimeter,
     ))
-    # The text is laid out LAYOUT_WIDTH units wide and scaled to the paper, so the 10.5 pt
-    # body text comes out at about 10.5 × (paper width / LAYOUT_WIDTH).
+    # The column is laid out WIDTH units wide and scaled to the paper, so the 10.5 pt body
+    # text comes out at about 10.5 × (paper width / WIDTH) × 96 / 72.
     paint = writer.pageLayout().paintRectPixels(RESOLUTION_DPI)
-    scale = paint.width() / LAYOUT_WIDTH
-    pages = cut_pages(document_units(document), document.size().height(),
-                      paint.height() / scale)
+    scale = paint.width() / WIDTH
+    pages = cut_pages(flow.units, flow.y, paint.height() / scale)
+    tops = [piece.top for piece in flow.pieces]
     painter = QPainter(writer)
     try:
         for number, page in enumerate(pages):
             if number:
                 writer.newPage()
-            _draw_page(painter, document, page, scale)
+            painter.save()
+            painter.scale(scale, scale)
+            if page.header_height > 0:
+                painter.save()
+                painter.translate(0, -page.header_top)
+                draw_slice(painter, flow.pieces, tops, page.header_top, page.header_bottom)
+                painter.restore()
+            painter.translate(0, page.header_height - page.top)
+            draw_slice(painter, flow.pieces, tops, page.top, page.bottom)
+            painter.restore()
     finally:
         painter.end()
     buffer.close()
     return bytes(data.data())
-
-
-CLIP_INSET = 1.0
-"""Layout units kept off each edge of a page's slice: a block only touching the slice (the
-first row of the next page) is then not drawn at all, not even as clipped, invisible text."""
-
-
-def _inside(top: float, bottom: float) -> Any:
-    from PySide6.QtCore import QRectF
-
-    return QRectF(0, top + CLIP_INSET, LAYOUT_WIDTH, max(bottom - top - 2 * CLIP_INSET, 0.0))
-
-
-def _draw_page(painter: Any, document: Any, page: Page, scale: float) -> None:
-    """The header rows to repeat (if any), then the page's slice of the document."""
-    painter.save()
-    painter.scale(scale, scale)
-    if page.header_height > 0:
-        painter.save()
-        painter.translate(0, -page.header_top)
-        document.drawContents(painter, _inside(page.header_top, page.header_bottom))
-        painter.restore()
-    painter.translate(0, page.header_height - page.top)
-    document.drawContents(painter, _inside(page.top, page.bottom))
-    painter.restore()
 
 
 def write_pdf(path: Path, run: RunRecord, charts: Charts | None = None) -> None:

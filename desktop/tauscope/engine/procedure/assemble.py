@@ -17,6 +17,7 @@ import pandas as pd
 from tauscope.engine.procedure.breaks import fitted_under_break
 from tauscope.engine.procedure.stages import Reading
 from tauscope.engine.results import SeriesResult, TestResult
+from tauscope.engine.results_breaks import BreakCheck
 
 
 def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesResult:
@@ -52,7 +53,7 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         lag_profile_difference=deciding.difference,
         span=(prepared.label(0), prepared.label(x.shape[0] - 1)),
         values=pd.Series(x, index=index, name=name),
-        fitted=fitted_under_break(x, checked.breaks)
+        fitted=_break_path_in_units(prepared.standardised, prepared.scale, checked.breaks)
         if checked.breaks is not None and checked.breaks.stationary_with_break
         else _fitted_in_units(prepared.standardised, prepared.scale, decision.order,
                               decision.deterministic),
@@ -60,6 +61,13 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         classic=reading.classic,
         breaks=checked.breaks,
     )
+
+
+def _break_path_in_units(z: np.ndarray, scale: float, check: BreakCheck | None
+                         ) -> np.ndarray | None:
+    """The path under the break, fitted on the standardised series and put back in units."""
+    fitted = fitted_under_break(z, check)
+    return None if fitted is None else fitted * scale
 
 
 def _fitted_in_units(z: np.ndarray, scale: float, order: int | None,

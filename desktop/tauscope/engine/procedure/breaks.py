@@ -126,13 +126,18 @@ def break_t_ratios(x: np.ndarray, position: int, lags: int) -> tuple[float, floa
         raise UntestableSeries("too few observations to judge the trend at the break")
     sigma2 = float(resid @ resid) / df
     inverse = np.linalg.pinv(design.T @ design)
-    t_ratios = beta / np.sqrt(sigma2 * np.diag(inverse))
+    # Round-off can leave a variance a hair below zero where it is really zero.
+    variances = np.maximum(sigma2 * np.diag(inverse), np.finfo(float).tiny)
+    t_ratios = beta / np.sqrt(variances)
     return float(t_ratios[1]), float(t_ratios[2])
 
 
 def run_break_test(prepared: PreparedSeries, lags: int, alpha: float) -> BreakTest:
     """The minimum LM test on the levels, judged against the null simulated at this length."""
-    x = prepared.values
+    # The statistic depends on neither level nor scale: it is searched on the standardised
+    # series (safe from overflow at any magnitude), and the shift and slope are put back
+    # into the series' units.
+    x = prepared.standardised
     search = lm_break(x, lags=min(max(int(lags), 0), MAX_LAGS))
     length = min(int(x.shape[0]), SIMULATED_LENGTH_CAP)
     critical_values = break_critical_values(length)
@@ -147,7 +152,8 @@ def run_break_test(prepared: PreparedSeries, lags: int, alpha: float) -> BreakTe
         critical_value=critical_values[level], p_value=p_value, p_value_bound=bound,
         reject=reject, lags=search.lags, nobs=search.nobs, position=search.position,
         first_new=search.first_new, last_old_label=prepared.label(search.position),
-        first_new_label=prepared.label(search.first_new), shift=search.shift, slope=search.slope,
+        first_new_label=prepared.label(search.first_new), shift=search.shift * prepared.scale,
+        slope=search.slope * prepared.scale,
         trend_t=trend_t, deterministic="trend" if trend else "constant", reps=BREAK_REPS,
         shift_t=shift_t, shift_clear=bool(abs(shift_t) > SHIFT_T[shift_level]),
     )
@@ -170,7 +176,7 @@ def check_breaks(prepared: PreparedSeries, order: int | None, kpss: Sequence[tup
     regressions on the levels with a constant (for the swing) and with a trend (for the
     break test).
     """
-    x = prepared.values
+    x = prepared.standardised  # the signs depend on neither level nor scale
     try:
         recursive: RecursiveStatistic | None = recursive_tau(x, "constant", min(constant_lags, SWING_LAGS), alpha)
     except _FAILURES:

@@ -13,10 +13,6 @@ from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.regression.scaling import power_of_two_scale, scaled
 
 MIN_OBSERVATIONS = 12
-# Largest magnitude accepted: the regressions square and cross-multiply the values (and
-# sum hundreds of such products), which overflows double precision (about 1.8e308)
-# long before the values themselves do; 1e100 leaves room for any realistic sample.
-MAX_MAGNITUDE = 1e100
 
 PERIODS_PER_YEAR = {"Y": 1.0, "A": 1.0, "Q": 4.0, "M": 12.0, "W": 52.0, "D": 365.0, "B": 261.0}
 
@@ -91,10 +87,6 @@ def prepare(values: Any) -> PreparedSeries:
     present = np.flatnonzero(~np.isnan(x))
     if present.size == 0:
         raise UntestableSeries("every value is missing")
-    largest = float(np.nanmax(np.abs(x)))
-    if largest > MAX_MAGNITUDE:
-        raise UntestableSeries(f"its values reach {largest:.1e}, too large to compute with "
-                               "reliably; divide the series by a power of ten first")
     start, stop = int(present[0]), int(present[-1]) + 1
     trimmed = x[start:stop]
     if index is not None:

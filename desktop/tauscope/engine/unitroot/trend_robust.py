@@ -21,7 +21,9 @@ In finite samples λ is not yet near 1 under I(1) (at T = 100 a driftless random
 gets a "trend" 12% of the time against ±1.96), so :func:`trend_critical_value`
 simulates the 1 − α quantile of |z_λ| at the series' own length under both nulls
 (a driftless Gaussian random walk and Gaussian white noise, fixed seed, the same lag
-rule) and uses the larger of the two and the normal value.
+rule) and uses the larger of the two and the normal value.  For MAIC lags up to the
+union's maximum ⌊6 (T/100)^{1/4}⌋ both quantiles are read from a table simulated once on
+a grid of lengths and interpolated in 1/T (:mod:`tauscope.engine.unitroot.union_lookup`).
 
 Applied to the levels it labels an I(0) verdict "around a trend" or "around a mean"
 and finds the drift of an I(1) series (a trend in the levels is a drift in the
@@ -37,8 +39,10 @@ from scipy.stats import norm
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED
 from tauscope.engine.unitroot.dfgls_many import dfgls_many
+from tauscope.engine.unitroot.union_lookup import table_trend_critical_value
 
 HLT_G = 0.00025  # Harvey, Leybourne & Taylor (2007), two-sided 5% (from memory)
+TABLE_LAG_SCALE = 6.0  # the lag maximum the table was simulated with (the union's, c = 6)
 
 
 def bartlett_bandwidth(length: int) -> int:
@@ -84,10 +88,17 @@ def trend_statistics(xs: np.ndarray, dfgls_trend: np.ndarray) -> dict[str, np.nd
 
 @lru_cache(maxsize=64)
 def trend_critical_value(length: int, alpha: float = 0.05, rule: str = "maic", max_lags: int = 0,
-                         reps: int = 2_000, seed: int = DEFAULT_SEED) -> float:
+                         reps: int = 2_000, seed: int = DEFAULT_SEED, source: str = "table") -> float:
     """The larger of the 1 − α quantiles of |z_λ| for driftless random walks and for white
     noise of ``length`` values (U with the same lag rule and maximum), and the normal
-    two-sided value."""
+    two-sided value.  ``source="table"``: interpolated from the table (20,000 replications
+    per null) when ``rule`` is MAIC, ``max_lags`` the union's ⌊6 (T/100)^{1/4}⌋ (capped
+    at T//2 − 3) and ``reps`` and ``seed`` the defaults; ``"simulate"``: always simulated."""
+    if (source == "table" and rule == "maic" and reps == 2_000 and seed == DEFAULT_SEED
+            and max_lags == _union_max_lags(length)):
+        tabled = table_trend_critical_value(length, alpha)
+        if tabled is not None:
+            return tabled
     rng = np.random.default_rng([seed, length, 7])
     quantiles = [float(norm.ppf(1.0 - alpha / 2.0))]
     for xs in (np.cumsum(rng.standard_normal((reps, length)), axis=1),
@@ -96,6 +107,11 @@ def trend_critical_value(length: int, alpha: float = 0.05, rule: str = "maic", m
         z = trend_statistics(xs, u)["z"]
         quantiles.append(float(np.nanquantile(np.abs(z), 1.0 - alpha)))
     return max(quantiles)
+
+
+def _union_max_lags(length: int) -> int:
+    """⌊6 (T/100)^{1/4}⌋ capped at T//2 − 3 (``union.max_lags_schwert`` with c = 6)."""
+    return max(0, min(int(np.floor(TABLE_LAG_SCALE * (length / 100.0) ** 0.25)), length // 2 - 3))
 
 
 def trend_found(z: np.ndarray, critical_value: float) -> np.ndarray:

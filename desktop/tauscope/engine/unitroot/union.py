@@ -16,11 +16,14 @@ value cv_i; the unit root is rejected when any
 
 and κ ≥ 1, the (1 − α) quantile of M under the null, makes the union's size α.  The
 null is simulated (driftless Gaussian random walks, no lag augmentation, fixed seed):
-``critical="finite"`` at the series' own length (cached), ``"asymptotic"`` the large-T
-values of :data:`ASYMPTOTIC`.  All components are invariant to the level, and the
-trend ones to a linear trend, so a drifting unit root is no easier to reject.  The lag
-order of each deterministic case is chosen once, on the OLS-detrended series (MAIC,
-Ng & Perron 2001; Perron & Qu 2007), and used by both of its components.
+``critical="finite"`` at the series' own length, read from the table simulated once on a
+grid of lengths and interpolated in 1/T (:mod:`tauscope.engine.unitroot.union_lookup`;
+simulated directly, cached, below the grid), ``"simulate"`` always simulated directly at
+the series' length, ``"asymptotic"`` the large-T values of :data:`ASYMPTOTIC`.  All
+components are invariant to the level, and the trend ones to a linear trend, so a drifting
+unit root is no easier to reject.  The lag order of each deterministic case is chosen
+once, on the OLS-detrended series (MAIC, Ng & Perron 2001; Perron & Qu 2007), and used
+by both of its components.
 
 The order of integration comes from the highest difference down (Dickey, D.A. &
 Pantula, S.G. 1987, JBES 5(4)): the union on Δ^d y for d = max, …, 0 while it rejects;
@@ -47,6 +50,7 @@ from tauscope.engine.unitroot.trend_robust import (
     trend_found,
     trend_statistics,
 )
+from tauscope.engine.unitroot.union_lookup import table_constants, table_power
 
 COMPONENTS = {
     "two": ("gls-constant", "gls-trend"),
@@ -58,7 +62,9 @@ COMPONENTS = {
 # scorecard as the value that keeps ARIMA(0,1,1) with θ = −0.8 near its size and the
 # AR(1) alternatives near their power (benchmarks/verdict_scorecard.py).
 UNION_LAG_SCALE = 6.0
-UNION_REPS = 20_000  # finite-sample constants: κ to about ±0.005
+UNION_REPS = 20_000  # finite-sample constants simulated directly: κ to about ±0.005
+POWER_PHI = 0.95  # the tabulated power's AR(1) alternative (the badge's condition)
+POWER_REPS = 2_000  # union_power's default replications when simulated directly
 ASYMPTOTIC_LENGTH = 2_000
 ASYMPTOTIC_REPS = 200_000
 # cv of each component and κ, simulated at T = 2,000 with 200,000 replications, seed
@@ -124,9 +130,12 @@ def _simulated(length: int, reps: int, seed: int, components: tuple[str, ...]) -
 
 
 def union_constants(length: int | None, alpha: float = 0.05, components: str = "four",
-                    reps: int = UNION_REPS, seed: int = DEFAULT_SEED) -> UnionConstants:
-    """The constants at the series' own ``length`` (simulated, cached), or the asymptotic
-    ones for ``length=None``."""
+                    reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
+                    source: str = "table") -> UnionConstants:
+    """The constants at the series' own ``length``, or the asymptotic ones for
+    ``length=None``.  ``source="table"``: interpolated from the pre-simulated table when it
+    holds this length and α (and ``reps`` and ``seed`` are the defaults), else simulated;
+    ``"simulate"``: simulated at ``length`` with ``reps`` replications (cached)."""
     names = COMPONENTS[components]
     if length is None:
         table = ASYMPTOTIC[components]
@@ -135,6 +144,10 @@ def union_constants(length: int | None, alpha: float = 0.05, components: str = "
             raise ValueError(f"no asymptotic union constants for alpha = {alpha}")
         cvs, kappa = table[key]
         return UnionConstants(alpha, names, cvs, kappa, None, ASYMPTOTIC_REPS)
+    if source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED:
+        tabled = table_constants(int(length), alpha, components)
+        if tabled is not None:
+            return UnionConstants(alpha, names, tabled[0], tabled[1], int(length), tabled[2])
     cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names), alpha)
     return UnionConstants(alpha, names, cvs, kappa, int(length), reps)
 
@@ -172,9 +185,15 @@ def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha
     """The union of rejections on every row of ``xs`` (already differenced ``difference`` times)."""
     lags = {spec: choose_lags_many(xs, spec, rule, max_lags, fixed) for spec in ("constant", "trend")}
     tau = {c: dfgls_tau_many(detrended(xs, c), lags[c.split("-")[1]]) for c in COMPONENTS[components]}
-    constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components)
+    constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components,
+                                source=_source(critical))
     margin = margins(tau, constants)
     return UnionLevel(difference, tau, lags, constants, margin, np.asarray(margin > 1.0))
+
+
+def _source(critical: str) -> str:
+    """"simulate" for ``critical="simulate"`` (direct simulation), else "table"."""
+    return "simulate" if critical == "simulate" else "table"
 
 
 @dataclass(frozen=True)
@@ -223,7 +242,7 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
         xd = np.diff(xs[chosen], axis=1) if d else xs[chosen]
         z[chosen] = trend_statistics(xd, levels[d].tau_trend[chosen])["z"]
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
-        critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0))
+        critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0), source=_source(critical))
         trend[chosen] = trend_found(z[chosen], critical_value)
     labels: list[str | None] = []
     for o, t in zip(order, trend, strict=True):
@@ -254,7 +273,8 @@ def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "
     out = {}
     for d, level in levels.items():
         kind = next(k for k, v in COMPONENTS.items() if v == level.constants.components)
-        c = union_constants(None if critical == "asymptotic" else level.constants.length, alpha, kind)
+        c = union_constants(None if critical == "asymptotic" else level.constants.length, alpha, kind,
+                            source=_source(critical))
         out[d] = np.asarray(margins(level.tau, c) > 1.0)
     return out
 
@@ -262,12 +282,22 @@ def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "
 @lru_cache(maxsize=64)
 def union_power(length: int, phi: float, rule: str = "maic", alpha: float = 0.05,
                 lag_scale: float = UNION_LAG_SCALE, components: str = "four", reps: int = 2_000,
-                seed: int = DEFAULT_SEED) -> tuple[float, float]:
+                seed: int = DEFAULT_SEED, source: str = "table") -> tuple[float, float]:
     """Simulated power at ``length`` against a stationary Gaussian AR(1) with coefficient
     ``phi``, started from its stationary distribution: (the union's rejection rate, the
     rate of its trend components alone).  Every component is invariant to the level and
     the trend ones to a linear trend, so the first covers every "around a mean"
-    alternative and the second bounds the power against "around a trend" ones from below."""
+    alternative and the second bounds the power against "around a trend" ones from below.
+
+    ``source="table"``: read from the pre-simulated table (interpolated in 1/T, simulated
+    with 20,000 replications) when it holds φ, α and this length and every other argument
+    is its default; ``"simulate"``: always simulated here, with directly simulated
+    constants."""
+    if (source == "table" and abs(phi - POWER_PHI) < 1e-12 and rule == "maic" and reps == POWER_REPS
+            and lag_scale == UNION_LAG_SCALE and seed == DEFAULT_SEED):
+        tabled = table_power(int(length), alpha, components)
+        if tabled is not None:
+            return tabled
     rng = np.random.default_rng([seed, length, round(phi * 1000)])
     e = rng.standard_normal((reps, length))
     y = np.empty_like(e)
@@ -275,7 +305,7 @@ def union_power(length: int, phi: float, rule: str = "maic", alpha: float = 0.05
     for t in range(1, length):
         y[:, t] = phi * y[:, t - 1] + e[:, t]
     level = union_level(y, 0, rule, max_lags_schwert(length, None, lag_scale), alpha,
-                        components=components)
+                        critical="simulate" if source == "simulate" else "finite", components=components)
     c = level.constants
     trend_only = np.zeros(reps, dtype=bool)
     for name, cv in zip(c.components, c.critical_values, strict=True):

@@ -1,0 +1,162 @@
+"""What writing the findings costs ``tauscope batch``: every format against none, same run.
+
+    python benchmarks/batch_writers.py [--series 500] [--length 240] [--rounds 2]
+
+Writes a generated workbook of ``--series`` monthly series of ``--length`` observations (a
+fixed mix of I(0), I(1) and I(2), with and without trend or drift) to a temporary folder,
+then runs ``tauscope batch`` on it in this process (``tauscope.commands.batch.main``),
+alternating, ``--rounds`` times each:
+
+- writing nothing (no ``--out``: the summary table goes to standard output, here discarded);
+- writing every format: ``--out`` .xlsx, .csv, .json, .tex, .html and .pdf.
+
+and prints the best time of each and their ratio (the target of issue 15 is at most 2).
+Then, on the findings of one analysis, each format alone through ``tauscope.report.export``
+(best of ``--rounds``), in milliseconds per series, with the file's size.
+
+A first small run writing every format comes before the timed ones, so that imports and Qt's
+start (the PDF writer starts an offscreen application) are not counted in either; its time
+is printed.  ``tauscope batch`` draws no charts (the window's exports do), so the reports
+measured here hold none.  Nothing here is a pass/fail threshold.
+"""
+
+from __future__ import annotations
+
+import argparse
+import contextlib
+import datetime as dt
+import io
+import os
+import sys
+import tempfile
+import time
+from collections.abc import Callable
+from pathlib import Path
+
+import numpy as np
+
+FORMATS = (".xlsx", ".csv", ".json", ".tex", ".html", ".pdf")
+KINDS = ("I(0)", "I(0) with trend", "I(1)", "I(1) with drift", "I(2)")
+
+
+def series_matrix(count: int, length: int, seed: int = 7) -> np.ndarray:
+    """``length`` × ``count`` values cycling through :data:`KINDS` (AR(1) noise, φ in
+    [0.3, 0.8] for I(0), [0, 0.5] for the increments of I(1); I(2) cumulates an I(1))."""
+    rng = np.random.default_rng(seed)
+    t = np.arange(length, dtype=float)
+    out = np.empty((length, count))
+    for i in range(count):
+        kind = KINDS[i % len(KINDS)]
+        e = rng.standard_normal(length)
+        phi = rng.uniform(0.3, 0.8) if kind.startswith("I(0)") else rng.uniform(0.0, 0.5)
+        x = np.empty(length)
+        x[0] = e[0]
+        for s in range(1, length):
+            x[s] = phi * x[s - 1] + e[s]
+        if kind.startswith("I(0)"):
+            x = x + 10.0 + (0.05 * t if kind.endswith("trend") else 0.0)
+        else:
+            x = 100.0 + np.cumsum((0.2 if kind.endswith("drift") else 0.0) + x)
+            if kind == "I(2)":
+                x = np.cumsum(x - 100.0) / 10.0
+        out[:, i] = x
+    return out
+
+
+def write_workbook(path: Path, count: int, length: int) -> None:
+    import openpyxl
+
+    data = series_matrix(count, length)
+    book = openpyxl.Workbook(write_only=True)
+    sheet = book.create_sheet("Monthly")
+    sheet.append(["Month", *[f"{KINDS[i % len(KINDS)]} #{i + 1}" for i in range(count)]])
+    for t in range(length):
+        sheet.append([dt.date(1990 + t // 12, t % 12 + 1, 1), *data[t].tolist()])
+    book.save(path)
+
+
+def batch(argv: list[str]) -> float:
+    from tauscope.commands.batch import main
+
+    start = time.perf_counter()
+    with contextlib.redirect_stdout(io.StringIO()), contextlib.redirect_stderr(io.StringIO()):
+        code = main(argv)
+    elapsed = time.perf_counter() - start
+    if code != 0:
+        raise SystemExit(f"tauscope batch {' '.join(argv)} ended with exit code {code}")
+    return elapsed
+
+
+def best(rounds: int, work: Callable[[], float]) -> float:
+    return min(work() for _ in range(rounds))
+
+
+def main() -> int:
+    parser = argparse.ArgumentParser(description=__doc__,
+                                     formatter_class=argparse.RawDescriptionHelpFormatter)
+    parser.add_argument("--series", type=int, default=500)
+    parser.add_argument("--length", type=int, default=240)
+    parser.add_argument("--rounds", type=int, default=2)
+    args = parser.parse_args()
+    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+
+    with tempfile.TemporaryDirectory(prefix="tauscope-writers-") as name:
+        folder = Path(name)
+        source = folder / "batch.xlsx"
+        write_workbook(source, args.series, args.length)
+        small = folder / "small.xlsx"
+        write_workbook(small, 10, args.length)
+        outputs = [str(folder / f"findings{suffix}") for suffix in FORMATS]
+        every = [arg for target in outputs for arg in ("--out", target)]
+
+        warm = batch([str(small), *[a.replace("findings", "small-findings") for a in every]])
+        print(f"warm-up: 10 series, every format, imports and Qt's start included: {warm:.2f} s")
+
+        nothing: list[float] = []
+        everything: list[float] = []
+        for _ in range(args.rounds):
+            nothing.append(batch([str(source)]))
+            everything.append(batch([str(source), "--replace", *every]))
+        n, e = min(nothing), min(everything)
+        print(f"\ntauscope batch, {args.series} series × {args.length} observations "
+              f"(best of {args.rounds}; no charts: batch draws none)")
+        print(f"  writing nothing:      {n:7.2f} s   (each run: "
+              f"{', '.join(f'{x:.2f}' for x in nothing)})")
+        print(f"  writing every format: {e:7.2f} s   (each run: "
+              f"{', '.join(f'{x:.2f}' for x in everything)})")
+        print(f"  ratio every format / nothing: {e / n:.2f}  (issue 15 target: at most 2)")
+
+        per_format(source, folder, args.series, args.rounds)
+    return 0
+
+
+def per_format(source: Path, folder: Path, count: int, rounds: int) -> None:
+    from tauscope.commands.batch import _parser, _settings, analyse_all, choose_series
+    from tauscope.data import read_workbook
+    from tauscope.report import RunRecord, SourceFile, export
+
+    workbook = read_workbook(source)
+    settings = _settings(_parser().parse_args([str(source)]))  # the batch's own defaults
+    findings = analyse_all(choose_series(workbook, None, ()), settings,
+                           progress=io.StringIO())
+    run = RunRecord(settings, (SourceFile(str(workbook.path), workbook.sha256),),
+                    tuple(findings))
+    print(f"\neach format alone, same {count} findings (best of {rounds}):")
+    total = 0.0
+    for suffix in FORMATS:
+        target = folder / f"alone{suffix}"
+
+        def write(target: Path = target) -> float:
+            start = time.perf_counter()
+            export(target, run)
+            return time.perf_counter() - start
+
+        seconds = best(rounds, write)
+        total += seconds
+        print(f"  {suffix:6} {seconds * 1000 / count:7.2f} ms per series  "
+              f"{seconds:6.2f} s  {target.stat().st_size / 1e6:7.2f} MB")
+    print(f"  all    {total * 1000 / count:7.2f} ms per series  {total:6.2f} s")
+
+
+if __name__ == "__main__":
+    sys.exit(main())
