@@ -65,7 +65,8 @@ def test_the_record_knows_its_tests_and_critical_values() -> None:
     runs = _runs()
     assert runs["tables"].critical_value_source == "tables"
     assert runs["simulated"].critical_value_source == "simulated"
-    assert runs["tables"].tests_run == ("adf", "phi1", "phi2", "phi3", "kpss")
+    # The size-controlled default adds its DF-GLS components to the tests run.
+    assert runs["tables"].tests_run == ("adf", "phi1", "phi2", "phi3", "kpss", "dfgls")
     assert set(runs["simulated"].tests_run) == {"adf", "phi1", "phi2", "phi3", *ALL_CHECKS}
     for run in runs.values():
         _check_methods(methods_for(run).text, run)

@@ -299,7 +299,7 @@ def tau_steps(result: SeriesResult) -> str:
     """The τ of each step taken, e.g. "Δ² constant −6.31; Δ constant −4.52; levels trend −1.80"."""
     parts = [
         f"{_difference_label(s.difference)} {s.spec} {s.statistic:.2f}".replace("-", "−")
-        for s in result.steps if s.statistic_name == "tau"
+        for s in result.steps if s.statistic_name == "tau" and s.strategy == "classic"
     ]
     return "; ".join(parts) or "—"
 

@@ -99,7 +99,9 @@ def deterministic_words(result: SeriesResult) -> str:
 
 
 def tau_steps(result: SeriesResult) -> tuple[Step, ...]:
-    return tuple(s for s in result.steps if s.statistic_name == "tau")
+    """The ADF τ steps of the classic sequence's path (the size-controlled strategy's own
+    steps, shown before it, are not ADF regressions)."""
+    return tuple(s for s in result.steps if s.statistic_name == "tau" and s.strategy == "classic")
 
 
 def deciding_tau(result: SeriesResult, difference: int) -> TestResult | None:

@@ -29,7 +29,7 @@ from tauscope.engine.results_strategy import ClassicVerdict
 STRATEGY = "union"
 _WHERE = classic.DIFFERENCE_WORDS
 _COMPONENT_WORDS = {
-    "gls-constant": ("constant", "dfgls", "DF-GLS with a constant"),
+    "gls-constant": ("constant", "dfgls", "DF-GLS with a constant only"),
     "gls-trend": ("trend", "dfgls", "DF-GLS with a constant and trend"),
     "ols-constant": ("constant", "tau", "Dickey-Fuller t on the demeaned series"),
     "ols-trend": ("trend", "tau", "Dickey-Fuller t on the detrended series"),
