@@ -92,8 +92,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     profile = _with_alpha(estimation.lag_profile(decisive_x, spec, difference, max_lags),
                           decisive_x, spec, options.alpha)
     level_adf = estimates.levels[0].adf
-    breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, level_adf["trend"].lags,
-                          options.alpha)
+    breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, options.alpha)
     return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks)
 
 
