@@ -84,3 +84,25 @@ def test_without_confirmation_test_kpss_is_not_claimed() -> None:
     assert "KPSS" not in methods.text
     assert not any(r.startswith("Kwiatkowski") for r in methods.references)
     assert "Dickey & Pantula" not in methods.text  # only the levels were tested
+
+
+def test_break_test_is_described_only_when_it_ran() -> None:
+    """The minimum LM break test (Lee & Strazicich 2013) enters the methods text, with its lag
+    rule, only for a run where a series had a break suspected and the test ran."""
+    rng = np.random.default_rng(5)
+    u = np.zeros(300)
+    e = rng.normal(size=300)
+    for t in range(1, 300):
+        u[t] = 0.5 * u[t - 1] + e[t]
+    shifted = analyse_series(3.0 + 6.0 * (np.arange(200) >= 100) + u[100:], name="shifted")
+    plain = analyse_series(u[100:], name="plain")
+    assert shifted.breaks is not None and shifted.breaks.test is not None
+    assert plain.breaks is None or plain.breaks.test is None
+    settings = Settings()
+    both = methods_for(RunRecord(settings, (), (Finding(shifted), Finding(plain))))
+    assert "Lee & Strazicich 2013" in both.text and "for shifted," in both.text
+    assert "Schwarz criterion" in both.text
+    assert any(r.startswith("Lee, J. & Strazicich, M.C. (2013)") for r in both.references)
+    alone = methods_for(RunRecord(settings, (), (Finding(plain),)))
+    assert "Strazicich" not in alone.text
+    assert not any(r.startswith("Lee, J.") for r in alone.references)

@@ -52,6 +52,10 @@ REFERENCES = {
     "za1992": "Zivot, E. & Andrews, D.W.K. (1992), “Further Evidence on the Great Crash, the "
     "Oil-Price Shock, and the Unit-Root Hypothesis”, Journal of Business & Economic Statistics "
     "10(3), 251–270.",
+    "ls2013": "Lee, J. & Strazicich, M.C. (2013), “Minimum LM Unit Root Test with One "
+    "Structural Break”, Economics Bulletin 33(4), 2483–2492.",
+    "schwarz1978": "Schwarz, G. (1978), “Estimating the Dimension of a Model”, Annals of "
+    "Statistics 6(2), 461–464.",
     "hlt2007": "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2007), “A Simple, Robust and "
     "Powerful Test of the Trend Hypothesis”, Journal of Econometrics 141(2), 1302–1330.",
     "hlt2009": "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2009), “Unit Root Testing in "
@@ -191,6 +195,20 @@ def _cross_checks(run: RunRecord, a: str, cited: set[str]) -> list[str]:
             f"The Zivot-Andrews test (Zivot & Andrews 1992), which lets one break at a date "
             f"chosen from the data enter the alternative, ran {where}; its critical values are "
             "simulated quantiles for a long series (100,000 replications of 2,000 observations)."
+        )
+    tested = [f.name for f in run.findings
+              if f.result.breaks is not None and f.result.breaks.test is not None]
+    if tested:
+        cited.update({"ls2013", "schwarz1978"})
+        which = ("for every series" if len(tested) == len(run.findings)
+                 else "for " + ", ".join(tested))
+        more.append(
+            "A break in level was looked for (an unusually large one-period change, the verdict "
+            "and KPSS at odds, or a large swing of τ over an expanding window); where one was "
+            f"suspected, {which}, the minimum LM test with one level shift allowed under both "
+            "hypotheses (Lee & Strazicich 2013) ran on the levels, its lag order chosen by the "
+            "Schwarz criterion (Schwarz 1978, at most 8) and its critical values simulated at "
+            "the series’ own length."
         )
     powers = [f.result.evidence.power for f in run.findings
               if f.result.evidence is not None and f.result.evidence.power is not None]
