@@ -14,7 +14,7 @@ STRATEGIES = ("union", "bootstrap", "classic")
 UNION_STRATEGIES = ("union", "bootstrap")  # the strategies that decide with the union of rejections
 STRATEGY_LABELS = {
     "union": "Size-controlled (recommended)",
-    "bootstrap": "Size-controlled, robust to changing volatility (slower)",
+    "bootstrap": "Size-controlled, robust to changing volatility",
     "classic": "Classic Dickey-Fuller sequence",
 }
 

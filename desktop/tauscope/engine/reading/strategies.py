@@ -15,6 +15,7 @@ from typing import Protocol
 from tauscope.engine import formatting as fmt
 from tauscope.engine.reading.verdicts import verdict_label
 from tauscope.engine.reading.words import cross_check_word
+from tauscope.engine.settings import STRATEGY_LABELS
 
 
 class VarianceReading(Protocol):
@@ -119,7 +120,6 @@ def grade_note(agreement: str | None, missing: tuple[str, ...]) -> str | None:
     return f"Cross-check {word}: the verdict is not confirmed, because {'; '.join(missing)}."
 
 
-BOOTSTRAP_LABEL = "Size-controlled, robust to changing volatility"
 
 
 def volatility_note(variance: VarianceReading | None, strategy: str,
@@ -135,5 +135,5 @@ def volatility_note(variance: VarianceReading | None, strategy: str,
         return (f"{found} The verdict's critical values come from a wild bootstrap that keeps each shock's size "
                 "at its own date (Smeekes & Taylor 2012), so it allows for this.")
     return (f"{found} The usual critical values assume a constant size and can then call a unit root "
-            f"stationary too often: analyse again with the strategy “{BOOTSTRAP_LABEL}” (in the settings, or "
+            f"stationary too often: analyse again with the strategy “{STRATEGY_LABELS['bootstrap']}” (in the settings, or "
             "--strategy bootstrap on the command line), which allows for it.")
