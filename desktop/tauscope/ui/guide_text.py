@@ -118,9 +118,10 @@ KPSS backs it strictly (no rejection even at 10% where none is expected, a rejec
 one is), the classic sequence gives the same order, the verdict is the same at 1% and at 10% and
 with a longer maximum lag, the test had at least 90% power at this length against a stationary
 series with root 0.95 (for a unit-root verdict), there are at least 150 observations, no
-break is suspected, and the size of the shocks does not change over the sample. On the scorecard such verdicts were right 97.9% of the time overall (order
-and deterministic terms) and at least 95.2% in every cell with 20 or more of them; about 1 in 10
-verdicts qualified. The old rule (KPSS alone) was right 71.0% of the time.</p>""",
+break is suspected, and the size of the shocks does not change over the sample. On the
+scorecard such verdicts were right 97.9% of the time overall (order and deterministic terms)
+and at least 95.2% in every cell with 20 or more of them; about 1 in 10 verdicts qualified.
+The old rule (KPSS alone) was right 71.0% of the time.</p>""",
     "tau": """
 <p><b>τ (tau)</b> is the t ratio of γ̂ in the ADF regression. Under a unit root it does not
 follow Student's t: its distribution is shifted to the left and depends on the deterministic

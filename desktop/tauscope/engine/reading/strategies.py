@@ -134,6 +134,7 @@ def volatility_note(variance: VarianceReading | None, strategy: str,
     if strategy == "bootstrap":
         return (f"{found} The verdict's critical values come from a wild bootstrap that keeps each shock's size "
                 "at its own date (Smeekes & Taylor 2012), so it allows for this.")
+    name = STRATEGY_LABELS["bootstrap"]
     return (f"{found} The usual critical values assume a constant size and can then call a unit root "
-            f"stationary too often: analyse again with the strategy “{STRATEGY_LABELS['bootstrap']}” (in the settings, or "
+            f"stationary too often: analyse again with the strategy “{name}” (in the settings, or "
             "--strategy bootstrap on the command line), which allows for it.")
