@@ -86,6 +86,15 @@ def _garch_walk(rng: np.random.Generator, reps: int, n: int) -> np.ndarray:
     return np.cumsum(eps[:, BURN:], axis=1)
 
 
+def _variance_walk(scale: float) -> Generator:
+    """Random walk whose shocks' standard deviation is multiplied by ``scale`` from mid-sample
+    (scale √3: the variance triples; scale 3: the standard deviation triples)."""
+    def make(rng: np.random.Generator, reps: int, n: int) -> np.ndarray:
+        sd = np.where(np.arange(n) >= n // 2, scale, 1.0)
+        return np.cumsum(sd * rng.standard_normal((reps, n)), axis=1)
+    return make
+
+
 def _seasonal(rng: np.random.Generator, reps: int, n: int) -> np.ndarray:
     """AR(1), φ = 0.5, around a mean with fixed quarterly effects (1.5, −0.5, 1, −2)."""
     pattern = np.resize(np.array([1.5, -0.5, 1.0, -2.0]), n)
@@ -111,6 +120,13 @@ def grid() -> list[Process]:
     out.append(Process("level shift", _level_shift, 0, None, False))
     out.append(Process("GARCH random walk", _garch_walk, 1, "none", False))
     out.append(Process("seasonal AR(1)", _seasonal, 0, None, False))
+    # issue 14 §4: a random walk whose shock variance triples (or whose sd triples) halfway;
+    # judged by its own acceptance row, not the size row.
+    out.append(Process("variance x3 walk", _variance_walk(float(np.sqrt(3.0))), 1, "none", False))
+    out.append(Process("sd x3 walk", _variance_walk(3.0), 1, "none", False))
+    # the variance falls to a third halfway: the case where the usual critical values are too
+    # liberal (Cavaliere 2004), so the one that shows what the bootstrap is for
+    out.append(Process("variance /3 walk", _variance_walk(float(np.sqrt(1.0 / 3.0))), 1, "none", False))
     return out
 
 

@@ -16,7 +16,9 @@ prints, per strategy:
 
 "classic" is the engine's own analysis (``tauscope.engine.analyse_many``, the batched
 fast path) with the settings given and strategy "classic"; "engine" is the engine's default
-analysis as wired (strategy "union", its own grade); "union" is the union of rejections from
+analysis as wired (strategy "union", its own grade); "boot" is the engine with the wild
+bootstrap strategy ("bootstrap", Smeekes & Taylor 2012), run beside "engine" on the same
+series; "union" is the union of rejections from
 :mod:`tauscope.engine.unitroot.union`, graded by the candidate rules of :mod:`scorecard_union`.
 Then the acceptance checks of issue 13 with PASS/FAIL, and the badge calibration.
 ``--quick``: 100 replications, T = 100 and 200, for development.
@@ -125,7 +127,23 @@ def print_table(strategy: str, cells: list[Cell]) -> None:
               f"{_pct(float(np.mean(c.right)))} {low} | " + "; ".join(grades))
 
 
-def acceptance(strategy: str, cells: list[Cell], classic: dict[tuple[str, int], Cell]) -> None:
+def volatility(strategy: str, cells: list[Cell], default: dict[tuple[str, int], Cell]) -> None:
+    """Issue 14 §4: a random walk whose shock variance changes halfway is called I(0) at most
+    8% of the time under the bootstrap strategy; the default strategy's figure beside it."""
+    for c in cells:
+        if "x3 walk" not in c.process.name and "/3 walk" not in c.process.name:
+            continue
+        share = float(np.mean(c.order == 0))
+        ref = default.get((c.process.name, c.length))
+        beside = f"; default strategy {_pct(float(np.mean(ref.order == 0)))}%" if ref is not None else ""
+        verdict = ("PASS" if share <= 0.08 else "FAIL") if strategy == "boot" else "    "
+        print(f"{verdict} changing volatility: {c.process.name} T={c.length}: I(0) {_pct(share)}% "
+              f"(at most 8% under the bootstrap strategy){beside}")
+
+
+def acceptance(strategy: str, cells: list[Cell], classic: dict[tuple[str, int], Cell],
+               default: dict[tuple[str, int], Cell] | None = None) -> None:
+    default = default or {}
     print(f"\n-- acceptance: {strategy} --")
     size = [c for c in cells if c.process.unit_root]
     if size:
@@ -146,6 +164,7 @@ def acceptance(strategy: str, cells: list[Cell], classic: dict[tuple[str, int], 
                if ref is not None and ref.single_adf is not None else "")
         print(f"{'PASS' if share >= limit else 'FAIL'} power: {name} T={length}: I(0) "
               f"{_pct(share)}% (at least {100 * limit:.0f}%){adf}")
+    volatility(strategy, cells, default)
     ma = next((c for c in cells if c.process.name == "ARIMA(0,1,1) theta=-0.8" and c.length == 200), None)
     if ma is not None:
         share = float(np.mean(ma.order == 0))
@@ -209,10 +228,13 @@ def main(argv: list[str] | None = None) -> None:
     parser.add_argument("--reps", type=int, default=500)
     parser.add_argument("--quick", action="store_true")
     parser.add_argument("--lengths", default="50,100,200,500")
-    parser.add_argument("--strategy", choices=("classic", "union", "both", "engine", "all"), default="both",
+    parser.add_argument("--strategy", choices=("classic", "union", "both", "engine", "boot", "all"),
+                        default="both",
                         help="classic: the engine with strategy 'classic'; union: the union from its "
                              "functions with the candidate badge rules; engine: the engine's default "
-                             "analysis as wired (strategy 'union', its own badge); all: the three")
+                             "analysis as wired (strategy 'union', its own badge); boot: the engine "
+                             "with strategy 'bootstrap' beside the engine's default; all: classic, "
+                             "union and engine")
     parser.add_argument("--lag-rule", default=Settings().lag_rule,
                         help="the classic strategy's lag rule (default: the engine's default)")
     parser.add_argument("--union-lag-rule", default="maic")
@@ -240,6 +262,7 @@ def main(argv: list[str] | None = None) -> None:
     settings = Settings(lag_rule=args.lag_rule, alpha=args.alpha, max_lags=args.max_lags,
                         lags=args.lags, power=False, strategy="classic")
     engine_settings = replace(settings, strategy="union", lag_rule=args.union_lag_rule)
+    boot_settings = replace(engine_settings, strategy="bootstrap")
     print(f"settings: {settings.to_dict()}; reps {reps}; lengths {lengths}; seed {args.seed}; "
           f"union {args.union_components} components, lag rule {args.union_lag_rule}, "
           f"critical values {args.union_critical}, "
@@ -252,7 +275,7 @@ def main(argv: list[str] | None = None) -> None:
     run: dict[str, list[Cell]] = defaultdict(list)
     classic_by: dict[tuple[str, int], Cell] = {}
     union_runs: list[tuple[Cell, dict[str, np.ndarray]]] = []
-    clock = {"classic": 0.0, "union": 0.0, "engine": 0.0}
+    clock = {"classic": 0.0, "union": 0.0, "engine": 0.0, "boot": 0.0}
     saved = np.load(args.classic_from) if args.classic_from else None
     for process, n in jobs:
         xs = simulate(process, n, reps, args.seed)
@@ -270,10 +293,14 @@ def main(argv: list[str] | None = None) -> None:
                                  f"{process.name}, T = {n} (same --reps, --lengths and --seed needed)")
             order = saved[key]
             classic = Cell(process, n, order, [None] * order.size, np.array(["none"] * order.size))
-        if args.strategy in ("engine", "all"):
+        if args.strategy in ("engine", "all", "boot"):
             start = time.perf_counter()
             run["engine"].append(classic_cell(process, n, xs, engine_settings))
             clock["engine"] += time.perf_counter() - start
+        if args.strategy == "boot":
+            start = time.perf_counter()
+            run["boot"].append(classic_cell(process, n, xs, boot_settings))
+            clock["boot"] += time.perf_counter() - start
         if args.strategy in ("union", "both", "all"):
             start = time.perf_counter()
             cell = union_cell(process, n, xs, settings, args.union_critical, classic, args.badge_rule,
@@ -283,14 +310,15 @@ def main(argv: list[str] | None = None) -> None:
             union_runs.append((cell, cell.evidence))
     for strategy, cells in run.items():
         print_table(strategy, cells)
+    default_by = {(c.process.name, c.length): c for c in run.get("engine", [])}
     for strategy, cells in run.items():
-        acceptance(strategy, cells, classic_by)
+        acceptance(strategy, cells, classic_by, default_by)
     if union_runs:
         calibration(union_runs)
     if args.save:
         save(args.save, run)
     print(f"\ntime: classic {clock['classic']:.1f} s, union (with its evidence) {clock['union']:.1f} s, "
-          f"engine default {clock['engine']:.1f} s")
+          f"engine default {clock['engine']:.1f} s, bootstrap strategy {clock['boot']:.1f} s")
 
 
 if __name__ == "__main__":

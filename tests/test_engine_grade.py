@@ -34,6 +34,7 @@ def test_each_missing_condition_withholds_confirmed() -> None:
         "power": (0.99, 0.80),  # drift found: the trend components' power counts
         "nobs": 149,
         "break_found": True,
+        "variance_changed": True,  # κ2 found a change in the shocks' variance (issue 14)
     }
     for key, value in changes.items():
         graded = grade(**{**GOOD_I1, key: value})  # type: ignore[arg-type]

@@ -106,3 +106,16 @@ def test_break_test_is_described_only_when_it_ran() -> None:
     alone = methods_for(RunRecord(settings, (), (Finding(plain),)))
     assert "Strazicich" not in alone.text
     assert not any(r.startswith("Lee, J.") for r in alone.references)
+
+
+def test_bootstrap_strategy_is_described_and_cited() -> None:
+    """The wild bootstrap strategy: its paper (Smeekes & Taylor 2012, Econometric Theory 28),
+    the earlier one (Cavaliere & Taylor 2008, Econometric Theory 24), the multipliers and B."""
+    methods = methods_for(_with(Settings(strategy="bootstrap")))
+    text = methods.text
+    assert "wild bootstrap of Smeekes & Taylor (2012)" in text and "over 499 bootstrap series" in text
+    assert "Rademacher" in text and "recoloured" in text
+    refs = " ".join(methods.references)
+    assert "Econometric Theory 28(2)" in refs and "Econometric Theory 24(1)" in refs
+    assert "Sansó, A., Aragó, V. & Carrion-i-Silvestre, J.L. (2004)" in refs
+    assert "wild bootstrap" not in methods_for(_with(Settings())).text

@@ -76,8 +76,10 @@ def _parser() -> _Parser:
     parser.add_argument("--lag-rule", choices=LAG_RULES, default="maic",
                         help="how the lag order is chosen (default: maic)")
     parser.add_argument("--strategy", choices=STRATEGIES, default="union",
-                        help="how the verdict is decided: union (size-controlled, the default) or "
-                             "classic (the Dickey-Fuller sequence; it is shown in either case)")
+                        help="how the verdict is decided: union (size-controlled, the default), "
+                             "bootstrap (size-controlled, robust to changing volatility: the union "
+                             "against a wild-bootstrap critical value; slower) or classic (the "
+                             "Dickey-Fuller sequence; it is shown in every case)")
     parser.add_argument("--lags", type=_count, help="lag order for --lag-rule fixed")
     parser.add_argument("--max-lags", type=_count, help="largest lag order tried")
     parser.add_argument("--alpha", type=float, choices=(0.01, 0.05, 0.10), default=0.05,

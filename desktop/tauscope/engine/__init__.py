@@ -38,6 +38,7 @@ if TYPE_CHECKING:
         STRATEGY_LABELS,
         Settings,
     )
+    from tauscope.engine.unitroot.union_bootstrap import BOOTSTRAP_REPS
 
 _WHERE = {
     "analyse_series": "procedure.analyse",
@@ -58,12 +59,14 @@ _WHERE = {
     "STRATEGIES": "settings",
     "STRATEGY_LABELS": "settings",
     "Settings": "settings",
+    "BOOTSTRAP_REPS": "unitroot.union_bootstrap",
     "exact_critical_values": "distributions.simulate",
     "exact_p_value": "distributions.simulate",
     "null_distribution": "distributions.simulate",
 }
 
 __all__ = [
+    "BOOTSTRAP_REPS",
     "LAG_RULES",
     "LAG_RULE_LABELS",
     "STRATEGIES",

@@ -10,9 +10,11 @@ ALPHAS = (0.01, 0.05, 0.10)
 CONFIRMATION_TESTS = ("kpss", "pp", "dfgls", "za")
 CRITICAL_VALUE_SOURCES = ("mackinnon", "exact")
 BREAK_MODELS = ("c", "t", "ct")
-STRATEGIES = ("union", "classic")
+STRATEGIES = ("union", "bootstrap", "classic")
+UNION_STRATEGIES = ("union", "bootstrap")  # the strategies that decide with the union of rejections
 STRATEGY_LABELS = {
     "union": "Size-controlled (recommended)",
+    "bootstrap": "Size-controlled, robust to changing volatility",
     "classic": "Classic Dickey-Fuller sequence",
 }
 
@@ -42,7 +44,9 @@ class Settings:
     ``"union"`` (the default) the union of rejections over the deterministic terms
     (Harvey, Leybourne & Taylor 2009, 2012), whose size is controlled over the whole
     decision; ``"classic"`` the Dickey-Fuller sequence (Dolado, Jenkinson &
-    Sosvilla-Rivero 1990), which is always computed and shown as well.
+    Sosvilla-Rivero 1990), which is always computed and shown as well;
+    ``"bootstrap"`` the same union with its critical value from the wild bootstrap
+    (Smeekes & Taylor 2012), valid when the shocks' variance changes over the sample.
     """
 
     lag_rule: str = "maic"

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from tauscope import engine
 from tauscope.engine import formatting as fmt
 from tauscope.report.run import RunRecord
 
@@ -66,6 +67,14 @@ REFERENCES = {
     "Econometrics 169(2), 188–195.",
     "pq2007": "Perron, P. & Qu, Z. (2007), “A Simple Modification to Improve the Finite Sample "
     "Properties of Ng and Perron’s Unit Root Tests”, Economics Letters 94(1), 12–19.",
+    "ct2008": "Cavaliere, G. & Taylor, A.M.R. (2008), “Bootstrap Unit Root Tests for Time Series with "
+    "Nonstationary Volatility”, Econometric Theory 24(1), 43–71.",
+    "st2012": "Smeekes, S. & Taylor, A.M.R. (2012), “Bootstrap Union Tests for Unit Roots in the "
+    "Presence of Nonstationary Volatility”, Econometric Theory 28(2), 422–456.",
+    "df2008": "Davidson, R. & Flachaire, E. (2008), “The Wild Bootstrap, Tamed at Last”, Journal of "
+    "Econometrics 146(1), 162–169.",
+    "sac2004": "Sansó, A., Aragó, V. & Carrion-i-Silvestre, J.L. (2004), “Testing for Changes in the "
+    "Unconditional Variance of Financial Time Series”, Revista de Economía Financiera 4, 32–53.",
     "west1988": "West, K.D. (1988), “Asymptotic Normality, When Regressors Have a Unit Root”, "
     "Econometrica 56(6), 1397–1417.",
 }
@@ -250,9 +259,34 @@ def critical_words(run: RunRecord) -> str:
 
 def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
     """The size-controlled strategy, when it decided the verdicts."""
-    if getattr(run.settings, "strategy", "classic") != "union":
+    strategy = getattr(run.settings, "strategy", "classic")
+    if strategy not in ("union", "bootstrap"):
         return []
-    cited.update({"hlt2007", "hlt2009", "hlt2012", "ers1996", "pq2007"})
+    cited.update({"hlt2007", "hlt2009", "hlt2012", "ers1996", "pq2007", "sac2004"})
+    volatility = (
+        " A change in the size of the shocks was tested with the κ2 statistic of Sansó, Aragó & "
+        "Carrion-i-Silvestre (2004) on the residuals of the Dickey-Fuller regression with a trend; where "
+        "it was found, the verdict is not graded as confirmed."
+    )
+    if strategy == "bootstrap":
+        cited.update({"ct2008", "st2012", "df2008"})
+        return [
+            "The verdict was decided by the union of rejections over the deterministic terms (Harvey, "
+            "Leybourne & Taylor 2009, 2012), with its critical value from the wild bootstrap of Smeekes & "
+            "Taylor (2012) (after Cavaliere & Taylor 2008), which stays valid when the variance of the "
+            "shocks changes over the sample: Dickey-Fuller t statistics on the GLS-detrended (Elliott, "
+            "Rothenberg & Stock 1996) and OLS-detrended series, with a constant and with a trend, the "
+            "largest ratio of each to its own critical value compared with the "
+            f"{100 * (1 - run.settings.alpha):.0f}% quantile of the same ratio over {engine.BOOTSTRAP_REPS} "
+            "bootstrap series. These were built under the unit-root null from the residuals of an "
+            "autoregression of the differenced series (lag order the larger of the union's two), each "
+            "multiplied by a random sign (Rademacher weights, Davidson & Flachaire 2008) and recoloured "
+            "with the fitted lag polynomial, with a seed taken from the series' own values; the lag order "
+            "by the same rule, chosen on the OLS-detrended series (Perron & Qu 2007). The order was found "
+            "from the highest difference down, and the deterministic terms by the trend test of Harvey, "
+            "Leybourne & Taylor (2007), valid with or without a unit root. The sequence above was computed "
+            "as well and is reported beside it." + volatility
+        ]
     return [
         "The verdict was decided by the union of rejections over the deterministic terms (Harvey, "
         "Leybourne & Taylor 2009, 2012): Dickey-Fuller t statistics on the GLS-detrended (Elliott, "
@@ -262,7 +296,7 @@ def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
         "chosen on the OLS-detrended series (Perron & Qu 2007). The order was found from the highest "
         "difference down, and the deterministic terms by the trend test of Harvey, Leybourne & Taylor "
         "(2007), valid with or without a unit root. The sequence above was computed as well and is "
-        "reported beside it."
+        "reported beside it." + volatility
     ]
 
 

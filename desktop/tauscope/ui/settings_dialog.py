@@ -85,8 +85,9 @@ class SettingsDialog(QDialog):
         form = QFormLayout()
         form.addRow("&Verdict decided by", self.strategy)
         form.addRow("", _explain("Size-controlled: calls a unit root stationary no more often than the "
-                                 "significance level over the whole decision. The classic sequence is "
-                                 "always shown too."))
+                                 "significance level over the whole decision; the robust choice keeps "
+                                 "that when the size of the shocks changes, and is slower. The classic "
+                                 "sequence is always shown too."))
         form.addRow("Significance &level", self.alpha)
         form.addRow("", _explain("How strong the evidence must be before a test rejects its null "
                                  "hypothesis; 5% is the usual choice."))

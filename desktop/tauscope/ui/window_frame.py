@@ -52,8 +52,9 @@ def settings_summary(settings: Settings) -> str:
     checks = [names[c] for c in ("kpss", "pp", "dfgls", "za") if c in settings.confirm]
     check = (" · " + ", ".join(checks)) if checks else ""
     exact = " · exact critical values" if settings.critical_values == "exact" else ""
+    robust = " · robust to changing volatility" if settings.strategy == "bootstrap" else ""
     return (f"{settings.alpha_label} · {lags} · up to I({settings.max_difference}){check}"
-            f"{exact}")
+            f"{exact}{robust}")
 
 
 class WindowFrame(QMainWindow):

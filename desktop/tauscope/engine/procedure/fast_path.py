@@ -330,7 +330,7 @@ class SeriesBatch:
         if self._union is None:
             o = self._options
             self._union = union_rows(self._levels_in, o.lag_rule, o.alpha, o.max_difference,
-                                     o.max_lags, o.lags if o.lag_rule == "fixed" else None)
+                                     o.max_lags, o.lags if o.lag_rule == "fixed" else None, o.bootstrap)
         return self._union[index]
 
     def prefetch_profiles(self, requests: list[tuple[int, str, int, int]]) -> None:

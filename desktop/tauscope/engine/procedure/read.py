@@ -31,11 +31,13 @@ from tauscope.engine.reading.strategies import (
     grade_note,
     level_note,
     short_label,
+    volatility_note,
     weak_verdict_sentence,
 )
 from tauscope.engine.reading.verdicts import agreement, agreement_note, build_verdict
 from tauscope.engine.results import Evidence, TestResult, Verdict
 from tauscope.engine.results_strategy import ClassicVerdict
+from tauscope.engine.settings import UNION_STRATEGIES
 
 
 def read(checked: CrossCheck, options: ReadOptions) -> Reading:
@@ -52,7 +54,7 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
     strategy_notes: list[str] = []
     classic: ClassicVerdict | None = None
     breaks = checked.breaks  # a verdict given under a break replaces the one without (reading/breaks.py)
-    if decision.strategy == "union":
+    if decision.strategy in UNION_STRATEGIES:
         status, classic, strategy_notes = _union_reading(checked, evidence, options)
         status = capped_agreement(status, breaks)
     sequence_verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
@@ -100,15 +102,18 @@ def _union_reading(checked: CrossCheck, evidence: Evidence,
     nobs = int(decision.estimates.prepared.values.shape[0])
     found = (evidence.break_info is not None and evidence.break_info.reject) or (
         checked.breaks is not None and checked.breaks.suspected)
+    variance = row.variance
+    changed = variance is not None and variance.found
     graded = grade(order, deterministic, list(checked.kpss), classic.order, row.orders_at,
-                   row.long_lag_order, row.power, nobs, found)
+                   row.long_lag_order, row.power, nobs, found, changed)
     block = ClassicVerdict(classic.order, classic.deterministic,
                            classic_sentence(classic.order, classic.deterministic, classic.weak,
                                             options.alpha), classic.weak)
     notes = [grade_note(graded.agreement, graded.missing),
              disagreement_note(order, deterministic, classic.order, classic.deterministic, classic.weak,
                                options.lag_rule),
-             level_note(order, row.orders_at, options.alpha)]
+             level_note(order, row.orders_at, options.alpha),
+             volatility_note(variance, decision.strategy, decision.estimates.prepared.label)]
     return graded.agreement, block, [n for n in notes if n]
 
 

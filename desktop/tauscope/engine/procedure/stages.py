@@ -44,7 +44,7 @@ from tauscope.engine.results import (
 )
 from tauscope.engine.results_breaks import BreakCheck
 from tauscope.engine.results_strategy import ClassicVerdict
-from tauscope.engine.settings import Settings
+from tauscope.engine.settings import UNION_STRATEGIES, Settings
 
 EXTRA_TESTS = ("pp", "dfgls", "za")
 
@@ -60,6 +60,7 @@ class EstimateOptions:
     max_difference: int
     exact: bool  # judge τ and Φ against nulls simulated at their own size
     union: bool = False  # also compute the union of rejections (union_estimate.py)
+    bootstrap: bool = False  # judge the union against its wild-bootstrap critical value
 
 
 @dataclass(frozen=True)
@@ -110,7 +111,8 @@ def plan_for(settings: Settings) -> Plan:
     s = settings
     return Plan(
         estimate=EstimateOptions(s.lag_rule, s.lags, s.max_lags, s.alpha, s.max_difference,
-                                 s.critical_values == "exact", s.strategy == "union"),
+                                 s.critical_values == "exact", s.strategy in UNION_STRATEGIES,
+                                 s.strategy == "bootstrap"),
         decide=DecideOptions(s.strategy, s.alpha, s.max_difference, s.lag_rule),
         cross_check=CrossCheckOptions(s.alpha, "kpss" in s.confirm,
                                       tuple(t for t in s.confirm if t in EXTRA_TESTS), s.lag_rule,

@@ -9,7 +9,14 @@ series, with what the reading and the grade need beside the order:
 * the order with Schwert's (1989) long lag maximum ⌊12 (T/100)^{1/4}⌋;
 * the trend test's z_λ and critical value (Harvey, Leybourne & Taylor 2007);
 * for a unit-root verdict, the union's simulated power at that length against a
-  stationary AR(1) with φ = 0.95 (``union_power``).
+  stationary AR(1) with φ = 0.95 (``union_power``);
+* the test for a change in the shocks' variance (κ2, Sansó, Aragó & Carrion 2004;
+  :mod:`tauscope.engine.unitroot.variance_change`) on the levels.
+
+With ``bootstrap=True`` each level's decision is the wild bootstrap's (Smeekes & Taylor
+2012; :mod:`tauscope.engine.unitroot.union_bootstrap`): M against its bootstrap critical
+value, which takes κ's place, at 5% and at 1% and 10%; the label is then read for the
+bootstrap's order.  The long-lag check and the power stay those of κ.
 
 Every operation is row by row, so one series alone gets the same numbers as inside a
 batch: the fast path and the reference path share this computation.
@@ -26,6 +33,8 @@ from tauscope.engine.unitroot.trend_robust import trend_critical_value
 from tauscope.engine.unitroot.union import (
     UNION_LAG_SCALE,
     UnionConstants,
+    UnionLevel,
+    deterministic_labels,
     max_lags_schwert,
     orders_from_rejections,
     rejections_at,
@@ -33,6 +42,9 @@ from tauscope.engine.unitroot.union import (
     union_orders,
     union_power,
 )
+from tauscope.engine.unitroot.union_bootstrap import ALPHAS as BOOT_ALPHAS
+from tauscope.engine.unitroot.union_bootstrap import BOOTSTRAP_REPS, BootstrapLevel, bootstrap_level
+from tauscope.engine.unitroot.variance_change import VarianceChange, variance_change
 
 LONG_LAG_SCALE = 12.0  # Schwert's long rule
 POWER_PHI = 0.95
@@ -55,6 +67,7 @@ class UnionLevelRow:
     kappa: float
     statistic: float  # M = max_i τ_i / cv_i
     reject: bool
+    p_value: float | None = None  # the bootstrap p-value of M, when the bootstrap decided
 
     @property
     def margin(self) -> float:
@@ -75,6 +88,8 @@ class UnionRow:
     long_lag_order: int | None
     power: tuple[float, float] | None  # (union, trend components) against AR(1) φ = 0.95
     problem: str | None = None  # one sentence when a statistic the decision used is not a number
+    variance: VarianceChange | None = None  # the test for a change in the shocks' variance
+    bootstrap_reps: int | None = None  # B, when the wild bootstrap decided
 
 
 @lru_cache(maxsize=256)
@@ -88,7 +103,7 @@ def _order(value: int) -> int | None:
 
 
 def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
-               max_lags: int | None, fixed: int | None) -> list[UnionRow]:
+               max_lags: int | None, fixed: int | None, bootstrap: bool = False) -> list[UnionRow]:
     """One :class:`UnionRow` per row of ``xs`` (series of one length)."""
     xs = np.asarray(xs, dtype=float)
     with np.errstate(all="ignore"):
@@ -97,12 +112,23 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
               for a in OTHER_ALPHAS}
         long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
                             lag_scale=LONG_LAG_SCALE).order
+    boot: dict[int, BootstrapLevel] = {}
+    order_all, labels, trend_z = result.order, result.deterministic, result.trend_z
+    if bootstrap:
+        boot = _bootstrap(xs, result.levels, rule, max_lags, fixed)
+        decided = {a: orders_from_rejections(
+            {d: _margin(result.levels[d].margin * result.levels[d].constants.kappa, boot[d], a) > 1.0
+             for d in boot}, max_difference) for a in BOOT_ALPHAS}
+        order_all = decided[_alpha_key(alpha)]
+        at = {a: decided[_alpha_key(a)] for a in OTHER_ALPHAS}
+        with np.errstate(all="ignore"):
+            labels, trend_z = deterministic_labels(xs, order_all, result.levels, rule, alpha, max_lags, fixed)
     per_alpha = {d: {a: _constants(level.constants.length, a) for a in (0.01, 0.05, 0.10)}
                  for d, level in result.levels.items()}
     rows = []
     for i in range(xs.shape[0]):
-        order = _order(int(result.order[i]))
-        det = result.deterministic[i]
+        order = _order(int(order_all[i]))
+        det = labels[i]
         levels = {}
         for d, level in result.levels.items():
             c = level.constants
@@ -112,10 +138,14 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
             lags = tuple(int(level.lags[name.split("-")[1]][i]) for name in comps)
             tau = tuple(float(level.tau[name][i]) for name in comps)
             n = xs.shape[1] - d
+            statistic = float(level.margin[i]) * c.kappa
+            kappa, reject, p_value = c.kappa, bool(level.reject[i]), None
+            if d in boot:
+                kappa = float(boot[d].critical[i, BOOT_ALPHAS.index(_alpha_key(alpha))])
+                reject, p_value = bool(statistic > kappa), float(boot[d].p_value[i])
             levels[d] = UnionLevelRow(
                 d, n, comps, tau, lags, _level_max_lags(n, rule, max_lags, fixed),
-                c.critical_values, values, c.kappa, float(level.margin[i]) * c.kappa,
-                bool(level.reject[i]))
+                c.critical_values, values, kappa, statistic, reject, p_value)
         problem = _problem(levels, order, max_difference)
         trend_d = None if order is None else (1 if order == 2 else 0)
         trend_cv = float("nan")
@@ -125,10 +155,38 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         power = None
         if order is not None and order >= 1 and problem is None:
             power = union_power(xs.shape[1] - (order - 1), POWER_PHI, rule, alpha)
-        rows.append(UnionRow(order, det, levels, float(result.trend_z[i]), trend_cv, trend_d,
+        rows.append(UnionRow(order, det, levels, float(trend_z[i]), trend_cv, trend_d,
                              {a: _order(int(at[a][i])) for a in OTHER_ALPHAS},
-                             _order(int(long[i])), power, problem))
+                             _order(int(long[i])), power, problem,
+                             _variance(xs[i], result.levels[0].lags["trend"][i], alpha),
+                             BOOTSTRAP_REPS if bootstrap else None))
     return rows
+
+
+def _alpha_key(alpha: float) -> float:
+    return min(BOOT_ALPHAS, key=lambda a: abs(a - alpha))
+
+
+def _margin(statistic: np.ndarray, level: BootstrapLevel, alpha: float) -> np.ndarray:
+    """M / q*_α for every row (NaN stays NaN: no rejection)."""
+    with np.errstate(all="ignore"):
+        return np.asarray(statistic / level.critical[:, BOOT_ALPHAS.index(alpha)])
+
+
+def _bootstrap(xs: np.ndarray, levels: dict[int, UnionLevel], rule: str, max_lags: int | None,
+               fixed: int | None) -> dict[int, BootstrapLevel]:
+    """The wild bootstrap of the union on every difference level (each series alone)."""
+    out = {}
+    for d, level in levels.items():
+        xd = np.diff(xs, n=d, axis=1) if d else xs
+        out[d] = bootstrap_level(xd, level, rule, _level_max_lags(xd.shape[1], rule, max_lags, fixed), fixed)
+    return out
+
+
+def _variance(x: np.ndarray, lags: int, alpha: float) -> VarianceChange | None:
+    """κ2 on the shocks of the levels, with the union's lag order for the trend case."""
+    with np.errstate(all="ignore"):
+        return variance_change(x, int(lags), alpha)
 
 
 def _level_max_lags(n: int, rule: str, max_lags: int | None, fixed: int | None) -> int:

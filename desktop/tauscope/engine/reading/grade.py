@@ -15,7 +15,10 @@ cell with 20 or more of them:
 6. for a unit-root verdict, the union had at least 90% power at this length against a
    stationary AR(1) with φ = 0.95 (its trend components alone when a drift was found);
 7. at least 150 observations;
-8. no break was found (a Zivot-Andrews rejection caps the grade below "confirmed").
+8. no break was found (a Zivot-Andrews rejection caps the grade below "confirmed");
+9. no change in the shocks' variance was found (κ2, Sansó, Aragó & Carrion 2004): under
+   one KPSS, the classic sequence and the tabulated power, which the other conditions
+   use, all assume a constant variance, whichever strategy decided.
 
 "conflict": every KPSS check contradicts the verdict at the chosen level; otherwise
 "inconclusive".  The reasons a verdict was not confirmed are kept, for the notes.
@@ -56,8 +59,9 @@ def _kpss_strict(checks: Sequence[tuple[TestResult, bool]]) -> bool:
 
 def grade(order: int | None, deterministic: str | None, checks: Sequence[tuple[TestResult, bool]],
           classic_order: int | None, orders_at: dict[float, int | None], long_lag_order: int | None,
-          power: tuple[float, float] | None, nobs: int, break_found: bool) -> Grade:
-    """The grade of the union's verdict from all the evidence (conditions 1-8 above)."""
+          power: tuple[float, float] | None, nobs: int, break_found: bool,
+          variance_changed: bool = False) -> Grade:
+    """The grade of the union's verdict from all the evidence (conditions 1-9 above)."""
     if not checks:
         return Grade(None, ())
     if order is None:
@@ -81,6 +85,8 @@ def grade(order: int | None, deterministic: str | None, checks: Sequence[tuple[T
         missing.append(f"fewer than {MIN_LENGTH} observations")
     if break_found:
         missing.append("a break is suspected")
+    if variance_changed:
+        missing.append("the size of the shocks changes over the sample")
     if not missing:
         return Grade("confirmed", ())
     if all(test.reject != expect for test, expect in checks):

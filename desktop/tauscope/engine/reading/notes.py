@@ -142,7 +142,14 @@ def build_notes(ctx: NoteContext) -> tuple[str, ...]:
         notes.append(
             f"Missing values at the start ({lead}) and end ({trail}) of the series were left out before testing."
         )
-    if ctx.verdict.strategy == "union":
+    if ctx.verdict.strategy == "bootstrap":
+        notes.append(
+            f"The verdict comes from four unit-root tests taken together, judged against a critical value "
+            f"from the wild bootstrap of this series' own shocks (Smeekes & Taylor 2012), so the chance of "
+            f"calling a unit root stationary stays near {a} on each difference even when the size of the "
+            "shocks changes over the sample."
+        )
+    elif ctx.verdict.strategy == "union":
         notes.append(
             f"The verdict comes from four unit-root tests taken together with a scaling simulated at this "
             f"length (Harvey, Leybourne & Taylor 2009, 2012), so the chance of calling a unit root stationary "

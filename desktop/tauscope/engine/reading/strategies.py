@@ -9,9 +9,29 @@ size-controlled union 2.4–5.0%.
 
 from __future__ import annotations
 
+from collections.abc import Callable
+from typing import Protocol
+
 from tauscope.engine import formatting as fmt
 from tauscope.engine.reading.verdicts import verdict_label
 from tauscope.engine.reading.words import cross_check_word
+from tauscope.engine.settings import STRATEGY_LABELS
+
+
+class VarianceReading(Protocol):
+    """What the volatility note reads of the variance-change test."""
+
+    @property
+    def statistic(self) -> float: ...
+    @property
+    def critical_value(self) -> float: ...
+    @property
+    def alpha(self) -> float: ...
+    @property
+    def found(self) -> bool: ...
+    @property
+    def position(self) -> int: ...
+
 
 # Random walks called I(0) by the classic sequence on the scorecard, by lag rule.
 CLASSIC_RANDOM_WALK_I0 = {"aic": "15–21%", "maic": "10–13%"}
@@ -98,3 +118,23 @@ def grade_note(agreement: str | None, missing: tuple[str, ...]) -> str | None:
                 "neither the level (1%, 10%) nor a longer maximum lag changes it; on the verdict scorecard "
                 "such verdicts were right 97.9% of the time.")
     return f"Cross-check {word}: the verdict is not confirmed, because {'; '.join(missing)}."
+
+
+
+
+def volatility_note(variance: VarianceReading | None, strategy: str,
+                    label: Callable[[int], str]) -> str | None:
+    """When the shocks' variance changes (κ2, Sansó, Aragó & Carrion 2004): say where, and
+    under the default strategy suggest the wild bootstrap one."""
+    if variance is None or not variance.found:
+        return None
+    found = (f"The size of the shocks changes over the sample, most clearly around {label(variance.position)} "
+             f"(κ2 = {fmt.stat(variance.statistic)} against {fmt.stat(variance.critical_value)} at "
+             f"{fmt.percent(variance.alpha)}; Sansó, Aragó & Carrion 2004).")
+    if strategy == "bootstrap":
+        return (f"{found} The verdict's critical values come from a wild bootstrap that keeps each shock's size "
+                "at its own date (Smeekes & Taylor 2012), so it allows for this.")
+    name = STRATEGY_LABELS["bootstrap"]
+    return (f"{found} The usual critical values assume a constant size and can then call a unit root "
+            f"stationary too often: analyse again with the strategy “{name}” (in the settings, or "
+            "--strategy bootstrap on the command line), which allows for it.")

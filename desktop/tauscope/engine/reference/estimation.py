@@ -66,7 +66,7 @@ class ReferenceEstimation:
         every operation of :mod:`tauscope.engine.procedure.union_estimate` is row by row)."""
         o = options
         return union_rows(x[None, :], o.lag_rule, o.alpha, o.max_difference, o.max_lags,
-                          o.lags if o.lag_rule == "fixed" else None)[0]
+                          o.lags if o.lag_rule == "fixed" else None, o.bootstrap)[0]
 
 
 REFERENCE = ReferenceEstimation()

@@ -226,13 +226,22 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
     * I(2): "constant" if it finds a trend in the first difference, else "none".
     """
     xs = np.asarray(xs, dtype=float)
-    rows = xs.shape[0]
     levels: dict[int, UnionLevel] = {}
     for d in range(max_difference, -1, -1):
         xd = np.diff(xs, n=d, axis=1) if d else xs
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
         levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components)
     order = orders_from_rejections({d: level.reject for d, level in levels.items()}, max_difference)
+    labels, z = deterministic_labels(xs, order, levels, rule, alpha, max_lags, fixed, critical, lag_scale)
+    return UnionOrders(order, labels, z, levels)
+
+
+def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, UnionLevel], rule: str,
+                         alpha: float, max_lags: int | None, fixed: int | None, critical: str = "finite",
+                         lag_scale: float = UNION_LAG_SCALE) -> tuple[tuple[str | None, ...], np.ndarray]:
+    """The label of every row's ``order`` from the trend test (Harvey, Leybourne & Taylor
+    2007) on the levels (I(0), I(1)) or the first difference (I(2)), and its z_λ."""
+    rows = xs.shape[0]
     z = np.full(rows, np.nan)
     trend = np.zeros(rows, dtype=bool)
     for o, d in ((0, 0), (1, 0), (2, 1)):
@@ -252,7 +261,7 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
             labels.append("trend" if t else "constant")
         else:
             labels.append("constant" if t else "none")
-    return UnionOrders(order, tuple(labels), z, levels)
+    return tuple(labels), z
 
 
 def orders_from_rejections(reject: dict[int, np.ndarray], max_difference: int) -> np.ndarray:

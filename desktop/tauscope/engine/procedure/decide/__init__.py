@@ -9,12 +9,15 @@ and the result are shared by every strategy.
   Sosvilla-Rivero (1990) on each difference, from the highest down (:mod:`.classic`);
 * ``union``: the size-controlled default, the union of rejections over the deterministic
   terms (Harvey, Leybourne & Taylor 2009, 2012) from the highest difference down, the
-  classic path shown beside it (:mod:`.union`).
+  classic path shown beside it (:mod:`.union`);
+* ``bootstrap``: the same union with its critical value from the wild bootstrap
+  (Smeekes & Taylor 2012), valid when the shocks' variance changes (:mod:`.bootstrap`).
 """
 
 from __future__ import annotations
 
-from tauscope.engine.procedure.decide import classic, union
+from tauscope.engine.procedure.decide import bootstrap, classic, union
 from tauscope.engine.procedure.stages import Strategy
 
-STRATEGIES: dict[str, Strategy] = {"union": union.decide, "classic": classic.decide}
+STRATEGIES: dict[str, Strategy] = {"union": union.decide, "bootstrap": bootstrap.decide,
+                                   "classic": classic.decide}

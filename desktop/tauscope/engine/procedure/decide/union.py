@@ -54,36 +54,48 @@ def dfgls_tests(row: UnionRow, alpha: float, lag_rule: str) -> dict[tuple[int, s
     return out
 
 
-def _component_step(level: UnionLevelRow, j: int, alpha: float, test: TestResult | None) -> Step:
+def _component_step(level: UnionLevelRow, j: int, alpha: float, test: TestResult | None,
+                    strategy: str = STRATEGY) -> Step:
     name = level.components[j]
     spec, kind, words = _COMPONENT_WORDS[name]
     critical = level.kappa * level.critical_values[j]
     reject = level.tau[j] < critical
     a = fmt.percent(alpha)
+    scaled = "scaled for the union" if level.p_value is None else "scaled by the union's bootstrap value"
     text = (
         f"On {_WHERE[level.difference]}, {words} (lag {level.lags[j]}): {fmt.stat(level.tau[j])} against "
-        f"its {a} value scaled for the union, {fmt.stat(critical)} "
+        f"its {a} value {scaled}, {fmt.stat(critical)} "
         f"({'rejects' if reject else 'does not reject'} on its own)."
     )
     return Step(level.difference, spec, f"unit root, {words}", kind, level.tau[j], critical, None,
-                "reject" if reject else "do not reject", text, test, STRATEGY)
+                "reject" if reject else "do not reject", text, test, strategy)
 
 
-def _union_step(level: UnionLevelRow, alpha: float) -> Step:
+def _union_step(level: UnionLevelRow, alpha: float, strategy: str = STRATEGY) -> Step:
     a = fmt.percent(alpha)
     where = _WHERE[level.difference]
-    if level.reject:
+    if level.p_value is not None:
+        line = "its wild-bootstrap critical value q*"
+        if level.reject:
+            text = (f"On {where}, the union of the four tests rejects a unit root at {a} overall against "
+                    f"{line} (M = {fmt.stat(level.statistic)} > q* = {fmt.stat(level.kappa)}; bootstrap "
+                    f"p-value {fmt.p_value(level.p_value)}).")
+        else:
+            text = (f"On {where}, the union of the four tests finds no evidence against a unit root at {a} "
+                    f"overall against {line} (M = {fmt.stat(level.statistic)} ≤ q* = "
+                    f"{fmt.stat(level.kappa)}; bootstrap p-value {fmt.p_value(level.p_value)}).")
+    elif level.reject:
         text = (f"On {where}, the union of the four tests rejects a unit root at {a} overall "
                 f"(M = {fmt.stat(level.statistic)} > κ = {fmt.stat(level.kappa)}).")
     else:
         text = (f"On {where}, the union of the four tests finds no evidence against a unit root at "
                 f"{a} overall (M = {fmt.stat(level.statistic)} ≤ κ = {fmt.stat(level.kappa)}).")
     return Step(level.difference, "union", "unit root, whatever the deterministic terms", "union",
-                level.statistic, level.kappa, None, "reject" if level.reject else "do not reject",
-                text, None, STRATEGY)
+                level.statistic, level.kappa, level.p_value, "reject" if level.reject else "do not reject",
+                text, None, strategy)
 
 
-def _trend_step(row: UnionRow, alpha: float) -> Step | None:
+def _trend_step(row: UnionRow, alpha: float, strategy: str = STRATEGY) -> Step | None:
     d = row.trend_difference
     if d is None or row.order is None:
         return None
@@ -100,33 +112,39 @@ def _trend_step(row: UnionRow, alpha: float) -> Step | None:
             f"2007) on {_WHERE[d]}: {numbers}: {meaning}.")
     return Step(d, "trend", "no linear trend (valid under I(0) and I(1))", "trend", row.trend_z,
                 row.trend_critical_value, None, "reject" if found else "do not reject", text, None,
-                STRATEGY)
+                strategy)
 
 
 def union_steps(row: UnionRow, alpha: float, max_difference: int,
-                tests: dict[tuple[int, str], TestResult]) -> tuple[Step, ...]:
+                tests: dict[tuple[int, str], TestResult], strategy: str = STRATEGY) -> tuple[Step, ...]:
     """Per level visited from the highest down: its four components and the union; then
     the label step."""
     steps: list[Step] = []
     for d in range(max_difference, -1, -1):
         level = row.levels[d]
         for j, name in enumerate(level.components):
-            steps.append(_component_step(level, j, alpha, tests.get((d, name))))
-        steps.append(_union_step(level, alpha))
+            steps.append(_component_step(level, j, alpha, tests.get((d, name)), strategy))
+        steps.append(_union_step(level, alpha, strategy))
         if not level.reject:
             break
-    label = _trend_step(row, alpha)
+    label = _trend_step(row, alpha, strategy)
     return (*steps, label) if label is not None else tuple(steps)
 
 
 def decide(estimates: Estimates, options: DecideOptions) -> Decision:
     """The union's order and label; the classic sequence's path and verdict beside it."""
+    return decide_as(estimates, options, STRATEGY)
+
+
+def decide_as(estimates: Estimates, options: DecideOptions, strategy: str) -> Decision:
+    """:func:`decide`, its steps and decision marked ``strategy`` (the union with κ, or
+    with the wild bootstrap's critical value when the estimates carry it)."""
     row = estimates.union
     if row is None:
         raise ValueError("the union strategy needs the union's estimates")
     sequence = classic.decide(estimates, options)
     tests = dfgls_tests(row, options.alpha, options.lag_rule)
-    steps = (*union_steps(row, options.alpha, options.max_difference, tests), *sequence.steps)
+    steps = (*union_steps(row, options.alpha, options.max_difference, tests, strategy), *sequence.steps)
     verdict = ClassicVerdict(sequence.order, sequence.deterministic, "", sequence.weak)
-    return Decision(estimates, STRATEGY, sequence.visited, steps, row.order, row.deterministic,
+    return Decision(estimates, strategy, sequence.visited, steps, row.order, row.deterministic,
                     sequence.deciding, classic=verdict, weak=False, union_tests=tuple(tests.values()))
