@@ -25,6 +25,7 @@ from tauscope.engine.procedure.analyse import (
     decide,
     finish,
 )
+from tauscope.engine.procedure.cross_check import recursive_requests
 from tauscope.engine.procedure.fast_path import SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
 from tauscope.engine.procedure.stages import Decision, Plan, plan_for
@@ -107,6 +108,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
 
     decisions: dict[int, Decision] = {}
     wanted: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
+    windows: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
     for position, item in enumerate(prepared):
         if stop():
             return
@@ -119,10 +121,14 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
             continue  # the reference path takes this series below
         decisions[position] = decision
         wanted.setdefault(batch, []).append((slot, *decision.profile_request))
+        windows.setdefault(batch, []).extend((slot, *request) for request in recursive_requests(decision))
     for batch, requests in wanted.items():
         # On failure each series asks on its own below, and falls back if it must.
         with suppress(*FALLBACK_ERRORS):
             batch.prefetch_profiles(requests)
+    for batch, requests in windows.items():
+        with suppress(*FALLBACK_ERRORS):  # likewise: a failing series asks alone below
+            batch.prefetch_recursive(requests, plan.cross_check.alpha)
 
     for position, (name, values) in enumerate(chunk):
         if stop():

@@ -96,7 +96,7 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         at = {a: orders_from_rejections(rejections_at(result.levels, a), max_difference)
               for a in OTHER_ALPHAS}
         long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
-                            lag_scale=LONG_LAG_SCALE).order
+                            lag_scale=LONG_LAG_SCALE, known=result).order
     per_alpha = {d: {a: _constants(level.constants.length, a) for a in (0.01, 0.05, 0.10)}
                  for d, level in result.levels.items()}
     rows = []

@@ -90,13 +90,21 @@ def choose_lags_many(xs: np.ndarray, spec: str, rule: str, max_lags: int,
     """Lag order per row, chosen on the OLS-detrended series (Perron & Qu 2007); ties go
     to the shorter lag.  ``rule`` "fixed" uses ``fixed``; "tsig" asks the one-series
     rule of :mod:`tauscope.engine.unitroot.dfgls` row by row."""
+    return choose_lags_detrended(xs, None, spec, rule, max_lags, fixed)
+
+
+def choose_lags_detrended(xs: np.ndarray, ols: np.ndarray | None, spec: str, rule: str,
+                          max_lags: int, fixed: int | None = None) -> np.ndarray:
+    """:func:`choose_lags_many` given ``ols``, the rows of ``xs`` OLS-detrended with
+    ``spec`` (:func:`ols_detrend_many`; None: detrended here), so that a caller that
+    needs them anyway detrends once."""
     rows = xs.shape[0]
     if rule == "fixed":
         return np.full(rows, int(fixed or 0))
     if max_lags == 0:
         return np.zeros(rows, dtype=int)
     if rule in VECTOR_RULES:
-        values = lag_criteria_many(ols_detrend_many(xs, spec), rule, max_lags)
+        values = lag_criteria_many(ols_detrend_many(xs, spec) if ols is None else ols, rule, max_lags)
         values = np.where(np.isfinite(values), values, np.inf)
         return np.asarray(np.argmin(values, axis=1))
     return np.array([choose_dfgls_lag(row, spec, rule, max_lags) for row in xs])
