@@ -17,6 +17,7 @@ from typing import Any
 
 import numpy as np
 
+from tauscope.engine.blas_threads import single_blas_thread
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.procedure.analyse import (
     FALLBACK_ERRORS,
@@ -70,18 +71,20 @@ def iter_analyse(
     should_stop: ShouldStop | None = None,
 ) -> Iterator[SeriesResult]:
     """One result per series, in input order, computed a chunk at a time; stops early
-    when ``should_stop()`` returns True (asked before each series and each chunk)."""
+    when ``should_stop()`` returns True (asked before each series and each chunk).  BLAS
+    runs on one thread meanwhile (:mod:`tauscope.engine.blas_threads`)."""
     settings = settings or Settings()
     plan = plan_for(settings)
     stop = should_stop or (lambda: False)
     pairs = iter(series)
-    while True:
-        if stop():
-            return
-        chunk = list(islice(pairs, CHUNK))
-        if not chunk:
-            return
-        yield from _analyse_chunk(chunk, settings, plan, stop)
+    with single_blas_thread():
+        while True:
+            if stop():
+                return
+            chunk = list(islice(pairs, CHUNK))
+            if not chunk:
+                return
+            yield from _analyse_chunk(chunk, settings, plan, stop)
 
 
 def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
