@@ -49,7 +49,7 @@ stationary around a shifting mean than around a fixed one, and the verdict stand
 
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 
 import numpy as np
 from scipy.stats import norm
@@ -183,17 +183,28 @@ def break_lags(x: np.ndarray) -> int:
     return choose_lag(x, "trend", "bic", cap).lag
 
 
+def swing_request(constant_lags: int) -> tuple[str, int, int]:
+    """(spec, lag order, difference) of the swing's τ on expanding windows."""
+    return "constant", min(constant_lags, SWING_LAGS), 0
+
+
 def check_breaks(prepared: PreparedSeries, order: int | None, kpss: Sequence[tuple[TestResult, bool]],
-                 constant_lags: int, alpha: float) -> BreakCheck:
+                 constant_lags: int, alpha: float,
+                 recursive_by: Callable[[np.ndarray, str, int, int, float], RecursiveStatistic] | None = None,
+                 ) -> BreakCheck:
     """The break check for one series: the signs, and the break test when one fires.
 
     ``constant_lags``: the lag order the user's rule chose for the ADF regression on the
     levels with a constant (for the swing); the break test chooses its own
-    (:func:`break_lags`).
+    (:func:`break_lags`).  ``recursive_by(x, spec, lags, difference, alpha)``: where τ on
+    expanding windows comes from (an estimation's ``recursive``; None: computed here).
     """
     x = prepared.standardised  # the signs depend on neither level nor scale
     try:
-        recursive: RecursiveStatistic | None = recursive_tau(x, "constant", min(constant_lags, SWING_LAGS), alpha)
+        spec, lags, difference = swing_request(constant_lags)
+        recursive: RecursiveStatistic | None = (
+            recursive_tau(x, spec, lags, alpha) if recursive_by is None
+            else recursive_by(x, spec, lags, difference, alpha))
     except _FAILURES:
         recursive = None
     reasons, jump = break_reasons(x, order, kpss, recursive)

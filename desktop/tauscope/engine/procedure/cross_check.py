@@ -16,7 +16,7 @@
 
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 from dataclasses import replace
 
 import numpy as np
@@ -36,7 +36,7 @@ from tauscope.engine.distributions.simulate import (
 )
 from tauscope.engine.distributions.tables import tau_critical_value
 from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.procedure.breaks import check_breaks
+from tauscope.engine.procedure.breaks import check_breaks, swing_request
 from tauscope.engine.procedure.stages import (
     EXTRA_TESTS,
     CrossCheck,
@@ -85,6 +85,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
         lags=options.lags, max_lags=estimates.max_lags[settled],
         za_lags=estimates.levels[settled].adf["trend"].lags, break_model=options.break_model,
         critical_values=options.critical_values, power=options.power,
+        recursive_by=estimation.recursive,
     )
     extra = _in_units(extra, prepared.scale)
     spec, difference, max_lags = decision.profile_request
@@ -92,8 +93,20 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     profile = _with_alpha(estimation.lag_profile(decisive_x, spec, difference, max_lags),
                           decisive_x, spec, options.alpha)
     level_adf = estimates.levels[0].adf
-    breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, options.alpha)
+    breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, options.alpha,
+                          estimation.recursive)
     return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks)
+
+
+def recursive_requests(decision: Decision) -> list[tuple[str, int, int]]:
+    """(spec, lag order, difference) of every τ on expanding windows the cross-check asks
+    its estimation for: the deciding regression's (the extra evidence) and the levels'
+    with a constant (the break check's swing), so a batch can compute them together."""
+    requests = [swing_request(decision.estimates.levels[0].adf["constant"].lags)]
+    test = decision.deciding.test
+    if test is not None:
+        requests.append((test.spec, test.lags, test.difference))
+    return requests
 
 
 def _in_units(extra: ExtraEvidence, scale: float) -> ExtraEvidence:
@@ -188,6 +201,7 @@ def extra_evidence(
     reps: int = DEFAULT_REPS,
     exact_reps: int = EXACT_REPS,
     seed: int = DEFAULT_SEED,
+    recursive_by: Callable[[np.ndarray, str, int, int, float], RecursiveStatistic] | None = None,
 ) -> ExtraEvidence:
     """Run the extra tests the user turned on, the power simulation and the recursive τ.
 
@@ -200,8 +214,9 @@ def extra_evidence(
     chose for the ADF regression with constant and trend on the same difference
     (pass it to save the search; None: chosen here by the same rule).
     ``critical_values``: "mackinnon" (published tables and response surfaces) or
-    "exact" (simulated at this sample size).  Failures become ``problems``, one
-    sentence each.
+    "exact" (simulated at this sample size).  ``recursive_by(x, spec, lags, difference,
+    alpha)``: where τ on expanding windows comes from (an estimation's ``recursive``;
+    None: :func:`recursive_tau` here).  Failures become ``problems``, one sentence each.
     """
     unknown = [t for t in tests if t not in EXTRA_TESTS]
     if unknown:
@@ -274,7 +289,11 @@ def extra_evidence(
                 problems.append(f"The power simulation could not be run ({exc}).")
         if recursive:
             try:
-                recursive_result = recursive_tau(xa, deciding_adf.spec, deciding_adf.lags, alpha)
+                if recursive_by is None:
+                    recursive_result = recursive_tau(xa, deciding_adf.spec, deciding_adf.lags, alpha)
+                else:
+                    recursive_result = recursive_by(xa, deciding_adf.spec, deciding_adf.lags,
+                                                    deciding_adf.difference, alpha)
             except _FAILURES as exc:
                 problems.append(f"The recursive statistic could not be computed ({exc}).")
 

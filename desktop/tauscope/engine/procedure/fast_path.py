@@ -43,9 +43,17 @@ from tauscope.engine.regression.nested import (
     restricted_rss,
     spec_order,
 )
-from tauscope.engine.results import Coefficient, LagPoint, LevelTests, Regression, TestResult
+from tauscope.engine.results import (
+    Coefficient,
+    LagPoint,
+    LevelTests,
+    RecursiveStatistic,
+    Regression,
+    TestResult,
+)
 from tauscope.engine.unitroot import phi as joint
 from tauscope.engine.unitroot.kpss_fast import kpss_fast
+from tauscope.engine.unitroot.recursive import recursive_tau_many
 
 # Below this share of its length, a column is too close to the span of the earlier
 # ones for a promise of 1e-8 agreement: the reference path takes the series.
@@ -299,6 +307,10 @@ class FastEstimation:
     def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow:
         return self._batch.union_row(self._index)
 
+    def recursive(self, x: np.ndarray, spec: str, lags: int, difference: int,
+                  alpha: float) -> RecursiveStatistic:
+        return self._batch.recursive(self._index, spec, lags, difference, alpha)
+
 
 class SeriesBatch:
     """Series of one length analysed together; each difference level is computed for
@@ -310,6 +322,7 @@ class SeriesBatch:
         self._levels: dict[tuple[int, int], LevelBatch] = {}
         self._profiles: dict[tuple[int, str, int, int], tuple[np.ndarray, np.ndarray]] = {}
         self._union: list[UnionRow] | None = None
+        self._recursive: dict[tuple[int, str, int, int, float], RecursiveStatistic] = {}
 
     def __len__(self) -> int:
         return int(self._levels_in.shape[0])
@@ -332,6 +345,27 @@ class SeriesBatch:
             self._union = union_rows(self._levels_in, o.lag_rule, o.alpha, o.max_difference,
                                      o.max_lags, o.lags if o.lag_rule == "fixed" else None, o.bootstrap)
         return self._union[index]
+
+    def prefetch_recursive(self, requests: list[tuple[int, str, int, int]], alpha: float) -> None:
+        """Compute τ on expanding windows for (index, spec, lag order, difference) together,
+        one batched call per (spec, lag order, difference); each row's numbers are those
+        it gets alone (:func:`recursive_tau_many`)."""
+        groups: dict[tuple[str, int, int], set[int]] = {}
+        for index, spec, lags, difference in requests:
+            groups.setdefault((spec, lags, difference), set()).add(index)
+        for (spec, lags, difference), indices in groups.items():
+            rows = sorted(indices)
+            xs = np.diff(self._levels_in[rows], n=difference, axis=1)
+            for index, found in zip(rows, recursive_tau_many(xs, spec, lags, alpha), strict=True):
+                self._recursive[(index, spec, lags, difference, alpha)] = found
+
+    def recursive(self, index: int, spec: str, lags: int, difference: int,
+                  alpha: float) -> RecursiveStatistic:
+        """τ on expanding windows of one series' Δ^d y (prefetched, or computed alone)."""
+        key = (index, spec, lags, difference, alpha)
+        if key not in self._recursive:
+            self.prefetch_recursive([(index, spec, lags, difference)], alpha)
+        return self._recursive[key]
 
     def prefetch_profiles(self, requests: list[tuple[int, str, int, int]]) -> None:
         """Compute the lag profiles (index, spec, difference, maximum lag) together, one

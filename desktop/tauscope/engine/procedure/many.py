@@ -17,6 +17,7 @@ from typing import Any
 
 import numpy as np
 
+from tauscope.engine.blas_threads import single_blas_thread
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.procedure.analyse import (
     FALLBACK_ERRORS,
@@ -25,6 +26,7 @@ from tauscope.engine.procedure.analyse import (
     decide,
     finish,
 )
+from tauscope.engine.procedure.cross_check import recursive_requests
 from tauscope.engine.procedure.fast_path import SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
 from tauscope.engine.procedure.stages import Decision, Plan, plan_for
@@ -69,18 +71,20 @@ def iter_analyse(
     should_stop: ShouldStop | None = None,
 ) -> Iterator[SeriesResult]:
     """One result per series, in input order, computed a chunk at a time; stops early
-    when ``should_stop()`` returns True (asked before each series and each chunk)."""
+    when ``should_stop()`` returns True (asked before each series and each chunk).  BLAS
+    runs on one thread meanwhile (:mod:`tauscope.engine.blas_threads`)."""
     settings = settings or Settings()
     plan = plan_for(settings)
     stop = should_stop or (lambda: False)
     pairs = iter(series)
-    while True:
-        if stop():
-            return
-        chunk = list(islice(pairs, CHUNK))
-        if not chunk:
-            return
-        yield from _analyse_chunk(chunk, settings, plan, stop)
+    with single_blas_thread():
+        while True:
+            if stop():
+                return
+            chunk = list(islice(pairs, CHUNK))
+            if not chunk:
+                return
+            yield from _analyse_chunk(chunk, settings, plan, stop)
 
 
 def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
@@ -107,6 +111,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
 
     decisions: dict[int, Decision] = {}
     wanted: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
+    windows: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
     for position, item in enumerate(prepared):
         if stop():
             return
@@ -119,10 +124,14 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
             continue  # the reference path takes this series below
         decisions[position] = decision
         wanted.setdefault(batch, []).append((slot, *decision.profile_request))
+        windows.setdefault(batch, []).extend((slot, *request) for request in recursive_requests(decision))
     for batch, requests in wanted.items():
         # On failure each series asks on its own below, and falls back if it must.
         with suppress(*FALLBACK_ERRORS):
             batch.prefetch_profiles(requests)
+    for batch, requests in windows.items():
+        with suppress(*FALLBACK_ERRORS):  # likewise: a failing series asks alone below
+            batch.prefetch_recursive(requests, plan.cross_check.alpha)
 
     for position, (name, values) in enumerate(chunk):
         if stop():

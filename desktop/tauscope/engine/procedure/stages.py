@@ -137,6 +137,9 @@ class Estimation(Protocol):
 
     def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow: ...
 
+    def recursive(self, x: np.ndarray, spec: str, lags: int, difference: int,
+                  alpha: float) -> RecursiveStatistic: ...
+
 
 @dataclass(frozen=True)
 class Estimates:

@@ -111,7 +111,7 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         at = {a: orders_from_rejections(rejections_at(result.levels, a), max_difference)
               for a in OTHER_ALPHAS}
         long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
-                            lag_scale=LONG_LAG_SCALE).order
+                            lag_scale=LONG_LAG_SCALE, known=result).order
     boot: dict[int, BootstrapLevel] = {}
     order_all, labels, trend_z = result.order, result.deterministic, result.trend_z
     if bootstrap:

@@ -18,7 +18,6 @@ re-runs the constructor with every field, a noticeable share of the fast path's 
 
 from __future__ import annotations
 
-import copy
 import math
 from typing import TypeVar
 
@@ -52,9 +51,10 @@ def regression_in_units(regression: Regression, scale: float) -> Regression:
 
 def _with(obj: _T, **changes: object) -> _T:
     """A shallow copy of a frozen dataclass with ``changes`` set."""
-    out = copy.copy(obj)
-    for name, value in changes.items():
-        object.__setattr__(out, name, value)
+    out = object.__new__(type(obj))
+    fields = out.__dict__
+    fields.update(obj.__dict__)
+    fields.update(changes)
     return out
 
 

@@ -12,10 +12,11 @@ from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
 from tauscope.engine.regression.design import SPECS
 from tauscope.engine.regression.lagchoice import choose_lag
 from tauscope.engine.regression.scaling import level_centre
-from tauscope.engine.results import LagPoint, LevelTests, TestResult
+from tauscope.engine.results import LagPoint, LevelTests, RecursiveStatistic, TestResult
 from tauscope.engine.unitroot.adf import adf_test, estimate
 from tauscope.engine.unitroot.kpss import kpss_test
 from tauscope.engine.unitroot.phi import phi_test
+from tauscope.engine.unitroot.recursive import recursive_tau
 
 
 def level_tests(x: np.ndarray, difference: int, options: EstimateOptions, max_lags: int) -> LevelTests:
@@ -67,6 +68,11 @@ class ReferenceEstimation:
         o = options
         return union_rows(x[None, :], o.lag_rule, o.alpha, o.max_difference, o.max_lags,
                           o.lags if o.lag_rule == "fixed" else None, o.bootstrap)[0]
+
+    def recursive(self, x: np.ndarray, spec: str, lags: int, difference: int,
+                  alpha: float) -> RecursiveStatistic:
+        """τ on expanding windows of ``x`` (Δ^d y), one series."""
+        return recursive_tau(x, spec, lags, alpha)
 
 
 REFERENCE = ReferenceEstimation()

@@ -25,7 +25,7 @@ import math
 
 import numpy as np
 
-from tauscope.engine.distributions.simulate import CrossProducts, raw_moments, solve_moments
+from tauscope.engine.distributions.simulate import CrossProducts, solve_moments
 from tauscope.engine.unitroot.dfgls import C_BAR, choose_dfgls_lag, deterministic_columns
 
 GLS_SPECS = ("constant", "trend")
@@ -64,25 +64,66 @@ def _columns(levels: np.ndarray, lags: int, first: int) -> tuple[np.ndarray, lis
     return dy[:, first:], columns
 
 
+def stacked_moments(columns: list[np.ndarray], y: np.ndarray) -> CrossProducts:
+    """Z'Z, Z'y and y'y of every row, the regressors stacked into one (r, m, n) array so
+    that each row's products are one matrix product (BLAS); each row's numbers depend on
+    that row alone, so a series gets the same bits alone as in a batch."""
+    z = np.stack(columns, axis=1)
+    return CrossProducts(np.matmul(z, z.transpose(0, 2, 1)), np.matmul(z, y[:, :, None])[:, :, 0],
+                         np.einsum("rn,rn->r", y, y))
+
+
 def lag_criteria_many(detrended: np.ndarray, rule: str, max_lags: int) -> np.ndarray:
     """The rule's criterion for lag orders 0 … max_lags, one row per series (r, max_lags + 1),
-    on the common sample of ``max_lags`` (the regression without deterministic terms)."""
+    on the common sample of ``max_lags`` (the regression without deterministic terms).
+
+    Every lag order's fit comes from one Cholesky factor Z'Z = LL' of the largest
+    regression: with w = L⁻¹Z'y, the fit on the first k + 1 regressors has
+    RSS_k = y'y − Σ_{j≤k} w_j² and γ̂_k = Σ_{j≤k} (L⁻¹)_{j0} w_j (the leading blocks of L
+    and L⁻¹ are those of the smaller regression).  A row whose Z'Z is not positive
+    definite is solved lag order by lag order instead."""
     y, columns = _columns(detrended, max_lags, max_lags)
     n = y.shape[1]
-    full = raw_moments(columns, y)
-    level_ss = full.zz[:, 0, 0]
-    values = np.empty((detrended.shape[0], max_lags + 1))
+    full = stacked_moments(columns, y)
+    try:
+        rss, gamma = _nested_fits(full)
+    except np.linalg.LinAlgError:
+        rss, gamma = np.empty((y.shape[0], max_lags + 1)), np.empty((y.shape[0], max_lags + 1))
+        for row in range(y.shape[0]):
+            one = CrossProducts(full.zz[row:row + 1], full.zy[row:row + 1], full.yy[row:row + 1])
+            try:
+                rss[row], gamma[row] = (v[0] for v in _nested_fits(one))
+            except np.linalg.LinAlgError:
+                rss[row], gamma[row] = (v[0] for v in _fits_one_by_one(one))
+    level_ss = full.zz[:, 0, 0][:, None]
+    orders = np.arange(max_lags + 1)
     with np.errstate(divide="ignore", invalid="ignore"):
-        for k in range(max_lags + 1):
-            m = k + 1
-            beta, rss, _ = solve_moments(CrossProducts(full.zz[:, :m, :m], full.zy[:, :m], full.yy))
-            sigma2 = rss / n
-            if rule == "maic":
-                values[:, k] = np.log(sigma2) + 2.0 * (beta[:, 0] ** 2 * level_ss / sigma2 + k) / n
-            else:
-                log_likelihood = -n / 2.0 * (math.log(2.0 * math.pi) + np.log(sigma2) + 1.0)
-                values[:, k] = -2.0 * log_likelihood + _PENALTY[rule](n) * m
-    return values
+        sigma2 = rss / n
+        if rule == "maic":
+            return np.asarray(np.log(sigma2) + 2.0 * (gamma ** 2 * level_ss / sigma2 + orders) / n)
+        log_likelihood = -n / 2.0 * (math.log(2.0 * math.pi) + np.log(sigma2) + 1.0)
+        return np.asarray(-2.0 * log_likelihood + _PENALTY[rule](n) * (orders + 1))
+
+
+def _nested_fits(moments: CrossProducts) -> tuple[np.ndarray, np.ndarray]:
+    """(RSS, γ̂) for the first 1, 2, … m regressors of every row, from one Cholesky factor
+    (raises LinAlgError when a row's Z'Z is not positive definite)."""
+    lower = np.linalg.cholesky(moments.zz)
+    inverse = np.linalg.inv(lower)
+    w = np.matmul(inverse, moments.zy[:, :, None])[:, :, 0]
+    rss = moments.yy[:, None] - np.cumsum(w * w, axis=1)
+    return rss, np.cumsum(inverse[:, :, 0] * w, axis=1)
+
+
+def _fits_one_by_one(moments: CrossProducts) -> tuple[np.ndarray, np.ndarray]:
+    """(RSS, γ̂) for the first 1, 2, … m regressors, each solved on its own."""
+    m = moments.zy.shape[1]
+    rss, gamma = np.empty((moments.yy.shape[0], m)), np.empty((moments.yy.shape[0], m))
+    with np.errstate(divide="ignore", invalid="ignore"):
+        for k in range(m):
+            beta, rss[:, k], _ = solve_moments(moments.subset(slice(0, k + 1)))
+            gamma[:, k] = beta[:, 0]
+    return rss, gamma
 
 
 def choose_lags_many(xs: np.ndarray, spec: str, rule: str, max_lags: int,
@@ -90,13 +131,21 @@ def choose_lags_many(xs: np.ndarray, spec: str, rule: str, max_lags: int,
     """Lag order per row, chosen on the OLS-detrended series (Perron & Qu 2007); ties go
     to the shorter lag.  ``rule`` "fixed" uses ``fixed``; "tsig" asks the one-series
     rule of :mod:`tauscope.engine.unitroot.dfgls` row by row."""
+    return choose_lags_detrended(xs, None, spec, rule, max_lags, fixed)
+
+
+def choose_lags_detrended(xs: np.ndarray, ols: np.ndarray | None, spec: str, rule: str,
+                          max_lags: int, fixed: int | None = None) -> np.ndarray:
+    """:func:`choose_lags_many` given ``ols``, the rows of ``xs`` OLS-detrended with
+    ``spec`` (:func:`ols_detrend_many`; None: detrended here), so that a caller that
+    needs them anyway detrends once."""
     rows = xs.shape[0]
     if rule == "fixed":
         return np.full(rows, int(fixed or 0))
     if max_lags == 0:
         return np.zeros(rows, dtype=int)
     if rule in VECTOR_RULES:
-        values = lag_criteria_many(ols_detrend_many(xs, spec), rule, max_lags)
+        values = lag_criteria_many(ols_detrend_many(xs, spec) if ols is None else ols, rule, max_lags)
         values = np.where(np.isfinite(values), values, np.inf)
         return np.asarray(np.argmin(values, axis=1))
     return np.array([choose_dfgls_lag(row, spec, rule, max_lags) for row in xs])
@@ -116,7 +165,7 @@ def dfgls_tau_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:
             continue
         with np.errstate(divide="ignore", invalid="ignore"):
             try:
-                beta, rss, inv_diag = solve_moments(raw_moments(columns, y))
+                beta, rss, inv_diag = solve_moments(stacked_moments(columns, y))
             except np.linalg.LinAlgError:
                 continue
             tau[rows] = beta[:, 0] / np.sqrt(rss / df * inv_diag[:, 0])

@@ -73,3 +73,61 @@ def recursive_tau(x: np.ndarray, spec: str, lags: int, alpha: float = 0.05) -> R
     critical = tau_critical_values_for_sizes(spec, sizes, alpha)
     ends = sizes + lags  # window of regression size m ends at series position m + p
     return RecursiveStatistic(spec, lags, ends, sizes, tau, critical, alpha)
+
+
+def recursive_tau_many(xs: np.ndarray, spec: str, lags: int, alpha: float = 0.05,
+                       rows_per_call: int = 16) -> list[RecursiveStatistic]:
+    """:func:`recursive_tau` for every row of ``xs`` (series of one length) at once: the
+    same formulas, with the QR factorisations, the running sums and the window solves
+    batched over the rows (``rows_per_call`` at a time, to bound the memory of the
+    running Gram matrices).  Each row's numbers depend on that row alone, so a series
+    gets the same numbers alone as in a batch."""
+    xs = np.asarray(xs, dtype=float)
+    out: list[RecursiveStatistic] = []
+    for first in range(0, xs.shape[0], rows_per_call):
+        out.extend(_recursive_rows(xs[first:first + rows_per_call], spec, lags, alpha))
+    return out
+
+
+def _recursive_rows(xs: np.ndarray, spec: str, lags: int, alpha: float) -> list[RecursiveStatistic]:
+    if xs.shape[0] == 1:  # numpy takes other kernels for a stack of one: computed as a pair
+        return _recursive_rows(np.vstack([xs, xs]), spec, lags, alpha)[:1]
+    if spec != "none":
+        xs = xs - xs.mean(axis=1)[:, None]
+    dx = np.diff(xs, axis=1)
+    rows = np.arange(lags, dx.shape[1])
+    columns = []
+    if spec in ("trend", "constant"):
+        columns.append(np.ones((xs.shape[0], rows.shape[0])))
+    if spec == "trend":
+        columns.append(np.broadcast_to((rows + 1).astype(float), (xs.shape[0], rows.shape[0])))
+    columns.append(xs[:, rows])
+    columns += [dx[:, rows - i] for i in range(1, lags + 1)]
+    design = np.stack(columns, axis=2)  # (B, n, k)
+    y = dx[:, rows]
+    batch, n, k = design.shape
+    start = first_window(k)
+    if n < start:
+        empty = np.empty(0)
+        return [RecursiveStatistic(spec, lags, empty.astype(int), empty.astype(int), empty, empty, alpha)
+                for _ in range(batch)]
+    scale = np.sqrt(np.sum(design * design, axis=1))  # (B, k)
+    q, r = np.linalg.qr(design / scale[:, None, :])
+    gram = np.cumsum(q[:, :, :, None] * q[:, :, None, :], axis=1)[:, start - 1:]
+    cross = np.cumsum(q * y[:, :, None], axis=1)[:, start - 1:]
+    yy = np.cumsum(y * y, axis=1)[:, start - 1:]
+    g = gamma_column(spec)
+    row = np.linalg.inv(r)[:, g, :]  # (B, k)
+    solved = np.linalg.solve(gram, np.stack([cross, np.broadcast_to(row[:, None, :], cross.shape)], axis=3))
+    fitted_part = np.einsum("bwk,bwk->bw", cross, solved[..., 0])
+    sizes = np.arange(start, n + 1)
+    s2 = np.maximum(yy - fitted_part, 0.0) / (sizes - k)
+    scale_g = scale[:, g][:, None]
+    beta_gamma = np.einsum("bwk,bk->bw", solved[..., 0], row) / scale_g
+    var_gamma = s2 * np.einsum("bwk,bk->bw", solved[..., 1], row) / scale_g ** 2
+    fitted_exactly = ~(var_gamma > 0)
+    tau = beta_gamma / np.sqrt(np.where(fitted_exactly, 1.0, var_gamma))
+    tau[fitted_exactly] = np.nan
+    critical = tau_critical_values_for_sizes(spec, sizes, alpha)
+    ends = sizes + lags
+    return [RecursiveStatistic(spec, lags, ends, sizes, tau[b], critical, alpha) for b in range(batch)]

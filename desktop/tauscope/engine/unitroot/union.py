@@ -33,14 +33,15 @@ trend test of :mod:`tauscope.engine.unitroot.trend_robust`, valid under I(0) and
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from functools import lru_cache
 
 import numpy as np
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED, shock_chunks
 from tauscope.engine.unitroot.dfgls_many import (
-    choose_lags_many,
+    VECTOR_RULES,
+    choose_lags_detrended,
     dfgls_tau_many,
     gls_detrend_many,
     ols_detrend_many,
@@ -164,6 +165,9 @@ class UnionLevel:
     constants: UnionConstants
     margin: np.ndarray
     reject: np.ndarray
+    # The detrended rows by component ("ols-constant" …), kept so that another run on
+    # the same level (another lag maximum) detrends once; not part of the result.
+    detrended: dict[str, np.ndarray] = field(default_factory=dict, repr=False, compare=False)
 
     @property
     def tau_trend(self) -> np.ndarray:
@@ -181,14 +185,40 @@ def margins(tau: dict[str, np.ndarray], constants: UnionConstants) -> np.ndarray
 
 def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha: float,
                 fixed: int | None = None, critical: str = "finite",
-                components: str = "four") -> UnionLevel:
-    """The union of rejections on every row of ``xs`` (already differenced ``difference`` times)."""
-    lags = {spec: choose_lags_many(xs, spec, rule, max_lags, fixed) for spec in ("constant", "trend")}
-    tau = {c: dfgls_tau_many(detrended(xs, c), lags[c.split("-")[1]]) for c in COMPONENTS[components]}
+                components: str = "four", known: UnionLevel | None = None) -> UnionLevel:
+    """The union of rejections on every row of ``xs`` (already differenced ``difference`` times).
+
+    ``known``: the union on the same rows of the same level with another lag maximum;
+    its detrended series are reused, and so is a component's statistic on every row
+    whose lag order comes out the same (each row's statistic depends only on that row
+    and its lag order, so the numbers are those computed afresh)."""
+    series = dict(known.detrended) if known is not None else {}
+
+    def rows_of(component: str) -> np.ndarray:
+        if component not in series:
+            series[component] = detrended(xs, component)
+        return series[component]
+
+    searched = rule in VECTOR_RULES and max_lags > 0
+    lags = {spec: choose_lags_detrended(xs, rows_of(f"ols-{spec}") if searched else None, spec, rule,
+                                        max_lags, fixed) for spec in ("constant", "trend")}
+    tau = {c: _component_tau(rows_of(c), lags[c.split("-")[1]], known, c) for c in COMPONENTS[components]}
     constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components,
                                 source=_source(critical))
     margin = margins(tau, constants)
-    return UnionLevel(difference, tau, lags, constants, margin, np.asarray(margin > 1.0))
+    return UnionLevel(difference, tau, lags, constants, margin, np.asarray(margin > 1.0), series)
+
+
+def _component_tau(rows: np.ndarray, lags: np.ndarray, known: UnionLevel | None, component: str) -> np.ndarray:
+    """DF-GLS τ of every row, taken from ``known`` where it used the same lag order."""
+    spec = component.split("-")[1]
+    if known is None or component not in known.tau or spec not in known.lags:
+        return dfgls_tau_many(rows, lags)
+    tau = np.array(known.tau[component], dtype=float)
+    fresh = np.flatnonzero(np.asarray(known.lags[spec]) != lags)
+    if fresh.size:
+        tau[fresh] = dfgls_tau_many(rows[fresh], lags[fresh])
+    return tau
 
 
 def _source(critical: str) -> str:
@@ -217,20 +247,24 @@ def max_lags_schwert(length: int, max_lags: int | None = None, scale: float = 12
 def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_difference: int = 2,
                  max_lags: int | None = None, fixed: int | None = None,
                  critical: str = "finite", lag_scale: float = UNION_LAG_SCALE,
-                 components: str = "four") -> UnionOrders:
+                 components: str = "four", known: UnionOrders | None = None) -> UnionOrders:
     """Order of integration of every row of ``xs`` by the union from the highest
     difference down (Dickey & Pantula 1987), and its deterministic label:
 
     * I(0): "trend" if the trend test finds a trend in the levels, else "constant";
     * I(1): "constant" (a drift) if it finds a trend in the levels, else "none";
     * I(2): "constant" if it finds a trend in the first difference, else "none".
+
+    ``known``: the same call on the same rows with another ``lag_scale``, whose work is
+    reused where it applies (:func:`union_level`).
     """
     xs = np.asarray(xs, dtype=float)
     levels: dict[int, UnionLevel] = {}
     for d in range(max_difference, -1, -1):
         xd = np.diff(xs, n=d, axis=1) if d else xs
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
-        levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components)
+        levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components,
+                                None if known is None else known.levels.get(d))
     order = orders_from_rejections({d: level.reject for d, level in levels.items()}, max_difference)
     labels, z = deterministic_labels(xs, order, levels, rule, alpha, max_lags, fixed, critical, lag_scale)
     return UnionOrders(order, labels, z, levels)
