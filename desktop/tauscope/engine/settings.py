@@ -11,6 +11,12 @@ CONFIRMATION_TESTS = ("kpss", "pp", "dfgls", "za")
 CRITICAL_VALUE_SOURCES = ("mackinnon", "exact")
 BREAK_MODELS = ("c", "t", "ct")
 STRATEGIES = ("union", "classic")
+SEASONAL_MODES = ("automatic", "always", "never")
+SEASONAL_LABELS = {
+    "automatic": "When a fixed seasonal pattern is found",
+    "always": "Always, for quarterly and monthly series",
+    "never": "Never",
+}
 STRATEGY_LABELS = {
     "union": "Size-controlled (recommended)",
     "classic": "Classic Dickey-Fuller sequence",
@@ -43,6 +49,10 @@ class Settings:
     (Harvey, Leybourne & Taylor 2009, 2012), whose size is controlled over the whole
     decision; ``"classic"`` the Dickey-Fuller sequence (Dolado, Jenkinson &
     Sosvilla-Rivero 1990), which is always computed and shown as well.
+    ``seasonal`` says when the unit-root tests of a quarterly or monthly series allow
+    for fixed seasonal means (seasonal dummies, Dickey, Bell & Miller 1986):
+    ``"automatic"`` (the default) when the F test of
+    :mod:`tauscope.engine.seasonal.means` finds them, ``"always"`` or ``"never"``.
     """
 
     lag_rule: str = "maic"
@@ -55,6 +65,7 @@ class Settings:
     break_model: str = "ct"
     power: bool = True
     strategy: str = "union"
+    seasonal: str = "automatic"
 
     def __post_init__(self) -> None:
         if self.lag_rule not in LAG_RULES:
@@ -78,6 +89,8 @@ class Settings:
             raise ValueError("break_model must be 'c', 't' or 'ct'")
         if self.strategy not in STRATEGIES:
             raise ValueError(f"strategy must be one of {', '.join(STRATEGIES)}, not {self.strategy!r}")
+        if self.seasonal not in SEASONAL_MODES:
+            raise ValueError(f"seasonal must be one of {', '.join(SEASONAL_MODES)}, not {self.seasonal!r}")
         unknown = [c for c in self.confirm if c not in CONFIRMATION_TESTS]
         if unknown:
             raise ValueError(f"unknown confirmation test(s): {', '.join(unknown)}")

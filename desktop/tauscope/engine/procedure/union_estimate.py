@@ -78,9 +78,9 @@ class UnionRow:
 
 
 @lru_cache(maxsize=256)
-def _constants(length: int | None, alpha: float) -> UnionConstants:
+def _constants(length: int | None, alpha: float, period: int | None = None) -> UnionConstants:
     """The union's constants at this length and level, kept for the next batch."""
-    return union_constants(length, alpha)
+    return union_constants(length, alpha, period=period)
 
 
 def _order(value: int) -> int | None:
@@ -88,16 +88,17 @@ def _order(value: int) -> int | None:
 
 
 def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
-               max_lags: int | None, fixed: int | None) -> list[UnionRow]:
-    """One :class:`UnionRow` per row of ``xs`` (series of one length)."""
+               max_lags: int | None, fixed: int | None, period: int | None = None) -> list[UnionRow]:
+    """One :class:`UnionRow` per row of ``xs`` (series of one length); with ``period``,
+    every level's fixed seasonal means are removed first (seasonal dummies)."""
     xs = np.asarray(xs, dtype=float)
     with np.errstate(all="ignore"):
-        result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed)
-        at = {a: orders_from_rejections(rejections_at(result.levels, a), max_difference)
+        result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, period=period)
+        at = {a: orders_from_rejections(rejections_at(result.levels, a, period=period), max_difference)
               for a in OTHER_ALPHAS}
         long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
-                            lag_scale=LONG_LAG_SCALE).order
-    per_alpha = {d: {a: _constants(level.constants.length, a) for a in (0.01, 0.05, 0.10)}
+                            lag_scale=LONG_LAG_SCALE, period=period).order
+    per_alpha = {d: {a: _constants(level.constants.length, a, period) for a in (0.01, 0.05, 0.10)}
                  for d, level in result.levels.items()}
     rows = []
     for i in range(xs.shape[0]):

@@ -61,12 +61,12 @@ class ReferenceEstimation:
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
         return kpss_test(x, spec, difference, alpha)
 
-    def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow:
+    def union(self, x: np.ndarray, options: EstimateOptions, period: int | None = None) -> UnionRow:
         """The union of rejections on this series alone (the same numbers as in a batch:
         every operation of :mod:`tauscope.engine.procedure.union_estimate` is row by row)."""
         o = options
         return union_rows(x[None, :], o.lag_rule, o.alpha, o.max_difference, o.max_lags,
-                          o.lags if o.lag_rule == "fixed" else None)[0]
+                          o.lags if o.lag_rule == "fixed" else None, period)[0]
 
 
 REFERENCE = ReferenceEstimation()

@@ -29,6 +29,13 @@ The order of integration comes from the highest difference down (Dickey, D.A. &
 Pantula, S.G. 1987, JBES 5(4)): the union on Δ^d y for d = max, …, 0 while it rejects;
 the first non-rejection at d gives I(d + 1).  The deterministic label comes from the
 trend test of :mod:`tauscope.engine.unitroot.trend_robust`, valid under I(0) and I(1).
+
+Fixed seasonal means (``period`` S = 4 or 12): every level Δ^d y has its seasonal means
+removed first (OLS on [1, t, seasonal contrasts], :mod:`tauscope.engine.seasonal.means`),
+which gives each component its limit with seasonal dummies in the deterministic set: that
+without them (Dickey, Bell & Miller 1986).  The constants are then simulated directly at the
+series' own length with the same removal applied to the simulated walks (cached per length;
+the asymptotic ones are unchanged).
 """
 
 from __future__ import annotations
@@ -39,6 +46,7 @@ from functools import lru_cache
 import numpy as np
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED, shock_chunks
+from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.unitroot.dfgls_many import (
     choose_lags_many,
     dfgls_tau_many,
@@ -102,14 +110,17 @@ class UnionConstants:
 
 
 def union_null(length: int, reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
-               components: tuple[str, ...] = COMPONENTS["four"]) -> np.ndarray:
+               components: tuple[str, ...] = COMPONENTS["four"], period: int | None = None) -> np.ndarray:
     """(reps, components) statistics for driftless Gaussian random walks of ``length``
-    values, all components from the same path, without lag augmentation."""
+    values, all components from the same path, without lag augmentation; with ``period``,
+    each walk's fixed seasonal means are removed first."""
     if length < 10:
         raise ValueError("the union needs at least 10 values")
     parts = []
     for shocks in shock_chunks(length, reps, seed, width=2 * len(components)):
         paths = np.cumsum(shocks, axis=1)
+        if period is not None:
+            paths = remove_seasonal_means(paths, period)
         zeros = np.zeros(paths.shape[0], dtype=int)
         parts.append(np.column_stack([dfgls_tau_many(detrended(paths, c), zeros) for c in components]))
     return np.vstack(parts)
@@ -123,19 +134,21 @@ def constants_from_draws(draws: np.ndarray, alpha: float) -> tuple[tuple[float, 
 
 
 @lru_cache(maxsize=64)
-def _simulated(length: int, reps: int, seed: int, components: tuple[str, ...]) -> np.ndarray:
-    draws = union_null(length, reps, seed, components)
+def _simulated(length: int, reps: int, seed: int, components: tuple[str, ...],
+               period: int | None = None) -> np.ndarray:
+    draws = union_null(length, reps, seed, components, period)
     draws.setflags(write=False)
     return draws
 
 
 def union_constants(length: int | None, alpha: float = 0.05, components: str = "four",
                     reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
-                    source: str = "table") -> UnionConstants:
+                    source: str = "table", period: int | None = None) -> UnionConstants:
     """The constants at the series' own ``length``, or the asymptotic ones for
     ``length=None``.  ``source="table"``: interpolated from the pre-simulated table when it
     holds this length and α (and ``reps`` and ``seed`` are the defaults), else simulated;
-    ``"simulate"``: simulated at ``length`` with ``reps`` replications (cached)."""
+    ``"simulate"``: simulated at ``length`` with ``reps`` replications (cached).  With
+    ``period``, simulated with the seasonal means removed (the table holds none)."""
     names = COMPONENTS[components]
     if length is None:
         table = ASYMPTOTIC[components]
@@ -144,11 +157,11 @@ def union_constants(length: int | None, alpha: float = 0.05, components: str = "
             raise ValueError(f"no asymptotic union constants for alpha = {alpha}")
         cvs, kappa = table[key]
         return UnionConstants(alpha, names, cvs, kappa, None, ASYMPTOTIC_REPS)
-    if source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED:
+    if source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED and period is None:
         tabled = table_constants(int(length), alpha, components)
         if tabled is not None:
             return UnionConstants(alpha, names, tabled[0], tabled[1], int(length), tabled[2])
-    cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names), alpha)
+    cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names, period), alpha)
     return UnionConstants(alpha, names, cvs, kappa, int(length), reps)
 
 
@@ -181,12 +194,13 @@ def margins(tau: dict[str, np.ndarray], constants: UnionConstants) -> np.ndarray
 
 def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha: float,
                 fixed: int | None = None, critical: str = "finite",
-                components: str = "four") -> UnionLevel:
-    """The union of rejections on every row of ``xs`` (already differenced ``difference`` times)."""
+                components: str = "four", period: int | None = None) -> UnionLevel:
+    """The union of rejections on every row of ``xs`` (already differenced ``difference`` times,
+    and with its seasonal means removed when ``period`` is given)."""
     lags = {spec: choose_lags_many(xs, spec, rule, max_lags, fixed) for spec in ("constant", "trend")}
     tau = {c: dfgls_tau_many(detrended(xs, c), lags[c.split("-")[1]]) for c in COMPONENTS[components]}
     constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components,
-                                source=_source(critical))
+                                source=_source(critical), period=period)
     margin = margins(tau, constants)
     return UnionLevel(difference, tau, lags, constants, margin, np.asarray(margin > 1.0))
 
@@ -217,21 +231,23 @@ def max_lags_schwert(length: int, max_lags: int | None = None, scale: float = 12
 def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_difference: int = 2,
                  max_lags: int | None = None, fixed: int | None = None,
                  critical: str = "finite", lag_scale: float = UNION_LAG_SCALE,
-                 components: str = "four") -> UnionOrders:
+                 components: str = "four", period: int | None = None) -> UnionOrders:
     """Order of integration of every row of ``xs`` by the union from the highest
     difference down (Dickey & Pantula 1987), and its deterministic label:
 
     * I(0): "trend" if the trend test finds a trend in the levels, else "constant";
     * I(1): "constant" (a drift) if it finds a trend in the levels, else "none";
     * I(2): "constant" if it finds a trend in the first difference, else "none".
+
+    With ``period`` (4 or 12), each level's fixed seasonal means are removed first.
     """
     xs = np.asarray(xs, dtype=float)
     rows = xs.shape[0]
     levels: dict[int, UnionLevel] = {}
     for d in range(max_difference, -1, -1):
-        xd = np.diff(xs, n=d, axis=1) if d else xs
+        xd = _level(xs, d, period)
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
-        levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components)
+        levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components, period)
     order = orders_from_rejections({d: level.reject for d, level in levels.items()}, max_difference)
     z = np.full(rows, np.nan)
     trend = np.zeros(rows, dtype=bool)
@@ -239,7 +255,7 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
         chosen = order == o
         if not chosen.any() or d not in levels:
             continue
-        xd = np.diff(xs[chosen], axis=1) if d else xs[chosen]
+        xd = _level(xs[chosen], d, period)
         z[chosen] = trend_statistics(xd, levels[d].tau_trend[chosen])["z"]
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
         critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0), source=_source(critical))
@@ -255,6 +271,12 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
     return UnionOrders(order, tuple(labels), z, levels)
 
 
+def _level(xs: np.ndarray, d: int, period: int | None) -> np.ndarray:
+    """Δ^d of every row, its fixed seasonal means removed when ``period`` is given."""
+    xd = np.diff(xs, n=d, axis=1) if d else xs
+    return xd if period is None else np.asarray(remove_seasonal_means(xd, period))
+
+
 def orders_from_rejections(reject: dict[int, np.ndarray], max_difference: int) -> np.ndarray:
     """Dickey-Pantula from the decisions on each difference level: the first
     non-rejection from the top at d gives d + 1 (−1 when d is the highest level)."""
@@ -268,13 +290,14 @@ def orders_from_rejections(reject: dict[int, np.ndarray], max_difference: int) -
     return order
 
 
-def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "finite") -> dict[int, np.ndarray]:
+def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "finite",
+                  period: int | None = None) -> dict[int, np.ndarray]:
     """The union's decision on every level at another level ``alpha`` (same statistics)."""
     out = {}
     for d, level in levels.items():
         kind = next(k for k, v in COMPONENTS.items() if v == level.constants.components)
         c = union_constants(None if critical == "asymptotic" else level.constants.length, alpha, kind,
-                            source=_source(critical))
+                            source=_source(critical), period=period)
         out[d] = np.asarray(margins(level.tau, c) > 1.0)
     return out
 
