@@ -34,6 +34,8 @@ if TYPE_CHECKING:
     from tauscope.engine.settings import (
         LAG_RULE_LABELS,
         LAG_RULES,
+        SEASONAL_LABELS,
+        SEASONAL_MODES,
         STRATEGIES,
         STRATEGY_LABELS,
         Settings,
@@ -55,6 +57,8 @@ _WHERE = {
     "RecursiveStatistic": "results",
     "LAG_RULE_LABELS": "settings",
     "LAG_RULES": "settings",
+    "SEASONAL_LABELS": "settings",
+    "SEASONAL_MODES": "settings",
     "STRATEGIES": "settings",
     "STRATEGY_LABELS": "settings",
     "Settings": "settings",
@@ -66,6 +70,8 @@ _WHERE = {
 __all__ = [
     "LAG_RULES",
     "LAG_RULE_LABELS",
+    "SEASONAL_LABELS",
+    "SEASONAL_MODES",
     "STRATEGIES",
     "STRATEGY_LABELS",
     "BreakInfo",
