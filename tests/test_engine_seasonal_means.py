@@ -113,9 +113,9 @@ def test_the_setting_switches_the_dummies() -> None:
     assert never.seasonal is None
     assert auto.seasonal is not None and auto.seasonal.means is not None and auto.seasonal.means.used
     assert always.seasonal is not None and always.seasonal.means is not None and always.seasonal.means.used
-    level = {r: r.find("adf", "constant", 0) for r in (never, auto)}
-    assert level[never] is not None and level[auto] is not None
-    assert level[never].statistic != level[auto].statistic  # the tests see another series
+    tau_never, tau_auto = (r.find("adf", "constant", 0) for r in (never, auto))
+    assert tau_never is not None and tau_auto is not None
+    assert tau_never.statistic != tau_auto.statistic  # the tests see another series
     assert auto.to_dict()["seasonal"]["means"]["used"] is True
     assert len(auto.seasonal.means.effects) == 12
     # "always" on a series without seasonal means: allowed for though not found
