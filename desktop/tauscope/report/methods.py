@@ -257,7 +257,7 @@ def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
 def _seasonal_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
     """Fixed seasonal means and seasonal unit roots, when quarterly or monthly series had them
     tested (the ``seasonal`` setting not "never")."""
-    checked = [f.seasonal for f in run.findings if getattr(f, "seasonal", None) is not None]
+    checked = [f.result.seasonal for f in run.findings if f.result.seasonal is not None]
     if not checked:
         return []
     used = sum(1 for c in checked if c.means is not None and c.means.used)
