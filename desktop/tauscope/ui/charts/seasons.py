@@ -69,8 +69,8 @@ class SeasonsChart(Chart):
         years = np.arange(grid.shape[0], dtype=float) + (year if year is not None else 1)
         colors = self.colors
         self.clear()
-        found = _found(result)
-        plot = self.new_plot(0, False, "Each season minus its year's average" + (f" · {found}" if found else ""))
+        plot = self.new_plot(0, False, "Each season minus its year's average")
+        plot.setToolTip(_found(result))
         for s, name in enumerate(SEASON_NAMES[period]):
             shade = QColor(colors.line)
             shade.setHsv((colors.line.hsvHue() + 360 * s // period) % 360,
