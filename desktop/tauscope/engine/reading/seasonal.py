@@ -14,6 +14,15 @@ from tauscope.engine.results_seasonal import SeasonalCheck
 METHOD = {4: "HEGY test", 12: "Beaulieu-Miron test"}
 
 
+def seasonal_found(check: SeasonalCheck | None) -> bool:
+    """Seasonal unit roots or fixed seasonal means (found or allowed for) in this result."""
+    if check is None:
+        return False
+    roots = check.roots is not None and bool(check.roots.seasonal_roots)
+    means = check.means is not None and (check.means.found or check.means.used)
+    return roots or means or check.problem is not None
+
+
 def seasonal_notes(check: SeasonalCheck | None) -> tuple[str, ...]:
     """The sentences for ``SeriesResult.seasonal`` (none when it was not computed)."""
     if check is None:

@@ -62,6 +62,11 @@ class ChartPanel(QWidget):
         self._apply_colors()
         self.show_nothing()
 
+    def _show_seasons_tab(self, result: SeriesResult | None) -> None:
+        """The Seasons tab only for a result with a seasonal part (quarterly or monthly), so
+        the other tabs keep the width the window's layout gives them."""
+        self.tabs.setTabVisible(self.SEASONS, result is not None and result.seasonal is not None)
+
     def pages(self) -> tuple[Chart, ...]:
         return (self.data_page, self.fitted_page, self.lags_page, self.recursive_page,
                 self.null_page, self.seasons_page)
@@ -131,6 +136,7 @@ class ChartPanel(QWidget):
     # content ------------------------------------------------------------
     def show_nothing(self) -> None:
         self._series, self._result = None, None
+        self._show_seasons_tab(None)
         for page in self.pages():
             page.show_idle()
 
@@ -143,6 +149,7 @@ class ChartPanel(QWidget):
             and not self.data_page.stale
         self._stale_colors = False
         self._series, self._result = series, result
+        self._show_seasons_tab(result)
         if series is None and result is None:
             self.show_nothing()
             return
