@@ -28,6 +28,8 @@ class Process:
     order: int
     deterministic: str | None
     unit_root: bool  # counts for the size rows (a true unit root in the levels)
+    period: int | None = None  # 4 or 12: the series get quarterly or monthly dates
+    seasonal_root: bool = False  # a unit root at a seasonal frequency (issue 14)
 
 
 def ar1(rng: np.random.Generator, reps: int, length: int, phi: float,
@@ -101,6 +103,22 @@ def _seasonal(rng: np.random.Generator, reps: int, n: int) -> np.ndarray:
     return MEAN + pattern + ar1(rng, reps, n, 0.5)
 
 
+MONTHLY_EFFECTS = np.array([1.5, -0.5, 1.0, -2.0, 0.5, 1.0, -1.0, 0.0, 2.0, -1.5, 0.5, -1.5])
+
+
+def _seasonal_monthly(rng: np.random.Generator, reps: int, n: int) -> np.ndarray:
+    """AR(1), φ = 0.5, around a mean with fixed monthly effects (MONTHLY_EFFECTS, summing to 0)."""
+    return MEAN + np.resize(MONTHLY_EFFECTS, n) + ar1(rng, reps, n, 0.5)
+
+
+def _seasonal_walk(rng: np.random.Generator, reps: int, n: int) -> np.ndarray:
+    """Quarterly seasonal random walk y_t = y_{t−4} + e_t from zero starts (a unit root at every
+    seasonal frequency and at the long run; Hylleberg, Engle, Granger & Yoo 1990)."""
+    years = -(-n // 4)
+    e = rng.standard_normal((reps, years * 4))
+    return MEAN + e.reshape(reps, years, 4).cumsum(axis=1).reshape(reps, -1)[:, :n]
+
+
 def grid() -> list[Process]:
     """The scorecard's processes (issue 13 §1)."""
     out: list[Process] = []
@@ -119,7 +137,6 @@ def grid() -> list[Process]:
     out.append(Process("I(2)", _i2, 2, "none", True))
     out.append(Process("level shift", _level_shift, 0, None, False))
     out.append(Process("GARCH random walk", _garch_walk, 1, "none", False))
-    out.append(Process("seasonal AR(1)", _seasonal, 0, None, False))
     # issue 14 §4: a random walk whose shock variance triples (or whose sd triples) halfway;
     # judged by its own acceptance row, not the size row.
     out.append(Process("variance x3 walk", _variance_walk(float(np.sqrt(3.0))), 1, "none", False))
@@ -127,6 +144,10 @@ def grid() -> list[Process]:
     # the variance falls to a third halfway: the case where the usual critical values are too
     # liberal (Cavaliere 2004), so the one that shows what the bootstrap is for
     out.append(Process("variance /3 walk", _variance_walk(float(np.sqrt(1.0 / 3.0))), 1, "none", False))
+    out.append(Process("seasonal AR(1)", _seasonal, 0, None, False, period=4))
+    out.append(Process("monthly seasonal AR(1)", _seasonal_monthly, 0, None, False, period=12))
+    out.append(Process("quarterly seasonal walk", _seasonal_walk, 1, None, False, period=4,
+                       seasonal_root=True))
     return out
 
 

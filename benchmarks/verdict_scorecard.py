@@ -36,6 +36,7 @@ from pathlib import Path
 from typing import Any
 
 import numpy as np
+import pandas as pd
 
 sys.path.insert(0, str(Path(__file__).resolve().parent))
 
@@ -49,6 +50,9 @@ SEED = 20260513
 ACCEPT_POWER = (("AR(1) mean phi=0.5", 100, 0.90, "constant"),
                 ("AR(1) mean phi=0.8", 200, 0.85, "constant"),
                 ("AR(1) trend phi=0.7", 150, 0.80, "trend"))
+# issue 14: (process, T, limit) for I(0) and for a seasonal unit root found
+ACCEPT_SEASONAL = (("seasonal AR(1)", 150, 0.85), ("monthly seasonal AR(1)", 150, 0.85))
+ACCEPT_SEASONAL_ROOT = (("quarterly seasonal walk", 200, 0.80),)
 ORDERS = (0, 1, 2, -1, -2)  # -1 unresolved, -2 error
 SHORT = {"confirmed": "conf", "conflict": "cflt", "inconclusive": "inc"}
 ORDER_NAMES = {0: "I(0)", 1: "I(1)", 2: "I(2)", -1: "unres", -2: "error"}
@@ -85,8 +89,18 @@ def simulate(process: Process, length: int, reps: int, seed: int) -> np.ndarray:
     return np.asarray(process.make(rng, reps, length), dtype=float)
 
 
-def classic_cell(process: Process, length: int, xs: np.ndarray, settings: Settings) -> Cell:
-    results = analyse_many([(f"s{i}", row) for i, row in enumerate(xs)], settings)
+def dated(xs: np.ndarray, period: int | None) -> list[tuple[str, Any]]:
+    """The series as (name, values), with quarterly or monthly dates when ``period`` says so."""
+    if period is None:
+        return [(f"s{i}", row) for i, row in enumerate(xs)]
+    index = pd.period_range("1960Q1" if period == 4 else "1960-01", periods=xs.shape[1],
+                            freq="Q" if period == 4 else "M")
+    return [(f"s{i}", pd.Series(row, index=index)) for i, row in enumerate(xs)]
+
+
+def classic_cell(process: Process, length: int, xs: np.ndarray, settings: Settings,
+                 period: int | None = None) -> Cell:
+    results = analyse_many(dated(xs, process.period or period), settings)
     order = np.array([-2 if r.error else (-1 if r.verdict.order is None else r.verdict.order)
                       for r in results])
     det = [r.verdict.deterministic for r in results]
@@ -94,7 +108,12 @@ def classic_cell(process: Process, length: int, xs: np.ndarray, settings: Settin
     spec = "trend" if process.deterministic == "trend" else "constant"
     single = np.array([bool(t.reject) if (t := r.find("adf", spec, 0)) is not None else False
                        for r in results])
-    return Cell(process, length, order, det, grade, single)
+    roots = np.array([r.seasonal is not None and r.seasonal.roots is not None
+                      and bool(r.seasonal.roots.seasonal_roots) for r in results])
+    means = np.array([r.seasonal is not None and r.seasonal.means is not None
+                      and r.seasonal.means.used for r in results])
+    return Cell(process, length, order, det, grade, single,
+                {"seasonal_root": roots, "seasonal_means": means})
 
 
 def union_cell(process: Process, length: int, xs: np.ndarray, settings: Settings,
@@ -165,6 +184,20 @@ def acceptance(strategy: str, cells: list[Cell], classic: dict[tuple[str, int], 
         print(f"{'PASS' if share >= limit else 'FAIL'} power: {name} T={length}: I(0) "
               f"{_pct(share)}% (at least {100 * limit:.0f}%){adf}")
     volatility(strategy, cells, default)
+    for name, length, limit in ACCEPT_SEASONAL:
+        cell = next((c for c in cells if c.process.name == name and c.length == length), None)
+        if cell is not None:
+            share = float(np.mean(cell.order == 0))
+            means = cell.evidence.get("seasonal_means")
+            used = f"; seasonal means allowed for {_pct(float(np.mean(means)))}%" if means is not None else ""
+            print(f"{'PASS' if share >= limit else 'FAIL'} seasonal: {name} T={length}: I(0) "
+                  f"{_pct(share)}% (at least {100 * limit:.0f}%){used}")
+    for name, length, limit in ACCEPT_SEASONAL_ROOT:
+        cell = next((c for c in cells if c.process.name == name and c.length == length), None)
+        if cell is not None and "seasonal_root" in cell.evidence:
+            share = float(np.mean(cell.evidence["seasonal_root"]))
+            print(f"{'PASS' if share >= limit else 'FAIL'} seasonal root: {name} T={length}: found "
+                  f"{_pct(share)}% (at least {100 * limit:.0f}%)")
     ma = next((c for c in cells if c.process.name == "ARIMA(0,1,1) theta=-0.8" and c.length == 200), None)
     if ma is not None:
         share = float(np.mean(ma.order == 0))
@@ -251,6 +284,11 @@ def main(argv: list[str] | None = None) -> None:
     parser.add_argument("--only", default="",
                         help="only processes whose name contains one of these (comma-separated)")
     parser.add_argument("--seed", type=int, default=SEED)
+    parser.add_argument("--seasonal", choices=("automatic", "always", "never"), default="automatic",
+                        help="the engine's seasonal setting (classic and engine strategies)")
+    parser.add_argument("--period", type=int, choices=(4, 12), default=None,
+                        help="give every process quarterly (4) or monthly (12) dates, so that the "
+                             "seasonal means test runs on the non-seasonal processes too")
     parser.add_argument("--classic-from", default="",
                         help="take the classic verdicts (for the union's evidence) from a --save file "
                              "instead of running the classic strategy")
@@ -260,7 +298,7 @@ def main(argv: list[str] | None = None) -> None:
     if args.quick:
         reps, lengths = min(reps, 100), [100, 200]
     settings = Settings(lag_rule=args.lag_rule, alpha=args.alpha, max_lags=args.max_lags,
-                        lags=args.lags, power=False, strategy="classic")
+                        lags=args.lags, power=False, strategy="classic", seasonal=args.seasonal)
     engine_settings = replace(settings, strategy="union", lag_rule=args.union_lag_rule)
     boot_settings = replace(engine_settings, strategy="bootstrap")
     print(f"settings: {settings.to_dict()}; reps {reps}; lengths {lengths}; seed {args.seed}; "
@@ -272,6 +310,8 @@ def main(argv: list[str] | None = None) -> None:
     jobs = [(p, n) for p in grid() if any(w in p.name for w in wanted) for n in lengths]
     jobs += [(by_name(name), n) for name, n, _, _ in ACCEPT_POWER
              if any(w in name for w in wanted) and (name, n) not in {(p.name, m) for p, m in jobs}]
+    jobs += [(by_name(name), n) for name, n, _ in (*ACCEPT_SEASONAL, *ACCEPT_SEASONAL_ROOT)
+             if any(w in name for w in wanted) and (name, n) not in {(p.name, m) for p, m in jobs}]
     run: dict[str, list[Cell]] = defaultdict(list)
     classic_by: dict[tuple[str, int], Cell] = {}
     union_runs: list[tuple[Cell, dict[str, np.ndarray]]] = []
@@ -282,7 +322,7 @@ def main(argv: list[str] | None = None) -> None:
         classic = None
         if args.strategy in ("classic", "both", "all"):
             start = time.perf_counter()
-            classic = classic_cell(process, n, xs, settings)
+            classic = classic_cell(process, n, xs, settings, args.period)
             clock["classic"] += time.perf_counter() - start
             run["classic"].append(classic)
             classic_by[(process.name, n)] = classic
@@ -295,7 +335,7 @@ def main(argv: list[str] | None = None) -> None:
             classic = Cell(process, n, order, [None] * order.size, np.array(["none"] * order.size))
         if args.strategy in ("engine", "all", "boot"):
             start = time.perf_counter()
-            run["engine"].append(classic_cell(process, n, xs, engine_settings))
+            run["engine"].append(classic_cell(process, n, xs, engine_settings, args.period))
             clock["engine"] += time.perf_counter() - start
         if args.strategy == "boot":
             start = time.perf_counter()

@@ -260,9 +260,10 @@ def test_analyse_many_streams_in_chunks(monkeypatch: pytest.MonkeyPatch) -> None
     batches: list[int] = []
     original = fast_path.SeriesBatch.__init__
 
-    def spy(self: fast_path.SeriesBatch, values: list[np.ndarray], options: EstimateOptions) -> None:
+    def spy(self: fast_path.SeriesBatch, values: list[np.ndarray], options: EstimateOptions,
+            period: int | None = None) -> None:
         batches.append(len(values))
-        original(self, values, options)
+        original(self, values, options, period)
 
     monkeypatch.setattr(fast_path.SeriesBatch, "__init__", spy)
     series = _mixed_series()

@@ -30,7 +30,14 @@ from typing import NoReturn, TextIO
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
 from tauscope.data.notes import reader_notes
 from tauscope.data.sample import GAP_RULES, apply_gap_rule, cut_sample, parse_sample
-from tauscope.engine import LAG_RULES, STRATEGIES, SeriesResult, Settings, analyse_many
+from tauscope.engine import (
+    LAG_RULES,
+    SEASONAL_MODES,
+    STRATEGIES,
+    SeriesResult,
+    Settings,
+    analyse_many,
+)
 from tauscope.engine.reading.words import cross_check_word
 from tauscope.engine.results import failed_result
 from tauscope.report import (
@@ -80,6 +87,11 @@ def _parser() -> _Parser:
                              "bootstrap (size-controlled, robust to changing volatility: the union "
                              "against a wild-bootstrap critical value; slower) or classic (the "
                              "Dickey-Fuller sequence; it is shown in every case)")
+    parser.add_argument("--seasonal", choices=SEASONAL_MODES, default="automatic",
+                        help="quarterly and monthly series: allow for fixed seasonal means in the "
+                             "tests (seasonal dummies) when a test finds them (automatic, the "
+                             "default), always, or never (no seasonal means, no seasonal "
+                             "unit-root test)")
     parser.add_argument("--lags", type=_count, help="lag order for --lag-rule fixed")
     parser.add_argument("--max-lags", type=_count, help="largest lag order tried")
     parser.add_argument("--alpha", type=float, choices=(0.01, 0.05, 0.10), default=0.05,
@@ -171,7 +183,7 @@ def _settings(args: argparse.Namespace) -> Settings:
         return Settings(lag_rule=args.lag_rule, lags=args.lags, max_lags=args.max_lags,
                         alpha=args.alpha, max_difference=args.max_difference, confirm=checks,
                         critical_values="exact" if args.exact else "mackinnon",
-                        strategy=args.strategy)
+                        strategy=args.strategy, seasonal=args.seasonal)
     except ValueError as exc:
         raise UsageError(str(exc)) from None
 

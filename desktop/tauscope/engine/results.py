@@ -15,6 +15,7 @@ import pandas as pd
 
 from tauscope.engine.finite import finite_or_none as _num
 from tauscope.engine.results_breaks import BreakCheck, BreakInfo
+from tauscope.engine.results_seasonal import SeasonalCheck
 from tauscope.engine.results_strategy import ClassicVerdict
 
 
@@ -211,6 +212,7 @@ class SeriesResult:
     evidence: Evidence | None = field(default=None, compare=False, repr=False)
     classic: ClassicVerdict | None = None  # the classic verdict when another strategy decided
     breaks: BreakCheck | None = field(default=None, compare=False, repr=False)
+    seasonal: SeasonalCheck | None = field(default=None, compare=False, repr=False)
 
     @property
     def ok(self) -> bool:
@@ -243,6 +245,7 @@ class SeriesResult:
             },
             "evidence": self.evidence.to_dict() if self.evidence is not None else None,
             "breaks": self.breaks.to_dict() if self.breaks is not None else None,
+            "seasonal": self.seasonal.to_dict() if self.seasonal is not None else None,
         }
 
 

@@ -12,6 +12,12 @@ CRITICAL_VALUE_SOURCES = ("mackinnon", "exact")
 BREAK_MODELS = ("c", "t", "ct")
 STRATEGIES = ("union", "bootstrap", "classic")
 UNION_STRATEGIES = ("union", "bootstrap")  # the strategies that decide with the union of rejections
+SEASONAL_MODES = ("automatic", "always", "never")
+SEASONAL_LABELS = {
+    "automatic": "When a fixed seasonal pattern is found",
+    "always": "Always, for quarterly and monthly series",
+    "never": "Never",
+}
 STRATEGY_LABELS = {
     "union": "Size-controlled (recommended)",
     "bootstrap": "Size-controlled, robust to changing volatility",
@@ -47,6 +53,10 @@ class Settings:
     Sosvilla-Rivero 1990), which is always computed and shown as well;
     ``"bootstrap"`` the same union with its critical value from the wild bootstrap
     (Smeekes & Taylor 2012), valid when the shocks' variance changes over the sample.
+    ``seasonal`` says when the unit-root tests of a quarterly or monthly series allow
+    for fixed seasonal means (seasonal dummies, Dickey, Bell & Miller 1986):
+    ``"automatic"`` (the default) when the F test of
+    :mod:`tauscope.engine.seasonal.means` finds them, ``"always"`` or ``"never"``.
     """
 
     lag_rule: str = "maic"
@@ -59,6 +69,7 @@ class Settings:
     break_model: str = "ct"
     power: bool = True
     strategy: str = "union"
+    seasonal: str = "automatic"
 
     def __post_init__(self) -> None:
         if self.lag_rule not in LAG_RULES:
@@ -82,6 +93,8 @@ class Settings:
             raise ValueError("break_model must be 'c', 't' or 'ct'")
         if self.strategy not in STRATEGIES:
             raise ValueError(f"strategy must be one of {', '.join(STRATEGIES)}, not {self.strategy!r}")
+        if self.seasonal not in SEASONAL_MODES:
+            raise ValueError(f"seasonal must be one of {', '.join(SEASONAL_MODES)}, not {self.seasonal!r}")
         unknown = [c for c in self.confirm if c not in CONFIRMATION_TESTS]
         if unknown:
             raise ValueError(f"unknown confirmation test(s): {', '.join(unknown)}")

@@ -75,6 +75,12 @@ REFERENCES = {
     "Econometrics 146(1), 162–169.",
     "sac2004": "Sansó, A., Aragó, V. & Carrion-i-Silvestre, J.L. (2004), “Testing for Changes in the "
     "Unconditional Variance of Financial Time Series”, Revista de Economía Financiera 4, 32–53.",
+    "dbm1986": "Dickey, D.A., Bell, W.R. & Miller, R.B. (1986), “Unit Roots in Time Series "
+    "Models: Tests and Implications”, The American Statistician 40(1), 12–26.",
+    "hegy1990": "Hylleberg, S., Engle, R.F., Granger, C.W.J. & Yoo, B.S. (1990), “Seasonal "
+    "Integration and Cointegration”, Journal of Econometrics 44(1–2), 215–238.",
+    "bm1993": "Beaulieu, J.J. & Miron, J.A. (1993), “Seasonal Unit Roots in Aggregate U.S. "
+    "Data”, Journal of Econometrics 55(1–2), 305–328.",
     "west1988": "West, K.D. (1988), “Asymptotic Normality, When Regressors Have a Unit Root”, "
     "Econometrica 56(6), 1397–1417.",
 }
@@ -300,6 +306,32 @@ def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
     ]
 
 
+def _seasonal_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
+    """Fixed seasonal means and seasonal unit roots, when quarterly or monthly series had them
+    tested (the ``seasonal`` setting not "never")."""
+    checked = [f.result.seasonal for f in run.findings if f.result.seasonal is not None]
+    if not checked:
+        return []
+    used = sum(1 for c in checked if c.means is not None and c.means.used)
+    cited.update({"dbm1986", "hegy1990", "bm1993"})
+    mode = getattr(run.settings, "seasonal", "automatic")
+    rule = ("allowed for in every quarterly and monthly series, as the settings asked"
+            if mode == "always" else
+            "allowed for where the F test of seasonal dummies in the Dickey-Fuller regression of "
+            "the first difference (with a constant, y(t−1) and lagged differences chosen by AIC) "
+            "rejected at 1%")
+    return [
+        f"Fixed seasonal means were {rule} ({used} of {len(checked)} series): each season's mean "
+        "was removed from every difference before the unit-root tests, which gives the tests the "
+        "limits they have with seasonal dummies in the regression (Dickey, Bell & Miller 1986); "
+        "the constants of the size-controlled decision were simulated with the same removal at "
+        "each series' length. Seasonal unit roots were tested with the HEGY test (Hylleberg, "
+        "Engle, Granger & Yoo 1990) for quarterly series and the Beaulieu-Miron test (Beaulieu & "
+        "Miron 1993) for monthly ones, with seasonal dummies, lagged seasonal differences chosen "
+        f"by AIC and critical values simulated at each series' length, at {a}."
+    ]
+
+
 def methods_for(run: RunRecord) -> Methods:
     """The methods paragraph and reference list for this run, read from its record: the
     settings, the source of critical values, and the tests that ran."""
@@ -334,6 +366,7 @@ def methods_for(run: RunRecord) -> Methods:
             "difference only while the unit root was rejected."
         )
     second = _lag_sentence(run, cited) + _critical_sentence(run, a)
-    paragraphs = [first, second, *_union_paragraph(run, a, cited), *_cross_checks(run, a, cited)]
+    paragraphs = [first, second, *_union_paragraph(run, a, cited), *_seasonal_paragraph(run, a, cited),
+                  *_cross_checks(run, a, cited)]
     paragraphs.append(CAUTION)
     return Methods(tuple(paragraphs), tuple(sorted(REFERENCES[key] for key in cited)))

@@ -16,7 +16,15 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from tauscope.engine import LAG_RULE_LABELS, LAG_RULES, STRATEGIES, STRATEGY_LABELS, Settings
+from tauscope.engine import (
+    LAG_RULE_LABELS,
+    LAG_RULES,
+    SEASONAL_LABELS,
+    SEASONAL_MODES,
+    STRATEGIES,
+    STRATEGY_LABELS,
+    Settings,
+)
 
 ALPHAS = ((0.01, "1%"), (0.05, "5%"), (0.10, "10%"))
 CRITICAL_SOURCES = (("mackinnon", "Published tables (MacKinnon 1996, 2010)"),
@@ -49,6 +57,10 @@ class SettingsDialog(QDialog):
         for name in STRATEGIES:
             self.strategy.addItem(STRATEGY_LABELS[name], name)
         self.strategy.setAccessibleName("How the verdict is decided")
+        self.seasonal = QComboBox(self)
+        for mode in SEASONAL_MODES:
+            self.seasonal.addItem(SEASONAL_LABELS[mode], mode)
+        self.seasonal.setAccessibleName("Allow for seasonal means")
         self.lag_rule = QComboBox(self)
         for rule in LAG_RULES:
             self.lag_rule.addItem(LAG_RULE_LABELS[rule], rule)
@@ -91,6 +103,10 @@ class SettingsDialog(QDialog):
         form.addRow("Significance &level", self.alpha)
         form.addRow("", _explain("How strong the evidence must be before a test rejects its null "
                                  "hypothesis; 5% is the usual choice."))
+        form.addRow("&Seasonal means", self.seasonal)
+        form.addRow("", _explain("Quarterly and monthly series: allow for each season's own average "
+                                 "in the tests (seasonal dummies), and test for seasonal unit roots. "
+                                 "Never: leave the seasons alone."))
         form.addRow("Lag &rule", self.lag_rule)
         form.addRow("", _explain("How the number of lagged differences in the ADF regression is "
                                  "chosen; too few lags distort τ, too many cost power."))
@@ -154,6 +170,7 @@ class SettingsDialog(QDialog):
             min(range(len(ALPHAS)), key=lambda i: abs(ALPHAS[i][0] - settings.alpha)))
         self.lag_rule.setCurrentIndex(LAG_RULES.index(settings.lag_rule))
         self.strategy.setCurrentIndex(STRATEGIES.index(settings.strategy))
+        self.seasonal.setCurrentIndex(SEASONAL_MODES.index(settings.seasonal))
         self.fixed_lags.setValue(settings.lags if settings.lags is not None else 4)
         self.max_lags.setValue(settings.max_lags if settings.max_lags is not None else AUTOMATIC)
         self.max_difference.setValue(settings.max_difference)
@@ -184,4 +201,5 @@ class SettingsDialog(QDialog):
             break_model=str(self.break_model.currentData()),
             power=self.power.isChecked(),
             strategy=str(self.strategy.currentData()),
+            seasonal=str(self.seasonal.currentData()),
         )

@@ -17,7 +17,7 @@ import tempfile
 from pathlib import Path
 
 WIDTH, HEIGHT = 1280, 800
-CHART_VIEWS = ("data", "fitted", "lags", "window", "null")  # the Chart panel's tabs, in order
+CHART_VIEWS = ("data", "fitted", "lags", "window", "null", "seasons")  # the Chart panel's tabs, in order
 
 
 def window_size(text: str) -> tuple[int, int]:

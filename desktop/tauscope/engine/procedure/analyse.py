@@ -23,6 +23,7 @@ from tauscope.engine.procedure.estimate import estimate
 from tauscope.engine.procedure.fast_path import NeedsReference, SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
 from tauscope.engine.procedure.read import read
+from tauscope.engine.procedure.seasonal_means import with_seasonal
 from tauscope.engine.procedure.stages import Decision, Estimation, Plan, plan_for
 from tauscope.engine.reference.estimation import REFERENCE
 from tauscope.engine.results import SeriesResult, failed_result
@@ -53,14 +54,15 @@ def analyse_series(values: Any, settings: Settings | None = None, name: str = "s
         raise ValueError(f"path must be one of {', '.join(PATHS)}, not {path!r}")
     plan = plan_for(settings or Settings())
     try:
-        prepared = prepare(values)
+        prepared = with_seasonal(prepare(values), plan.estimate.seasonal)
     except UntestableSeries as exc:
         return failed(name, plan, f"“{name}” could not be tested: {exc}.")
     except COMPUTATION_ERRORS as exc:
         return failed(name, plan, _computation_failed(name, exc))
     if path == "fast":
         return analyse_prepared(prepared, plan, name,
-                                SeriesBatch([prepared.standardised], plan.estimate).estimation(0))
+                                SeriesBatch([prepared.standardised], plan.estimate,
+                                            prepared.dummies_period).estimation(0))
     return analyse_prepared(prepared, plan, name, REFERENCE)
 
 

@@ -60,6 +60,7 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         evidence=reading.evidence,
         classic=reading.classic,
         breaks=checked.breaks,
+        seasonal=checked.seasonal,
     )
 
 

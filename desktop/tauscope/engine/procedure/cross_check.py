@@ -37,6 +37,7 @@ from tauscope.engine.distributions.simulate import (
 from tauscope.engine.distributions.tables import tau_critical_value
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.procedure.breaks import check_breaks, swing_request
+from tauscope.engine.procedure.seasonal_roots import seasonal_check
 from tauscope.engine.procedure.stages import (
     EXTRA_TESTS,
     CrossCheck,
@@ -89,13 +90,14 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     )
     extra = _in_units(extra, prepared.scale)
     spec, difference, max_lags = decision.profile_request
-    decisive_x = np.diff(x, n=difference) if difference else x
+    decisive_x = prepared.level(difference)
     profile = _with_alpha(estimation.lag_profile(decisive_x, spec, difference, max_lags),
                           decisive_x, spec, options.alpha)
     level_adf = estimates.levels[0].adf
     breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, options.alpha,
                           estimation.recursive)
-    return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks)
+    return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks,
+                      seasonal_check(prepared, options.alpha))
 
 
 def recursive_requests(decision: Decision) -> list[tuple[str, int, int]]:

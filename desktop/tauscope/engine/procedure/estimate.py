@@ -52,7 +52,7 @@ def estimate(prepared: PreparedSeries, options: EstimateOptions, estimation: Est
     max_lags: dict[int, int] = {}
     reduced: tuple[int, int] | None = None
     for d in range(options.max_difference, -1, -1):
-        xd = np.diff(x, n=d) if d else x
+        xd = prepared.level(d)  # Δ^d y, its fixed seasonal means removed when allowed for
         if np.ptp(xd) == 0:
             raise UntestableSeries(
                 f"its {'first' if d == 1 else 'second'} difference is constant, so the series is an exact "
@@ -65,7 +65,7 @@ def estimate(prepared: PreparedSeries, options: EstimateOptions, estimation: Est
         levels[d] = _judged(level_in_units(level, prepared.scale), options)
     union = None
     if options.union:
-        union = estimation.union(x, options)
+        union = estimation.union(x, options, prepared.dummies_period)
         if union.problem is not None:
             raise UntestableSeries(union.problem)
     return Estimates(prepared, levels, max_lags, reduced, union)

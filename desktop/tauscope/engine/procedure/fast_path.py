@@ -51,6 +51,7 @@ from tauscope.engine.results import (
     Regression,
     TestResult,
 )
+from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.unitroot import phi as joint
 from tauscope.engine.unitroot.kpss_fast import kpss_fast
 from tauscope.engine.unitroot.recursive import recursive_tau_many
@@ -304,7 +305,9 @@ class FastEstimation:
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
         return kpss_fast(x, spec, difference, alpha)
 
-    def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow:
+    def union(self, x: np.ndarray, options: EstimateOptions, period: int | None = None) -> UnionRow:
+        if period != self._batch.period:
+            raise NeedsReference
         return self._batch.union_row(self._index)
 
     def recursive(self, x: np.ndarray, spec: str, lags: int, difference: int,
@@ -316,8 +319,10 @@ class SeriesBatch:
     """Series of one length analysed together; each difference level is computed for
     the whole batch when a series first asks for it."""
 
-    def __init__(self, values: list[np.ndarray], options: EstimateOptions) -> None:
+    def __init__(self, values: list[np.ndarray], options: EstimateOptions,
+                 period: int | None = None) -> None:
         self._levels_in = np.vstack(values)
+        self.period = period  # S when every series' fixed seasonal means are removed first
         self._options = options
         self._levels: dict[tuple[int, int], LevelBatch] = {}
         self._profiles: dict[tuple[int, str, int, int], tuple[np.ndarray, np.ndarray]] = {}
@@ -334,6 +339,8 @@ class SeriesBatch:
         key = (difference, max_lags)
         if key not in self._levels:
             xs = np.diff(self._levels_in, n=difference, axis=1) if difference else self._levels_in
+            if self.period is not None:
+                xs = remove_seasonal_means(xs, self.period)
             self._levels[key] = level_batch(xs, difference, self._options, max_lags)
         return self._levels[key]
 
@@ -343,7 +350,8 @@ class SeriesBatch:
         if self._union is None:
             o = self._options
             self._union = union_rows(self._levels_in, o.lag_rule, o.alpha, o.max_difference,
-                                     o.max_lags, o.lags if o.lag_rule == "fixed" else None, o.bootstrap)
+                                     o.max_lags, o.lags if o.lag_rule == "fixed" else None, o.bootstrap,
+                                     self.period)
         return self._union[index]
 
     def prefetch_recursive(self, requests: list[tuple[int, str, int, int]], alpha: float) -> None:

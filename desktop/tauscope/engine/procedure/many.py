@@ -29,6 +29,7 @@ from tauscope.engine.procedure.analyse import (
 from tauscope.engine.procedure.cross_check import recursive_requests
 from tauscope.engine.procedure.fast_path import SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
+from tauscope.engine.procedure.seasonal_means import with_seasonal
 from tauscope.engine.procedure.stages import Decision, Plan, plan_for
 from tauscope.engine.reference.estimation import REFERENCE
 from tauscope.engine.results import SeriesResult
@@ -96,16 +97,16 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     prepared: list[PreparedSeries | None] = []
     for _, values in chunk:
         try:
-            prepared.append(prepare(values))
+            prepared.append(with_seasonal(prepare(values), plan.estimate.seasonal))
         except (UntestableSeries, *_PREPARE_ERRORS):
             prepared.append(None)  # analyse_series gives the message
-    by_length: dict[int, list[int]] = {}
+    by_length: dict[tuple[int, int | None], list[int]] = {}
     for position, item in enumerate(prepared):
         if item is not None:
-            by_length.setdefault(item.values.shape[0], []).append(position)
+            by_length.setdefault((item.values.shape[0], item.dummies_period), []).append(position)
     slots: dict[int, tuple[SeriesBatch, int]] = {}
-    for positions in by_length.values():
-        batch = SeriesBatch([_values(prepared[i]) for i in positions], plan.estimate)
+    for (_, period), positions in by_length.items():
+        batch = SeriesBatch([_values(prepared[i]) for i in positions], plan.estimate, period)
         for slot, position in enumerate(positions):
             slots[position] = (batch, slot)
 

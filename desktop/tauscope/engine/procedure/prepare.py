@@ -11,6 +11,8 @@ import pandas as pd
 
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.regression.scaling import power_of_two_scale, scaled
+from tauscope.engine.results_seasonal import SeasonalMeans
+from tauscope.engine.seasonal.means import remove_seasonal_means
 
 MIN_OBSERVATIONS = 12
 
@@ -23,6 +25,7 @@ class PreparedSeries:
     index: pd.Index | None
     leading_trimmed: int
     trailing_trimmed: int
+    seasonal: SeasonalMeans | None = None  # set by procedure/seasonal_means.py
 
     @cached_property
     def scale(self) -> float:
@@ -33,6 +36,19 @@ class PreparedSeries:
     def standardised(self) -> np.ndarray:
         """values / scale: exact, with changes of order 1, safe from overflow."""
         return scaled(self.values, self.scale)
+
+    @property
+    def dummies_period(self) -> int | None:
+        """S when the unit-root tests allow for fixed seasonal means, else None."""
+        return self.seasonal.period if self.seasonal is not None and self.seasonal.used else None
+
+    def level(self, difference: int) -> np.ndarray:
+        """Δ^d of the standardised series, with its fixed seasonal means removed when the
+        tests allow for them (:mod:`tauscope.engine.seasonal.means`, at each difference)."""
+        x = self.standardised
+        xd = np.diff(x, n=difference) if difference else x
+        period = self.dummies_period
+        return xd if period is None else np.asarray(remove_seasonal_means(xd, period))
 
     def label(self, position: int) -> str:
         """A readable name for observation ``position`` (0-based, after trimming)."""

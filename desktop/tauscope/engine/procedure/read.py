@@ -25,6 +25,7 @@ from tauscope.engine.reading.breaks import (
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
 from tauscope.engine.reading.grade import grade
 from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
+from tauscope.engine.reading.seasonal import seasonal_found, seasonal_notes
 from tauscope.engine.reading.strategies import (
     classic_sentence,
     disagreement_note,
@@ -81,13 +82,19 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
             agreement_note(order, kpss_status, checks, options.alpha, kpss_only=decision.strategy != "classic")
             or checked.kpss_problem, breaks),
         jump_at=_jump_label(prepared),
-        seasonal_lag=seasonal_pattern(prepared.standardised, prepared.periods_per_year),
+        seasonal_lag=None if checked.seasonal is not None
+        else seasonal_pattern(prepared.standardised, prepared.periods_per_year),
         level_sequence_tests=3,
         evidence_notes=evidence.notes + ((breaks.sentence,) if breaks is not None and breaks.sentence else ()),
         break_checked=evidence.break_info is not None or (breaks is not None and breaks.test is not None),
     )
     notes = build_notes(ctx)
-    return Reading(checked, verdict, evidence, (*notes[:1], *strategy_notes, *notes[1:]), classic)
+    seasonal = seasonal_notes(checked.seasonal)
+    if seasonal_found(checked.seasonal):  # right after the verdict: it may call for Δ_S y
+        ordered = (*notes[:1], *seasonal, *strategy_notes, *notes[1:])
+    else:  # nothing seasonal found: one line before the closing caution
+        ordered = (*notes[:1], *strategy_notes, *notes[1:-1], *seasonal, *notes[-1:])
+    return Reading(checked, verdict, evidence, ordered, classic)
 
 
 def _union_reading(checked: CrossCheck, evidence: Evidence,

@@ -43,6 +43,7 @@ from tauscope.engine.results import (
     Verdict,
 )
 from tauscope.engine.results_breaks import BreakCheck
+from tauscope.engine.results_seasonal import SeasonalCheck
 from tauscope.engine.results_strategy import ClassicVerdict
 from tauscope.engine.settings import UNION_STRATEGIES, Settings
 
@@ -61,6 +62,7 @@ class EstimateOptions:
     exact: bool  # judge τ and Φ against nulls simulated at their own size
     union: bool = False  # also compute the union of rejections (union_estimate.py)
     bootstrap: bool = False  # judge the union against its wild-bootstrap critical value
+    seasonal: str = "never"  # the seasonal setting (procedure/seasonal_means.py)
 
 
 @dataclass(frozen=True)
@@ -112,7 +114,7 @@ def plan_for(settings: Settings) -> Plan:
     return Plan(
         estimate=EstimateOptions(s.lag_rule, s.lags, s.max_lags, s.alpha, s.max_difference,
                                  s.critical_values == "exact", s.strategy in UNION_STRATEGIES,
-                                 s.strategy == "bootstrap"),
+                                 s.strategy == "bootstrap", s.seasonal),
         decide=DecideOptions(s.strategy, s.alpha, s.max_difference, s.lag_rule),
         cross_check=CrossCheckOptions(s.alpha, "kpss" in s.confirm,
                                       tuple(t for t in s.confirm if t in EXTRA_TESTS), s.lag_rule,
@@ -135,7 +137,7 @@ class Estimation(Protocol):
 
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult: ...
 
-    def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow: ...
+    def union(self, x: np.ndarray, options: EstimateOptions, period: int | None = None) -> UnionRow: ...
 
     def recursive(self, x: np.ndarray, spec: str, lags: int, difference: int,
                   alpha: float) -> RecursiveStatistic: ...
@@ -208,6 +210,7 @@ class CrossCheck:
     extra: ExtraEvidence
     lag_profile: tuple[LagPoint, ...]
     breaks: BreakCheck | None = None  # the break check (procedure/breaks.py)
+    seasonal: SeasonalCheck | None = None  # seasonal means and roots (procedure/seasonal_roots.py)
 
 
 @dataclass(frozen=True)

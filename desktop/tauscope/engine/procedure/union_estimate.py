@@ -29,6 +29,7 @@ from functools import lru_cache
 
 import numpy as np
 
+from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.unitroot.trend_robust import trend_critical_value
 from tauscope.engine.unitroot.union import (
     UNION_LAG_SCALE,
@@ -93,9 +94,9 @@ class UnionRow:
 
 
 @lru_cache(maxsize=256)
-def _constants(length: int | None, alpha: float) -> UnionConstants:
+def _constants(length: int | None, alpha: float, period: int | None = None) -> UnionConstants:
     """The union's constants at this length and level, kept for the next batch."""
-    return union_constants(length, alpha)
+    return union_constants(length, alpha, period=period)
 
 
 def _order(value: int) -> int | None:
@@ -103,27 +104,30 @@ def _order(value: int) -> int | None:
 
 
 def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
-               max_lags: int | None, fixed: int | None, bootstrap: bool = False) -> list[UnionRow]:
-    """One :class:`UnionRow` per row of ``xs`` (series of one length)."""
+               max_lags: int | None, fixed: int | None, bootstrap: bool = False,
+               period: int | None = None) -> list[UnionRow]:
+    """One :class:`UnionRow` per row of ``xs`` (series of one length); with ``period``,
+    every level's fixed seasonal means are removed first (seasonal dummies)."""
     xs = np.asarray(xs, dtype=float)
     with np.errstate(all="ignore"):
-        result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed)
-        at = {a: orders_from_rejections(rejections_at(result.levels, a), max_difference)
+        result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, period=period)
+        at = {a: orders_from_rejections(rejections_at(result.levels, a, period=period), max_difference)
               for a in OTHER_ALPHAS}
         long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
-                            lag_scale=LONG_LAG_SCALE, known=result).order
+                            lag_scale=LONG_LAG_SCALE, known=result, period=period).order
     boot: dict[int, BootstrapLevel] = {}
     order_all, labels, trend_z = result.order, result.deterministic, result.trend_z
     if bootstrap:
-        boot = _bootstrap(xs, result.levels, rule, max_lags, fixed)
+        boot = _bootstrap(xs, result.levels, rule, max_lags, fixed, period)
         decided = {a: orders_from_rejections(
             {d: _margin(result.levels[d].margin * result.levels[d].constants.kappa, boot[d], a) > 1.0
              for d in boot}, max_difference) for a in BOOT_ALPHAS}
         order_all = decided[_alpha_key(alpha)]
         at = {a: decided[_alpha_key(a)] for a in OTHER_ALPHAS}
         with np.errstate(all="ignore"):
-            labels, trend_z = deterministic_labels(xs, order_all, result.levels, rule, alpha, max_lags, fixed)
-    per_alpha = {d: {a: _constants(level.constants.length, a) for a in (0.01, 0.05, 0.10)}
+            labels, trend_z = deterministic_labels(xs, order_all, result.levels, rule, alpha, max_lags, fixed,
+                                                   period=period)
+    per_alpha = {d: {a: _constants(level.constants.length, a, period) for a in (0.01, 0.05, 0.10)}
                  for d, level in result.levels.items()}
     rows = []
     for i in range(xs.shape[0]):
@@ -174,12 +178,15 @@ def _margin(statistic: np.ndarray, level: BootstrapLevel, alpha: float) -> np.nd
 
 
 def _bootstrap(xs: np.ndarray, levels: dict[int, UnionLevel], rule: str, max_lags: int | None,
-               fixed: int | None) -> dict[int, BootstrapLevel]:
+               fixed: int | None, period: int | None = None) -> dict[int, BootstrapLevel]:
     """The wild bootstrap of the union on every difference level (each series alone)."""
     out = {}
     for d, level in levels.items():
         xd = np.diff(xs, n=d, axis=1) if d else xs
-        out[d] = bootstrap_level(xd, level, rule, _level_max_lags(xd.shape[1], rule, max_lags, fixed), fixed)
+        if period is not None:
+            xd = np.asarray(remove_seasonal_means(xd, period))
+        out[d] = bootstrap_level(xd, level, rule, _level_max_lags(xd.shape[1], rule, max_lags, fixed), fixed,
+                                 period=period)
     return out
 
 

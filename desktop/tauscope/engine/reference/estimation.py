@@ -62,12 +62,12 @@ class ReferenceEstimation:
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
         return kpss_test(x, spec, difference, alpha)
 
-    def union(self, x: np.ndarray, options: EstimateOptions) -> UnionRow:
+    def union(self, x: np.ndarray, options: EstimateOptions, period: int | None = None) -> UnionRow:
         """The union of rejections on this series alone (the same numbers as in a batch:
         every operation of :mod:`tauscope.engine.procedure.union_estimate` is row by row)."""
         o = options
         return union_rows(x[None, :], o.lag_rule, o.alpha, o.max_difference, o.max_lags,
-                          o.lags if o.lag_rule == "fixed" else None, o.bootstrap)[0]
+                          o.lags if o.lag_rule == "fixed" else None, o.bootstrap, period)[0]
 
     def recursive(self, x: np.ndarray, spec: str, lags: int, difference: int,
                   alpha: float) -> RecursiveStatistic:

@@ -29,6 +29,13 @@ The order of integration comes from the highest difference down (Dickey, D.A. &
 Pantula, S.G. 1987, JBES 5(4)): the union on Δ^d y for d = max, …, 0 while it rejects;
 the first non-rejection at d gives I(d + 1).  The deterministic label comes from the
 trend test of :mod:`tauscope.engine.unitroot.trend_robust`, valid under I(0) and I(1).
+
+Fixed seasonal means (``period`` S = 4 or 12): every level Δ^d y has its seasonal means
+removed first (OLS on [1, t, seasonal contrasts], :mod:`tauscope.engine.seasonal.means`),
+which gives each component its limit with seasonal dummies in the deterministic set: that
+without them (Dickey, Bell & Miller 1986).  The constants are then simulated directly at the
+series' own length with the same removal applied to the simulated walks (cached per length;
+the asymptotic ones are unchanged).
 """
 
 from __future__ import annotations
@@ -39,6 +46,7 @@ from functools import lru_cache
 import numpy as np
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED, shock_chunks
+from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.unitroot.dfgls_many import (
     VECTOR_RULES,
     choose_lags_detrended,
@@ -103,14 +111,17 @@ class UnionConstants:
 
 
 def union_null(length: int, reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
-               components: tuple[str, ...] = COMPONENTS["four"]) -> np.ndarray:
+               components: tuple[str, ...] = COMPONENTS["four"], period: int | None = None) -> np.ndarray:
     """(reps, components) statistics for driftless Gaussian random walks of ``length``
-    values, all components from the same path, without lag augmentation."""
+    values, all components from the same path, without lag augmentation; with ``period``,
+    each walk's fixed seasonal means are removed first."""
     if length < 10:
         raise ValueError("the union needs at least 10 values")
     parts = []
     for shocks in shock_chunks(length, reps, seed, width=2 * len(components)):
         paths = np.cumsum(shocks, axis=1)
+        if period is not None:
+            paths = remove_seasonal_means(paths, period)
         zeros = np.zeros(paths.shape[0], dtype=int)
         parts.append(np.column_stack([dfgls_tau_many(detrended(paths, c), zeros) for c in components]))
     return np.vstack(parts)
@@ -124,19 +135,21 @@ def constants_from_draws(draws: np.ndarray, alpha: float) -> tuple[tuple[float, 
 
 
 @lru_cache(maxsize=64)
-def _simulated(length: int, reps: int, seed: int, components: tuple[str, ...]) -> np.ndarray:
-    draws = union_null(length, reps, seed, components)
+def _simulated(length: int, reps: int, seed: int, components: tuple[str, ...],
+               period: int | None = None) -> np.ndarray:
+    draws = union_null(length, reps, seed, components, period)
     draws.setflags(write=False)
     return draws
 
 
 def union_constants(length: int | None, alpha: float = 0.05, components: str = "four",
                     reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
-                    source: str = "table") -> UnionConstants:
+                    source: str = "table", period: int | None = None) -> UnionConstants:
     """The constants at the series' own ``length``, or the asymptotic ones for
     ``length=None``.  ``source="table"``: interpolated from the pre-simulated table when it
     holds this length and α (and ``reps`` and ``seed`` are the defaults), else simulated;
-    ``"simulate"``: simulated at ``length`` with ``reps`` replications (cached)."""
+    ``"simulate"``: simulated at ``length`` with ``reps`` replications (cached).  With
+    ``period``, simulated with the seasonal means removed (the table holds none)."""
     names = COMPONENTS[components]
     if length is None:
         table = ASYMPTOTIC[components]
@@ -145,11 +158,11 @@ def union_constants(length: int | None, alpha: float = 0.05, components: str = "
             raise ValueError(f"no asymptotic union constants for alpha = {alpha}")
         cvs, kappa = table[key]
         return UnionConstants(alpha, names, cvs, kappa, None, ASYMPTOTIC_REPS)
-    if source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED:
+    if source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED and period is None:
         tabled = table_constants(int(length), alpha, components)
         if tabled is not None:
             return UnionConstants(alpha, names, tabled[0], tabled[1], int(length), tabled[2])
-    cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names), alpha)
+    cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names, period), alpha)
     return UnionConstants(alpha, names, cvs, kappa, int(length), reps)
 
 
@@ -185,8 +198,10 @@ def margins(tau: dict[str, np.ndarray], constants: UnionConstants) -> np.ndarray
 
 def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha: float,
                 fixed: int | None = None, critical: str = "finite",
-                components: str = "four", known: UnionLevel | None = None) -> UnionLevel:
-    """The union of rejections on every row of ``xs`` (already differenced ``difference`` times).
+                components: str = "four", known: UnionLevel | None = None,
+                period: int | None = None) -> UnionLevel:
+    """The union of rejections on every row of ``xs`` (already differenced ``difference`` times,
+    and with its seasonal means removed when ``period`` is given).
 
     ``known``: the union on the same rows of the same level with another lag maximum;
     its detrended series are reused, and so is a component's statistic on every row
@@ -204,7 +219,7 @@ def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha
                                         max_lags, fixed) for spec in ("constant", "trend")}
     tau = {c: _component_tau(rows_of(c), lags[c.split("-")[1]], known, c) for c in COMPONENTS[components]}
     constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components,
-                                source=_source(critical))
+                                source=_source(critical), period=period)
     margin = margins(tau, constants)
     return UnionLevel(difference, tau, lags, constants, margin, np.asarray(margin > 1.0), series)
 
@@ -247,7 +262,8 @@ def max_lags_schwert(length: int, max_lags: int | None = None, scale: float = 12
 def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_difference: int = 2,
                  max_lags: int | None = None, fixed: int | None = None,
                  critical: str = "finite", lag_scale: float = UNION_LAG_SCALE,
-                 components: str = "four", known: UnionOrders | None = None) -> UnionOrders:
+                 components: str = "four", known: UnionOrders | None = None,
+                 period: int | None = None) -> UnionOrders:
     """Order of integration of every row of ``xs`` by the union from the highest
     difference down (Dickey & Pantula 1987), and its deterministic label:
 
@@ -257,24 +273,28 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
 
     ``known``: the same call on the same rows with another ``lag_scale``, whose work is
     reused where it applies (:func:`union_level`).
+    With ``period`` (4 or 12), each level's fixed seasonal means are removed first.
     """
     xs = np.asarray(xs, dtype=float)
     levels: dict[int, UnionLevel] = {}
     for d in range(max_difference, -1, -1):
-        xd = np.diff(xs, n=d, axis=1) if d else xs
+        xd = _level(xs, d, period)
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
         levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components,
-                                None if known is None else known.levels.get(d))
+                                None if known is None else known.levels.get(d), period)
     order = orders_from_rejections({d: level.reject for d, level in levels.items()}, max_difference)
-    labels, z = deterministic_labels(xs, order, levels, rule, alpha, max_lags, fixed, critical, lag_scale)
+    labels, z = deterministic_labels(xs, order, levels, rule, alpha, max_lags, fixed, critical, lag_scale,
+                                     period)
     return UnionOrders(order, labels, z, levels)
 
 
 def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, UnionLevel], rule: str,
                          alpha: float, max_lags: int | None, fixed: int | None, critical: str = "finite",
-                         lag_scale: float = UNION_LAG_SCALE) -> tuple[tuple[str | None, ...], np.ndarray]:
+                         lag_scale: float = UNION_LAG_SCALE, period: int | None = None,
+                         ) -> tuple[tuple[str | None, ...], np.ndarray]:
     """The label of every row's ``order`` from the trend test (Harvey, Leybourne & Taylor
-    2007) on the levels (I(0), I(1)) or the first difference (I(2)), and its z_λ."""
+    2007) on the levels (I(0), I(1)) or the first difference (I(2)), and its z_λ
+    (``period``: the seasonal means removed first, as in :func:`union_orders`)."""
     rows = xs.shape[0]
     z = np.full(rows, np.nan)
     trend = np.zeros(rows, dtype=bool)
@@ -282,7 +302,7 @@ def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, Un
         chosen = order == o
         if not chosen.any() or d not in levels:
             continue
-        xd = np.diff(xs[chosen], axis=1) if d else xs[chosen]
+        xd = _level(xs[chosen], d, period)
         z[chosen] = trend_statistics(xd, levels[d].tau_trend[chosen])["z"]
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
         critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0), source=_source(critical))
@@ -298,6 +318,12 @@ def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, Un
     return tuple(labels), z
 
 
+def _level(xs: np.ndarray, d: int, period: int | None) -> np.ndarray:
+    """Δ^d of every row, its fixed seasonal means removed when ``period`` is given."""
+    xd = np.diff(xs, n=d, axis=1) if d else xs
+    return xd if period is None else np.asarray(remove_seasonal_means(xd, period))
+
+
 def orders_from_rejections(reject: dict[int, np.ndarray], max_difference: int) -> np.ndarray:
     """Dickey-Pantula from the decisions on each difference level: the first
     non-rejection from the top at d gives d + 1 (−1 when d is the highest level)."""
@@ -311,13 +337,14 @@ def orders_from_rejections(reject: dict[int, np.ndarray], max_difference: int) -
     return order
 
 
-def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "finite") -> dict[int, np.ndarray]:
+def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "finite",
+                  period: int | None = None) -> dict[int, np.ndarray]:
     """The union's decision on every level at another level ``alpha`` (same statistics)."""
     out = {}
     for d, level in levels.items():
         kind = next(k for k, v in COMPONENTS.items() if v == level.constants.components)
         c = union_constants(None if critical == "asymptotic" else level.constants.length, alpha, kind,
-                            source=_source(critical))
+                            source=_source(critical), period=period)
         out[d] = np.asarray(margins(level.tau, c) > 1.0)
     return out
 

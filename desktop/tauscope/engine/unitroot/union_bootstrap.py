@@ -43,6 +43,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.unitroot.union import UnionLevel, union_level
 
 BOOTSTRAP_REPS = 499  # (B + 1)·α is a whole number at 1%, 5% and 10%
@@ -114,9 +115,10 @@ def critical_index(reps: int, alpha: float) -> int:
 def bootstrap_level(xd: np.ndarray, level: UnionLevel, rule: str, max_lags: int,
                     fixed: int | None = None, reps: int = BOOTSTRAP_REPS,
                     seed: int = BOOTSTRAP_SEED, multipliers: str = "rademacher",
-                    recolour: bool = True) -> BootstrapLevel:
+                    recolour: bool = True, period: int | None = None) -> BootstrapLevel:
     """The bootstrap critical values and p-value of the union on every row of ``xd``
-    (the level ``level.difference`` of each series; ``level`` its union)."""
+    (the level ``level.difference`` of each series; ``level`` its union).  With ``period``,
+    ``xd`` has had its fixed seasonal means removed and so has every bootstrap series."""
     rows = xd.shape[0]
     c = level.constants
     critical = np.full((rows, len(ALPHAS)), np.nan)
@@ -126,8 +128,10 @@ def bootstrap_level(xd: np.ndarray, level: UnionLevel, rule: str, max_lags: int,
         lags = max(int(level.lags["constant"][i]), int(level.lags["trend"][i]))
         rng = np.random.default_rng(series_seed(xd[i], level.difference, seed))
         paths = bootstrap_series(xd[i], lags, reps, rng, multipliers, recolour)
+        if period is not None:
+            paths = np.asarray(remove_seasonal_means(paths, period))
         with np.errstate(all="ignore"):
-            boot = union_level(paths, level.difference, rule, max_lags, c.alpha, fixed)
+            boot = union_level(paths, level.difference, rule, max_lags, c.alpha, fixed, period=period)
             ratios = np.column_stack([boot.tau[name] / cv for name, cv in
                                       zip(c.components, c.critical_values, strict=True)])
             m_star = np.max(ratios, axis=1)

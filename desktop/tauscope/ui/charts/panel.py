@@ -1,7 +1,7 @@
 """The Chart panel (pyqtgraph): the data, and after analysis the fitted path, the
-statistic across lag orders, τ on an expanding window and the null distribution of
-the statistic, one tab per chart.  Each view can be saved as PNG or SVG from its
-context menu."""
+statistic across lag orders, τ on an expanding window, the null distribution of
+the statistic and the seasons of a quarterly or monthly series, one tab per chart.  Each
+view can be saved as PNG or SVG from its context menu."""
 
 from __future__ import annotations
 
@@ -19,6 +19,7 @@ from tauscope.ui.charts.fitted import FittedChart
 from tauscope.ui.charts.lags import LagsChart
 from tauscope.ui.charts.null import NullChart
 from tauscope.ui.charts.recursive import RecursiveChart
+from tauscope.ui.charts.seasons import SeasonsChart
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData
@@ -26,10 +27,10 @@ if TYPE_CHECKING:
 
 
 class ChartPanel(QWidget):
-    """Tabs: Data, Fitted path, Lag orders, Expanding window, Null distribution.  Only the
-    chart in front is drawn; the others when their tab is chosen."""
+    """Tabs: Data, Fitted path, Lag orders, Expanding window, Null distribution, Seasons.  Only
+    the chart in front is drawn; the others when their tab is chosen."""
 
-    DATA, FITTED, LAGS, RECURSIVE, NULL = range(5)
+    DATA, FITTED, LAGS, RECURSIVE, NULL, SEASONS = range(6)
 
     def __init__(self, parent: QWidget | None = None) -> None:
         super().__init__(parent)
@@ -41,6 +42,7 @@ class ChartPanel(QWidget):
         self.lags_page = LagsChart(self)
         self.recursive_page = RecursiveChart(self)
         self.null_page = NullChart(self)
+        self.seasons_page = SeasonsChart(self)
         for i, chart in enumerate(self.pages()):
             self.tabs.addTab(chart, chart.tab)
             self.tabs.setTabToolTip(i, chart.tip + "\nPress F1 for the guide's section on this chart.")
@@ -60,9 +62,14 @@ class ChartPanel(QWidget):
         self._apply_colors()
         self.show_nothing()
 
+    def _show_seasons_tab(self, result: SeriesResult | None) -> None:
+        """The Seasons tab only for a result with a seasonal part (quarterly or monthly), so
+        the other tabs keep the width the window's layout gives them."""
+        self.tabs.setTabVisible(self.SEASONS, result is not None and result.seasonal is not None)
+
     def pages(self) -> tuple[Chart, ...]:
         return (self.data_page, self.fitted_page, self.lags_page, self.recursive_page,
-                self.null_page)
+                self.null_page, self.seasons_page)
 
     # saving -------------------------------------------------------------
     def _ask_save_path(self, title: str, start: str, filters: str) -> str:
@@ -129,6 +136,7 @@ class ChartPanel(QWidget):
     # content ------------------------------------------------------------
     def show_nothing(self) -> None:
         self._series, self._result = None, None
+        self._show_seasons_tab(None)
         for page in self.pages():
             page.show_idle()
 
@@ -141,6 +149,7 @@ class ChartPanel(QWidget):
             and not self.data_page.stale
         self._stale_colors = False
         self._series, self._result = series, result
+        self._show_seasons_tab(result)
         if series is None and result is None:
             self.show_nothing()
             return
