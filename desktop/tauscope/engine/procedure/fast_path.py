@@ -13,7 +13,6 @@ reference's own.
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 from functools import lru_cache
 
@@ -23,7 +22,7 @@ from tauscope.engine.distributions import tables as fast_tables
 from tauscope.engine.procedure.stages import EstimateOptions
 from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS, column_names
-from tauscope.engine.regression.lagchoice import TSIG_CRITICAL, LagChoice
+from tauscope.engine.regression.lagchoice import LagChoice
 from tauscope.engine.regression.nested import (
     PHI_NAMES,
     PHI_SPEC,
@@ -36,6 +35,7 @@ from tauscope.engine.regression.nested import (
     criterion_values,
     detrended,
     full_design,
+    lag_choices,
     longest_sample,
     maic_values,
     profile_tau,
@@ -91,24 +91,6 @@ def _sanitise(a: np.ndarray, declined: np.ndarray) -> np.ndarray:
     return a
 
 
-def _choose(rule: str, fits: BlockFits, values: np.ndarray, p: int) -> list[LagChoice]:
-    """The reference's choice: the smallest criterion (ties to the shorter lag), or the
-    longest lag whose last coefficient has |t| ≥ 1.645 (Ng & Perron 1995)."""
-    batch = fits.rss.shape[0]
-    if rule in ("aic", "bic", "hqc", "maic"):
-        best = np.argmin(values, axis=1).tolist()
-        rows = values.tolist()
-        return [LagChoice(rule, int(best[b]), p, tuple(rows[b])) for b in range(batch)]
-    t = fits.last_t.tolist()
-    choices = []
-    for b in range(batch):
-        chosen = next((lag for lag in range(p, 0, -1) if abs(t[b][lag]) >= TSIG_CRITICAL), 0)
-        low = max(chosen, 1)
-        criteria = tuple(t[b][lag] if lag >= low else math.nan for lag in range(p + 1))
-        choices.append(LagChoice(rule, chosen, p, criteria))
-    return choices
-
-
 def level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, max_lags: int) -> LevelBatch:
     """Lag choice, ADF estimates and Φ restricted fits on Δ^d y for a batch (B, T_d)."""
     with np.errstate(all="ignore"):
@@ -160,7 +142,7 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
         else:
             values = fits.last_t[:, 1:]
         declined |= ~np.isfinite(values).all(axis=1)
-        choices[spec] = _choose(rule, fits, values, p)
+        choices[spec] = lag_choices(rule, fits, values, p)
 
     estimates: dict[str, Estimates] = {}
     for spec in SPECS:

@@ -47,6 +47,7 @@ from functools import lru_cache
 import numpy as np
 
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS
+from tauscope.engine.regression.lagchoice import TSIG_CRITICAL, LagChoice
 
 # Columns of the full design: 0 constant, 1 trend, 2 y(t−1), 3… Δy(t−1…p), then y.
 Y_LAG = 2
@@ -292,3 +293,21 @@ def column_share(a: np.ndarray, norms: np.ndarray) -> np.ndarray:
     diag = np.abs(np.diagonal(a[:, :width, :width], axis1=1, axis2=2))
     share = np.where(norms > 0, diag / np.where(norms > 0, norms, 1.0), 0.0)
     return np.asarray(share.min(axis=1))
+
+
+def lag_choices(rule: str, fits: BlockFits, values: np.ndarray, p: int) -> list[LagChoice]:
+    """The reference's choice: the smallest criterion (ties to the shorter lag), or the
+    longest lag whose last coefficient has |t| ≥ 1.645 (Ng & Perron 1995)."""
+    batch = fits.rss.shape[0]
+    if rule in ("aic", "bic", "hqc", "maic"):
+        best = np.argmin(values, axis=1).tolist()
+        rows = values.tolist()
+        return [LagChoice(rule, int(best[b]), p, tuple(rows[b])) for b in range(batch)]
+    t = fits.last_t.tolist()
+    choices = []
+    for b in range(batch):
+        chosen = next((lag for lag in range(p, 0, -1) if abs(t[b][lag]) >= TSIG_CRITICAL), 0)
+        low = max(chosen, 1)
+        criteria = tuple(t[b][lag] if lag >= low else math.nan for lag in range(p + 1))
+        choices.append(LagChoice(rule, chosen, p, criteria))
+    return choices
