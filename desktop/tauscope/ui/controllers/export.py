@@ -45,7 +45,8 @@ class ExportController(QObject):
         the web page and the PDF."""
         import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
         from tauscope.report import ExportError, export
-        from tauscope.ui.findings_export import render_charts, suffix_for_filter
+        from tauscope.ui.findings_export import suffix_for_filter
+        from tauscope.ui.report_charts import render_charts
 
         results = self.findings_panel.model.results()
         if not results:
