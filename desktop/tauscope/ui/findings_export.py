@@ -25,7 +25,6 @@ EXPORT_FILTERS = (
     ("CSV, one test per row", ".csv"),
     ("JSON", ".json"),
 )
-CHART_SUFFIXES = {".xlsx", ".html", ".pdf"}
 
 
 def export_filter() -> str:

@@ -1,95 +1,188 @@
-"""Each series' chart as PNG bytes for the reports, drawn offscreen by the chart views the
-window shows (``tauscope.ui.charts``)."""
+"""Each series' chart for the reports, drawn headless by the window's own chart views.
+
+One path for the window (File → Export findings) and ``tauscope batch --out``:
+:func:`draw_charts` draws, for every finding a report will hold, the Fitted path view of the
+Chart panel (``tauscope.ui.charts.fitted``; the Data view, ``charts.data``, when the verdict
+implies no deterministic path or the series could not be tested) on a page never shown on
+screen, at a fixed size (:data:`CHART_SIZE` layout units, the HTML report's chart width,
+drawn at :data:`CHART_SCALE` pixels per unit, so :data:`CHART_PIXELS` pixels) and in the
+light colours of paper (``ChartColors.paper``) whatever the window's palette, and returns
+the PNG bytes per series that ``tauscope.report.export`` puts into .xlsx, .html and .pdf.
+
+Without a running Qt application (the command line) an offscreen one is started
+(:mod:`tauscope.ui.headless`), so no display is needed.  A chart that fails to draw is left
+out with one sentence in :attr:`DrawnCharts.problems`; it never stops the other charts or the
+reports.
+"""
 
 from __future__ import annotations
 
-from collections.abc import Callable, Mapping
-from typing import TYPE_CHECKING, Any
+import sys
+import time
+from collections.abc import Callable
+from dataclasses import dataclass
+from typing import TYPE_CHECKING
 
-from PySide6.QtCore import QBuffer, QByteArray, QIODevice, QRect, QRectF, Qt
-from PySide6.QtGui import QPainter, QPalette, QPixmap
-from PySide6.QtWidgets import QApplication
-
-from tauscope.engine import SeriesResult
 from tauscope.report.html_export import CHART_WIDTH
+from tauscope.report.run import RunRecord
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData
-    from tauscope.ui.charts.panel import ChartPanel
+    from tauscope.engine import SeriesResult
+    from tauscope.ui.charts.base import Chart
 
 CHART_SIZE = (CHART_WIDTH, 300)  # laid out at the report's width, so its text is legible
 CHART_SCALE = 2  # pixels per layout unit: sharp on paper and on high-density screens
+CHART_PIXELS = (CHART_SIZE[0] * CHART_SCALE, CHART_SIZE[1] * CHART_SCALE)
+
+SeriesLookup = Callable[[str], "SeriesData | None"]
 
 
-def png_bytes(pixmap: object) -> bytes:
+@dataclass(frozen=True)
+class DrawnCharts:
+    """The charts of one report: PNG bytes per series (keyed by ``Finding.key``, else by
+    name: a ``tauscope.report.Charts`` mapping), the sentences on charts that could not be
+    drawn, and the seconds the drawing took."""
+
+    images: dict[str, bytes]
+    problems: tuple[str, ...]
+    seconds: float
+
+
+def png_bytes(image: object) -> bytes:
+    """A QImage or QPixmap as PNG bytes."""
+    from PySide6.QtCore import QBuffer, QByteArray, QIODevice
+
     data = QByteArray()
     buffer = QBuffer(data)
     buffer.open(QIODevice.OpenModeFlag.WriteOnly)
-    pixmap.save(buffer, "PNG")  # type: ignore[attr-defined]
+    image.save(buffer, "PNG")  # type: ignore[attr-defined]
     buffer.close()
     return bytes(data.data())
 
 
 class ChartRenderer:
-    """Draws series charts offscreen (a chart panel never shown on screen) for reports."""
+    """The Data and Fitted path views on pages never shown on screen, each at
+    :data:`CHART_SIZE`, in paper colours."""
 
     def __init__(self) -> None:
-        from tauscope.ui.charts.panel import ChartPanel
+        import pyqtgraph as pg
+        from PySide6.QtCore import Qt
 
-        self.panel: ChartPanel = ChartPanel()
-        self.panel.setAttribute(Qt.WidgetAttribute.WA_DontShowOnScreen, True)
-        self.panel.resize(*CHART_SIZE)
-        self.panel.show()
+        from tauscope.ui.charts.base import ChartColors
+        from tauscope.ui.charts.data import DataChart
+        from tauscope.ui.charts.fitted import FittedChart
+        from tauscope.ui.headless import ensure_application
+
+        ensure_application()
+        pg.setConfigOptions(antialias=True)  # as the Chart panel draws
+        self.data_page = DataChart()
+        self.fitted_page = FittedChart()
+        for page in (self.data_page, self.fitted_page):
+            page.setAttribute(Qt.WidgetAttribute.WA_DontShowOnScreen, True)
+            page.set_colors(ChartColors.paper())
+            page.resize(*CHART_SIZE)
+        _show_quietly((self.data_page, self.fitted_page))
+
+    def page_for(self, series: SeriesData | None, result: SeriesResult) -> Chart | None:
+        """The view a report shows for this result, or None when there is nothing to draw."""
+        if result.error is None and result.fitted is not None:
+            return self.fitted_page
+        if series is None and result.values is None:
+            return None
+        return self.data_page
 
     def render(self, series: SeriesData | None, result: SeriesResult) -> bytes | None:
-        """The fitted-path view (the data view when there is no fitted path) as PNG bytes."""
-        panel = self.panel
-        tab = 1 if result.error is None and result.fitted is not None else 0
-        if tab == 0 and series is None and result.values is None:
+        """The view as PNG bytes of :data:`CHART_PIXELS`, or None when there is nothing to draw."""
+        from PySide6.QtCore import QRect, QRectF
+        from PySide6.QtGui import QImage, QPainter
+        from PySide6.QtWidgets import QApplication
+
+        page = self.page_for(series, result)
+        if page is None:
             return None
-        panel.tabs.setCurrentIndex(tab)
-        panel.display(series, result)
-        page = panel.fitted_page if tab == 1 else panel.data_page
+        page.draw_for(series, result)
         if not page.has_plot():
             return None
-        QApplication.processEvents()
-        view: Any = page.layout_widget
-        size = view.size()
-        pixmap = QPixmap(size.width() * CHART_SCALE, size.height() * CHART_SCALE)
-        pixmap.fill(panel.palette().color(QPalette.ColorRole.Base))
-        painter = QPainter(pixmap)
-        painter.setRenderHint(QPainter.RenderHint.Antialiasing)
-        painter.setRenderHint(QPainter.RenderHint.TextAntialiasing)
-        # Legends ignore the view's scaling (they keep their size on screen while zooming),
-        # so they are scaled by hand for the drawing at twice the size.
-        legends = [p.legend for p in page._shown if p.legend is not None]
-        for legend in legends:
-            legend.setScale(CHART_SCALE)
-        QApplication.processEvents()
-        try:  # the scene drawn again at twice the size: lines and text stay sharp
-            view.render(painter, QRectF(0, 0, pixmap.width(), pixmap.height()),
-                        QRect(0, 0, size.width(), size.height()))
+        view = page.layout_widget
+        if (view.width(), view.height()) != CHART_SIZE:
+            view.resize(*CHART_SIZE)
+        QApplication.processEvents()  # lays the plots out at the page's size
+        image = QImage(*CHART_PIXELS, QImage.Format.Format_RGB32)
+        image.fill(page.colors.background)
+        painter = QPainter(image)
+        try:  # the scene drawn again at CHART_SCALE times its size: lines and text stay sharp
+            painter.setRenderHint(QPainter.RenderHint.Antialiasing)
+            painter.setRenderHint(QPainter.RenderHint.TextAntialiasing)
+            view.render(painter, QRectF(0, 0, *CHART_PIXELS), QRect(0, 0, *CHART_SIZE))
         finally:
-            for legend in legends:
-                legend.setScale(1.0)
             painter.end()
-        return png_bytes(pixmap)
+        return png_bytes(image)
 
     def close(self) -> None:
-        self.panel.close()
-        self.panel.deleteLater()
+        for page in (self.data_page, self.fitted_page):
+            page.close()
+            page.deleteLater()
 
 
-def render_charts(results: Mapping[str, SeriesResult],
-                  series_for_key: Callable[[str], SeriesData | None]) -> dict[str, bytes]:
-    """PNG bytes per series key for every finding that has something to draw."""
-    renderer = ChartRenderer()
-    charts: dict[str, bytes] = {}
+def _show_quietly(pages: tuple[Chart, ...]) -> None:
+    """Show the pages (off screen: they are laid out only once shown) without the offscreen
+    platform's warning that it cannot pass size hints on, which would be a stray line on the
+    command line's standard error; any other message from Qt still goes there."""
+    from PySide6.QtCore import QtMsgType, qInstallMessageHandler
+
+    def handler(_kind: QtMsgType, _context: object, message: str) -> None:
+        if "propagateSizeHints" not in message:
+            print(message, file=sys.stderr)
+
+    previous = qInstallMessageHandler(handler)
     try:
-        for key, result in results.items():
-            png = renderer.render(series_for_key(key), result)
+        for page in pages:
+            page.show()
+    finally:
+        qInstallMessageHandler(previous)
+
+
+def draw_charts(run: RunRecord, series_for_key: SeriesLookup | None = None) -> DrawnCharts:
+    """The chart of every finding the report of ``run`` holds (``run.current()``), as PNG
+    bytes keyed by ``Finding.key`` (by name when it has none).
+
+    ``series_for_key``: the series a finding was made from (for the Data view of a series
+    that could not be tested); without it, the values the result carries.  A chart that
+    fails to draw is left out with one sentence naming the series; the others are drawn.
+    """
+    start = time.perf_counter()
+    images: dict[str, bytes] = {}
+    problems: list[str] = []
+    findings = run.current().findings
+    if not findings:
+        return DrawnCharts(images, (), 0.0)
+    try:
+        renderer = ChartRenderer()
+    except Exception as exc:  # no chart at all, but the reports are still written
+        reason = f"{type(exc).__name__}: {exc}".replace("\n", " ")
+        return DrawnCharts(images, (f"the charts could not be drawn ({reason})",),
+                           time.perf_counter() - start)
+    try:
+        for finding in findings:
+            series = (series_for_key(finding.key) if series_for_key is not None
+                      and finding.key is not None else None)
+            try:
+                png = renderer.render(series, finding.result)
+            except Exception as exc:  # one bad series never stops the others
+                reason = f"{type(exc).__name__}: {exc}".replace("\n", " ")
+                problems.append(f"{finding.name}: its chart could not be drawn ({reason})")
+                continue
             if png:
-                charts[key] = png
+                images[finding.key if finding.key is not None else finding.name] = png
     finally:
         renderer.close()
-    return charts
+    return DrawnCharts(images, tuple(problems), time.perf_counter() - start)
+
+
+def problems_text(drawn: DrawnCharts) -> str:
+    """The problems as one line ("" when there are none): each chart left out, and that the
+    reports were written without it."""
+    if not drawn.problems:
+        return ""
+    return "; ".join(drawn.problems) + " (left out of the reports)"
