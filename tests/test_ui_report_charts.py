@@ -406,3 +406,19 @@ def test_window_and_batch_reports_carry_the_same_charts(  # type: ignore[no-unty
     assert window_html == html_charts(tmp_path / "batch.html")
     assert xlsx_charts(tmp_path / "window.xlsx") == xlsx_charts(tmp_path / "batch.xlsx")
     assert pdf_objects(tmp_path / "window.pdf") == pdf_objects(tmp_path / "batch.pdf")
+
+
+def test_a_series_name_with_markup_characters_is_drawn_as_written() -> None:
+    """pyqtgraph reads titles as rich text: "Real output & <prices>" lost "<prices>"."""
+    from tauscope.ui.report_charts import ChartRenderer
+
+    run = make_run()
+    finding = run.findings[0]
+    assert finding.name == "Real output & <prices>"
+    renderer = ChartRenderer()
+    try:
+        assert renderer.render(None, finding.result) is not None
+        title = renderer.fitted_page._shown[0].titleLabel.item.toPlainText()
+    finally:
+        renderer.close()
+    assert title == f"{finding.name}: {finding.result.verdict.label}"

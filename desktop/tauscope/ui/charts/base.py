@@ -64,7 +64,8 @@ class ChartPage(QStackedWidget):
         self.setCurrentWidget(self.message)
 
     def new_plot(self, row: int = 0, dates: bool = False, title: str = "") -> pg.PlotItem:
-        """An empty plot in this row, reused between drawings (making a PlotItem is slow)."""
+        """An empty plot in this row, reused between drawings (making a PlotItem is slow);
+        ``title`` is plain text."""
         key = (row, dates)
         plot = self._plots.get(key)
         if plot is None:
@@ -82,7 +83,8 @@ class ChartPage(QStackedWidget):
             plot.enableAutoRange()
             for side in ("left", "bottom"):
                 fresh_text_space(plot.getAxis(side))
-        plot.setTitle(title or None)
+        # pyqtgraph reads a title as rich text: a series named "Output <real>" keeps its name
+        plot.setTitle(html.escape(title, quote=False) if title else None)
         self._shown.append(plot)
         return plot
 
