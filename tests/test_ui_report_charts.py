@@ -422,3 +422,28 @@ def test_a_series_name_with_markup_characters_is_drawn_as_written() -> None:
     finally:
         renderer.close()
     assert title == f"{finding.name}: {finding.result.verdict.label}"
+
+
+def test_the_picture_is_taken_once_the_axes_have_the_room_their_labels_need() -> None:
+    """An axis measures its tick labels only while drawn: a page drawn for the first time
+    would lose labels wider than its starting room ("1000" on the I(2) series, which climbs
+    past 1,000).  Drawing the page again after its layout settles gives the same picture."""
+    from PySide6.QtWidgets import QApplication
+
+    from tauscope.ui.report_charts import ChartRenderer
+
+    run = make_run()
+    climbing = run.findings[2].result  # the I(2) series: no deterministic path, Data view
+    assert climbing.fitted is None and climbing.values is not None
+    assert float(climbing.values.max()) > 1000
+    renderer = ChartRenderer()
+    try:  # as in a report: the Fitted path charts of the series before it come first
+        for finding in run.findings[:2]:
+            renderer.render(None, finding.result)
+        first = renderer.render(None, climbing)
+        QApplication.processEvents()
+        again = renderer.picture(renderer.data_page)
+    finally:
+        renderer.close()
+    assert first is not None and png_size(first) == CHART_PIXELS
+    assert first == again

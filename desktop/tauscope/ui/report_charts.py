@@ -94,8 +94,6 @@ class ChartRenderer:
 
     def render(self, series: SeriesData | None, result: SeriesResult) -> bytes | None:
         """The view as PNG bytes of :data:`CHART_PIXELS`, or None when there is nothing to draw."""
-        from PySide6.QtCore import QRect, QRectF
-        from PySide6.QtGui import QImage, QPainter
         from PySide6.QtWidgets import QApplication
 
         page = self.page_for(series, result)
@@ -108,13 +106,23 @@ class ChartRenderer:
         if (view.width(), view.height()) != CHART_SIZE:
             view.resize(*CHART_SIZE)
         QApplication.processEvents()  # lays the plots out at the page's size
+        _settle_axes(page)
+        return self.picture(page)
+
+    @staticmethod
+    def picture(page: Chart) -> bytes:
+        """The page as drawn now, at :data:`CHART_SCALE` times its size, as PNG bytes."""
+        from PySide6.QtCore import QRect, QRectF
+        from PySide6.QtGui import QImage, QPainter
+
         image = QImage(*CHART_PIXELS, QImage.Format.Format_RGB32)
         image.fill(page.colors.background)
         painter = QPainter(image)
         try:  # the scene drawn again at CHART_SCALE times its size: lines and text stay sharp
             painter.setRenderHint(QPainter.RenderHint.Antialiasing)
             painter.setRenderHint(QPainter.RenderHint.TextAntialiasing)
-            view.render(painter, QRectF(0, 0, *CHART_PIXELS), QRect(0, 0, *CHART_SIZE))
+            page.layout_widget.render(painter, QRectF(0, 0, *CHART_PIXELS),
+                                      QRect(0, 0, *CHART_SIZE))
         finally:
             painter.end()
         return png_bytes(image)
@@ -123,6 +131,32 @@ class ChartRenderer:
         for page in (self.data_page, self.fitted_page):
             page.close()
             page.deleteLater()
+
+
+def _settle_axes(page: Chart, rounds: int = 3) -> None:
+    """Draw the page once at its own size (the picture is thrown away) until every axis has
+    the room its tick labels need.  An axis measures its labels only while it is drawn and
+    then asks for more room; a page never shown on screen is drawn first for the report,
+    where labels wider than the room an axis starts with ("1000") would be left out."""
+    from PySide6.QtCore import QRect, QRectF
+    from PySide6.QtGui import QImage, QPainter
+    from PySide6.QtWidgets import QApplication
+
+    def room() -> list[tuple[int, int]]:
+        return [(axis.textWidth, axis.textHeight) for plot in page._shown
+                for axis in (plot.getAxis("left"), plot.getAxis("bottom"))]
+
+    scratch = QImage(*CHART_SIZE, QImage.Format.Format_RGB32)
+    for _ in range(rounds):
+        before = room()
+        painter = QPainter(scratch)
+        try:
+            page.layout_widget.render(painter, QRectF(0, 0, *CHART_SIZE), QRect(0, 0, *CHART_SIZE))
+        finally:
+            painter.end()
+        QApplication.processEvents()
+        if room() == before:
+            return
 
 
 def _show_quietly(pages: tuple[Chart, ...]) -> None:
