@@ -184,8 +184,12 @@ def test_each_tested_series_gets_one_chart_of_the_fixed_size(
     with_values = [f for f in run.findings if f.result.values is not None]
     assert set(charts.images) == {f.key for f in with_values}
     assert len(with_values) == 3  # the series too short to test carries no values: no chart
+    from PySide6.QtGui import QImage
+
     for png in charts.images.values():
         assert png_size(png) == CHART_PIXELS
+        decoded = QImage.fromData(png, "PNG")  # Qt's reader (libpng): a valid PNG file
+        assert (decoded.width(), decoded.height()) == CHART_PIXELS
     assert len(set(charts.images.values())) == len(charts.images)  # each its own drawing
 
 
@@ -447,3 +451,19 @@ def test_the_picture_is_taken_once_the_axes_have_the_room_their_labels_need() ->
         renderer.close()
     assert first is not None and png_size(first) == CHART_PIXELS
     assert first == again
+
+
+def test_batch_draws_its_charts_without_a_display_or_a_platform_named(tmp_path: Path) -> None:
+    """A server without a screen: no DISPLAY, no WAYLAND_DISPLAY, no QT_QPA_PLATFORM."""
+    import os
+    import sys
+
+    source = _workbook(tmp_path)
+    env = {k: v for k, v in os.environ.items()
+           if k not in ("DISPLAY", "WAYLAND_DISPLAY", "QT_QPA_PLATFORM")}
+    done = subprocess.run([sys.executable, "-m", "tauscope", "batch", str(source), "--out",
+                           str(tmp_path / "f.html")], capture_output=True, text=True,
+                          timeout=300, check=False, env=env)
+    assert done.returncode == 0, done.stderr
+    assert "Traceback" not in done.stderr and "chart" not in done.stderr
+    assert len(html_charts(tmp_path / "f.html")) == 4

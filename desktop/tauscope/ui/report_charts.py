@@ -17,16 +17,22 @@ reports.
 
 from __future__ import annotations
 
+import struct
 import sys
 import time
+import zlib
 from collections.abc import Callable
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
+
+import numpy as np
 
 from tauscope.report.html_export import CHART_WIDTH
 from tauscope.report.run import RunRecord
 
 if TYPE_CHECKING:
+    from PySide6.QtGui import QImage
+
     from tauscope.data import SeriesData
     from tauscope.engine import SeriesResult
     from tauscope.ui.charts.base import Chart
@@ -34,6 +40,7 @@ if TYPE_CHECKING:
 CHART_SIZE = (CHART_WIDTH, 300)  # laid out at the report's width, so its text is legible
 CHART_SCALE = 2  # pixels per layout unit: sharp on paper and on high-density screens
 CHART_PIXELS = (CHART_SIZE[0] * CHART_SCALE, CHART_SIZE[1] * CHART_SCALE)
+PNG_LEVEL = 1  # zlib level: the fastest; level 6 makes files a fifth smaller at 2.5 times the time
 
 SeriesLookup = Callable[[str], "SeriesData | None"]
 
@@ -49,16 +56,28 @@ class DrawnCharts:
     seconds: float
 
 
-def png_bytes(image: object) -> bytes:
-    """A QImage or QPixmap as PNG bytes."""
-    from PySide6.QtCore import QBuffer, QByteArray, QIODevice
+def png_bytes(image: QImage, level: int = PNG_LEVEL) -> bytes:
+    """``image`` as a PNG file: 8-bit RGB, no filter, one zlib stream at ``level`` (W3C, PNG
+    Specification, 2nd ed.: §5.2 signature, §11.2.2 IHDR, §11.2.4 IDAT, §11.2.5 IEND, each
+    chunk closed by the CRC-32 of its type and data; §9.2 filter type 0 on every line).
 
-    data = QByteArray()
-    buffer = QBuffer(data)
-    buffer.open(QIODevice.OpenModeFlag.WriteOnly)
-    image.save(buffer, "PNG")  # type: ignore[attr-defined]
-    buffer.close()
-    return bytes(data.data())
+    Four to five times faster than Qt's own PNG writer here (about 8 against 40 ms for a
+    1240 × 600 chart) for files about a sixth larger; every pixel is kept."""
+    from PySide6.QtGui import QImage
+
+    rgb = image.convertToFormat(QImage.Format.Format_RGB888)
+    width, height = rgb.width(), rgb.height()
+    rows = np.frombuffer(rgb.constBits(), np.uint8, count=rgb.sizeInBytes())
+    lines = np.zeros((height, 1 + 3 * width), np.uint8)  # a filter byte (0) before each line
+    lines[:, 1:] = rows.reshape(height, rgb.bytesPerLine())[:, :3 * width]
+
+    def chunk(kind: bytes, data: bytes) -> bytes:
+        return (struct.pack(">I", len(data)) + kind + data
+                + struct.pack(">I", zlib.crc32(kind + data)))
+
+    header = struct.pack(">IIBBBBB", width, height, 8, 2, 0, 0, 0)  # 8 bits, RGB, no interlace
+    return (b"\x89PNG\r\n\x1a\n" + chunk(b"IHDR", header)
+            + chunk(b"IDAT", zlib.compress(lines.tobytes(), level)) + chunk(b"IEND", b""))
 
 
 class ChartRenderer:
@@ -82,6 +101,9 @@ class ChartRenderer:
             page.setAttribute(Qt.WidgetAttribute.WA_DontShowOnScreen, True)
             page.set_colors(ChartColors.paper())
             page.resize(*CHART_SIZE)
+            # Never painted as a widget (the pictures are drawn by render()): painting a page
+            # nobody sees took a fifth of the time.
+            page.layout_widget.viewport().setUpdatesEnabled(False)
         _show_quietly((self.data_page, self.fitted_page))
 
     def page_for(self, series: SeriesData | None, result: SeriesResult) -> Chart | None:
@@ -133,29 +155,38 @@ class ChartRenderer:
             page.deleteLater()
 
 
-def _settle_axes(page: Chart, rounds: int = 3) -> None:
-    """Draw the page once at its own size (the picture is thrown away) until every axis has
-    the room its tick labels need.  An axis measures its labels only while it is drawn and
-    then asks for more room; a page never shown on screen is drawn first for the report,
-    where labels wider than the room an axis starts with ("1000") would be left out."""
-    from PySide6.QtCore import QRect, QRectF
+def _settle_axes(page: Chart, rounds: int = 6) -> None:
+    """Let every axis measure its tick labels and take the room they need before the picture
+    is taken.  An axis measures its labels only while it is drawn and then asks for more
+    room; a page never drawn on screen would be pictured with labels wider than the room an
+    axis starts with ("1000") left out.  The plots take their data's range (pyqtgraph does
+    that only when the scene is about to be drawn), each axis works out its labels on a
+    scratch painter
+    (pyqtgraph's ``generateDrawSpecs``, what its own drawing does first), the layouts follow
+    (one level per pass of the event queue), and again until neither the room asked for nor
+    the axes' place changes."""
     from PySide6.QtGui import QImage, QPainter
     from PySide6.QtWidgets import QApplication
 
-    def room() -> list[tuple[int, int]]:
-        return [(axis.textWidth, axis.textHeight) for plot in page._shown
-                for axis in (plot.getAxis("left"), plot.getAxis("bottom"))]
+    axes = [plot.getAxis(side) for plot in page._shown for side in ("left", "bottom")]
 
-    scratch = QImage(*CHART_SIZE, QImage.Format.Format_RGB32)
+    def state() -> list[tuple[float, ...]]:
+        return [(axis.textWidth, axis.textHeight, *axis.geometry().getRect()) for axis in axes]
+
+    scratch = QImage(8, 8, QImage.Format.Format_RGB32)
+    scene = page.layout_widget.scene()
     for _ in range(rounds):
-        before = room()
+        before = state()
+        scene.prepareForPaint()  # what a drawing does first: the plots take their data's range
         painter = QPainter(scratch)
         try:
-            page.layout_widget.render(painter, QRectF(0, 0, *CHART_SIZE), QRect(0, 0, *CHART_SIZE))
+            for axis in axes:
+                axis.generateDrawSpecs(painter)
         finally:
             painter.end()
+        QApplication.sendPostedEvents()
         QApplication.processEvents()
-        if room() == before:
+        if state() == before:
             return
 
 
