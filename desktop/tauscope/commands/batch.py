@@ -6,7 +6,10 @@ sample asked for (``--sample START:END``), handles gaps by the window's rule (``
 not tested and says how to go on; ``longest`` tests its longest stretch without gaps,
 ``fill`` fills the gaps by straight lines; the notes say which), applies one
 transformation to each, runs the engine on every series and writes the findings
-(``--out``, format by suffix) or prints a table.  The reader's notes (rows skipped, sheets
+(``--out``, format by suffix) or prints a table.  The .xlsx, .html and .pdf reports hold
+each series' chart, drawn as the window draws it on Qt's offscreen platform, so no display
+is needed (``--no-charts`` leaves them out); a chart that cannot be drawn is left out with a
+note on standard error.  The reader's notes (rows skipped, sheets
 empty, dates guessed) go to standard error on one line.
 
 ``--out`` never writes over an input file, nor over an existing file that is not one of
@@ -21,9 +24,10 @@ from __future__ import annotations
 
 import argparse
 import dataclasses
+import os
 import re
 import sys
-from collections.abc import Sequence
+from collections.abc import Mapping, Sequence
 from pathlib import Path
 from typing import NoReturn, TextIO
 
@@ -41,7 +45,9 @@ from tauscope.engine import (
 from tauscope.engine.reading.words import cross_check_word
 from tauscope.engine.results import failed_result
 from tauscope.report import (
+    CHART_FORMATS,
     WRITERS,
+    Charts,
     ExportError,
     Finding,
     RunRecord,
@@ -114,6 +120,9 @@ def _parser() -> _Parser:
                              "1990: or :2007-12 (observation numbers for series without dates)")
     parser.add_argument("--out", action="append", default=[], metavar="FILE",
                         help="write the findings here; the format follows the suffix (repeatable)")
+    parser.add_argument("--no-charts", action="store_true",
+                        help="leave the charts out of .xlsx, .html and .pdf reports (faster; "
+                             "by default each series' chart is drawn, as in the window)")
     parser.add_argument("--replace", action="store_true",
                         help="allow --out to write over an existing file that is not a "
                              "Tauscope report (an input file is never written over)")
@@ -160,19 +169,40 @@ def main(argv: list[str]) -> int:
     notes = reader_notes(workbook, args.sheet, chosen)
     plan = Plan(None if args.transform == "none" else args.transform, args.gaps,
                 args.sample or (None, None))
-    findings = analyse_all(chosen, settings, plan)
+    analysed = analyse_with_series(chosen, settings, plan)
+    findings = [finding for finding, _series in analysed]
     run = RunRecord(settings, (SourceFile(str(workbook.path), workbook.sha256),), tuple(findings))
     if not args.out:
         print(summary_table(findings))
+    charts: Charts | None = None
+    if not args.no_charts and any(Path(t).suffix.lower() in CHART_FORMATS for t in args.out):
+        charts, chart_notes = draw_report_charts(
+            run, {f.key: series for f, series in analysed if f.key is not None})
+        notes = "; ".join(n for n in (notes, chart_notes) if n)
     for target in args.out:
         try:
-            export(target, run)
+            export(target, run, charts)
         except ExportError as exc:
             print(f"tauscope batch: {exc}", file=sys.stderr)
             return EXIT_OUTPUT
     if notes:  # after the writes, so that standard error holds one line in every case
         print(f"tauscope batch: {workbook.path.name}: {notes}", file=sys.stderr)
     return EXIT_DONE
+
+
+def draw_report_charts(run: RunRecord, series: Mapping[str, SeriesData]) -> tuple[Charts, str]:
+    """Each finding's chart, drawn as the window draws it (``tauscope.ui.report_charts``) on
+    Qt's offscreen platform (no display needed), and one sentence on any chart that could not
+    be drawn ("" when all were): such a chart is left out, the reports are still written."""
+    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    try:
+        from tauscope.ui.report_charts import draw_charts, problems_text
+
+        drawn = draw_charts(run, series.get)
+    except Exception as exc:  # Qt missing or broken: reports without charts, never a traceback
+        reason = f"{type(exc).__name__}: {exc}".replace("\n", " ")
+        return {}, f"the charts could not be drawn ({reason}); the reports hold none"
+    return drawn.images, problems_text(drawn)
 
 
 def _settings(args: argparse.Namespace) -> Settings:
@@ -283,6 +313,14 @@ def analyse_all(chosen: Sequence[SeriesData], settings: Settings, plan: Plan | s
     """Prepare every series, then run the engine on all of them at once (``analyse_many``
     batches series of equal length); results keep the input order.  Progress lines go to
     ``progress`` when given, else to standard error when it is a terminal."""
+    return [finding for finding, _series in analyse_with_series(chosen, settings, plan, progress)]
+
+
+def analyse_with_series(chosen: Sequence[SeriesData], settings: Settings,
+                        plan: Plan | str | None = None, progress: TextIO | None = None
+                        ) -> list[tuple[Finding, SeriesData]]:
+    """:func:`analyse_all`, each finding with the series it was made from (sample cut, gap
+    rule and transformation applied), which its chart draws."""
     stream = progress or sys.stderr
     show = progress is not None or stream.isatty()
     prepared = [prepare_one(series, plan) for series in chosen]
@@ -293,7 +331,7 @@ def analyse_all(chosen: Sequence[SeriesData], settings: Settings, plan: Plan | s
             print(f"[{done}/{total}] {name}", file=stream, flush=True)
 
     results = iter(analyse_many([(p.name, p.values) for p in testable], settings, progress=report))
-    findings = []
+    analysed: list[tuple[Finding, SeriesData]] = []
     for item in prepared:
         if item.problem is not None:
             result = _failed(item.name, settings, item.problem)
@@ -301,8 +339,8 @@ def analyse_all(chosen: Sequence[SeriesData], settings: Settings, plan: Plan | s
             result = next(results)
             if item.notes:
                 result = dataclasses.replace(result, notes=(*item.notes, *result.notes))
-        findings.append(Finding.from_series(result, item.series))
-    return findings
+        analysed.append((Finding.from_series(result, item.series), item.series))
+    return analysed
 
 
 def _difference_label(d: int) -> str:

@@ -14,7 +14,7 @@ from pathlib import Path
 
 from tauscope.report.json_export import run_to_json, write_json
 from tauscope.report.ownership import is_own_report, same_file
-from tauscope.report.run import Charts, Finding, LeftOut, RunRecord, SourceFile
+from tauscope.report.run import CHART_FORMATS, Charts, Finding, LeftOut, RunRecord, SourceFile
 
 Writer = Callable[[Path, RunRecord, Charts | None], None]
 
@@ -88,6 +88,7 @@ def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> Ru
 
 
 __all__ = [
+    "CHART_FORMATS",
     "WRITERS",
     "Charts",
     "ExportError",

@@ -14,6 +14,9 @@ from tauscope.engine import SeriesResult, Settings
 Charts = Mapping[str, bytes]
 """PNG bytes per series, keyed by ``Finding.key`` or by series name."""
 
+CHART_FORMATS = frozenset({".xlsx", ".html", ".pdf"})
+"""The formats that hold a chart per series (the others are tables and text)."""
+
 
 @dataclass(frozen=True)
 class SourceFile:

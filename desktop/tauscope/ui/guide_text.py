@@ -52,9 +52,12 @@ all), press <b>F5</b>, and the verdicts arrive one series at a time in the <b>Fi
 <b>Chart</b> panel and its plain-language note in the <b>Reading</b> panel. <b>Ctrl+C</b> copies
 the selected findings as a table that pastes into a spreadsheet or a word processor;
 <b>File → Export findings</b> (<b>Ctrl+E</b>) writes them all to Excel, CSV, JSON, LaTeX, a web page
-or PDF. <b>File → Save study</b> (<b>Ctrl+S</b>) keeps the workbooks, series, settings and findings
-in a <code>.tauscope</code> file; opening it later reads the workbooks again, tells you if one
-changed or moved, and analyses the series again to the same numbers.</p>
+or PDF; Excel, the web page and the PDF hold each series' <b>Fitted path</b> chart (its
+<b>Data</b> chart when there is no path to draw), in light colours for paper, the same charts the
+command line's <code>tauscope batch</code> puts in. <b>File → Save study</b> (<b>Ctrl+S</b>)
+keeps the workbooks, series, settings and findings in a <code>.tauscope</code> file; opening it
+later reads the workbooks again, tells you if one changed or moved, and analyses the series again
+to the same numbers.</p>
 <p>Right-click a series to add a transformed copy: natural log, first difference, growth in %
 (log difference × 100) or seasonal difference. The copy appears under the series it came from.</p>""",
     "sequence": """

@@ -13,7 +13,7 @@ registers the ``.pdf`` writer with :func:`tauscope.report.register_writer`, so
 ``tauscope.report.export`` (window and ``tauscope batch``) writes PDF too.
 PySide6 is imported inside the functions: importing the module does not load Qt.
 Without a running Qt application (the command line), an offscreen one is
-started for the fonts and images.
+started for the fonts and images (:mod:`tauscope.ui.headless`).
 """
 
 from __future__ import annotations
@@ -45,17 +45,6 @@ if TYPE_CHECKING:
 
 PAGE_MARGIN_MM = 18.0
 RESOLUTION_DPI = 300
-_APP: list[Any] = []  # keeps an application started here alive
-
-
-def _ensure_application() -> None:
-    from PySide6.QtCore import QCoreApplication
-    from PySide6.QtWidgets import QApplication
-
-    # A widgets application (not just a GUI one), so that a window opened later in the
-    # same process can still use it.
-    if QCoreApplication.instance() is None:
-        _APP.append(QApplication(["tauscope", "-platform", "offscreen"]))
 
 
 class _Styles:
@@ -174,7 +163,9 @@ def _heading2(flow: Flow, styles: _Styles, text: str) -> None:
 
 def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
     """The report on A4 pages, as PDF bytes."""
-    _ensure_application()
+    from tauscope.ui.headless import ensure_application
+
+    ensure_application()
     from PySide6.QtCore import QBuffer, QByteArray, QIODevice, QMarginsF
     from PySide6.QtGui import QPageLayout, QPageSize, QPainter, QPdfWriter
 

@@ -64,7 +64,8 @@ class ChartPage(QStackedWidget):
         self.setCurrentWidget(self.message)
 
     def new_plot(self, row: int = 0, dates: bool = False, title: str = "") -> pg.PlotItem:
-        """An empty plot in this row, reused between drawings (making a PlotItem is slow)."""
+        """An empty plot in this row, reused between drawings (making a PlotItem is slow);
+        ``title`` is plain text."""
         key = (row, dates)
         plot = self._plots.get(key)
         if plot is None:
@@ -80,7 +81,10 @@ class ChartPage(QStackedWidget):
             plot.clear()
             plot.setXLink(None)
             plot.enableAutoRange()
-        plot.setTitle(title or None)
+            for side in ("left", "bottom"):
+                fresh_text_space(plot.getAxis(side))
+        # pyqtgraph reads a title as rich text: a series named "Output <real>" keeps its name
+        plot.setTitle(html.escape(title, quote=False) if title else None)
         self._shown.append(plot)
         return plot
 
@@ -165,6 +169,13 @@ class ChartColors:
                    line=QColor("#7fb2ff") if dark else QColor("#1f4e99"),
                    accent=QColor("#ffb347") if dark else QColor("#b35900"))
 
+    @classmethod
+    def paper(cls) -> ChartColors:
+        """The light colours of the reports' charts, whatever the window's palette: a report
+        is read on white paper or a white page."""
+        return cls(background=QColor("#ffffff"), text=QColor("#1a1a1a"),
+                   line=QColor("#1f4e99"), accent=QColor("#b35900"))
+
     def legend_fill(self) -> QColor:
         fill = QColor(self.background)
         fill.setAlpha(215)
@@ -220,6 +231,20 @@ class Chart(ChartPage):
         title = plot.titleLabel.text
         if title:  # the colour applies when the text is set again
             plot.titleLabel.setText(title, color=fg.name())
+
+
+def fresh_text_space(axis: pg.AxisItem) -> None:
+    """The room for tick labels a new axis starts with (30 × 18 pixels, pyqtgraph's own start).
+
+    An axis keeps the room of the widest labels it has drawn unless the new ones are more than
+    10 pixels narrower, so a reused plot would draw a series differently after another one;
+    starting afresh makes each drawing depend on its own series only (the reports' charts are
+    the same whatever was drawn before)."""
+    axis.textWidth, axis.textHeight = 30, 18
+    if axis.orientation in ("left", "right"):
+        axis._updateWidth()
+    else:
+        axis._updateHeight()
 
 
 def plain_numbers(axis: pg.AxisItem) -> None:

@@ -1,6 +1,7 @@
 """Export: the findings on screen written through ``tauscope.report.export`` (the writers
-``tauscope batch`` uses), with each series' chart in Excel, the web page and the PDF; and
-copied to the clipboard as a table."""
+``tauscope batch`` uses), with each series' chart in Excel, the web page and the PDF (drawn by
+:func:`tauscope.ui.report_charts.draw_charts`, as batch draws them); and copied to the
+clipboard as a table."""
 
 from __future__ import annotations
 
@@ -10,9 +11,10 @@ from typing import TYPE_CHECKING
 from PySide6.QtCore import QObject
 from PySide6.QtWidgets import QApplication, QLabel, QLineEdit, QTextBrowser
 
+from tauscope.report import CHART_FORMATS
 from tauscope.ui.controllers.prompts import Prompts
 from tauscope.ui.controllers.session import Session
-from tauscope.ui.findings_export import CHART_SUFFIXES, EXPORT_FILTERS, build_run, export_filter
+from tauscope.ui.findings_export import EXPORT_FILTERS, build_run, export_filter
 from tauscope.ui.findings_panel import FindingsPanel
 from tauscope.ui.series_panel import SeriesPanel
 
@@ -45,7 +47,8 @@ class ExportController(QObject):
         the web page and the PDF."""
         import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
         from tauscope.report import ExportError, export
-        from tauscope.ui.findings_export import render_charts, suffix_for_filter
+        from tauscope.ui.findings_export import suffix_for_filter
+        from tauscope.ui.report_charts import draw_charts, problems_text
 
         results = self.findings_panel.model.results()
         if not results:
@@ -63,15 +66,18 @@ class ExportController(QObject):
         if path.suffix.lower() not in known:
             path = path.with_name(path.name + suffix_for_filter(""))
         run = self.findings_record()
-        charts = (render_charts(results, self.series_panel.model.series_for_key)
-                  if path.suffix.lower() in CHART_SUFFIXES else None)
+        charts, problems = None, ""
+        if path.suffix.lower() in CHART_FORMATS:  # the same drawing as tauscope batch's
+            drawn = draw_charts(run, self.series_panel.model.series_for_key)
+            charts, problems = drawn.images, problems_text(drawn)
         try:
             written = export(path, run, charts)
         except ExportError as exc:
             self.prompts.tell(str(exc), title="The findings were not exported")
             return False
         self.status.setText(f"Exported {_count(len(written.findings))} to {path.name}."
-                            + _left_out_text(len(written.left_out)))
+                            + _left_out_text(len(written.left_out))
+                            + (f" Not drawn: {problems}." if problems else ""))
         return True
 
     def copy(self) -> None:

@@ -1,0 +1,469 @@
+"""Charts in every report: drawn headless by the window's chart views (``ui/report_charts``),
+read back from the .xlsx (openpyxl), the .html (html.parser, data: URIs decoded) and the .pdf
+(its page and image objects), written by the window and by ``tauscope batch`` alike.
+
+PNG sizes are read from the IHDR chunk, the first chunk of every PNG, width and height as
+4-byte big-endian integers (W3C, PNG Specification, 2nd ed., §11.2.2).  PDF pages and images
+are read from the file's objects: a page object has ``/Type /Page`` (ISO 32000-1:2008, §7.7.3.3)
+and an image XObject ``/Subtype /Image`` with ``/Width`` and ``/Height`` (§8.9.5); Qt's PDF
+writer keeps every object in plain view (no object streams, which the test checks), and
+poppler's pdfinfo and pdfimages check the same counts where they are installed (CI)."""
+
+from __future__ import annotations
+
+import base64
+import posixpath
+import re
+import shutil
+import struct
+import subprocess
+import unicodedata
+import xml.etree.ElementTree as ElementTree
+import zipfile
+from html.parser import HTMLParser
+from pathlib import Path
+
+import numpy as np
+import openpyxl
+import pytest
+
+pytest.importorskip("pytestqt")
+
+from conftest import simulated_series, write_workbook
+from tauscope.commands.batch import main
+from tauscope.report import RunRecord, export
+from tauscope.ui.report_charts import CHART_PIXELS, DrawnCharts, draw_charts
+from test_report_record import _check_methods
+from test_report_support import make_run
+
+PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"
+
+
+def png_size(png: bytes) -> tuple[int, int]:
+    """Width and height from the IHDR chunk (PNG Specification §11.2.2)."""
+    assert png[:8] == PNG_SIGNATURE and png[12:16] == b"IHDR"
+    width, height = struct.unpack(">II", png[16:24])
+    return int(width), int(height)
+
+
+class _Images(HTMLParser):
+    """Every <img> with the <h3> heading (the series) it comes under."""
+
+    def __init__(self) -> None:
+        super().__init__()
+        self.images: list[tuple[str, dict[str, str | None]]] = []
+        self._heading = ""
+        self._in_h3: list[str] | None = None
+
+    def handle_starttag(self, tag: str, attrs: list[tuple[str, str | None]]) -> None:
+        if tag == "h3":
+            self._in_h3 = []
+        elif tag == "img":
+            self.images.append((self._heading, dict(attrs)))
+
+    def handle_endtag(self, tag: str) -> None:
+        if tag == "h3" and self._in_h3 is not None:
+            self._heading = "".join(self._in_h3)
+            self._in_h3 = None
+
+    def handle_data(self, data: str) -> None:
+        if self._in_h3 is not None:
+            self._in_h3.append(data)
+
+
+def html_charts(path: Path) -> list[tuple[str, bytes]]:
+    """(heading, decoded PNG) for every image of the page; each must be a PNG data: URI."""
+    reader = _Images()
+    reader.feed(path.read_text(encoding="utf-8"))
+    out = []
+    for heading, attrs in reader.images:
+        src = attrs.get("src") or ""
+        assert src.startswith("data:image/png;base64,"), src[:40]
+        png = base64.b64decode(src.split(",", 1)[1], validate=True)
+        assert attrs.get("alt") == f"Chart of {heading.split('. ', 1)[1]}"
+        out.append((heading, png))
+    return out
+
+
+XLSX_NS = {
+    "main": "http://schemas.openxmlformats.org/spreadsheetml/2006/main",
+    "r": "http://schemas.openxmlformats.org/officeDocument/2006/relationships",
+    "rel": "http://schemas.openxmlformats.org/package/2006/relationships",
+    "xdr": "http://schemas.openxmlformats.org/drawingml/2006/spreadsheetDrawing",
+    "a": "http://schemas.openxmlformats.org/drawingml/2006/main",
+}
+
+
+def _part(book: zipfile.ZipFile, base: str, target: str) -> str:
+    """A relationship's target as a path in the archive (relative to ``base``'s folder)."""
+    return posixpath.normpath(posixpath.join(posixpath.dirname(base), target)).lstrip("/")
+
+
+def _rels(book: zipfile.ZipFile, part: str) -> dict[str, str]:
+    folder, name = posixpath.split(part)
+    root = ElementTree.fromstring(book.read(f"{folder}/_rels/{name}.rels"))
+    return {r.get("Id", ""): _part(book, part, r.get("Target", ""))
+            for r in root.findall("rel:Relationship", XLSX_NS)}
+
+
+def xlsx_charts(path: Path) -> list[tuple[str, bytes]]:
+    """(the series name written above it, PNG) for every picture of the Charts sheet.
+
+    openpyxl reads a sheet's cells but drops its pictures unless Pillow is installed, so the
+    pictures are read from the package itself (ECMA-376 Part 1: the sheet's drawing part,
+    §20.5, each anchor's top-left cell and the media part its blip refers to), the name above
+    each with openpyxl."""
+    names = openpyxl.load_workbook(path).sheetnames
+    if "Charts" not in names:
+        return []
+    cells = openpyxl.load_workbook(path)["Charts"]
+    out = []
+    with zipfile.ZipFile(path) as book:
+        workbook = ElementTree.fromstring(book.read("xl/workbook.xml"))
+        sheet_rid = next(s.get(f"{{{XLSX_NS['r']}}}id") for s in
+                         workbook.iterfind("main:sheets/main:sheet", XLSX_NS)
+                         if s.get("name") == "Charts")
+        sheet = _rels(book, "xl/workbook.xml")[sheet_rid or ""]
+        root = ElementTree.fromstring(book.read(sheet))
+        drawing_rid = root.find("main:drawing", XLSX_NS)
+        assert drawing_rid is not None
+        drawing = _rels(book, sheet)[drawing_rid.get(f"{{{XLSX_NS['r']}}}id") or ""]
+        media = _rels(book, drawing)
+        for anchor in ElementTree.fromstring(book.read(drawing)):
+            row = anchor.find("xdr:from/xdr:row", XLSX_NS)
+            blip = anchor.find(".//a:blip", XLSX_NS)
+            assert row is not None and blip is not None
+            png = book.read(media[blip.get(f"{{{XLSX_NS['r']}}}embed") or ""])
+            # the anchor's row is 0-based: the 1-based row just above the picture, its title
+            out.append((str(cells.cell(row=int(row.text or 0), column=1).value), png))
+    return out
+
+
+def pdf_objects(path: Path) -> tuple[int, list[tuple[int, int]]]:
+    """The number of pages and the (width, height) of every image XObject."""
+    data = path.read_bytes()
+    assert data.startswith(b"%PDF-") and b"/ObjStm" not in data  # every object in plain view
+    pages = len(re.findall(rb"/Type\s*/Page\b", data))
+    images = []
+    for found in re.finditer(rb"<<(?:(?!>>).)*?/Subtype\s*/Image(?:(?!>>).)*>>", data, re.S):
+        block = found.group(0)
+        width = re.search(rb"/Width\s+(\d+)", block)
+        height = re.search(rb"/Height\s+(\d+)", block)
+        assert width and height
+        images.append((int(width.group(1)), int(height.group(1))))
+    if shutil.which("pdfinfo"):
+        info = subprocess.run(["pdfinfo", str(path)], capture_output=True, text=True, check=True,
+                              timeout=60).stdout
+        counted = re.search(r"Pages:\s+(\d+)", info)
+        assert counted is not None and int(counted.group(1)) == pages
+    if shutil.which("pdfimages"):
+        listing = subprocess.run(["pdfimages", "-list", str(path)], capture_output=True,
+                                 text=True, check=True, timeout=60).stdout.splitlines()[2:]
+        sizes = [(int(r.split()[3]), int(r.split()[4])) for r in listing if r.split()[2] == "image"]
+        assert sizes == images
+    return pages, images
+
+
+def charted(run: RunRecord) -> list[str]:
+    """The series whose chart the HTML and the PDF show: tested, with values to draw."""
+    return [f.name for f in run.findings if f.result.ok and f.result.values is not None]
+
+
+# --- the drawing ---------------------------------------------------------------------------
+
+@pytest.fixture(scope="module")
+def drawn() -> tuple[RunRecord, DrawnCharts]:
+    run = make_run()
+    return run, draw_charts(run)
+
+
+def test_each_tested_series_gets_one_chart_of_the_fixed_size(
+        drawn: tuple[RunRecord, DrawnCharts]) -> None:
+    run, charts = drawn
+    assert charts.problems == ()
+    with_values = [f for f in run.findings if f.result.values is not None]
+    assert set(charts.images) == {f.key for f in with_values}
+    assert len(with_values) == 3  # the series too short to test carries no values: no chart
+    from PySide6.QtGui import QImage
+
+    for png in charts.images.values():
+        assert png_size(png) == CHART_PIXELS
+        decoded = QImage.fromData(png, "PNG")  # Qt's reader (libpng): a valid PNG file
+        assert (decoded.width(), decoded.height()) == CHART_PIXELS
+    assert len(set(charts.images.values())) == len(charts.images)  # each its own drawing
+
+
+def test_the_drawing_does_not_depend_on_the_window_palette(
+        drawn: tuple[RunRecord, DrawnCharts]) -> None:
+    """Reports are drawn in paper colours: a dark window palette changes nothing."""
+    from PySide6.QtWidgets import QApplication
+
+    from tauscope.ui.appearance import dark_palette
+
+    run, charts = drawn
+    app = QApplication.instance()
+    assert isinstance(app, QApplication)
+    before = app.palette()
+    app.setPalette(dark_palette())
+    try:
+        again = draw_charts(run)
+    finally:
+        app.setPalette(before)
+    assert again.images == charts.images
+
+
+def test_a_chart_that_fails_is_left_out_with_a_sentence(
+        drawn: tuple[RunRecord, DrawnCharts], monkeypatch: pytest.MonkeyPatch) -> None:
+    from tauscope.ui.charts.fitted import FittedChart
+
+    run, charts = drawn
+    bad = run.findings[0]
+    draw = FittedChart.draw
+
+    def failing(self: FittedChart) -> None:
+        if self.result is not None and self.result.name == bad.name:
+            raise ValueError("a drawing that fails")
+        draw(self)
+
+    monkeypatch.setattr(FittedChart, "draw", failing)
+    again = draw_charts(run)
+    assert again.problems == (f"{bad.name}: its chart could not be drawn "
+                              "(ValueError: a drawing that fails)",)
+    assert again.images == {k: v for k, v in charts.images.items() if k != bad.key}
+
+
+# --- each format read back -----------------------------------------------------------------
+
+def test_xlsx_holds_each_chart_under_its_series_name(
+        drawn: tuple[RunRecord, DrawnCharts], tmp_path: Path) -> None:
+    run, charts = drawn
+    export(tmp_path / "f.xlsx", run, charts.images)
+    found = xlsx_charts(tmp_path / "f.xlsx")
+    assert [name for name, _png in found] == [f.name for f in run.findings
+                                             if f.key in charts.images]
+    for finding, (_name, png) in zip((f for f in run.findings if f.key in charts.images), found,
+                                     strict=True):
+        assert png == charts.images[finding.key or ""]  # the picture itself, not re-encoded
+        assert png_size(png) == CHART_PIXELS
+
+
+def test_html_embeds_each_chart_as_a_png_data_uri(drawn: tuple[RunRecord, DrawnCharts],
+                                                  tmp_path: Path) -> None:
+    run, charts = drawn
+    export(tmp_path / "f.html", run, charts.images)
+    found = html_charts(tmp_path / "f.html")
+    names = charted(run)
+    assert [heading.split(". ", 1)[1] for heading, _png in found] == names
+    by_name = {f.name: f.key for f in run.findings}
+    for heading, png in found:
+        assert png == charts.images[by_name[heading.split(". ", 1)[1]] or ""]
+        assert png_size(png) == CHART_PIXELS
+
+
+def test_pdf_holds_each_chart_as_an_image(drawn: tuple[RunRecord, DrawnCharts],
+                                          tmp_path: Path) -> None:
+    import tauscope.ui.pdf_report  # noqa: F401  (registers ".pdf")
+
+    run, charts = drawn
+    export(tmp_path / "with.pdf", run, charts.images)
+    export(tmp_path / "without.pdf", run)
+    pages, images = pdf_objects(tmp_path / "with.pdf")
+    bare_pages, bare_images = pdf_objects(tmp_path / "without.pdf")
+    assert images == [CHART_PIXELS] * len(charted(run))
+    assert bare_images == []
+    assert pages > bare_pages >= 1  # three charts of 620 × 300 units take room
+
+
+# --- tauscope batch ------------------------------------------------------------------------
+
+def _workbook(tmp_path: Path) -> Path:
+    series = simulated_series(3, 120, seed=21)
+    series["drifting"] = np.cumsum(0.4 + np.random.default_rng(5).standard_normal(120))
+    return write_workbook(tmp_path / "quarterly data.xlsx", series)
+
+
+@pytest.fixture
+def batch_reports(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> tuple[Path, str]:
+    source = _workbook(tmp_path)
+    outs = [str(tmp_path / f"batch{s}") for s in (".xlsx", ".html", ".pdf", ".json")]
+    assert main([str(source), *[a for o in outs for a in ("--out", o)]]) == 0
+    return tmp_path, capsys.readouterr().err
+
+
+def test_batch_reports_hold_every_chart_and_say_what_the_run_did(
+        batch_reports: tuple[Path, str]) -> None:
+    import json
+
+    folder, err = batch_reports
+    # at most the reader's one line; no stray line from Qt, no note on a chart
+    assert len(err.splitlines()) <= 1 and "chart" not in err and "plugin" not in err
+    data = json.loads((folder / "batch.json").read_text(encoding="utf-8"))
+    names = [s["name"] for s in data["series"]]
+    assert len(names) == 4
+    xlsx = xlsx_charts(folder / "batch.xlsx")
+    html = html_charts(folder / "batch.html")
+    assert [n for n, _png in xlsx] == names
+    assert [h.split(". ", 1)[1] for h, _png in html] == names
+    assert [png for _n, png in xlsx] == [png for _h, png in html]
+    assert all(png_size(png) == CHART_PIXELS for _n, png in xlsx)
+    pages, images = pdf_objects(folder / "batch.pdf")
+    assert images == [CHART_PIXELS] * 4 and pages >= 2
+    # Each series' observations and sample, and the methods text of this run, are still there.
+    book = openpyxl.load_workbook(folder / "batch.xlsx")
+    summary = list(book["Summary"].iter_rows(values_only=True))
+    head = summary[0]
+    for item, row in zip(data["series"], summary[1:], strict=False):
+        assert row[head.index("Series")] == item["name"]
+        assert row[head.index("Observations")] == item["nobs"]
+        assert [row[head.index("First")], row[head.index("Last")]] == item["span"]
+    about = [str(c) for r in book["About this run"].iter_rows(values_only=True) for c in r if c]
+    run = _record_of(folder / "batch.json")
+    _check_methods(" ".join(about[about.index("Methods") + 1:]), run)
+
+
+def _record_of(path: Path) -> RunRecord:
+    """What ``_check_methods`` reads (settings, tests run, number of series), from the JSON."""
+    import json
+    from types import SimpleNamespace
+
+    from tauscope.engine import Settings
+
+    data = json.loads(path.read_text(encoding="utf-8"))
+    known = set(Settings.__dataclass_fields__)
+    settings = Settings(**{k: tuple(v) if isinstance(v, list) else v
+                           for k, v in data["settings"].items() if k in known})
+    return SimpleNamespace(settings=settings, tests_run=tuple(data["tests_run"]),  # type: ignore[return-value]
+                           findings=data["series"])
+
+
+@pytest.mark.skipif(shutil.which("pdftotext") is None,
+                    reason="poppler-utils (pdftotext) is not installed; .ci/run installs it")
+def test_batch_pdf_with_charts_still_shows_samples_and_methods(
+        batch_reports: tuple[Path, str]) -> None:
+    import json
+
+    folder, _err = batch_reports
+    text = subprocess.run(["pdftotext", str(folder / "batch.pdf"), "-"], capture_output=True,
+                          text=True, check=True, timeout=60).stdout
+    text = unicodedata.normalize("NFKC", text)
+    flat = " ".join(text.split())
+    for item in json.loads((folder / "batch.json").read_text(encoding="utf-8"))["series"]:
+        assert f"{item['span'][0]} to {item['span'][1]} · {item['nobs']} observations" in flat
+    _check_methods(text.split("Methods", 1)[-1], _record_of(folder / "batch.json"),
+                   hyphens=False)
+
+
+def test_batch_no_charts_leaves_them_out(tmp_path: Path) -> None:
+    source = _workbook(tmp_path)
+    outs = [str(tmp_path / f"bare{s}") for s in (".xlsx", ".html", ".pdf")]
+    assert main([str(source), "--no-charts", *[a for o in outs for a in ("--out", o)]]) == 0
+    assert xlsx_charts(tmp_path / "bare.xlsx") == []
+    with zipfile.ZipFile(tmp_path / "bare.xlsx") as book:
+        assert not [n for n in book.namelist() if n.startswith("xl/media/")]
+    assert html_charts(tmp_path / "bare.html") == []
+    assert pdf_objects(tmp_path / "bare.pdf")[1] == []
+
+
+def test_batch_goes_on_when_a_chart_fails(tmp_path: Path, monkeypatch: pytest.MonkeyPatch,
+                                          capsys: pytest.CaptureFixture[str]) -> None:
+    from tauscope.ui.charts.fitted import FittedChart
+
+    source = _workbook(tmp_path)
+    fitted_names: list[str] = []
+    draw = FittedChart.draw
+
+    def fitted_fails_once(self: FittedChart) -> None:
+        if not fitted_names:
+            fitted_names.append(self.result.name if self.result is not None else "")
+            raise RuntimeError("no room to draw")
+        draw(self)
+
+    monkeypatch.setattr(FittedChart, "draw", fitted_fails_once)
+    assert main([str(source), "--out", str(tmp_path / "f.html"), "--out",
+                 str(tmp_path / "f.xlsx")]) == 0
+    err = capsys.readouterr().err
+    assert "Traceback" not in err and len(err.strip().splitlines()) == 1
+    assert (f"{fitted_names[0]}: its chart could not be drawn (RuntimeError: no room to draw)"
+            f" (left out of the reports)") in err
+    assert len(html_charts(tmp_path / "f.html")) == 3
+    assert fitted_names[0] not in [n for n, _png in xlsx_charts(tmp_path / "f.xlsx")]
+
+
+# --- the window and batch: one report path ---------------------------------------------------
+
+def test_window_and_batch_reports_carry_the_same_charts(  # type: ignore[no-untyped-def]
+        main_window, open_in_window, run_in_window, tmp_path, capsys):
+    import tauscope.ui.pdf_report  # noqa: F401  (registers ".pdf")
+    from tauscope.commands.batch import _parser, _settings
+
+    source = _workbook(tmp_path)
+    window = main_window
+    window.apply_settings(_settings(_parser().parse_args([str(source)])))  # batch's defaults
+    open_in_window(window, source)
+    run_in_window(window, window.series_panel.model.all_series())
+    for suffix in (".xlsx", ".html", ".pdf"):
+        assert window.export_findings(tmp_path / f"window{suffix}")
+    assert main([str(source), *[a for s in (".xlsx", ".html", ".pdf")
+                                for a in ("--out", str(tmp_path / f"batch{s}"))]]) == 0
+    window_html = html_charts(tmp_path / "window.html")
+    assert len(window_html) == 4
+    assert window_html == html_charts(tmp_path / "batch.html")
+    assert xlsx_charts(tmp_path / "window.xlsx") == xlsx_charts(tmp_path / "batch.xlsx")
+    assert pdf_objects(tmp_path / "window.pdf") == pdf_objects(tmp_path / "batch.pdf")
+
+
+def test_a_series_name_with_markup_characters_is_drawn_as_written() -> None:
+    """pyqtgraph reads titles as rich text: "Real output & <prices>" lost "<prices>"."""
+    from tauscope.ui.report_charts import ChartRenderer
+
+    run = make_run()
+    finding = run.findings[0]
+    assert finding.name == "Real output & <prices>"
+    renderer = ChartRenderer()
+    try:
+        assert renderer.render(None, finding.result) is not None
+        title = renderer.fitted_page._shown[0].titleLabel.item.toPlainText()
+    finally:
+        renderer.close()
+    assert title == f"{finding.name}: {finding.result.verdict.label}"
+
+
+def test_the_picture_is_taken_once_the_axes_have_the_room_their_labels_need() -> None:
+    """An axis measures its tick labels only while drawn: a page drawn for the first time
+    would lose labels wider than its starting room ("1000" on the I(2) series, which climbs
+    past 1,000).  Drawing the page again after its layout settles gives the same picture."""
+    from PySide6.QtWidgets import QApplication
+
+    from tauscope.ui.report_charts import ChartRenderer
+
+    run = make_run()
+    climbing = run.findings[2].result  # the I(2) series: no deterministic path, Data view
+    assert climbing.fitted is None and climbing.values is not None
+    assert float(climbing.values.max()) > 1000
+    renderer = ChartRenderer()
+    try:  # as in a report: the Fitted path charts of the series before it come first
+        for finding in run.findings[:2]:
+            renderer.render(None, finding.result)
+        first = renderer.render(None, climbing)
+        QApplication.processEvents()
+        again = renderer.picture(renderer.data_page)
+    finally:
+        renderer.close()
+    assert first is not None and png_size(first) == CHART_PIXELS
+    assert first == again
+
+
+def test_batch_draws_its_charts_without_a_display_or_a_platform_named(tmp_path: Path) -> None:
+    """A server without a screen: no DISPLAY, no WAYLAND_DISPLAY, no QT_QPA_PLATFORM."""
+    import os
+    import sys
+
+    source = _workbook(tmp_path)
+    env = {k: v for k, v in os.environ.items()
+           if k not in ("DISPLAY", "WAYLAND_DISPLAY", "QT_QPA_PLATFORM")}
+    done = subprocess.run([sys.executable, "-m", "tauscope", "batch", str(source), "--out",
+                           str(tmp_path / "f.html")], capture_output=True, text=True,
+                          timeout=300, check=False, env=env)
+    assert done.returncode == 0, done.stderr
+    assert "Traceback" not in done.stderr and "chart" not in done.stderr
+    assert len(html_charts(tmp_path / "f.html")) == 4
