@@ -51,6 +51,7 @@ from __future__ import annotations
 
 import math
 from collections.abc import Callable, Sequence
+from functools import lru_cache
 
 import numpy as np
 from scipy.stats import norm
@@ -155,7 +156,7 @@ def run_break_test(prepared: PreparedSeries, lags: int, alpha: float) -> BreakTe
     p_value, bound = break_p_value(search.statistic, length)
     reject = bool(search.statistic < critical_values[level])
     trend_t, shift_t = break_t_ratios(x, search.position, search.lags)
-    trend = abs(trend_t) > float(norm.ppf(1.0 - alpha / 2.0))
+    trend = abs(trend_t) > _two_sided_normal(alpha)
     shift_level = min(SHIFT_T, key=lambda a: abs(a - alpha))
     return BreakTest(
         statistic=search.statistic, critical_values=critical_values,
@@ -167,6 +168,12 @@ def run_break_test(prepared: PreparedSeries, lags: int, alpha: float) -> BreakTe
         trend_t=trend_t, deterministic="trend" if trend else "constant", reps=BREAK_REPS,
         shift_t=shift_t, shift_clear=bool(abs(shift_t) > SHIFT_T[shift_level]),
     )
+
+
+@lru_cache(maxsize=16)
+def _two_sided_normal(alpha: float) -> float:
+    """The two-sided critical value of the standard normal at ``alpha``, once per level."""
+    return float(norm.ppf(1.0 - alpha / 2.0))
 
 
 def break_outcome(test: BreakTest, order: int | None) -> str:
