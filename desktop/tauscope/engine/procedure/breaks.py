@@ -209,7 +209,7 @@ def nested_bic_lag(x: np.ndarray, cap: int) -> int | None:
     n, k = design.shape
     if n <= k + 1 or not np.all(np.isfinite(design)) or np.linalg.matrix_rank(design) < k:
         return None
-    r = np.linalg.qr(np.column_stack([design, y]), mode="r")
+    r = np.asarray(np.linalg.qr(np.column_stack([design, y]), mode="r"))
     tail = np.cumsum((r[:k, k] ** 2)[::-1])[::-1]  # Σ_{j≥m} c_j², m = 0…k−1
     ssr = r[k, k] ** 2 + np.append(tail[3:], 0.0)  # m = 3…k
     if not np.all(ssr > 1e-12 * max(1.0, float(y @ y))):
