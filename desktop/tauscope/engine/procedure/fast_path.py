@@ -195,12 +195,12 @@ class FastEstimation:
         self._index = index
 
     def level_tests(self, x: np.ndarray, difference: int, options: EstimateOptions,
-                    max_lags: int) -> LevelTests:
+                    max_lags: int, scale: float) -> LevelTests:
         level = self._batch.level(difference, max_lags)
         i = self._index
         if level.declined[i]:
             raise NeedsReference
-        adf = {spec: adf_result(level, spec, i, options.alpha) for spec in SPECS}
+        adf = {spec: adf_result(level, spec, i, options.alpha, scale) for spec in SPECS}
         phi = {name: phi_result(level, adf[PHI_SPEC[name]], name, i, options.alpha)
                for name in PHI_NAMES}
         return LevelTests(difference, adf, phi)
