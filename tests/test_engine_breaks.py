@@ -9,8 +9,15 @@ import statsmodels.api as sm
 
 from tauscope.engine import Settings, analyse_series
 from tauscope.engine.distributions.break_null import break_critical_values, break_null_draws
-from tauscope.engine.procedure.breaks import SHIFT_T, break_outcome, break_t_ratios, swings
+from tauscope.engine.procedure.breaks import (
+    SHIFT_T,
+    break_outcome,
+    break_t_ratios,
+    nested_bic_lag,
+    swings,
+)
 from tauscope.engine.reading.breaks import badge_cap, capped_agreement
+from tauscope.engine.regression.lagchoice import choose_lag
 from tauscope.engine.results_breaks import (
     SHIFT_UNCLEAR,
     STATIONARY_WITH_BREAK,
@@ -268,3 +275,23 @@ def test_lag_order_chosen_candidate_by_candidate() -> None:
     for i in (0, len(positions) // 2, len(positions) - 1):
         fixed, _ = lm_profile(x, positions[i:i + 1], int(chosen[i]), fixed=True)
         assert abs(fixed[0] - search.statistics[i]) < 1e-10
+
+
+def test_break_lag_order_from_one_factorisation_equals_one_regression_per_lag() -> None:
+    """BIC's lag order from one QR equals statsmodels OLS lag by lag (choose_lag), on
+    random walks, AR(0.5) series with a shift, short and long; a design that is not of
+    full rank is handed back (None) rather than guessed."""
+    rng = np.random.default_rng(15)
+    for length in (40, 80, 240, 500):
+        for _ in range(10):
+            e = rng.standard_normal(length)
+            walk = np.cumsum(e)
+            shifted = np.zeros(length)
+            for t in range(1, length):
+                shifted[t] = 0.5 * shifted[t - 1] + e[t]
+            shifted[length // 2:] += 5.0
+            for x in (walk, shifted):
+                cap = min(8, int(12.0 * (length / 100.0) ** 0.25), length // 4 - 2)
+                assert nested_bic_lag(x, cap) == choose_lag(x, "trend", "bic", cap).lag
+    assert nested_bic_lag(np.arange(80.0), 6) is None  # a straight line: no randomness
+    assert nested_bic_lag(np.tile([1.0, 2.0, 3.0, 4.0], 20), 6) is None  # repeats exactly

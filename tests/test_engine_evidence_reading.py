@@ -24,7 +24,7 @@ from tauscope.engine.reading.evidence import combined_agreement, power_sentence,
 from tauscope.engine.results import TestResult
 from tauscope.engine.unitroot.adf import estimate
 from tauscope.engine.unitroot.phillips_perron import phillips_perron
-from tauscope.engine.unitroot.recursive import recursive_tau
+from tauscope.engine.unitroot.recursive import recursive_tau, recursive_tau_many
 from tauscope.engine.unitroot.zivot_andrews import zivot_andrews
 
 
@@ -147,6 +147,28 @@ def test_recursive_tau_equals_the_engine_on_each_window() -> None:
             assert value == pytest.approx(regression.tau, abs=1e-8)
             # MacKinnon (2010) via statsmodels' mackinnoncrit, through the engine's critical.py
             assert critical == pytest.approx(tau_critical_value(spec, regression.nobs, 0.05), abs=1e-12)
+
+
+def test_batched_recursive_tau_equals_one_regression_per_window() -> None:
+    """recursive_tau_many (one Cholesky factor per window, batched over series) against
+    statsmodels OLS on each window (the engine's reference estimate), and against
+    recursive_tau on rows whose early windows are fitted exactly (there: no τ, NaN)."""
+    rng = np.random.default_rng(15)
+    walks = np.cumsum(rng.standard_normal((5, 80)), axis=1)
+    xs = np.vstack([walks, np.cumsum(walks, axis=1) / 10.0, walks + 0.3 * np.arange(80)])
+    for spec, lags in (("trend", 2), ("constant", 1), ("none", 0)):
+        paths = recursive_tau_many(xs, spec, lags, rows_per_call=4)
+        for x, path in zip(xs, paths, strict=True):
+            for end, value in list(zip(path.ends, path.statistics, strict=True))[::9]:
+                assert value == pytest.approx(estimate(x[: end + 1], spec, lags).tau, abs=1e-8)
+    # Exactly x_t − 1 = 0.5 (x_{t−1} − 1) for 40 periods, then a random walk: the first
+    # windows are (all but) exact fits, which the factor leaves to the solves.
+    decay = 1.0 + 0.5 ** np.arange(40.0)
+    quiet = np.vstack([np.concatenate([decay, decay[-1] + np.cumsum(rng.standard_normal(40))])
+                       for _ in range(2)])
+    for path, x in zip(recursive_tau_many(quiet, "constant", 0), quiet, strict=True):
+        alone = recursive_tau(x, "constant", 0)
+        np.testing.assert_allclose(path.statistics, alone.statistics, rtol=1e-8, equal_nan=True)
 
 
 def test_reading_when_adf_finds_a_unit_root_but_others_point_to_trend_stationarity() -> None:

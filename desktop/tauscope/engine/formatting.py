@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 
 
 def stat(value: float | None, decimals: int = 2) -> str:
@@ -10,11 +11,10 @@ def stat(value: float | None, decimals: int = 2) -> str:
     if value is None or not math.isfinite(value):
         return "n/a"
     text = f"{value:.{decimals}f}"
-    if text.lstrip("-").strip("0.") == "":
-        text = text.lstrip("-")  # no "−0.00"
-    if text.startswith("-"):
-        text = "\u2212" + text[1:]
-    return text
+    if text[0] != "-":
+        return text
+    digits = text[1:]
+    return digits if digits.strip("0.") == "" else "\u2212" + digits  # no "−0.00"
 
 
 def p_value(value: float | None, bound: str | None = None) -> str:
@@ -30,5 +30,6 @@ def p_value(value: float | None, bound: str | None = None) -> str:
     return f"{value:.3f}"
 
 
+@lru_cache(maxsize=64)
 def percent(alpha: float) -> str:
     return f"{round(alpha * 100):d}%"

@@ -44,9 +44,15 @@ def break_null_draws(length: int, reps: int = BREAK_REPS, seed: int = BREAK_SEED
 
 def break_critical_values(length: int, reps: int = BREAK_REPS, seed: int = BREAK_SEED,
                           trim: float = TRIM) -> dict[str, float]:
-    """The 1%, 5% and 10% quantiles of the simulated null at ``length`` observations."""
+    """The 1%, 5% and 10% quantiles of the simulated null at ``length`` observations (a
+    fresh dict; the quantiles are computed once per key)."""
+    return dict(_break_quantiles(length, reps, seed, trim))
+
+
+@lru_cache(maxsize=64)
+def _break_quantiles(length: int, reps: int, seed: int, trim: float) -> tuple[tuple[str, float], ...]:
     draws = break_null_draws(length, reps, seed, trim)
-    return {label: float(np.quantile(draws, level)) for label, level in LEVELS.items()}
+    return tuple((label, float(np.quantile(draws, level))) for label, level in LEVELS.items())
 
 
 def break_p_value(statistic: float, length: int, reps: int = BREAK_REPS, seed: int = BREAK_SEED,

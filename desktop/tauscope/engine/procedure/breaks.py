@@ -49,7 +49,9 @@ stationary around a shifting mean than around a fixed one, and the verdict stand
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable, Sequence
+from functools import lru_cache
 
 import numpy as np
 from scipy.stats import norm
@@ -65,6 +67,7 @@ from tauscope.engine.procedure.prepare import PreparedSeries
 from tauscope.engine.reading.breaks import break_sentence
 from tauscope.engine.reading.notes import find_jump
 from tauscope.engine.reading.verdicts import agreement
+from tauscope.engine.regression.design import adf_design
 from tauscope.engine.regression.lagchoice import choose_lag
 from tauscope.engine.results import RecursiveStatistic, TestResult
 from tauscope.engine.results_breaks import (
@@ -153,7 +156,7 @@ def run_break_test(prepared: PreparedSeries, lags: int, alpha: float) -> BreakTe
     p_value, bound = break_p_value(search.statistic, length)
     reject = bool(search.statistic < critical_values[level])
     trend_t, shift_t = break_t_ratios(x, search.position, search.lags)
-    trend = abs(trend_t) > float(norm.ppf(1.0 - alpha / 2.0))
+    trend = abs(trend_t) > _two_sided_normal(alpha)
     shift_level = min(SHIFT_T, key=lambda a: abs(a - alpha))
     return BreakTest(
         statistic=search.statistic, critical_values=critical_values,
@@ -167,6 +170,12 @@ def run_break_test(prepared: PreparedSeries, lags: int, alpha: float) -> BreakTe
     )
 
 
+@lru_cache(maxsize=16)
+def _two_sided_normal(alpha: float) -> float:
+    """The two-sided critical value of the standard normal at ``alpha``, once per level."""
+    return float(norm.ppf(1.0 - alpha / 2.0))
+
+
 def break_outcome(test: BreakTest, order: int | None) -> str:
     """What the break test means for the verdict (see the module's docstring)."""
     if not test.reject:
@@ -178,9 +187,36 @@ def break_outcome(test: BreakTest, order: int | None) -> str:
 
 def break_lags(x: np.ndarray) -> int:
     """The break test's lag order: BIC on the ADF regression with constant and trend, up to
-    min(MAX_LAGS, ⌊12 (T/100)^{1/4}⌋) (see the module's docstring)."""
+    min(MAX_LAGS, ⌊12 (T/100)^{1/4}⌋) (see the module's docstring).  Every lag order from
+    one QR (:func:`nested_bic_lag`); a design that is not clearly of full rank, or a fit
+    that is nearly exact, goes to :func:`choose_lag` (one regression per lag order, with
+    its refusals)."""
     cap = min(MAX_LAGS, int(12.0 * (x.shape[0] / 100.0) ** 0.25), max(x.shape[0] // 4 - 2, 0))
-    return choose_lag(x, "trend", "bic", cap).lag
+    lag = nested_bic_lag(x, cap)
+    return choose_lag(x, "trend", "bic", cap).lag if lag is None else lag
+
+
+def nested_bic_lag(x: np.ndarray, cap: int) -> int | None:
+    """The lag order 0…``cap`` with the least BIC = N (ln 2π + ln(RSS_m/N) + 1) + m ln N
+    (the formula of :meth:`tauscope.engine.regression.ols.OLSFit.criterion`) on the common
+    sample of ``cap`` lags, m = 3 + lag regressors.  RSS_m for every leading block of the
+    design from the one factorisation of [X | y] = Q [[R, c], [0, e]]: RSS_m = e² + Σ_{j≥m}
+    c_j² (Golub & Van Loan 2013, §5.3; see :mod:`tauscope.engine.regression.nested`).  Ties
+    go to the shorter lag.  None when the design is not of full rank (numpy's
+    ``matrix_rank``: then every leading block is, the test :func:`fit` makes) or a fit is
+    within a margin of exact."""
+    y, design = adf_design(x, "trend", cap, first=cap)
+    n, k = design.shape
+    if n <= k + 1 or not np.all(np.isfinite(design)) or np.linalg.matrix_rank(design) < k:
+        return None
+    r = np.asarray(np.linalg.qr(np.column_stack([design, y]), mode="r"))
+    tail = np.cumsum((r[:k, k] ** 2)[::-1])[::-1]  # Σ_{j≥m} c_j², m = 0…k−1
+    ssr = r[k, k] ** 2 + np.append(tail[3:], 0.0)  # m = 3…k
+    if not np.all(ssr > 1e-12 * max(1.0, float(y @ y))):
+        return None
+    m = np.arange(3, k + 1)
+    bic = n * (math.log(2.0 * math.pi) + np.log(ssr / n) + 1.0) + m * math.log(n)
+    return int(np.argmin(bic))
 
 
 def swing_request(constant_lags: int) -> tuple[str, int, int]:

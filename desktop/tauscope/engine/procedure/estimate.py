@@ -22,7 +22,6 @@ from tauscope.engine.distributions.simulate import with_exact_values
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.procedure.prepare import PreparedSeries
 from tauscope.engine.procedure.stages import EstimateOptions, Estimates, Estimation
-from tauscope.engine.procedure.units import level_in_units
 from tauscope.engine.regression.design import max_lag_cap, schwert_max_lag
 from tauscope.engine.results import LevelTests
 
@@ -61,8 +60,7 @@ def estimate(prepared: PreparedSeries, options: EstimateOptions, estimation: Est
         max_lags[d], cut = max_lags_for(xd.shape[0], options)
         if d == 0:
             reduced = cut
-        level = estimation.level_tests(xd, d, options, max_lags[d])
-        levels[d] = _judged(level_in_units(level, prepared.scale), options)
+        levels[d] = _judged(estimation.level_tests(xd, d, options, max_lags[d], prepared.scale), options)
     union = None
     if options.union:
         union = estimation.union(x, options, prepared.dummies_period)

@@ -13,15 +13,13 @@ reference's own.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-from functools import lru_cache
-
 import numpy as np
 
 from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.procedure.fast_results import LevelBatch, adf_result, phi_result
 from tauscope.engine.procedure.stages import EstimateOptions
 from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
-from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS, column_names
+from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS
 from tauscope.engine.regression.lagchoice import LagChoice
 from tauscope.engine.regression.nested import (
     PHI_NAMES,
@@ -44,15 +42,12 @@ from tauscope.engine.regression.nested import (
     spec_order,
 )
 from tauscope.engine.results import (
-    Coefficient,
     LagPoint,
     LevelTests,
     RecursiveStatistic,
-    Regression,
     TestResult,
 )
 from tauscope.engine.seasonal.means import remove_seasonal_means
-from tauscope.engine.unitroot import phi as joint
 from tauscope.engine.unitroot.kpss_fast import kpss_fast
 from tauscope.engine.unitroot.recursive import recursive_tau_many
 
@@ -65,22 +60,6 @@ MIN_RSS_SHARE = 1e-10
 
 class NeedsReference(Exception):
     """The fast path declines this series; the reference path takes it."""
-
-
-@dataclass
-class LevelBatch:
-    """Everything the sequence needs on Δ^d y for a batch of series of one length."""
-
-    difference: int
-    max_lags: int
-    n: int
-    first_rows: np.ndarray  # (B, p, K+1): the rows before the common sample (full design)
-    common: dict[str, np.ndarray]
-    choices: dict[str, list[LagChoice]]
-    estimates: dict[str, Estimates]
-    phi: dict[str, np.ndarray]
-    declined: np.ndarray  # (B,) bool: the reference path must take these
-    centres: np.ndarray  # (B,): y(t−1) is measured from these in the specs with a constant
 
 
 def _sanitise(a: np.ndarray, declined: np.ndarray) -> np.ndarray:
@@ -186,69 +165,6 @@ def _maic(xs: np.ndarray, spec: str, p: int, fits: BlockFits,
     return maic_values(none_fits, lag_sum_sq, nobs), declined
 
 
-_column_names = lru_cache(maxsize=512)(column_names)
-_NO_DESIGN = np.empty((0, 0))
-_NO_RESPONSE = np.empty(0)
-_NO_DESIGN.flags.writeable = False
-_NO_RESPONSE.flags.writeable = False
-
-
-def _coefficients(spec: str, lags: int, params: list[float], bse: list[float]
-                  ) -> tuple[Coefficient, ...]:
-    names = _column_names(spec, lags)
-    return tuple(
-        Coefficient(name, params[j], bse[j], params[j] / bse[j]) for j, name in enumerate(names)
-    )
-
-
-def _adf_result(level: LevelBatch, spec: str, i: int, alpha: float) -> TestResult:
-    choice = level.choices[spec][i]
-    est = level.estimates[spec]
-    lags = choice.lag
-    nobs = int(est.nobs[i])
-    rss = float(est.rss[i])
-    coefficients = _coefficients(spec, lags, est.params[i].tolist(), est.bse[i].tolist())
-    regression = Regression(
-        spec=spec,
-        difference=level.difference,
-        lags=lags,
-        lag_rule=choice.rule,
-        max_lags=choice.max_lags,
-        nobs=nobs,
-        first_observation=lags + 1,
-        coefficients=coefficients,
-        sigma2=rss / (nobs - len(coefficients)),
-        rss=rss,
-        lag_criteria=choice.criteria,
-        design=_NO_DESIGN,  # not kept: the results of many series would hold every design
-        response=_NO_RESPONSE,
-    )
-    tau = coefficients[len(DETERMINISTIC_TERMS[spec])].t_value
-    critical = fast_tables.tau_critical_value(spec, nobs, alpha)
-    return TestResult(
-        test="adf",
-        spec=spec,
-        difference=level.difference,
-        statistic=tau,
-        p_value=fast_tables.tau_p_value(tau, spec),
-        lags=lags,
-        nobs=nobs,
-        critical_values=fast_tables.tau_critical_values(spec, nobs),
-        reject=bool(tau < critical),
-        critical_value=critical,
-        lag_rule=choice.rule,
-        regression=regression,
-    )
-
-
-def _phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:
-    """Φ from the batch's restricted RSS, as :func:`joint.phi_test` computes it."""
-    regression = adf.regression
-    assert regression is not None
-    return joint.phi_result(regression, name, joint.f_statistic(float(level.phi[name][i]), regression, name),
-                            alpha)
-
-
 class FastEstimation:
     """One series' view of a batch: the estimation seam of :mod:`tauscope.engine.procedure.stages`.
 
@@ -261,13 +177,13 @@ class FastEstimation:
         self._index = index
 
     def level_tests(self, x: np.ndarray, difference: int, options: EstimateOptions,
-                    max_lags: int) -> LevelTests:
+                    max_lags: int, scale: float) -> LevelTests:
         level = self._batch.level(difference, max_lags)
         i = self._index
         if level.declined[i]:
             raise NeedsReference
-        adf = {spec: _adf_result(level, spec, i, options.alpha) for spec in SPECS}
-        phi = {name: _phi_result(level, adf[PHI_SPEC[name]], name, i, options.alpha)
+        adf = {spec: adf_result(level, spec, i, options.alpha, scale) for spec in SPECS}
+        phi = {name: phi_result(level, adf[PHI_SPEC[name]], name, i, options.alpha)
                for name in PHI_NAMES}
         return LevelTests(difference, adf, phi)
 

@@ -130,7 +130,9 @@ class Estimation(Protocol):
     same numbers (the tests check 1e-8)."""
 
     def level_tests(self, x: np.ndarray, difference: int, options: EstimateOptions,
-                    max_lags: int) -> LevelTests: ...
+                    max_lags: int, scale: float) -> LevelTests:
+        """The ADF and Φ tests on ``x`` = Δ^d y / ``scale`` (the standardised series),
+        their regressions put back into the units of y (:mod:`tauscope.engine.procedure.units`)."""
 
     def lag_profile(self, x: np.ndarray, spec: str, difference: int,
                     max_lags: int) -> tuple[LagPoint, ...]: ...

@@ -9,6 +9,7 @@ import numpy as np
 from tauscope.engine.distributions import tables
 from tauscope.engine.procedure.stages import EstimateOptions
 from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
+from tauscope.engine.procedure.units import level_in_units
 from tauscope.engine.regression.design import SPECS
 from tauscope.engine.regression.lagchoice import choose_lag
 from tauscope.engine.regression.scaling import level_centre
@@ -52,8 +53,8 @@ class ReferenceEstimation:
     """One statsmodels OLS per regression; the fast path must equal it."""
 
     def level_tests(self, x: np.ndarray, difference: int, options: EstimateOptions,
-                    max_lags: int) -> LevelTests:
-        return level_tests(x, difference, options, max_lags)
+                    max_lags: int, scale: float) -> LevelTests:
+        return level_in_units(level_tests(x, difference, options, max_lags), scale)
 
     def lag_profile(self, x: np.ndarray, spec: str, difference: int,
                     max_lags: int) -> tuple[LagPoint, ...]:

@@ -26,6 +26,7 @@ from tauscope.engine.regression.scaling import centred
 from tauscope.engine.results import RecursiveStatistic
 
 MIN_WINDOW = 20  # regression observations in the first window (common practice: ≥ 20)
+NEAR_EXACT = 1e-6  # RSS below this share of Σy²: the window is left to the solves (see below)
 
 
 
@@ -112,15 +113,21 @@ def _recursive_rows(xs: np.ndarray, spec: str, lags: int, alpha: float) -> list[
         return [RecursiveStatistic(spec, lags, empty.astype(int), empty.astype(int), empty, empty, alpha)
                 for _ in range(batch)]
     scale = np.sqrt(np.sum(design * design, axis=1))  # (B, k)
+    g = gamma_column(spec)
+    sizes = np.arange(start, n + 1)
+    ends = sizes + lags
+    tau_by_factor = _tau_by_cholesky(design / scale[:, None, :], y, g, start)
+    if tau_by_factor is not None:
+        critical = tau_critical_values_for_sizes(spec, sizes, alpha)
+        return [RecursiveStatistic(spec, lags, ends, sizes, tau_by_factor[b], critical, alpha)
+                for b in range(batch)]
     q, r = np.linalg.qr(design / scale[:, None, :])
     gram = np.cumsum(q[:, :, :, None] * q[:, :, None, :], axis=1)[:, start - 1:]
     cross = np.cumsum(q * y[:, :, None], axis=1)[:, start - 1:]
     yy = np.cumsum(y * y, axis=1)[:, start - 1:]
-    g = gamma_column(spec)
     row = np.linalg.inv(r)[:, g, :]  # (B, k)
     solved = np.linalg.solve(gram, np.stack([cross, np.broadcast_to(row[:, None, :], cross.shape)], axis=3))
     fitted_part = np.einsum("bwk,bwk->bw", cross, solved[..., 0])
-    sizes = np.arange(start, n + 1)
     s2 = np.maximum(yy - fitted_part, 0.0) / (sizes - k)
     scale_g = scale[:, g][:, None]
     beta_gamma = np.einsum("bwk,bk->bw", solved[..., 0], row) / scale_g
@@ -129,5 +136,31 @@ def _recursive_rows(xs: np.ndarray, spec: str, lags: int, alpha: float) -> list[
     tau = beta_gamma / np.sqrt(np.where(fitted_exactly, 1.0, var_gamma))
     tau[fitted_exactly] = np.nan
     critical = tau_critical_values_for_sizes(spec, sizes, alpha)
-    ends = sizes + lags
     return [RecursiveStatistic(spec, lags, ends, sizes, tau[b], critical, alpha) for b in range(batch)]
+
+
+def _tau_by_cholesky(design: np.ndarray, y: np.ndarray, g: int, start: int) -> np.ndarray | None:
+    """τ on every window of every row from one Cholesky factor per window, or None when a
+    factor fails or a window is fitted almost exactly (then the solves above decide).
+
+    With the columns ordered so that y(t−1) is last, X = QR for the full sample and
+    Z_w the first w rows of Q, the window's augmented Gram [Z_w y_w]ᵀ[Z_w y_w] = LLᵀ
+    gives, L's last row being (…, l, m): the last coefficient on Z, over its standard
+    error without σ̂, is l, and RSS_w = m² (the Cholesky form of least squares: Golub,
+    G.H. & Van Loan, C.F. 2013, Matrix Computations, 4th ed., §5.3).  γ̂ = that
+    coefficient / R_kk, so τ_w = sign(R_kk) · l · √(w − k) / |m|."""
+    _, n, k = design.shape
+    order = [j for j in range(k) if j != g] + [g]
+    q, r = np.linalg.qr(design[:, :, order])
+    augmented = np.concatenate([q, y[:, :, None]], axis=2)
+    gram = np.cumsum(augmented[:, :, :, None] * augmented[:, :, None, :], axis=1)[:, start - 1:]
+    try:
+        factor = np.linalg.cholesky(gram)
+    except np.linalg.LinAlgError:
+        return None
+    rss = factor[..., k, k] ** 2
+    if not np.all(rss > NEAR_EXACT * gram[..., k, k]):
+        return None
+    sizes = np.arange(start, n + 1)
+    sign = np.sign(r[:, k - 1, k - 1])[:, None]
+    return np.asarray(sign * factor[..., k, k - 1] * np.sqrt(sizes - k) / np.sqrt(rss))

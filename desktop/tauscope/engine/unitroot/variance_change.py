@@ -24,8 +24,10 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
+from scipy.special import kolmogorov
 from scipy.stats import kstwobign
 
 
@@ -64,8 +66,10 @@ def kappa2(residuals: np.ndarray, bandwidth: int | None = None) -> tuple[float, 
     return float(abs(g[k]) / math.sqrt(t * omega)), k
 
 
+@lru_cache(maxsize=16)
 def critical_value(alpha: float) -> float:
-    """The (1 − α) quantile of sup |B(r)| (Kolmogorov's distribution)."""
+    """The (1 − α) quantile of sup |B(r)| (Kolmogorov's distribution); looked up once per
+    level."""
     return float(kstwobign.ppf(1.0 - alpha))
 
 
@@ -97,5 +101,6 @@ def variance_change(y: np.ndarray, lags: int, alpha: float = 0.05) -> VarianceCh
     if not math.isfinite(statistic):
         return None
     cv = critical_value(alpha)
-    return VarianceChange(statistic, cv, float(kstwobign.sf(statistic)), alpha, statistic > cv,
+    # kolmogorov is kstwobign's survival function itself, without scipy.stats' checks.
+    return VarianceChange(statistic, cv, float(kolmogorov(statistic)), alpha, statistic > cv,
                           k + lags + 2)

@@ -1,0 +1,130 @@
+"""The result objects of the fast path: one series' ADF and Φ tests from a batch's arrays
+(:class:`LevelBatch`), the same objects the reference path builds
+(:mod:`tauscope.engine.reference`)."""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from functools import lru_cache
+
+import numpy as np
+
+from tauscope.engine.distributions import tables as fast_tables
+from tauscope.engine.regression.design import DETERMINISTIC_TERMS, column_names
+from tauscope.engine.regression.lagchoice import LagChoice
+from tauscope.engine.regression.nested import Estimates
+from tauscope.engine.results import Coefficient, Regression, TestResult
+from tauscope.engine.unitroot import phi as joint
+
+
+@dataclass
+class LevelBatch:
+    """Everything the sequence needs on Δ^d y for a batch of series of one length."""
+
+    difference: int
+    max_lags: int
+    n: int
+    first_rows: np.ndarray  # (B, p, K+1): the rows before the common sample (full design)
+    common: dict[str, np.ndarray]
+    choices: dict[str, list[LagChoice]]
+    estimates: dict[str, Estimates]
+    phi: dict[str, np.ndarray]
+    declined: np.ndarray  # (B,) bool: the reference path must take these
+    centres: np.ndarray  # (B,): y(t−1) is measured from these in the specs with a constant
+
+
+_column_names = lru_cache(maxsize=512)(column_names)
+_NO_DESIGN = np.empty((0, 0))
+_NO_RESPONSE = np.empty(0)
+_NO_DESIGN.flags.writeable = False
+_NO_RESPONSE.flags.writeable = False
+
+
+def _coefficients(spec: str, lags: int, params: list[float], bse: list[float], scale: float
+                  ) -> tuple[Coefficient, ...]:
+    """The coefficients in the series' units: the deterministic terms' estimates and
+    standard errors × ``scale`` (exact, a power of two), every t ratio as fitted
+    (:func:`tauscope.engine.procedure.units.regression_in_units`)."""
+    names = _column_names(spec, lags)
+    if scale == 1.0:
+        return tuple(
+            Coefficient(name, params[j], bse[j], params[j] / bse[j]) for j, name in enumerate(names)
+        )
+    terms = len(DETERMINISTIC_TERMS[spec])
+    return tuple(
+        Coefficient(name, params[j] * scale, bse[j] * scale, params[j] / bse[j]) if j < terms
+        else Coefficient(name, params[j], bse[j], params[j] / bse[j])
+        for j, name in enumerate(names)
+    )
+
+
+def _criteria_in_units(choice: LagChoice, nobs: int, scale: float) -> tuple[float, ...]:
+    """The lag criteria in the series' units, as :func:`regression_in_units` shifts them."""
+    if scale == 1.0:
+        return choice.criteria
+    log_s2 = 2.0 * math.log(scale)
+    if choice.rule in ("aic", "bic", "hqc"):
+        common = nobs + choice.lag - choice.max_lags
+        return tuple(v + common * log_s2 for v in choice.criteria)
+    if choice.rule == "maic":
+        return tuple(v + log_s2 for v in choice.criteria)
+    return choice.criteria
+
+
+def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float) -> TestResult:
+    """One series' ADF test on Δ^d y, its regression in the series' units (``scale``: the
+    standardising power of two, :mod:`tauscope.engine.procedure.units`): the same numbers
+    as :func:`regression_in_units` gives for the standardised regression, without
+    building it first."""
+    choice = level.choices[spec][i]
+    est = level.estimates[spec]
+    lags = choice.lag
+    nobs = int(est.nobs[i])
+    rss = float(est.rss[i])
+    coefficients = _coefficients(spec, lags, est.params[i].tolist(), est.bse[i].tolist(), scale)
+    sigma2 = rss / (nobs - len(coefficients))
+    regression = Regression(
+        spec=spec,
+        difference=level.difference,
+        lags=lags,
+        lag_rule=choice.rule,
+        max_lags=choice.max_lags,
+        nobs=nobs,
+        first_observation=lags + 1,
+        coefficients=coefficients,
+        sigma2=sigma2 if scale == 1.0 else sigma2 * scale * scale,
+        rss=rss if scale == 1.0 else rss * scale * scale,
+        lag_criteria=_criteria_in_units(choice, nobs, scale),
+        design=_NO_DESIGN,  # not kept: the results of many series would hold every design
+        response=_NO_RESPONSE,
+    )
+    tau = coefficients[len(DETERMINISTIC_TERMS[spec])].t_value
+    critical = fast_tables.tau_critical_value(spec, nobs, alpha)
+    return TestResult(
+        test="adf",
+        spec=spec,
+        difference=level.difference,
+        statistic=tau,
+        p_value=fast_tables.tau_p_value(tau, spec),
+        lags=lags,
+        nobs=nobs,
+        critical_values=fast_tables.tau_critical_values(spec, nobs),
+        reject=bool(tau < critical),
+        critical_value=critical,
+        lag_rule=choice.rule,
+        regression=regression,
+    )
+
+
+def phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:
+    """Φ from the batch's restricted and unrestricted RSS of the standardised series, the
+    formula of :func:`joint.f_statistic` (F does not depend on the scale); its
+    regression is the ADF test's, in the series' units."""
+    regression = adf.regression
+    assert regression is not None
+    rss_u = float(level.estimates[regression.spec].rss[i])
+    q = len(joint.RESTRICTED_OUT[name])
+    k = len(regression.coefficients)
+    statistic = ((float(level.phi[name][i]) - rss_u) / q) / (rss_u / (regression.nobs - k))
+    return joint.phi_result(regression, name, statistic, alpha)
