@@ -86,20 +86,23 @@ def lag_criteria_many(detrended: np.ndarray, rule: str, max_lags: int) -> np.nda
 
 
 def choose_lags_many(xs: np.ndarray, spec: str, rule: str, max_lags: int,
-                     fixed: int | None = None) -> np.ndarray:
+                     fixed: int | None = None, min_lag: int = 0) -> np.ndarray:
     """Lag order per row, chosen on the OLS-detrended series (Perron & Qu 2007); ties go
     to the shorter lag.  ``rule`` "fixed" uses ``fixed``; "tsig" asks the one-series
-    rule of :mod:`tauscope.engine.unitroot.dfgls` row by row."""
+    rule of :mod:`tauscope.engine.unitroot.dfgls` row by row.  The choice is among
+    ``min(min_lag, max_lags)`` … ``max_lags``."""
     rows = xs.shape[0]
     if rule == "fixed":
         return np.full(rows, int(fixed or 0))
-    if max_lags == 0:
-        return np.zeros(rows, dtype=int)
+    floor = min(int(min_lag), max_lags)
+    if max_lags == 0 or floor == max_lags:
+        return np.full(rows, max_lags, dtype=int)
     if rule in VECTOR_RULES:
         values = lag_criteria_many(ols_detrend_many(xs, spec), rule, max_lags)
         values = np.where(np.isfinite(values), values, np.inf)
+        values[:, :floor] = np.inf
         return np.asarray(np.argmin(values, axis=1))
-    return np.array([choose_dfgls_lag(row, spec, rule, max_lags) for row in xs])
+    return np.array([max(floor, choose_dfgls_lag(row, spec, rule, max_lags)) for row in xs])
 
 
 def dfgls_tau_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:
@@ -124,8 +127,8 @@ def dfgls_tau_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:
 
 
 def dfgls_many(xs: np.ndarray, spec: str, rule: str = "maic", max_lags: int = 0,
-               fixed: int | None = None) -> tuple[np.ndarray, np.ndarray]:
+               fixed: int | None = None, min_lag: int = 0) -> tuple[np.ndarray, np.ndarray]:
     """(τ^GLS, lag order) for every row of ``xs`` (series of one length)."""
     xs = np.asarray(xs, dtype=float)
-    lags = choose_lags_many(xs, spec, rule, max_lags, fixed)
+    lags = choose_lags_many(xs, spec, rule, max_lags, fixed, min_lag)
     return dfgls_tau_many(gls_detrend_many(xs, spec), lags), lags
