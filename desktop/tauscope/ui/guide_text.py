@@ -89,11 +89,16 @@ verdict scorecard (known processes, 500 series per cell, 50 to 500 observations)
 sequence called random walks stationary 15–21% of the time with AIC lags and 10–13% with the
 modified AIC, at a nominal 5%.</p>
 <p>The <b>Size-controlled</b> strategy, the default, decides instead with the union of rejections
-(Harvey, Leybourne &amp; Taylor 2009, 2012): four Dickey-Fuller tests (on the series with its mean
-or trend removed by GLS, Elliott, Rothenberg &amp; Stock 1996, and by OLS) each against its own
-critical value scaled by a constant κ, simulated at the series' length, so that the whole decision
-on each difference keeps the chosen level. The steps are marked <b>DF-GLS</b>, τ, <b>M</b> (the
-union against κ) and <b>z<sub>λ</sub></b>: whether the series has a trend (or, with a unit root, a
+(Harvey, Leybourne &amp; Taylor 2009, 2012): four unit-root tests, the Dickey-Fuller t on the
+series with its mean or trend removed by GLS (Elliott, Rothenberg &amp; Stock 1996) and the MSB
+statistic (Stock 1999; Perron &amp; Ng 1996, with the long-run variance of Ng &amp; Perron 2001) on
+the series with them removed by OLS, each against its own critical value scaled by a constant κ,
+simulated at the series' length, so that the whole decision on each difference keeps the chosen
+level. On a difference of fewer than 100 observations the lag order is at least 2 and the
+critical values are simulated with the lag choice included, because short series with a negative
+moving average otherwise look stationary too often. The steps are marked <b>DF-GLS</b>,
+<b>MSB</b> (small values speak against a unit root), <b>M</b> (the union against κ) and
+<b>z<sub>λ</sub></b>: whether the series has a trend (or, with a unit root, a
 drift) comes from the trend test of Harvey, Leybourne &amp; Taylor (2007), which holds with or
 without a unit root. The scorecard measures random walks called stationary 2.4–5.0% of the time.
 The price is some power against stationary series whose root is close to one, mostly around a
