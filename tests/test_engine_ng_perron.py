@@ -118,3 +118,20 @@ def test_short_sample_rule_sets_the_smallest_lag() -> None:
     assert (free < 2).any() and floored.min() >= 2
     np.testing.assert_array_equal(floored[free >= 2], free[free >= 2])
     assert (choose_lags_many(xs, "constant", "maic", 1, min_lag=2) == 1).all()  # capped by the maximum
+
+
+def test_an_exact_fit_in_the_batch_leaves_the_other_rows_alone() -> None:
+    """A row whose regression is singular gets NaN; the others equal their own one-row
+    results (the fast path batches series of one length; tests/test_engine_fast_path.py)."""
+    from tauscope.engine.unitroot.dfgls_many import dfgls_tau_many
+
+    walks = gls_detrend_many(_walks(3, 40, 21), "constant")
+    exact = gls_detrend_many(np.full((1, 40), 7.0), "constant")  # a constant: Z'Z is zero
+    rows = np.vstack([walks[:2], exact, walks[2:]])
+    lags = np.full(4, 2)
+    tau = dfgls_tau_many(rows, lags)
+    s2 = spectral_ar_many(rows, lags)
+    assert np.isnan(tau[2]) and np.isnan(s2[2])
+    for i, r in ((0, 0), (1, 1), (3, 2)):
+        assert tau[i] == dfgls_tau_many(walks[r:r + 1], lags[:1])[0]
+        assert s2[i] == spectral_ar_many(walks[r:r + 1], lags[:1])[0]

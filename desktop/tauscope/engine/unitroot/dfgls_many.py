@@ -118,12 +118,28 @@ def dfgls_tau_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:
         if df < 1:
             continue
         with np.errstate(divide="ignore", invalid="ignore"):
-            try:
-                beta, rss, inv_diag = solve_moments(raw_moments(columns, y))
-            except np.linalg.LinAlgError:
-                continue
+            beta, rss, inv_diag = solve_rows(raw_moments(columns, y))
             tau[rows] = beta[:, 0] / np.sqrt(rss / df * inv_diag[:, 0])
     return tau
+
+
+def solve_rows(moments: CrossProducts) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """:func:`solve_moments` for every row; when one row's Z'Z is singular (an exact fit),
+    the rows are solved one by one and that row alone gets NaN, so a row's result never
+    depends on which other rows share its batch."""
+    try:
+        return solve_moments(moments)
+    except np.linalg.LinAlgError:
+        pass
+    rows, m = moments.zy.shape
+    beta, rss, inv_diag = np.full((rows, m), np.nan), np.full(rows, np.nan), np.full((rows, m), np.nan)
+    for r in range(rows):
+        try:
+            b, s, d = solve_moments(CrossProducts(moments.zz[r:r + 1], moments.zy[r:r + 1], moments.yy[r:r + 1]))
+        except np.linalg.LinAlgError:
+            continue
+        beta[r], rss[r], inv_diag[r] = b[0], s[0], d[0]
+    return beta, rss, inv_diag
 
 
 def dfgls_many(xs: np.ndarray, spec: str, rule: str = "maic", max_lags: int = 0,

@@ -30,7 +30,8 @@ from __future__ import annotations
 
 import numpy as np
 
-from tauscope.engine.distributions.simulate import raw_moments, solve_moments
+from tauscope.engine.distributions.simulate import raw_moments
+from tauscope.engine.unitroot.dfgls_many import solve_rows
 
 M_STATISTICS = ("mza", "msb", "mzt")
 
@@ -56,10 +57,7 @@ def spectral_ar_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:
             continue
         y, columns = _columns(detrended[rows], k)
         with np.errstate(divide="ignore", invalid="ignore"):
-            try:
-                beta, rss, _ = solve_moments(raw_moments(columns, y))
-            except np.linalg.LinAlgError:
-                continue
+            beta, rss, _ = solve_rows(raw_moments(columns, y))
             out[rows] = (rss / n) / (1.0 - np.sum(beta[:, 1:], axis=1)) ** 2
     return out
 
