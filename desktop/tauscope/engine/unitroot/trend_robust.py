@@ -39,7 +39,6 @@ from scipy.stats import norm
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED
 from tauscope.engine.unitroot.dfgls_many import dfgls_many
-from tauscope.engine.unitroot.union_components import min_lag
 from tauscope.engine.unitroot.union_lookup import table_trend_critical_value
 
 HLT_G = 0.00025  # Harvey, Leybourne & Taylor (2007), two-sided 5% (from memory)
@@ -104,7 +103,7 @@ def trend_critical_value(length: int, alpha: float = 0.05, rule: str = "maic", m
     quantiles = [float(norm.ppf(1.0 - alpha / 2.0))]
     for xs in (np.cumsum(rng.standard_normal((reps, length)), axis=1),
                rng.standard_normal((reps, length))):
-        u, _ = dfgls_many(xs, "trend", rule, max_lags, None, min_lag(length, rule))
+        u, _ = dfgls_many(xs, "trend", rule, max_lags)
         z = trend_statistics(xs, u)["z"]
         quantiles.append(float(np.nanquantile(np.abs(z), 1.0 - alpha)))
     return max(quantiles)

@@ -7,20 +7,15 @@ both the trend and initial condition", Journal of Econometrics 169(2), 188-195.
 
 Components: the Dickey-Fuller t statistic on the GLS-detrended series (DF-GLS, c̄ = −7
 with a constant, −13.5 with a trend; Elliott, Rothenberg & Stock 1996) and, in the
-four-test form of HLT (2012), a statistic on the OLS-detrended series, which keeps its
-power when the initial observation is far from the mean, where the GLS versions lose it:
-here MSB (Stock 1999; Perron & Ng 1996) with Ng & Perron's (2001) s²_AR, which keeps more
-power with MAIC lags (:mod:`tauscope.engine.unitroot.union_components`, which also holds
-the short-sample rule: below 100 values a minimum lag of 2 and a null simulated with the
-lag choice included).
-Each component i has its own α-level critical value cv_i (τ_i below stands for any
-component's statistic); the unit root is rejected when any
+four-test form of HLT (2012), on the OLS-detrended series (asymptotically the usual
+ADF τ_μ and τ_τ), which keeps its power when the initial observation is far from the
+mean, where the GLS versions lose it.  Each component i has its own α-level critical
+value cv_i; the unit root is rejected when any
 
     τ_i < κ·cv_i,   i.e. when   M = max_i τ_i / cv_i > κ,
 
 and κ ≥ 1, the (1 − α) quantile of M under the null, makes the union's size α.  The
-null is simulated (driftless Gaussian random walks, no lag augmentation on levels of 100
-values or more, fixed seed):
+null is simulated (driftless Gaussian random walks, no lag augmentation, fixed seed):
 ``critical="finite"`` at the series' own length, read from the table simulated once on a
 grid of lengths and interpolated in 1/T (:mod:`tauscope.engine.unitroot.union_lookup`;
 simulated directly, cached, below the grid), ``"simulate"`` always simulated directly at
@@ -44,13 +39,17 @@ from functools import lru_cache
 import numpy as np
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED, shock_chunks
-from tauscope.engine.unitroot.dfgls_many import choose_lags_many
+from tauscope.engine.unitroot.dfgls_many import (
+    choose_lags_many,
+    dfgls_tau_many,
+    gls_detrend_many,
+    ols_detrend_many,
+)
 from tauscope.engine.unitroot.trend_robust import (
     trend_critical_value,
     trend_found,
     trend_statistics,
 )
-from tauscope.engine.unitroot.union_components import component_statistic, min_lag, short
 from tauscope.engine.unitroot.union_lookup import table_constants, table_power
 
 COMPONENTS = {
@@ -68,9 +67,8 @@ POWER_PHI = 0.95  # the tabulated power's AR(1) alternative (the badge's conditi
 POWER_REPS = 2_000  # union_power's default replications when simulated directly
 ASYMPTOTIC_LENGTH = 2_000
 ASYMPTOTIC_REPS = 200_000
-# cv of each component (the OLS ones as −1/MSB) and κ, simulated at T = 2,000 with 200,000
-# replications, seed DEFAULT_SEED (the same draws as the table's T = 2,000 row; also printed
-# by ``python -m tauscope.engine.unitroot.union``).
+# cv of each component and κ, simulated at T = 2,000 with 200,000 replications, seed
+# DEFAULT_SEED, by ``python -m tauscope.engine.unitroot.union``.
 ASYMPTOTIC: dict[str, dict[float, tuple[tuple[float, ...], float]]] = {
     "two": {
         0.01: ((-2.5739, -3.4178), 1.0670),
@@ -78,11 +76,17 @@ ASYMPTOTIC: dict[str, dict[float, tuple[tuple[float, ...], float]]] = {
         0.10: ((-1.6224, -2.5670), 1.1252),
     },
     "four": {
-        0.01: ((-2.5739, -3.4178, -6.3076, -7.5595), 1.0993),
-        0.05: ((-1.9474, -2.8571, -5.2163, -6.5127), 1.1405),
-        0.10: ((-1.6224, -2.5670, -4.6519, -5.9711), 1.1732),
+        0.01: ((-2.5739, -3.4178, -3.4247, -3.9601), 1.1119),
+        0.05: ((-1.9474, -2.8571, -2.8649, -3.4134), 1.1591),
+        0.10: ((-1.6224, -2.5670, -2.5666, -3.1301), 1.1981),
     },
 }
+
+
+def detrended(xs: np.ndarray, component: str) -> np.ndarray:
+    """The series of a component ("gls-constant", …): GLS- or OLS-detrended rows."""
+    method, spec = component.split("-")
+    return gls_detrend_many(xs, spec) if method == "gls" else ols_detrend_many(xs, spec)
 
 
 @dataclass(frozen=True)
@@ -100,24 +104,14 @@ class UnionConstants:
 def union_null(length: int, reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
                components: tuple[str, ...] = COMPONENTS["four"]) -> np.ndarray:
     """(reps, components) statistics for driftless Gaussian random walks of ``length``
-    values, all components from the same path: without lag augmentation, or, on a short
-    level (:func:`~tauscope.engine.unitroot.union_components.short`), with the default lag
-    choice applied to each path (MAIC up to ⌊6 (T/100)^{1/4}⌋, at least the short-sample
-    minimum), so that the null includes the lag-selection step."""
+    values, all components from the same path, without lag augmentation."""
     if length < 10:
         raise ValueError("the union needs at least 10 values")
     parts = []
-    cap = max_lags_schwert(length, None, UNION_LAG_SCALE)
     for shocks in shock_chunks(length, reps, seed, width=2 * len(components)):
         paths = np.cumsum(shocks, axis=1)
-        if short(length):
-            chosen = {spec: choose_lags_many(paths, spec, "maic", cap, None, min_lag(length, "maic"))
-                      for spec in ("constant", "trend")}
-            lags = [chosen[c.split("-")[1]] for c in components]
-        else:
-            lags = [np.zeros(paths.shape[0], dtype=int)] * len(components)
-        parts.append(np.column_stack([component_statistic(paths, c, k) for c, k in zip(components, lags,
-                                                                                        strict=True)]))
+        zeros = np.zeros(paths.shape[0], dtype=int)
+        parts.append(np.column_stack([dfgls_tau_many(detrended(paths, c), zeros) for c in components]))
     return np.vstack(parts)
 
 
@@ -189,9 +183,8 @@ def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha
                 fixed: int | None = None, critical: str = "finite",
                 components: str = "four") -> UnionLevel:
     """The union of rejections on every row of ``xs`` (already differenced ``difference`` times)."""
-    floor = min_lag(xs.shape[1], rule)
-    lags = {spec: choose_lags_many(xs, spec, rule, max_lags, fixed, floor) for spec in ("constant", "trend")}
-    tau = {c: component_statistic(xs, c, lags[c.split("-")[1]]) for c in COMPONENTS[components]}
+    lags = {spec: choose_lags_many(xs, spec, rule, max_lags, fixed) for spec in ("constant", "trend")}
+    tau = {c: dfgls_tau_many(detrended(xs, c), lags[c.split("-")[1]]) for c in COMPONENTS[components]}
     constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components,
                                 source=_source(critical))
     margin = margins(tau, constants)

@@ -1,4 +1,8 @@
-"""The union's component statistics, and its rule for short samples.
+"""A candidate set of the union's component statistics, and a rule for short samples.
+
+Measured by benchmarks/union_tuning.py and the verdict scorecard (DEVELOPERS.md, "Verdict
+scorecard"); not used by the engine's union on this branch (MSB with AIC lags fails to
+reject on over-differenced series).
 
 The union of rejections (Harvey, Leybourne & Taylor 2009, 2012) takes one unit-root
 statistic per detrending (GLS or OLS) and deterministic case (constant or trend):
