@@ -22,7 +22,14 @@ The series are the scorecard's (same generator, same seeds).  A configuration se
   or "asymptotic" (the engine's large-T table); ``small_null`` replaces it below T = 100;
 * ``min_lag`` / ``small_min_lag`` (below T = 100): the smallest lag order the rule may pick
   (chosen on the scorecard; no citation);
-* ``rule``: "maic" (Ng & Perron 2001), "aic", "bic", "hqc", "tsig" (Ng & Perron 1995).
+* ``rule``: "maic" (Ng & Perron 2001), "aic", "bic", "hqc", "tsig" (Ng & Perron 1995);
+* ``statistic`` (the GLS components) and ``ols_statistic`` (the OLS ones): "tau" (the
+  Dickey-Fuller t), or an M statistic of Ng & Perron (2001) from the same regression and lag
+  (:mod:`tauscope.engine.unitroot.ng_perron_many`): "mzt", "mza", "nmsb" (−1/MSB, so that
+  small MSB rejects), "mzt0"/"mza0" with the initial value's term T⁻¹ỹ_1² (needed on
+  OLS-detrended series, Perron & Ng 1996; "mzt" on OLS data leaves it out, which is not a
+  published statistic).  "msb-ols-short" is the candidate of the M-statistics study
+  (DEVELOPERS.md, "Verdict scorecard"; wired on the branch verdict-msb-wired, not here).
 
 ``--frontier LENGTH:PROCESS`` prints power against the worst size as κ is scaled: it shows
 whether any κ at that length meets both rows for a given lag rule and cap.
@@ -52,6 +59,7 @@ from tauscope.engine.unitroot.dfgls_many import (
     lag_criteria_many,
     ols_detrend_many,
 )
+from tauscope.engine.unitroot.ng_perron_many import m_statistics_many
 from tauscope.engine.unitroot.trend_robust import (
     trend_critical_value,
     trend_found,
@@ -61,10 +69,10 @@ from tauscope.engine.unitroot.union import (
     ASYMPTOTIC,
     COMPONENTS,
     constants_from_draws,
-    detrended,
     max_lags_schwert,
     orders_from_rejections,
 )
+from tauscope.engine.unitroot.union_components import detrended
 
 NULL_REPS = 20_000
 
@@ -81,6 +89,8 @@ class Config:
     min_lag: int = 0
     small_min_lag: int | None = None  # the smallest lag order below T = 100 (default min_lag)
     small_null: str | None = None  # the null below T = 100 (default null)
+    statistic: str = "tau"  # the GLS components: "tau" (DF-GLS) or an M statistic "mzt", "mza"
+    ols_statistic: str = "tau"  # the OLS components: "tau" or an M statistic on OLS-detrended data
 
     def cap(self, length: int) -> int:
         c = self.small_scale if (self.small_scale is not None and length < 100) else self.scale
@@ -95,7 +105,8 @@ class Config:
 
 
 CONFIGS: dict[str, Config] = {
-    "engine": Config(),
+    "engine": Config(),  # the union as wired: four t statistics
+    "tau-union": Config(),  # the same, by the name the M-statistics study uses
     "selected-null": Config(null="selected"),
     "own-lags": Config(select_on="own"),
     "two": Config(components="two"),
@@ -108,6 +119,11 @@ CONFIGS: dict[str, Config] = {
     "scale8-selected": Config(scale=8.0, null="selected"),
     "scale4-selected": Config(scale=4.0, null="selected"),
     "scale5-selected": Config(scale=5.0, null="selected"),
+    # M statistics (Ng & Perron 2001) as components, and the short-sample rule
+    "mzt-gls": Config(statistic="mzt"),
+    "mzt-all": Config(statistic="mzt", ols_statistic="mzt0"),
+    "msb-ols": Config(ols_statistic="nmsb"),
+    "msb-ols-short": Config(ols_statistic="nmsb", small_null="selected", small_min_lag=2),
 }
 
 
@@ -142,10 +158,25 @@ def _lags_on(series: np.ndarray, rule: str, cap: int, min_lag: int = 0) -> np.nd
     return np.asarray(np.argmin(values, axis=1))
 
 
+def component_statistic(xs: np.ndarray, component: str, lags: np.ndarray, config: Config) -> np.ndarray:
+    """One component's statistic: τ of the DF regression on the detrended series, or an M
+    statistic of Ng & Perron (2001) from the same regression (``config.statistic`` for the
+    GLS components, ``config.ols_statistic`` for the OLS ones)."""
+    kind = config.statistic if component.startswith("gls") else config.ols_statistic
+    series = detrended(xs, component)
+    if kind == "tau":
+        return dfgls_tau_many(series, lags)
+    if kind == "nmsb":  # −1/MSB: rejects for small MSB, so the union's scaling reads MSB < cv/κ
+        return -1.0 / m_statistics_many(series, lags)["msb"]
+    if kind.endswith("0"):  # "mzt0": with the initial value's term (Perron & Ng 1996)
+        return m_statistics_many(series, lags, initial=True)[kind[:-1]]
+    return m_statistics_many(series, lags)[kind]
+
+
 def statistics(xs: np.ndarray, config: Config) -> np.ndarray:
     """(rows, components) union statistics τ_i."""
     lags = component_lags(xs, config)
-    return np.column_stack([dfgls_tau_many(detrended(xs, c), lags[c]) for c in COMPONENTS[config.components]])
+    return np.column_stack([component_statistic(xs, c, lags[c], config) for c in COMPONENTS[config.components]])
 
 
 @lru_cache(maxsize=256)
@@ -160,7 +191,7 @@ def constants(length: int, config: Config) -> tuple[np.ndarray, float]:
         paths = np.cumsum(shocks, axis=1)
         if config.null_at(length) == "plain":
             zeros = np.zeros(paths.shape[0], dtype=int)
-            parts.append(np.column_stack([dfgls_tau_many(detrended(paths, c), zeros) for c in names]))
+            parts.append(np.column_stack([component_statistic(paths, c, zeros, config) for c in names]))
         else:
             parts.append(statistics(paths, config))
     cvs, kappa = constants_from_draws(np.vstack(parts), config.alpha)
@@ -206,7 +237,7 @@ def pair_constants(length: int, config: Config) -> dict[str, tuple[np.ndarray, f
     from the same plain null draws as the four-component union."""
     names = COMPONENTS["four"]
     draws = np.vstack([
-        np.column_stack([dfgls_tau_many(detrended(np.cumsum(s, axis=1), c), np.zeros(s.shape[0], dtype=int))
+        np.column_stack([component_statistic(np.cumsum(s, axis=1), c, np.zeros(s.shape[0], dtype=int), config)
                          for c in names])
         for s in shock_chunks(length, NULL_REPS, DEFAULT_SEED, width=2 * len(names))])
     out = {}
@@ -223,8 +254,8 @@ def pretest_reject(xd: np.ndarray, config: Config) -> np.ndarray:
     four = replace(config, components="four")
     lags = component_lags(xd, four)
     names = COMPONENTS["four"]
-    tau = np.column_stack([dfgls_tau_many(detrended(xd, c), lags[c]) for c in names])
-    z = trend_statistics(xd, tau[:, 1])["z"]
+    tau = np.column_stack([component_statistic(xd, c, lags[c], config) for c in names])
+    z = trend_statistics(xd, dfgls_tau_many(detrended(xd, "gls-trend"), lags["gls-trend"]))["z"]
     cv = trend_critical_value(xd.shape[1], config.alpha, config.rule, config.cap(xd.shape[1]))
     trend = trend_found(z, cv)
     table = pair_constants(xd.shape[1], config)

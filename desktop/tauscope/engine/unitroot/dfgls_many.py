@@ -127,28 +127,31 @@ def _fits_one_by_one(moments: CrossProducts) -> tuple[np.ndarray, np.ndarray]:
 
 
 def choose_lags_many(xs: np.ndarray, spec: str, rule: str, max_lags: int,
-                     fixed: int | None = None) -> np.ndarray:
+                     fixed: int | None = None, min_lag: int = 0) -> np.ndarray:
     """Lag order per row, chosen on the OLS-detrended series (Perron & Qu 2007); ties go
     to the shorter lag.  ``rule`` "fixed" uses ``fixed``; "tsig" asks the one-series
-    rule of :mod:`tauscope.engine.unitroot.dfgls` row by row."""
-    return choose_lags_detrended(xs, None, spec, rule, max_lags, fixed)
+    rule of :mod:`tauscope.engine.unitroot.dfgls` row by row.  The choice is among
+    ``min(min_lag, max_lags)`` … ``max_lags``."""
+    return choose_lags_detrended(xs, None, spec, rule, max_lags, fixed, min_lag)
 
 
 def choose_lags_detrended(xs: np.ndarray, ols: np.ndarray | None, spec: str, rule: str,
-                          max_lags: int, fixed: int | None = None) -> np.ndarray:
+                          max_lags: int, fixed: int | None = None, min_lag: int = 0) -> np.ndarray:
     """:func:`choose_lags_many` given ``ols``, the rows of ``xs`` OLS-detrended with
     ``spec`` (:func:`ols_detrend_many`; None: detrended here), so that a caller that
     needs them anyway detrends once."""
     rows = xs.shape[0]
     if rule == "fixed":
         return np.full(rows, int(fixed or 0))
-    if max_lags == 0:
-        return np.zeros(rows, dtype=int)
+    floor = min(int(min_lag), max_lags)
+    if max_lags == 0 or floor == max_lags:
+        return np.full(rows, max_lags, dtype=int)
     if rule in VECTOR_RULES:
         values = lag_criteria_many(ols_detrend_many(xs, spec) if ols is None else ols, rule, max_lags)
         values = np.where(np.isfinite(values), values, np.inf)
+        values[:, :floor] = np.inf
         return np.asarray(np.argmin(values, axis=1))
-    return np.array([choose_dfgls_lag(row, spec, rule, max_lags) for row in xs])
+    return np.array([max(floor, choose_dfgls_lag(row, spec, rule, max_lags)) for row in xs])
 
 
 def dfgls_tau_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:
@@ -164,17 +167,33 @@ def dfgls_tau_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:
         if df < 1:
             continue
         with np.errstate(divide="ignore", invalid="ignore"):
-            try:
-                beta, rss, inv_diag = solve_moments(stacked_moments(columns, y))
-            except np.linalg.LinAlgError:
-                continue
+            beta, rss, inv_diag = solve_rows(stacked_moments(columns, y))
             tau[rows] = beta[:, 0] / np.sqrt(rss / df * inv_diag[:, 0])
     return tau
 
 
+def solve_rows(moments: CrossProducts) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """:func:`solve_moments` for every row; when one row's Z'Z is singular (an exact fit),
+    the rows are solved one by one and that row alone gets NaN, so a row's result never
+    depends on which other rows share its batch."""
+    try:
+        return solve_moments(moments)
+    except np.linalg.LinAlgError:
+        pass
+    rows, m = moments.zy.shape
+    beta, rss, inv_diag = np.full((rows, m), np.nan), np.full(rows, np.nan), np.full((rows, m), np.nan)
+    for r in range(rows):
+        try:
+            b, s, d = solve_moments(CrossProducts(moments.zz[r:r + 1], moments.zy[r:r + 1], moments.yy[r:r + 1]))
+        except np.linalg.LinAlgError:
+            continue
+        beta[r], rss[r], inv_diag[r] = b[0], s[0], d[0]
+    return beta, rss, inv_diag
+
+
 def dfgls_many(xs: np.ndarray, spec: str, rule: str = "maic", max_lags: int = 0,
-               fixed: int | None = None) -> tuple[np.ndarray, np.ndarray]:
+               fixed: int | None = None, min_lag: int = 0) -> tuple[np.ndarray, np.ndarray]:
     """(τ^GLS, lag order) for every row of ``xs`` (series of one length)."""
     xs = np.asarray(xs, dtype=float)
-    lags = choose_lags_many(xs, spec, rule, max_lags, fixed)
+    lags = choose_lags_many(xs, spec, rule, max_lags, fixed, min_lag)
     return dfgls_tau_many(gls_detrend_many(xs, spec), lags), lags
