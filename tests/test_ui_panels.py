@@ -303,6 +303,11 @@ def test_every_label_fits_at_the_usual_window_sizes(main_window, open_in_window,
                     clipped.append(text)
             stack.extend(model.index(r, 0, index) for r in range(model.rowCount(index)))
     assert clipped == []
+    # The chart's tabs, all six as a quarterly or monthly series shows them, fit without
+    # scroll buttons.
+    tabs = window.chart_panel.tabs
+    tabs.setTabVisible(window.chart_panel.SEASONS, True)
+    assert tabs.tabBar().sizeHint().width() <= tabs.width()
 
 
 def test_column_widths_set_by_hand_are_remembered(qtbot, qt_settings_dir, small_workbook):  # type: ignore[no-untyped-def]

@@ -13,7 +13,7 @@ from tauscope.ui.texts import DIFFERENCE_NAMES, SPEC_NAMES
 
 class LagsChart(Chart):
     title = "Lag orders chart"
-    tab = "Lag orders"
+    tab = "Lags"
     tip = ("The ADF statistic τ for every lag order from 0 to the maximum, with the critical "
            "value; the chosen lag order is marked.")
     guide = "chart-lags"

@@ -27,7 +27,7 @@ if TYPE_CHECKING:
 
 
 class ChartPanel(QWidget):
-    """Tabs: Data, Fitted path, Lag orders, Expanding window, Null distribution, Seasons.  Only
+    """Tabs: Data, Fitted path, Lags, Over time, Null distribution, Seasons.  Only
     the chart in front is drawn; the others when their tab is chosen."""
 
     DATA, FITTED, LAGS, RECURSIVE, NULL, SEASONS = range(6)

@@ -14,7 +14,7 @@ from tauscope.ui.texts import SPEC_NAMES
 
 class RecursiveChart(Chart):
     title = "Expanding window chart"
-    tab = "Expanding window"
+    tab = "Over time"
     tip = ("τ recomputed on an expanding window (the first observations, then more and "
            "more), with the critical value at each size: is the verdict stable over time?")
     guide = "chart-recursive"
