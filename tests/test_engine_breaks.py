@@ -13,7 +13,7 @@ from tauscope.engine.procedure.breaks import (
     SHIFT_T,
     break_outcome,
     break_t_ratios,
-    nested_bic_lag,
+    nested_criterion_lag,
     swings,
 )
 from tauscope.engine.reading.breaks import badge_cap, capped_agreement
@@ -292,6 +292,7 @@ def test_break_lag_order_from_one_factorisation_equals_one_regression_per_lag() 
             shifted[length // 2:] += 5.0
             for x in (walk, shifted):
                 cap = min(8, int(12.0 * (length / 100.0) ** 0.25), length // 4 - 2)
-                assert nested_bic_lag(x, cap) == choose_lag(x, "trend", "bic", cap).lag
-    assert nested_bic_lag(np.arange(80.0), 6) is None  # a straight line: no randomness
-    assert nested_bic_lag(np.tile([1.0, 2.0, 3.0, 4.0], 20), 6) is None  # repeats exactly
+                for rule in ("aic", "bic"):
+                    assert nested_criterion_lag(x, cap, rule) == choose_lag(x, "trend", rule, cap).lag
+    assert nested_criterion_lag(np.arange(80.0), 6) is None  # a straight line: no randomness
+    assert nested_criterion_lag(np.tile([1.0, 2.0, 3.0, 4.0], 20), 6) is None  # repeats exactly

@@ -101,7 +101,7 @@ def test_break_test_is_described_only_when_it_ran() -> None:
     settings = Settings()
     both = methods_for(RunRecord(settings, (), (Finding(shifted), Finding(plain))))
     assert "Lee & Strazicich 2013" in both.text and "for shifted," in both.text
-    assert "Schwarz criterion" in both.text
+    assert "Akaike criterion" in both.text
     assert any(r.startswith("Lee, J. & Strazicich, M.C. (2013)") for r in both.references)
     alone = methods_for(RunRecord(settings, (), (Finding(plain),)))
     assert "Strazicich" not in alone.text

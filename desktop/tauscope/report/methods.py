@@ -55,8 +55,8 @@ REFERENCES = {
     "10(3), 251–270.",
     "ls2013": "Lee, J. & Strazicich, M.C. (2013), “Minimum LM Unit Root Test with One "
     "Structural Break”, Economics Bulletin 33(4), 2483–2492.",
-    "schwarz1978": "Schwarz, G. (1978), “Estimating the Dimension of a Model”, Annals of "
-    "Statistics 6(2), 461–464.",
+    "akaike1974": "Akaike, H. (1974), “A New Look at the Statistical Model Identification”, "
+    "IEEE Transactions on Automatic Control 19(6), 716–723.",
     "hlt2007": "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2007), “A Simple, Robust and "
     "Powerful Test of the Trend Hypothesis”, Journal of Econometrics 141(2), 1302–1330.",
     "hlt2009": "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2009), “Unit Root Testing in "
@@ -214,7 +214,7 @@ def _cross_checks(run: RunRecord, a: str, cited: set[str]) -> list[str]:
     tested = [f.name for f in run.findings
               if f.result.breaks is not None and f.result.breaks.test is not None]
     if tested:
-        cited.update({"ls2013", "schwarz1978"})
+        cited.update({"ls2013", "akaike1974"})
         which = ("for every series" if len(tested) == len(run.findings)
                  else "for " + ", ".join(tested))
         more.append(
@@ -222,7 +222,7 @@ def _cross_checks(run: RunRecord, a: str, cited: set[str]) -> list[str]:
             "and KPSS at odds, or a large swing of τ over an expanding window); where one was "
             f"suspected, {which}, the minimum LM test with one level shift allowed under both "
             "hypotheses (Lee & Strazicich 2013) ran on the levels, its lag order chosen by the "
-            "Schwarz criterion (Schwarz 1978, at most 8) and its critical values simulated at "
+            "Akaike criterion (Akaike 1974, at most 8) and its critical values simulated at "
             "the series’ own length."
         )
     powers = [f.result.evidence.power for f in run.findings

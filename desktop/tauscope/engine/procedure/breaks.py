@@ -21,14 +21,16 @@ When one fires, the minimum LM test with one level shift (Lee & Strazicich 2013,
 :mod:`tauscope.engine.unitroot.lm_break`) runs on the levels, with one lag order for every
 candidate break and critical values simulated at the series' length
 (:mod:`tauscope.engine.distributions.break_null`).  The lag order is chosen by the
-Schwarz criterion, BIC (Schwarz 1978), on the ADF regression of the levels with constant and
+Akaike criterion, AIC (Akaike 1974), on the ADF regression of the levels with constant and
 trend, up to min(8, ⌊12 (T/100)^{1/4}⌋) (8 is Lee & Strazicich's bound; the second is
-Schwert 1989's): that regression leaves the shift out, and the lighter penalties of AIC and
-MAIC let long lags soak it up, which takes the test's power (measured with
-``benchmarks/break_verdicts.py``, AR(0.5) with a 5σ shift at T = 200, 300 series: right
-verdict 58% with the MAIC order of the default strategy, 91% with BIC; random walks, with or
-without a 10σ jump, ARIMA(1,1,0) and ARIMA(0,1,1) with θ = ±0.5 called stationary with a
-break in 0–2% either way).  When it rejects, the regression
+Schwert 1989's), whatever rule the strategy uses: that regression leaves the shift out, and
+MAIC's penalty lets long lags soak it up, which takes the test's power.  The heavier penalty
+of BIC does better on a shift but keeps too few lags against a negative MA, where the test
+then rejects falsely.  Measured (default settings otherwise): AR(0.5) with a 5σ shift at
+T = 200, right verdict (``benchmarks/break_verdicts.py``, 300 series) 58% with the MAIC
+order, 91% with BIC, see DEVELOPERS.md for AIC; ARIMA(0,1,1) with θ = −0.8 at T = 200 called
+I(0) (200 series) 18% with MAIC, 21.5% with AIC, 28.5% with BIC (stationary with a break
+3%, 8%, 17.5%).  When it rejects, the regression
 Δy_t = c + b·t + θ DU_t + d B_t + α y_{t−1} + Σ c_j Δy_{t−j} + e_t at the break (Perron 1989,
 model A; stationary under this alternative) gives two t ratios:
 
@@ -87,6 +89,7 @@ SWING = 1.0  # how far below its critical value an earlier window's τ must be
 SWING_RISE = 1.5  # how far τ must rise from that window to the full sample
 SWING_LAGS = 1  # at most this many lags in the expanding-window τ
 SWING_START = 0.25  # windows ending before this share of the sample are not counted
+BREAK_LAG_RULE = "aic"  # see the module's docstring
 SIMULATED_LENGTH_CAP = 300  # longer series use the null simulated at 300 observations
 _FAILURES = (UntestableSeries, np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
 
@@ -186,25 +189,25 @@ def break_outcome(test: BreakTest, order: int | None) -> str:
 
 
 def break_lags(x: np.ndarray) -> int:
-    """The break test's lag order: BIC on the ADF regression with constant and trend, up to
+    """The break test's lag order: AIC on the ADF regression with constant and trend, up to
     min(MAX_LAGS, ⌊12 (T/100)^{1/4}⌋) (see the module's docstring).  Every lag order from
-    one QR (:func:`nested_bic_lag`); a design that is not clearly of full rank, or a fit
-    that is nearly exact, goes to :func:`choose_lag` (one regression per lag order, with
+    one QR (:func:`nested_criterion_lag`); a design that is not clearly of full rank, or a
+    fit that is nearly exact, goes to :func:`choose_lag` (one regression per lag order, with
     its refusals)."""
     cap = min(MAX_LAGS, int(12.0 * (x.shape[0] / 100.0) ** 0.25), max(x.shape[0] // 4 - 2, 0))
-    lag = nested_bic_lag(x, cap)
-    return choose_lag(x, "trend", "bic", cap).lag if lag is None else lag
+    lag = nested_criterion_lag(x, cap, BREAK_LAG_RULE)
+    return choose_lag(x, "trend", BREAK_LAG_RULE, cap).lag if lag is None else lag
 
 
-def nested_bic_lag(x: np.ndarray, cap: int) -> int | None:
-    """The lag order 0…``cap`` with the least BIC = N (ln 2π + ln(RSS_m/N) + 1) + m ln N
-    (the formula of :meth:`tauscope.engine.regression.ols.OLSFit.criterion`) on the common
-    sample of ``cap`` lags, m = 3 + lag regressors.  RSS_m for every leading block of the
-    design from the one factorisation of [X | y] = Q [[R, c], [0, e]]: RSS_m = e² + Σ_{j≥m}
-    c_j² (Golub & Van Loan 2013, §5.3; see :mod:`tauscope.engine.regression.nested`).  Ties
-    go to the shorter lag.  None when the design is not of full rank (numpy's
-    ``matrix_rank``: then every leading block is, the test :func:`fit` makes) or a fit is
-    within a margin of exact."""
+def nested_criterion_lag(x: np.ndarray, cap: int, rule: str = "aic") -> int | None:
+    """The lag order 0…``cap`` with the least criterion N (ln 2π + ln(RSS_m/N) + 1) + m·c,
+    c = 2 (``"aic"``) or ln N (``"bic"``) (the formula of
+    :meth:`tauscope.engine.regression.ols.OLSFit.criterion`) on the common sample of ``cap``
+    lags, m = 3 + lag regressors.  RSS_m for every leading block of the design from the one
+    factorisation of [X | y] = Q [[R, c], [0, e]]: RSS_m = e² + Σ_{j≥m} c_j² (Golub & Van Loan
+    2013, §5.3; see :mod:`tauscope.engine.regression.nested`).  Ties go to the shorter lag.
+    None when the design is not of full rank (numpy's ``matrix_rank``: then every leading
+    block is, the test :func:`fit` makes) or a fit is within a margin of exact."""
     y, design = adf_design(x, "trend", cap, first=cap)
     n, k = design.shape
     if n <= k + 1 or not np.all(np.isfinite(design)) or np.linalg.matrix_rank(design) < k:
@@ -215,8 +218,9 @@ def nested_bic_lag(x: np.ndarray, cap: int) -> int | None:
     if not np.all(ssr > 1e-12 * max(1.0, float(y @ y))):
         return None
     m = np.arange(3, k + 1)
-    bic = n * (math.log(2.0 * math.pi) + np.log(ssr / n) + 1.0) + m * math.log(n)
-    return int(np.argmin(bic))
+    penalty = {"aic": 2.0, "bic": math.log(n)}[rule]
+    values = n * (math.log(2.0 * math.pi) + np.log(ssr / n) + 1.0) + m * penalty
+    return int(np.argmin(values))
 
 
 def swing_request(constant_lags: int) -> tuple[str, int, int]:
