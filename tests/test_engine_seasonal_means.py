@@ -9,16 +9,13 @@ replications and the limits widened by about two Monte Carlo standard errors.
 
 from __future__ import annotations
 
-import importlib.util
-import sys
-from pathlib import Path
-from types import ModuleType
 
 import numpy as np
 import pandas as pd
 import pytest
 import statsmodels.api as sm
 
+from bench_modules import load_benchmark
 from tauscope.engine import Settings, analyse_many, analyse_series
 from tauscope.engine.seasonal.means import (
     contrasts,
@@ -27,20 +24,11 @@ from tauscope.engine.seasonal.means import (
 )
 from tauscope.engine.unitroot.union import union_constants, union_level
 
-ROOT = Path(__file__).resolve().parents[1]
 
 
-def _load(name: str) -> ModuleType:
-    sys.path.insert(0, str(ROOT / "benchmarks"))
-    spec = importlib.util.spec_from_file_location(name, ROOT / "benchmarks" / f"{name}.py")
-    assert spec is not None and spec.loader is not None
-    module = importlib.util.module_from_spec(spec)
-    sys.modules[spec.name] = module
-    spec.loader.exec_module(module)
-    return module
 
 
-SCORECARD = _load("verdict_scorecard")
+SCORECARD = load_benchmark("verdict_scorecard")
 
 
 def _seasonal_ar(rng: np.random.Generator, n: int, period: int, size: float = 1.0) -> np.ndarray:

@@ -9,31 +9,19 @@ from the scorecard's own generators with its fixed seed.
 
 from __future__ import annotations
 
-import importlib.util
-import sys
-from pathlib import Path
-from types import ModuleType
 
 import numpy as np
 import pytest
 
+from bench_modules import load_benchmark
 from tauscope.engine.unitroot.union import union_orders
 
-ROOT = Path(__file__).resolve().parents[1]
 REPS = 200
 
 
-def _load(name: str) -> ModuleType:
-    sys.path.insert(0, str(ROOT / "benchmarks"))
-    spec = importlib.util.spec_from_file_location(name, ROOT / "benchmarks" / f"{name}.py")
-    assert spec is not None and spec.loader is not None
-    module = importlib.util.module_from_spec(spec)
-    sys.modules[spec.name] = module
-    spec.loader.exec_module(module)
-    return module
 
 
-SCORECARD = _load("verdict_scorecard")
+SCORECARD = load_benchmark("verdict_scorecard")
 
 
 def _orders(name: str, length: int) -> np.ndarray:
