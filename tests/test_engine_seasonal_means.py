@@ -9,7 +9,6 @@ replications and the limits widened by about two Monte Carlo standard errors.
 
 from __future__ import annotations
 
-
 import numpy as np
 import pandas as pd
 import pytest
@@ -23,10 +22,6 @@ from tauscope.engine.seasonal.means import (
     seasonal_means_test,
 )
 from tauscope.engine.unitroot.union import union_constants, union_level
-
-
-
-
 
 SCORECARD = load_benchmark("verdict_scorecard")
 

@@ -9,7 +9,6 @@ from the scorecard's own generators with its fixed seed.
 
 from __future__ import annotations
 
-
 import numpy as np
 import pytest
 
