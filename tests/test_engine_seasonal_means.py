@@ -165,3 +165,18 @@ def test_acceptance_quarterly_seasonal_walk_has_a_seasonal_root() -> None:
     assert words <= {"twice a year", "once a year"}
     assert any("seasonal difference" in note or "sum of the last four quarters" in note
                for r in results for note in r.notes)
+
+
+def test_effects_are_named_by_calendar_season_whatever_the_first_quarter() -> None:
+    """A quarterly series with +5 in Q1 and −5 in Q3 reports those effects under Q1 and Q3
+    whether it starts in a first or a third quarter (constructed example)."""
+    rng = np.random.default_rng(1)
+    for start in ("1990Q1", "1990Q3"):
+        index = pd.period_range(start, periods=160, freq="Q")
+        quarter = np.array([p.quarter for p in index])
+        level = np.select([quarter == 1, quarter == 3], [5.0, -5.0], 0.0)
+        result = analyse_series(pd.Series(level + rng.standard_normal(160), index=index), name="s")
+        assert result.seasonal is not None
+        means = result.seasonal.means
+        effects = dict(zip(means.seasons, means.effects, strict=True))
+        assert abs(effects["Q1"] - 5.0) < 0.5 and abs(effects["Q3"] + 5.0) < 0.5

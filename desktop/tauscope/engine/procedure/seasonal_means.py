@@ -13,7 +13,6 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-import numpy as np
 import pandas as pd
 
 from tauscope.engine.formatting import p_value as fmt_p
@@ -49,8 +48,8 @@ def with_seasonal(prepared: PreparedSeries, mode: str) -> PreparedSeries:
     start = first_season(prepared.index, period)
     fit = seasonal_means_test(prepared.standardised, period, start)
     # the effects in the series' units, in calendar order from the first quarter or January
-    effects = () if fit is None else tuple(
-        float(v) * prepared.scale for v in np.roll(np.asarray(fit.effects), start))
+    # fit.effects are in calendar order already (the contrasts start at ``start``).
+    effects = () if fit is None else tuple(float(v) * prepared.scale for v in fit.effects)
     found = fit is not None and fit.found
     used = mode == "always" or found
     means = SeasonalMeans(
