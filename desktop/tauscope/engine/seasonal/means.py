@@ -59,15 +59,20 @@ def contrasts(n: int, period: int, first_season: int = 0) -> np.ndarray:
     return dummies[:, :-1] - dummies[:, [-1]]
 
 
+def _trend_and_contrasts(n: int, period: int, first_season: int) -> tuple[np.ndarray, np.ndarray]:
+    """([1, (t − t̄)/n, contrasts], the contrasts): the regression the seasonal means are
+    estimated from."""
+    c = contrasts(n, period, first_season)
+    t = np.arange(n, dtype=float)
+    return np.column_stack([np.ones(n), (t - t.mean()) / n, c]), c
+
+
 def remove_seasonal_means(xs: np.ndarray, period: int, first_season: int = 0) -> np.ndarray:
     """Every row of ``xs`` (R, n) minus the fitted seasonal contrasts of its OLS regression
     on [1, t, contrasts]; a 1-D array gives a 1-D array."""
     values = np.asarray(xs, dtype=float)
     rows = np.atleast_2d(values)
-    n = rows.shape[1]
-    c = contrasts(n, period, first_season)
-    t = np.arange(n, dtype=float)
-    design = np.column_stack([np.ones(n), (t - t.mean()) / n, c])
+    design, c = _trend_and_contrasts(rows.shape[1], period, first_season)
     coef = np.einsum("rn,kn->rk", rows, np.linalg.pinv(design))
     out = rows - np.einsum("rk,nk->rn", coef[:, 2:], c)
     return out[0] if values.ndim == 1 else out
@@ -146,10 +151,7 @@ def seasonal_effects(x: np.ndarray, period: int, first_season: int = 0) -> tuple
     """Each calendar season's fixed effect (S values summing to zero, season 0 first: the
     first quarter or January), from the OLS regression of y on [1, t, contrasts]."""
     y = np.asarray(x, dtype=float)
-    n = y.size
-    c = contrasts(n, period, first_season)
-    t = np.arange(n, dtype=float)
-    design = np.column_stack([np.ones(n), (t - t.mean()) / n, c])
+    design, _ = _trend_and_contrasts(y.size, period, first_season)
     coef, _ = _ols(y, design)
     delta = coef[2:]
     effects = np.append(delta, -delta.sum())

@@ -30,6 +30,8 @@ import numpy as np
 from scipy.special import kolmogorov
 from scipy.stats import kstwobign
 
+from tauscope.engine.unitroot.phillips_perron import long_run_variance
+
 
 @dataclass(frozen=True)
 class VarianceChange:
@@ -57,9 +59,7 @@ def kappa2(residuals: np.ndarray, bandwidth: int | None = None) -> tuple[float, 
     g = c - np.arange(1, t + 1) / t * c[-1]
     d = e2 - c[-1] / t
     m = bartlett_bandwidth(t) if bandwidth is None else bandwidth
-    omega = float(d @ d) / t
-    for lag in range(1, min(m, t - 1) + 1):
-        omega += 2.0 * (1.0 - lag / (m + 1.0)) * float(d[lag:] @ d[:-lag]) / t
+    omega = long_run_variance(d, m)  # terms beyond t − 1 lags are empty sums
     k = int(np.argmax(np.abs(g)))
     if not omega > 0.0:
         return float("nan"), k
