@@ -13,11 +13,10 @@ from tauscope.engine.procedure.breaks import (
     SHIFT_T,
     break_outcome,
     break_t_ratios,
-    nested_criterion_lag,
     swings,
 )
 from tauscope.engine.reading.breaks import badge_cap, capped_agreement
-from tauscope.engine.regression.lagchoice import choose_lag
+from tauscope.engine.regression.lagchoice import choose_lag, nested_criterion_lag
 from tauscope.engine.results_breaks import (
     SHIFT_UNCLEAR,
     STATIONARY_WITH_BREAK,

@@ -51,7 +51,6 @@ stationary around a shifting mean than around a fixed one, and the verdict stand
 
 from __future__ import annotations
 
-import math
 from collections.abc import Callable, Sequence
 from functools import lru_cache
 
@@ -69,8 +68,7 @@ from tauscope.engine.procedure.prepare import PreparedSeries
 from tauscope.engine.reading.breaks import break_sentence
 from tauscope.engine.reading.notes import find_jump
 from tauscope.engine.reading.verdicts import agreement
-from tauscope.engine.regression.design import adf_design
-from tauscope.engine.regression.lagchoice import choose_lag
+from tauscope.engine.regression.lagchoice import choose_lag, nested_criterion_lag
 from tauscope.engine.results import RecursiveStatistic, TestResult
 from tauscope.engine.results_breaks import (
     FAILED,
@@ -197,30 +195,6 @@ def break_lags(x: np.ndarray) -> int:
     cap = min(MAX_LAGS, int(12.0 * (x.shape[0] / 100.0) ** 0.25), max(x.shape[0] // 4 - 2, 0))
     lag = nested_criterion_lag(x, cap, BREAK_LAG_RULE)
     return choose_lag(x, "trend", BREAK_LAG_RULE, cap).lag if lag is None else lag
-
-
-def nested_criterion_lag(x: np.ndarray, cap: int, rule: str = "aic") -> int | None:
-    """The lag order 0…``cap`` with the least criterion N (ln 2π + ln(RSS_m/N) + 1) + m·c,
-    c = 2 (``"aic"``) or ln N (``"bic"``) (the formula of
-    :meth:`tauscope.engine.regression.ols.OLSFit.criterion`) on the common sample of ``cap``
-    lags, m = 3 + lag regressors.  RSS_m for every leading block of the design from the one
-    factorisation of [X | y] = Q [[R, c], [0, e]]: RSS_m = e² + Σ_{j≥m} c_j² (Golub & Van Loan
-    2013, §5.3; see :mod:`tauscope.engine.regression.nested`).  Ties go to the shorter lag.
-    None when the design is not of full rank (numpy's ``matrix_rank``: then every leading
-    block is, the test :func:`fit` makes) or a fit is within a margin of exact."""
-    y, design = adf_design(x, "trend", cap, first=cap)
-    n, k = design.shape
-    if n <= k + 1 or not np.all(np.isfinite(design)) or np.linalg.matrix_rank(design) < k:
-        return None
-    r = np.asarray(np.linalg.qr(np.column_stack([design, y]), mode="r"))
-    tail = np.cumsum((r[:k, k] ** 2)[::-1])[::-1]  # Σ_{j≥m} c_j², m = 0…k−1
-    ssr = r[k, k] ** 2 + np.append(tail[3:], 0.0)  # m = 3…k
-    if not np.all(ssr > 1e-12 * max(1.0, float(y @ y))):
-        return None
-    m = np.arange(3, k + 1)
-    penalty = {"aic": 2.0, "bic": math.log(n)}[rule]
-    values = n * (math.log(2.0 * math.pi) + np.log(ssr / n) + 1.0) + m * penalty
-    return int(np.argmin(values))
 
 
 def swing_request(constant_lags: int) -> tuple[str, int, int]:

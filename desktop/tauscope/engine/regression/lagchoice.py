@@ -93,3 +93,27 @@ def _maic(x: np.ndarray, spec: str, max_lags: int) -> LagChoice:
         values.append(math.log(sigma2) + 2.0 * (tau_t + lag) / n)
     best = min((v, k) for k, v in enumerate(values))[1]
     return LagChoice("maic", best, max_lags, tuple(values))
+
+
+def nested_criterion_lag(x: np.ndarray, cap: int, rule: str = "aic") -> int | None:
+    """The lag order 0…``cap`` with the least criterion N (ln 2π + ln(RSS_m/N) + 1) + m·c,
+    c = 2 (``"aic"``) or ln N (``"bic"``) (the formula of
+    :meth:`tauscope.engine.regression.ols.OLSFit.criterion`) on the common sample of ``cap``
+    lags, m = 3 + lag regressors.  RSS_m for every leading block of the design from the one
+    factorisation of [X | y] = Q [[R, c], [0, e]]: RSS_m = e² + Σ_{j≥m} c_j² (Golub & Van Loan
+    2013, §5.3; see :mod:`tauscope.engine.regression.nested`).  Ties go to the shorter lag.
+    None when the design is not of full rank (numpy's ``matrix_rank``: then every leading
+    block is, the test :func:`fit` makes) or a fit is within a margin of exact."""
+    y, design = adf_design(x, "trend", cap, first=cap)
+    n, k = design.shape
+    if n <= k + 1 or not np.all(np.isfinite(design)) or np.linalg.matrix_rank(design) < k:
+        return None
+    r = np.asarray(np.linalg.qr(np.column_stack([design, y]), mode="r"))
+    tail = np.cumsum((r[:k, k] ** 2)[::-1])[::-1]  # Σ_{j≥m} c_j², m = 0…k−1
+    ssr = r[k, k] ** 2 + np.append(tail[3:], 0.0)  # m = 3…k
+    if not np.all(ssr > 1e-12 * max(1.0, float(y @ y))):
+        return None
+    m = np.arange(3, k + 1)
+    penalty = {"aic": 2.0, "bic": math.log(n)}[rule]
+    values = n * (math.log(2.0 * math.pi) + np.log(ssr / n) + 1.0) + m * penalty
+    return int(np.argmin(values))
