@@ -29,13 +29,13 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.unitroot.trend_robust import trend_critical_value
 from tauscope.engine.unitroot.union import (
     UNION_LAG_SCALE,
     UnionConstants,
     UnionLevel,
     deterministic_labels,
+    level_rows,
     max_lags_schwert,
     orders_from_rejections,
     rejections_at,
@@ -182,9 +182,7 @@ def _bootstrap(xs: np.ndarray, levels: dict[int, UnionLevel], rule: str, max_lag
     """The wild bootstrap of the union on every difference level (each series alone)."""
     out = {}
     for d, level in levels.items():
-        xd = np.diff(xs, n=d, axis=1) if d else xs
-        if period is not None:
-            xd = np.asarray(remove_seasonal_means(xd, period))
+        xd = level_rows(xs, d, period)
         out[d] = bootstrap_level(xd, level, rule, _level_max_lags(xd.shape[1], rule, max_lags, fixed), fixed,
                                  period=period)
     return out

@@ -278,7 +278,7 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
     xs = np.asarray(xs, dtype=float)
     levels: dict[int, UnionLevel] = {}
     for d in range(max_difference, -1, -1):
-        xd = _level(xs, d, period)
+        xd = level_rows(xs, d, period)
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
         levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components,
                                 None if known is None else known.levels.get(d), period)
@@ -302,7 +302,7 @@ def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, Un
         chosen = order == o
         if not chosen.any() or d not in levels:
             continue
-        xd = _level(xs[chosen], d, period)
+        xd = level_rows(xs[chosen], d, period)
         z[chosen] = trend_statistics(xd, levels[d].tau_trend[chosen])["z"]
         p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
         critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0), source=_source(critical))
@@ -318,7 +318,7 @@ def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, Un
     return tuple(labels), z
 
 
-def _level(xs: np.ndarray, d: int, period: int | None) -> np.ndarray:
+def level_rows(xs: np.ndarray, d: int, period: int | None = None) -> np.ndarray:
     """Δ^d of every row, its fixed seasonal means removed when ``period`` is given."""
     xd = np.diff(xs, n=d, axis=1) if d else xs
     return xd if period is None else np.asarray(remove_seasonal_means(xd, period))
