@@ -11,6 +11,7 @@ from dataclasses import dataclass
 
 from tauscope import engine
 from tauscope.engine import formatting as fmt
+from tauscope.engine.settings import UNION_STRATEGIES
 from tauscope.report.run import RunRecord
 
 REFERENCES = {
@@ -263,10 +264,20 @@ def critical_words(run: RunRecord) -> str:
     return "published tables (MacKinnon 2010; Dickey & Fuller 1981)"
 
 
+# The union's parts, said the same way whichever critical value judges it.
+_COMPONENTS = ("Dickey-Fuller t statistics on the GLS-detrended (Elliott, Rothenberg & Stock 1996) and "
+               "OLS-detrended series, with a constant and with a trend")
+_LAGS_ORDER_TERMS = (
+    "the lag order by the same rule, chosen on the OLS-detrended series (Perron & Qu 2007). The order "
+    "was found from the highest difference down, and the deterministic terms by the trend test of "
+    "Harvey, Leybourne & Taylor (2007), valid with or without a unit root. The sequence above was "
+    "computed as well and is reported beside it.")
+
+
 def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
     """The size-controlled strategy, when it decided the verdicts."""
     strategy = getattr(run.settings, "strategy", "classic")
-    if strategy not in ("union", "bootstrap"):
+    if strategy not in UNION_STRATEGIES:
         return []
     cited.update({"hlt2007", "hlt2009", "hlt2012", "ers1996", "pq2007", "sac2004"})
     volatility = (
@@ -280,29 +291,20 @@ def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
             "The verdict was decided by the union of rejections over the deterministic terms (Harvey, "
             "Leybourne & Taylor 2009, 2012), with its critical value from the wild bootstrap of Smeekes & "
             "Taylor (2012) (after Cavaliere & Taylor 2008), which stays valid when the variance of the "
-            "shocks changes over the sample: Dickey-Fuller t statistics on the GLS-detrended (Elliott, "
-            "Rothenberg & Stock 1996) and OLS-detrended series, with a constant and with a trend, the "
+            "shocks changes over the sample: " + _COMPONENTS + ", the "
             "largest ratio of each to its own critical value compared with the "
             f"{100 * (1 - run.settings.alpha):.0f}% quantile of the same ratio over {engine.BOOTSTRAP_REPS} "
             "bootstrap series. These were built under the unit-root null from the residuals of an "
             "autoregression of the differenced series (lag order the larger of the union's two), each "
             "multiplied by a random sign (Rademacher weights, Davidson & Flachaire 2008) and recoloured "
-            "with the fitted lag polynomial, with a seed taken from the series' own values; the lag order "
-            "by the same rule, chosen on the OLS-detrended series (Perron & Qu 2007). The order was found "
-            "from the highest difference down, and the deterministic terms by the trend test of Harvey, "
-            "Leybourne & Taylor (2007), valid with or without a unit root. The sequence above was computed "
-            "as well and is reported beside it." + volatility
+            "with the fitted lag polynomial, with a seed taken from the series' own values; " + _LAGS_ORDER_TERMS
+            + volatility
         ]
     return [
         "The verdict was decided by the union of rejections over the deterministic terms (Harvey, "
-        "Leybourne & Taylor 2009, 2012): Dickey-Fuller t statistics on the GLS-detrended (Elliott, "
-        "Rothenberg & Stock 1996) and OLS-detrended series, with a constant and with a trend, each "
+        "Leybourne & Taylor 2009, 2012): " + _COMPONENTS + ", each "
         "compared with its own critical value scaled by a constant simulated at the series' length, "
-        f"so that the whole decision on each difference has size {a}; the lag order by the same rule, "
-        "chosen on the OLS-detrended series (Perron & Qu 2007). The order was found from the highest "
-        "difference down, and the deterministic terms by the trend test of Harvey, Leybourne & Taylor "
-        "(2007), valid with or without a unit root. The sequence above was computed as well and is "
-        "reported beside it." + volatility
+        f"so that the whole decision on each difference has size {a}; " + _LAGS_ORDER_TERMS + volatility
     ]
 
 
