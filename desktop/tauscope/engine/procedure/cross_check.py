@@ -90,7 +90,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
         lags=options.lags, max_lags=estimates.max_lags[settled],
         za_lags=estimates.levels[settled].adf["trend"].lags, break_model=options.break_model,
         critical_values=options.critical_values, power=options.power,
-        recursive_by=estimation.recursive, level=level,
+        recursive_by=estimation.recursive, level_of=level,
     )
     extra = _in_units(extra, prepared.scale)
     spec, difference, max_lags = decision.profile_request
@@ -209,7 +209,7 @@ def extra_evidence(
     exact_reps: int = EXACT_REPS,
     seed: int = DEFAULT_SEED,
     recursive_by: Callable[[np.ndarray, str, int, int, float], RecursiveStatistic] | None = None,
-    level: Callable[[int], np.ndarray] | None = None,
+    level_of: Callable[[int], np.ndarray] | None = None,
 ) -> ExtraEvidence:
     """Run the extra tests the user turned on, the power simulation and the recursive τ.
 
@@ -224,7 +224,7 @@ def extra_evidence(
     ``critical_values``: "mackinnon" (published tables and response surfaces) or
     "exact" (simulated at this sample size).  ``recursive_by(x, spec, lags, difference,
     alpha)``: where τ on expanding windows comes from (an estimation's ``recursive``;
-    None: :func:`recursive_tau` here).  ``level(d)``: Δ^d of ``x`` as the ADF regressions
+    None: :func:`recursive_tau` here).  ``level_of(d)``: Δ^d of ``x`` as the ADF regressions
     saw it (``PreparedSeries.level``: the fixed seasonal means removed when the tests allow
     for them); None: Δ^d x.  Failures become ``problems``, one sentence each.
     """
@@ -234,8 +234,8 @@ def extra_evidence(
     x = np.asarray(x, dtype=float)
 
     def at(difference: int) -> np.ndarray:
-        if level is not None:
-            return np.asarray(level(difference), dtype=float)
+        if level_of is not None:
+            return np.asarray(level_of(difference), dtype=float)
         return np.diff(x, n=difference) if difference else x
 
     d = settled_difference(order)
