@@ -11,7 +11,8 @@
   sample size, and τ on an expanding window;
 * τ of the deciding regression for every lag order (the lag profile);
 * the break check (:mod:`tauscope.engine.procedure.breaks`): when a break is suspected,
-  the minimum LM test with one level shift (Lee & Strazicich 2013).
+  the minimum LM test with one level shift (Lee & Strazicich 2013); not run when the
+  ``break_check`` setting is "off".
 """
 
 from __future__ import annotations
@@ -99,7 +100,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
                           decisive_x, spec, options.alpha)
     level_adf = estimates.levels[0].adf
     breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, options.alpha,
-                          estimation.recursive)
+                          estimation.recursive) if options.break_check else None
     return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks,
                       seasonal_check(prepared, options.alpha))
 
