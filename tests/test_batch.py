@@ -293,6 +293,19 @@ def test_cross_checks_and_exact_critical_values_reach_the_engine(tmp_path: Path)
     assert written["settings"]["confirm"] == []
 
 
+def test_break_check_switch_reaches_the_engine(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> None:
+    source = _demo_like(tmp_path)
+    out = tmp_path / "findings.json"
+    assert main([str(source), "--series", "Noise", "--break-check", "off", "--out", str(out)]) == 0
+    written = json.loads(out.read_text(encoding="utf-8"))
+    assert written["settings"] == Settings(break_check="off").to_dict()
+    assert written["series"][0]["breaks"] is None
+    assert main([str(source), "--series", "Noise", "--out", str(out)]) == 0
+    assert json.loads(out.read_text(encoding="utf-8"))["settings"]["break_check"] == "automatic"
+    assert main([str(source), "--break-check", "sometimes"]) == 2
+    assert "sometimes" in capsys.readouterr().err
+
+
 def test_unknown_cross_check_is_a_usage_error(capsys: pytest.CaptureFixture[str]) -> None:
     assert main(["whatever.csv", "--check", "kpss,guess"]) == 2
     assert "guess" in capsys.readouterr().err

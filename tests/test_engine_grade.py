@@ -35,11 +35,21 @@ def test_each_missing_condition_withholds_confirmed() -> None:
         "nobs": 149,
         "break_found": True,
         "variance_changed": True,  # κ2 found a change in the shocks' variance (issue 14)
+        "seasonal_roots": ("twice a year",),  # HEGY found a seasonal unit root (issue 14)
     }
     for key, value in changes.items():
         graded = grade(**{**GOOD_I1, key: value})  # type: ignore[arg-type]
         assert graded.agreement == "inconclusive", key
         assert len(graded.missing) == 1, key
+
+
+def test_the_seasonal_and_variance_reasons_are_plain_words() -> None:
+    graded = grade(**{**GOOD_I1, "seasonal_roots": ("once a year", "twice a year")})  # type: ignore[arg-type]
+    (reason,) = graded.missing
+    assert "seasonal unit root" in reason and "once a year, twice a year" in reason
+    assert "seasonal difference" in reason
+    graded = grade(**{**GOOD_I1, "variance_changed": True})  # type: ignore[arg-type]
+    assert graded.missing == ("the size of the shocks changes over the sample",)
 
 
 def test_every_kpss_check_against_the_verdict_is_a_conflict() -> None:

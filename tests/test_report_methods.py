@@ -108,6 +108,14 @@ def test_break_test_is_described_only_when_it_ran() -> None:
     assert not any(r.startswith("Lee, J.") for r in alone.references)
 
 
+def test_break_check_turned_off_is_stated() -> None:
+    plain = analyse_series(np.random.default_rng(7).normal(size=120), Settings(break_check="off"),
+                           name="plain")
+    off = methods_for(RunRecord(Settings(break_check="off"), (), (Finding(plain),)))
+    assert "break check was turned off" in off.text
+    assert "turned off" not in methods_for(RunRecord(Settings(), (), (Finding(plain),))).text
+
+
 def test_bootstrap_strategy_is_described_and_cited() -> None:
     """The wild bootstrap strategy: its paper (Smeekes & Taylor 2012, Econometric Theory 28),
     the earlier one (Cavaliere & Taylor 2008, Econometric Theory 24), the multipliers and B."""

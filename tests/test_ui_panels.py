@@ -120,6 +120,10 @@ def test_settings_dialog_round_trip_defaults_and_memory(main_window):  # type: i
     other = Settings(lag_rule="bic", max_lags=6, alpha=0.10)
     dialog.load(other)
     assert dialog.settings() == other
+    switched = Settings(break_check="off", seasonal="never")
+    dialog.load(switched)
+    assert dialog.break_check.currentData() == "off"
+    assert dialog.settings() == switched
     main_window.apply_settings(other)
     assert store.load_settings() == other
     assert "10%" in main_window.settings_label.text()

@@ -35,6 +35,7 @@ from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_
 from tauscope.data.notes import reader_notes
 from tauscope.data.sample import GAP_RULES, apply_gap_rule, cut_sample, parse_sample
 from tauscope.engine import (
+    BREAK_CHECK_MODES,
     LAG_RULES,
     SEASONAL_MODES,
     STRATEGIES,
@@ -98,6 +99,10 @@ def _parser() -> _Parser:
                              "tests (seasonal dummies) when a test finds them (automatic, the "
                              "default), always, or never (no seasonal means, no seasonal "
                              "unit-root test)")
+    parser.add_argument("--break-check", choices=BREAK_CHECK_MODES, default="automatic",
+                        help="when the evidence points to a break (a jump, a KPSS conflict, a swing "
+                             "of tau), test for a level shift and give the verdict under it "
+                             "(automatic, the default), or off")
     parser.add_argument("--lags", type=_count, help="lag order for --lag-rule fixed")
     parser.add_argument("--max-lags", type=_count, help="largest lag order tried")
     parser.add_argument("--alpha", type=float, choices=(0.01, 0.05, 0.10), default=0.05,
@@ -213,7 +218,8 @@ def _settings(args: argparse.Namespace) -> Settings:
         return Settings(lag_rule=args.lag_rule, lags=args.lags, max_lags=args.max_lags,
                         alpha=args.alpha, max_difference=args.max_difference, confirm=checks,
                         critical_values="exact" if args.exact else "mackinnon",
-                        strategy=args.strategy, seasonal=args.seasonal)
+                        strategy=args.strategy, seasonal=args.seasonal,
+                        break_check=args.break_check)
     except ValueError as exc:
         raise UsageError(str(exc)) from None
 

@@ -32,6 +32,8 @@ if TYPE_CHECKING:
         Verdict,
     )
     from tauscope.engine.settings import (
+        BREAK_CHECK_LABELS,
+        BREAK_CHECK_MODES,
         LAG_RULE_LABELS,
         LAG_RULES,
         SEASONAL_LABELS,
@@ -56,6 +58,8 @@ _WHERE = {
     "TestResult": "results",
     "Verdict": "results",
     "RecursiveStatistic": "results",
+    "BREAK_CHECK_LABELS": "settings",
+    "BREAK_CHECK_MODES": "settings",
     "LAG_RULE_LABELS": "settings",
     "LAG_RULES": "settings",
     "SEASONAL_LABELS": "settings",
@@ -71,6 +75,8 @@ _WHERE = {
 
 __all__ = [
     "BOOTSTRAP_REPS",
+    "BREAK_CHECK_LABELS",
+    "BREAK_CHECK_MODES",
     "LAG_RULES",
     "LAG_RULE_LABELS",
     "SEASONAL_LABELS",

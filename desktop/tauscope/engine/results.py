@@ -17,6 +17,7 @@ from tauscope.engine.finite import finite_or_none as _num
 from tauscope.engine.results_breaks import BreakCheck, BreakInfo
 from tauscope.engine.results_seasonal import SeasonalCheck
 from tauscope.engine.results_strategy import ClassicVerdict
+from tauscope.engine.results_variance import VarianceCheck
 
 
 @dataclass(frozen=True)
@@ -213,6 +214,7 @@ class SeriesResult:
     classic: ClassicVerdict | None = None  # the classic verdict when another strategy decided
     breaks: BreakCheck | None = field(default=None, compare=False, repr=False)
     seasonal: SeasonalCheck | None = field(default=None, compare=False, repr=False)
+    variance: VarianceCheck | None = field(default=None, compare=False, repr=False)
 
     @property
     def ok(self) -> bool:
@@ -246,6 +248,7 @@ class SeriesResult:
             "evidence": self.evidence.to_dict() if self.evidence is not None else None,
             "breaks": self.breaks.to_dict() if self.breaks is not None else None,
             "seasonal": self.seasonal.to_dict() if self.seasonal is not None else None,
+            "variance": self.variance.to_dict() if self.variance is not None else None,
         }
 
 

@@ -18,6 +18,11 @@ SEASONAL_LABELS = {
     "always": "Always, for quarterly and monthly series",
     "never": "Never",
 }
+BREAK_CHECK_MODES = ("automatic", "off")
+BREAK_CHECK_LABELS = {
+    "automatic": "When the evidence points to a break",
+    "off": "Off",
+}
 STRATEGY_LABELS = {
     "union": "Size-controlled (recommended)",
     "bootstrap": "Size-controlled, robust to changing volatility",
@@ -57,6 +62,9 @@ class Settings:
     for fixed seasonal means (seasonal dummies, Dickey, Bell & Miller 1986):
     ``"automatic"`` (the default) when the F test of
     :mod:`tauscope.engine.seasonal.means` finds them, ``"always"`` or ``"never"``.
+    ``break_check`` says whether the break check runs (:mod:`tauscope.engine.procedure.breaks`:
+    the signs of a break, then the break test of Lee & Strazicich when one fires):
+    ``"automatic"`` (the default) or ``"off"`` (no signs, no test, no verdict under a break).
     """
 
     lag_rule: str = "maic"
@@ -70,6 +78,7 @@ class Settings:
     power: bool = True
     strategy: str = "union"
     seasonal: str = "automatic"
+    break_check: str = "automatic"
 
     def __post_init__(self) -> None:
         if self.lag_rule not in LAG_RULES:
@@ -95,6 +104,9 @@ class Settings:
             raise ValueError(f"strategy must be one of {', '.join(STRATEGIES)}, not {self.strategy!r}")
         if self.seasonal not in SEASONAL_MODES:
             raise ValueError(f"seasonal must be one of {', '.join(SEASONAL_MODES)}, not {self.seasonal!r}")
+        if self.break_check not in BREAK_CHECK_MODES:
+            raise ValueError(
+                f"break_check must be one of {', '.join(BREAK_CHECK_MODES)}, not {self.break_check!r}")
         unknown = [c for c in self.confirm if c not in CONFIRMATION_TESTS]
         if unknown:
             raise ValueError(f"unknown confirmation test(s): {', '.join(unknown)}")

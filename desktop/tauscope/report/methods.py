@@ -226,6 +226,9 @@ def _cross_checks(run: RunRecord, a: str, cited: set[str]) -> list[str]:
             "Akaike criterion (Akaike 1974, at most 8) and its critical values simulated at "
             "the series’ own length."
         )
+    if getattr(run.settings, "break_check", "automatic") == "off":
+        more.append("The break check was turned off in the settings: no series was checked for a "
+                    "break in level, and no verdict was given under one.")
     powers = [f.result.evidence.power for f in run.findings
               if f.result.evidence is not None and f.result.evidence.power is not None]
     if powers:

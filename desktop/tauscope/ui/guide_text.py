@@ -124,7 +124,9 @@ KPSS backs it strictly (no rejection even at 10% where none is expected, a rejec
 one is), the classic sequence gives the same order, the verdict is the same at 1% and at 10% and
 with a longer maximum lag, the test had at least 90% power at this length against a stationary
 series with root 0.95 (for a unit-root verdict), there are at least 150 observations, no
-break is suspected, and the size of the shocks does not change over the sample. On the
+break is suspected, the size of the shocks does not change over the sample, and no seasonal
+unit root is found (quarterly and monthly series). Whatever the strategy, a seasonal unit root
+keeps the verdict from "agrees", and the Reading says why in plain words. On the
 scorecard such verdicts were right 97.9% of the time overall (order and deterministic terms)
 and at least 95.2% in every cell with 20 or more of them; about 1 in 10 verdicts qualified.
 The old rule (KPSS alone) was right 71.0% of the time.</p>""",
@@ -280,9 +282,11 @@ length. Each cycle is named in plain words: <i>twice a year</i>, <i>once a year<
 quarters), and for months also three to six times a year. When a seasonal unit root is found the
 Reading suggests a seasonal difference (each quarter or month minus the same one a year earlier;
 right-click the series to add that copy), or, when the long run is already stable, a filter that
-removes only the seasonal roots found. The <b>Seasons</b> chart draws one line per quarter or month
-across the years, each year's average removed: with fixed seasonal means the lines run roughly
-parallel; with a seasonal unit root they wander and cross.</p>""",
+removes only the seasonal roots found; the tests of the order do not allow for such roots, so
+the verdict is then not marked as agreed. KPSS and the other cross-checks see the series with
+its fixed seasonal means removed whenever the unit-root tests do. The <b>Seasons</b> chart draws
+one line per quarter or month across the years, each year's average removed: with fixed seasonal
+means the lines run roughly parallel; with a seasonal unit root they wander and cross.</p>""",
     "settings": """
 <p><b>Verdict decided by</b>: size-controlled (the default) or the classic Dickey-Fuller
 sequence; see "How the verdict is decided". <b>Seasonal means</b> (quarterly and monthly series):
@@ -294,7 +298,10 @@ allow for fixed seasonal means when a test finds them (the default), always, or 
 <b>Cross-checks</b>: KPSS (stationarity as the null), Phillips-Perron, DF-GLS and Zivot-Andrews
 (with the break in the intercept, the trend or both). <b>Critical values</b>: the published
 ones, or exact ones simulated at your sample size (slower). <b>Power</b>: whether the power of
-the deciding test is simulated and reported. Settings are remembered between sessions.</p>""",
+the deciding test is simulated and reported. <b>Break check</b>: when a large jump, KPSS at odds
+with the verdict or a large swing of τ points to a break, test for a level shift that is allowed
+under both hypotheses (Lee &amp; Strazicich 2013) and give the verdict under it (the default), or
+<i>off</i>. Settings are remembered between sessions.</p>""",
     "references": """
 <ul>
 <li>Dickey, D.A. &amp; Fuller, W.A. (1979). Distribution of the estimators for autoregressive time

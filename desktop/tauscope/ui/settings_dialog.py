@@ -17,6 +17,8 @@ from PySide6.QtWidgets import (
 )
 
 from tauscope.engine import (
+    BREAK_CHECK_LABELS,
+    BREAK_CHECK_MODES,
     LAG_RULE_LABELS,
     LAG_RULES,
     SEASONAL_LABELS,
@@ -87,6 +89,10 @@ class SettingsDialog(QDialog):
         for model, words in BREAK_MODELS:
             self.break_model.addItem(words, model)
         self.break_model.setAccessibleName("Kind of break")
+        self.break_check = QComboBox(self)
+        for mode in BREAK_CHECK_MODES:
+            self.break_check.addItem(BREAK_CHECK_LABELS[mode], mode)
+        self.break_check.setAccessibleName("Break check")
         self.critical_values = QComboBox(self)
         for source, words in CRITICAL_SOURCES:
             self.critical_values.addItem(words, source)
@@ -132,6 +138,10 @@ class SettingsDialog(QDialog):
         more.addRow("Kind of &break", self.break_model)
         more.addRow("", _explain("Allows one break at a date chosen from the data (Zivot & "
                                  "Andrews 1992); a missed break looks like a unit root."))
+        more.addRow("Break chec&k", self.break_check)
+        more.addRow("", _explain("When a jump, a KPSS conflict or a swing of τ points to a break, test "
+                                 "for a level shift that is allowed under both hypotheses and give the "
+                                 "verdict under it (Lee & Strazicich 2013). Off: no break check."))
         more.addRow("Critical &values", self.critical_values)
         more.addRow("", _explain("Exact critical values: slower; simulated at your sample size."))
         more.addRow("&Power", self.power)
@@ -182,6 +192,7 @@ class SettingsDialog(QDialog):
         self.critical_values.setCurrentIndex(
             [v for v, _ in CRITICAL_SOURCES].index(settings.critical_values))
         self.power.setChecked(settings.power)
+        self.break_check.setCurrentIndex(BREAK_CHECK_MODES.index(settings.break_check))
         self._rule_changed()
 
     def _checks(self) -> dict[str, QCheckBox]:
@@ -202,4 +213,5 @@ class SettingsDialog(QDialog):
             power=self.power.isChecked(),
             strategy=str(self.strategy.currentData()),
             seasonal=str(self.seasonal.currentData()),
+            break_check=str(self.break_check.currentData()),
         )

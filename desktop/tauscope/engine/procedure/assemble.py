@@ -9,6 +9,7 @@ the verdict implies, for the charts.
 
 from __future__ import annotations
 
+from collections.abc import Callable
 from typing import Any
 
 import numpy as np
@@ -18,6 +19,7 @@ from tauscope.engine.procedure.breaks import fitted_under_break
 from tauscope.engine.procedure.stages import Reading
 from tauscope.engine.results import SeriesResult, TestResult
 from tauscope.engine.results_breaks import BreakCheck
+from tauscope.engine.results_variance import VarianceCheck
 
 
 def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesResult:
@@ -61,7 +63,18 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
         classic=reading.classic,
         breaks=checked.breaks,
         seasonal=checked.seasonal,
+        variance=_variance_check(reading, prepared.label),
     )
+
+
+def _variance_check(reading: Reading, label: Callable[[int], str]) -> VarianceCheck | None:
+    """κ2 of the size-controlled strategies as plain data (None when not computed)."""
+    row = reading.cross_check.decision.estimates.union
+    v = None if row is None else row.variance
+    if v is None:
+        return None
+    return VarianceCheck(float(v.statistic), float(v.critical_value), float(v.p_value), float(v.alpha),
+                         bool(v.found), int(v.position), label(int(v.position)))
 
 
 def _break_path_in_units(z: np.ndarray, scale: float, check: BreakCheck | None

@@ -11,7 +11,8 @@
   sample size, and τ on an expanding window;
 * τ of the deciding regression for every lag order (the lag profile);
 * the break check (:mod:`tauscope.engine.procedure.breaks`): when a break is suspected,
-  the minimum LM test with one level shift (Lee & Strazicich 2013).
+  the minimum LM test with one level shift (Lee & Strazicich 2013); not run when the
+  ``break_check`` setting is "off".
 """
 
 from __future__ import annotations
@@ -71,11 +72,15 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     estimates = decision.estimates
     prepared = estimates.prepared
     x = prepared.standardised  # y / s (exact); the statistics do not depend on s
+    # Δ^d y / s as the ADF regressions saw it: with the fixed seasonal means removed when
+    # the tests allow for them (PreparedSeries.level), so KPSS and the extra tests judge
+    # the same adjusted series as the verdict.
+    level = prepared.level
     order, deterministic = decision.order, decision.deterministic
     checks: list[tuple[TestResult, bool]] = []
     kpss_problem: str | None = None
     try:
-        checks = kpss_checks(x, order, deterministic, options, estimation)
+        checks = kpss_checks(level, order, deterministic, options, estimation)
     except _KPSS_FAILURES as exc:
         kpss_problem = f"The KPSS cross-check could not be computed ({exc})."
     deciding = decision.deciding
@@ -86,7 +91,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
         lags=options.lags, max_lags=estimates.max_lags[settled],
         za_lags=estimates.levels[settled].adf["trend"].lags, break_model=options.break_model,
         critical_values=options.critical_values, power=options.power,
-        recursive_by=estimation.recursive,
+        recursive_by=estimation.recursive, level_of=level,
     )
     extra = _in_units(extra, prepared.scale)
     spec, difference, max_lags = decision.profile_request
@@ -95,7 +100,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
                           decisive_x, spec, options.alpha)
     level_adf = estimates.levels[0].adf
     breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, options.alpha,
-                          estimation.recursive)
+                          estimation.recursive) if options.break_check else None
     return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks,
                       seasonal_check(prepared, options.alpha))
 
@@ -128,22 +133,23 @@ def _in_units(extra: ExtraEvidence, scale: float) -> ExtraEvidence:
     )
 
 
-def kpss_checks(x: np.ndarray, order: int | None, deterministic: str | None,
+def kpss_checks(level: Callable[[int], np.ndarray], order: int | None, deterministic: str | None,
                 options: CrossCheckOptions, estimation: Estimation) -> list[tuple[TestResult, bool]]:
     """(KPSS result, whether the verdict expects it to reject) on the differences that
     bracket the verdict: I(0) expects stationarity in the levels; I(d) expects a
-    rejection on Δ^(d−1) y and none on Δ^d y."""
+    rejection on Δ^(d−1) y and none on Δ^d y.  ``level(d)`` is Δ^d y as the ADF
+    regressions saw it (``PreparedSeries.level``: the fixed seasonal means removed when
+    the tests allow for them)."""
     if not options.kpss or order is None:
         return []
     alpha = options.alpha
     if order == 0:
         spec = "trend" if deterministic == "trend" else "constant"
-        return [(estimation.kpss(x, spec, 0, alpha), False)]
-    below = np.diff(x, n=order - 1) if order > 1 else x
+        return [(estimation.kpss(level(0), spec, 0, alpha), False)]
     spec_below = "trend" if deterministic in ("trend", "constant") else "constant"
     return [
-        (estimation.kpss(below, spec_below, order - 1, alpha), True),
-        (estimation.kpss(np.diff(x, n=order), "constant", order, alpha), False),
+        (estimation.kpss(level(order - 1), spec_below, order - 1, alpha), True),
+        (estimation.kpss(level(order), "constant", order, alpha), False),
     ]
 
 
@@ -204,6 +210,7 @@ def extra_evidence(
     exact_reps: int = EXACT_REPS,
     seed: int = DEFAULT_SEED,
     recursive_by: Callable[[np.ndarray, str, int, int, float], RecursiveStatistic] | None = None,
+    level_of: Callable[[int], np.ndarray] | None = None,
 ) -> ExtraEvidence:
     """Run the extra tests the user turned on, the power simulation and the recursive τ.
 
@@ -218,14 +225,22 @@ def extra_evidence(
     ``critical_values``: "mackinnon" (published tables and response surfaces) or
     "exact" (simulated at this sample size).  ``recursive_by(x, spec, lags, difference,
     alpha)``: where τ on expanding windows comes from (an estimation's ``recursive``;
-    None: :func:`recursive_tau` here).  Failures become ``problems``, one sentence each.
+    None: :func:`recursive_tau` here).  ``level_of(d)``: Δ^d of ``x`` as the ADF regressions
+    saw it (``PreparedSeries.level``: the fixed seasonal means removed when the tests allow
+    for them); None: Δ^d x.  Failures become ``problems``, one sentence each.
     """
     unknown = [t for t in tests if t not in EXTRA_TESTS]
     if unknown:
         raise ValueError(f"unknown test(s): {', '.join(unknown)}")
     x = np.asarray(x, dtype=float)
+
+    def at(difference: int) -> np.ndarray:
+        if level_of is not None:
+            return np.asarray(level_of(difference), dtype=float)
+        return np.diff(x, n=difference) if difference else x
+
     d = settled_difference(order)
-    xd = np.diff(x, n=d) if d else x
+    xd = at(d)
     spec = alternative_spec(order, deterministic)
     top = _max_lags(xd.shape[0], max_lags)
     fixed = lag_rule == "fixed"
@@ -281,7 +296,7 @@ def extra_evidence(
     power_result: PowerResult | None = None
     recursive_result: RecursiveStatistic | None = None
     if deciding_adf is not None:
-        xa = np.diff(x, n=deciding_adf.difference) if deciding_adf.difference else x
+        xa = at(deciding_adf.difference)
         if power and order != 0:  # the power matters when the verdict rests on not rejecting
             try:
                 power_result = power_at(deciding_adf.spec, deciding_adf.nobs, alpha,

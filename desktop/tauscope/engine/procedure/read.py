@@ -23,7 +23,7 @@ from tauscope.engine.reading.breaks import (
     verdict_under_break,
 )
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
-from tauscope.engine.reading.grade import grade
+from tauscope.engine.reading.grade import grade, seasonal_root_reason
 from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
 from tauscope.engine.reading.seasonal import seasonal_found, seasonal_notes
 from tauscope.engine.reading.strategies import (
@@ -58,6 +58,8 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
     if decision.strategy in UNION_STRATEGIES:
         status, classic, strategy_notes = _union_reading(checked, evidence, options)
         status = capped_agreement(status, breaks)
+    else:
+        status, strategy_notes = _classic_capped(status, checked)
     sequence_verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
                                      options.max_difference)
     sequence_verdict = replace(sequence_verdict, strategy=decision.strategy)
@@ -112,7 +114,7 @@ def _union_reading(checked: CrossCheck, evidence: Evidence,
     variance = row.variance
     changed = variance is not None and variance.found
     graded = grade(order, deterministic, list(checked.kpss), classic.order, row.orders_at,
-                   row.long_lag_order, row.power, nobs, found, changed)
+                   row.long_lag_order, row.power, nobs, found, changed, seasonal_roots_found(checked))
     block = ClassicVerdict(classic.order, classic.deterministic,
                            classic_sentence(classic.order, classic.deterministic, classic.weak,
                                             options.alpha), classic.weak)
@@ -122,6 +124,22 @@ def _union_reading(checked: CrossCheck, evidence: Evidence,
              level_note(order, row.orders_at, options.alpha),
              volatility_note(variance, decision.strategy, decision.estimates.prepared.label)]
     return graded.agreement, block, [n for n in notes if n]
+
+
+def seasonal_roots_found(checked: CrossCheck) -> tuple[str, ...]:
+    """The plain names of the seasonal unit roots the cross-check found (none: ())."""
+    roots = None if checked.seasonal is None else checked.seasonal.roots
+    return () if roots is None else roots.seasonal_roots
+
+
+def _classic_capped(status: str | None, checked: CrossCheck) -> tuple[str | None, list[str]]:
+    """The classic sequence's KPSS agreement with the grade's seasonal condition
+    (:mod:`tauscope.engine.reading.grade`, condition 10): a seasonal unit root found turns
+    "confirmed" into "inconclusive", with the reason as a note."""
+    roots = seasonal_roots_found(checked)
+    if status != "confirmed" or not roots:
+        return status, []
+    return "inconclusive", [f"The cross-checks agree, but the verdict is not confirmed: {seasonal_root_reason(roots)}."]
 
 
 def _weak(verdict: Verdict, decision: Decision, alpha: float) -> Verdict:

@@ -83,6 +83,7 @@ class CrossCheckOptions:
     break_model: str
     critical_values: str
     power: bool
+    break_check: bool = True  # the break check runs (the break_check setting not "off")
 
 
 @dataclass(frozen=True)
@@ -118,7 +119,8 @@ def plan_for(settings: Settings) -> Plan:
         decide=DecideOptions(s.strategy, s.alpha, s.max_difference, s.lag_rule),
         cross_check=CrossCheckOptions(s.alpha, "kpss" in s.confirm,
                                       tuple(t for t in s.confirm if t in EXTRA_TESTS), s.lag_rule,
-                                      s.lags, s.break_model, s.critical_values, s.power),
+                                      s.lags, s.break_model, s.critical_values, s.power,
+                                      s.break_check != "off"),
         read=ReadOptions(s.alpha, s.max_difference, "kpss" in s.confirm, s.lag_rule),
         record=tuple(s.to_dict().items()),
     )

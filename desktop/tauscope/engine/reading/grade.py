@@ -18,7 +18,9 @@ cell with 20 or more of them:
 8. no break was found (a Zivot-Andrews rejection caps the grade below "confirmed");
 9. no change in the shocks' variance was found (κ2, Sansó, Aragó & Carrion 2004): under
    one KPSS, the classic sequence and the tabulated power, which the other conditions
-   use, all assume a constant variance, whichever strategy decided.
+   use, all assume a constant variance, whichever strategy decided;
+10. no seasonal unit root was found (HEGY 1990 for quarters, Beaulieu & Miron 1993 for
+   months): the tests of the order assume none, and a seasonal difference may be needed.
 
 "conflict": every KPSS check contradicts the verdict at the chosen level; otherwise
 "inconclusive".  The reasons a verdict was not confirmed are kept, for the notes.
@@ -43,6 +45,13 @@ class Grade:
     missing: tuple[str, ...]  # plain reasons "confirmed" was not granted
 
 
+def seasonal_root_reason(roots: Sequence[str]) -> str:
+    """Why a seasonal unit root keeps the grade down, in plain words."""
+    which = ", ".join(roots)
+    return (f"a seasonal unit root was found (the cycle {which} wanders instead of returning to a fixed "
+            "pattern), which the tests of the order do not allow for: a seasonal difference may be needed")
+
+
 def _kpss_strict(checks: Sequence[tuple[TestResult, bool]]) -> bool:
     if not checks:
         return False
@@ -60,8 +69,9 @@ def _kpss_strict(checks: Sequence[tuple[TestResult, bool]]) -> bool:
 def grade(order: int | None, deterministic: str | None, checks: Sequence[tuple[TestResult, bool]],
           classic_order: int | None, orders_at: dict[float, int | None], long_lag_order: int | None,
           power: tuple[float, float] | None, nobs: int, break_found: bool,
-          variance_changed: bool = False) -> Grade:
-    """The grade of the union's verdict from all the evidence (conditions 1-9 above)."""
+          variance_changed: bool = False, seasonal_roots: Sequence[str] = ()) -> Grade:
+    """The grade of the union's verdict from all the evidence (conditions 1-10 above);
+    ``seasonal_roots``: the plain names of the seasonal unit roots found ("twice a year" …)."""
     if not checks:
         return Grade(None, ())
     if order is None:
@@ -87,6 +97,8 @@ def grade(order: int | None, deterministic: str | None, checks: Sequence[tuple[T
         missing.append("a break is suspected")
     if variance_changed:
         missing.append("the size of the shocks changes over the sample")
+    if seasonal_roots:
+        missing.append(seasonal_root_reason(seasonal_roots))
     if not missing:
         return Grade("confirmed", ())
     if all(test.reject != expect for test, expect in checks):

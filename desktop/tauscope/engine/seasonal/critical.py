@@ -8,7 +8,13 @@ is a seasonal random walk
 
 as in the Monte Carlo designs of Hylleberg, Engle, Granger & Yoo (1990,
 Tables 1a and 1b: quarterly, n = 48, 100, 136, 200) and Beaulieu & Miron
-(1993, Tables: monthly, n = 240, 480).  ``n`` is the length of the series; the
+(1993, Tables: monthly, n = 240, 480).  With seasonal dummies in the regression
+(what the engine uses) the statistics do not depend on where the walk starts:
+any start values are a fixed seasonal pattern, which the dummies take out exactly.
+Without them they do, and the published tables are matched by walks that start
+long before the sample (``presample``, measured in
+tests/test_engine_seasonal_critical.py and benchmarks/hegy_table_conventions.py).
+``n`` is the length of the series; the
 regression of ``seasonal_design`` with ``lags`` lagged Δ_S y is fitted on its
 longest sample, n − S − lags rows.  The statistics do not depend on the error
 variance.
@@ -71,10 +77,13 @@ def _check(period: int, deterministic: str, n: int, lags: int, reps: int) -> Non
         raise ValueError("reps must be at least 100")
 
 
-def seasonal_random_walks(period: int, n: int, reps: int, seed: int) -> Iterator[np.ndarray]:
-    """Chunks of (rows, n) seasonal random walks y_t = y_{t−S} + e_t from zero starts."""
+def seasonal_random_walks(
+    period: int, n: int, reps: int, seed: int, presample: int = 0
+) -> Iterator[np.ndarray]:
+    """Chunks of (rows, n) seasonal random walks y_t = y_{t−S} + e_t from zero starts
+    ``presample`` observations before the first one kept."""
     rng = np.random.default_rng(seed)
-    years = -(-n // period)
+    years = -(-(n + presample) // period)
     width = n * (period + 4)  # the regressors each replication becomes
     chunk = max(1, _CHUNK_VALUES // width)
     done = 0
@@ -82,7 +91,7 @@ def seasonal_random_walks(period: int, n: int, reps: int, seed: int) -> Iterator
         size = min(chunk, reps - done)
         shocks = rng.standard_normal((size, years * period))
         walks = shocks.reshape(size, years, period).cumsum(axis=1).reshape(size, -1)
-        yield walks[:, :n]
+        yield walks[:, presample : presample + n]
         done += size
 
 
@@ -93,22 +102,26 @@ def simulate(
     lags: int = 0,
     reps: int = DEFAULT_REPS,
     seed: int = DEFAULT_SEED,
+    presample: int = 0,
 ) -> np.ndarray:
     """(reps, k) draws of the statistics of ``statistics_for(period)`` under the
-    null, columns in that order; cached and read-only."""
+    null, columns in that order; cached and read-only.  ``presample``: the walks
+    start that many observations before the series (see the module's docstring)."""
     _check(period, deterministic, n, lags, reps)
-    return _simulate(period, deterministic, int(n), int(lags), int(reps), int(seed))
+    if presample < 0:
+        raise ValueError("presample must be 0 or more")
+    return _simulate(period, deterministic, int(n), int(lags), int(reps), int(seed), int(presample))
 
 
 @lru_cache(maxsize=32)
 def _simulate(
-    period: int, deterministic: str, n: int, lags: int, reps: int, seed: int
+    period: int, deterministic: str, n: int, lags: int, reps: int, seed: int, presample: int = 0
 ) -> np.ndarray:
     stats = statistics_for(period)
     m = n - period - lags
     d = n_deterministic(deterministic, period)
     parts = []
-    for walks in seasonal_random_walks(period, n, reps, seed):
+    for walks in seasonal_random_walks(period, n, reps, seed, presample):
         gram = regression_gram(walks, period, lags, deterministic)
         parts.append(statistics(fit_from_gram(gram, m, d), stats))
     draws = np.concatenate(parts, axis=0)
