@@ -202,7 +202,7 @@ def draw_report_charts(run: RunRecord, series: Mapping[str, SeriesData]) -> tupl
     except Exception as exc:  # Qt missing or broken: reports without charts, never a traceback
         reason = f"{type(exc).__name__}: {exc}".replace("\n", " ")
         return {}, f"the charts could not be drawn ({reason}); the reports hold none"
-    return drawn.images, problems_text(drawn)
+    return drawn.charts, problems_text(drawn)
 
 
 def _settings(args: argparse.Namespace) -> Settings:

@@ -69,7 +69,7 @@ class ExportController(QObject):
         charts, problems = None, ""
         if path.suffix.lower() in CHART_FORMATS:  # the same drawing as tauscope batch's
             drawn = draw_charts(run, self.series_panel.model.series_for_key)
-            charts, problems = drawn.images, problems_text(drawn)
+            charts, problems = drawn.charts, problems_text(drawn)
         try:
             written = export(path, run, charts)
         except ExportError as exc:
