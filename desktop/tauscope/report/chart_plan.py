@@ -133,7 +133,7 @@ def x_values(index: pd.Index) -> tuple[np.ndarray, bool]:
     if stamps is not None:
         year = stamps.year.to_numpy(dtype=float)
         days = np.where(stamps.is_leap_year, 366.0, 365.0)
-        return year + (stamps.dayofyear.to_numpy(dtype=float) - 1.0) / days, True
+        return year + (stamps.day_of_year.to_numpy(dtype=float) - 1.0) / days, True
     try:
         return np.asarray(index, dtype=float), False
     except (TypeError, ValueError):
