@@ -32,7 +32,7 @@ TEXT = "#1a1a1a"
 LINE = "#1f4e99"
 ACCENT = "#b35900"
 GRID = "#e3e3e3"
-TITLE_SIZE, TICK_SIZE, KEY_SIZE = 14.0, 11.0, 11.0
+TITLE_SIZE, TICK_SIZE, KEY_SIZE = 15.0, 12.0, 12.0
 CHAR_EM = 0.62
 MONTHS = ("Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec")
 
