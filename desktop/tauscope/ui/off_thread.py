@@ -6,12 +6,17 @@ for the answer: the export of findings (charts, PDF, workbook) is one.
 in the window's thread (as a modal dialog does), checking every few milliseconds whether the
 work is done; it returns the work's value or raises its exception in the caller's thread.
 While it runs, the interpreter hands the GIL over every millisecond (as during an analysis
-run, ``tauscope.ui.worker``), so the window thread waits less for it.  The work must not
+run, ``tauscope.ui.worker``), so the window thread waits less for it, and the garbage
+collector is off: a full collection walks every object alive and holds the GIL meanwhile
+(a third of a second with a thousand findings in memory), which would freeze the window.
+The objects alive before are moved out of its way (``gc.freeze``), as the analysis run
+does; what the work leaves behind is freed by reference counting.  The work must not
 touch widgets: QPainter on a QImage or a PDF writer, fonts and files are fine in any thread.
 """
 
 from __future__ import annotations
 
+import gc
 import sys
 import threading
 from collections.abc import Callable
@@ -43,6 +48,9 @@ def wait_off_thread(work: Callable[[], T]) -> T:
     timer.timeout.connect(lambda: None if thread.is_alive() else loop.quit())
     previous = sys.getswitchinterval()
     sys.setswitchinterval(min(previous, RUN_SWITCH_INTERVAL))
+    collecting = gc.isenabled()
+    gc.freeze()
+    gc.disable()
     try:
         thread.start()
         timer.start()
@@ -52,6 +60,8 @@ def wait_off_thread(work: Callable[[], T]) -> T:
     finally:
         timer.stop()
         sys.setswitchinterval(previous)
+        if collecting:
+            gc.enable()
     if "error" in box:
         raise box["error"]  # type: ignore[misc]
     return box["value"]  # type: ignore[return-value]

@@ -47,11 +47,9 @@ class ExportController(QObject):
     def export_findings(self, target: str | Path | None = None) -> bool:
         """Write every finding to ``target`` (asking where when None); charts go into Excel,
         the web page and the PDF."""
-        import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
         from tauscope.report import ExportError, export
         from tauscope.ui.findings_export import suffix_for_filter
         from tauscope.ui.off_thread import wait_off_thread
-        from tauscope.ui.report_charts import draw_charts, problems_text
 
         if self.busy:  # Ctrl+E again while an export is being written: one at a time
             return False
@@ -77,6 +75,10 @@ class ExportController(QObject):
         series = {f.key: lookup(f.key) for f in run.findings if f.key is not None}
 
         def write() -> tuple[RunRecord, str]:
+            # imported here, off the window's thread: loading them takes a tenth of a second
+            import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
+            from tauscope.ui.report_charts import draw_charts, problems_text
+
             charts, problems = None, ""
             if with_charts:  # the same charts as tauscope batch's
                 drawn = draw_charts(run, series.get)
