@@ -9,13 +9,15 @@ alternating, ``--rounds`` times each:
 
 - writing nothing (no ``--out``: the summary table goes to standard output, here discarded);
 - writing every format: ``--out`` .xlsx, .csv, .json, .tex, .html and .pdf, with each
-  series' chart drawn (``ui/report_charts.draw_charts``, as the window's export draws them)
-  and put into the .xlsx, .html and .pdf, as batch does by default;
+  series' chart (``ui/report_charts.draw_charts``, as the window's export makes them: plain
+  data drawn as SVG in the .html, vectors in the .pdf, a PNG in the .xlsx), as batch does by
+  default;
 - writing every format with ``--no-charts``.
 
 and prints the best time of each and their ratios to writing nothing (the target of issue 15
 is at most 2).  Then, on the findings of one analysis, the charts drawn alone (milliseconds
-per series) and each format alone through ``tauscope.report.export`` with those charts
+per series: the plans, then each drawn as SVG and as the .xlsx's PNG) and each format alone
+through ``tauscope.report.export`` with those charts
 (best of ``--rounds``), in milliseconds per series, with the file's size.
 
 A first small run writing every format (charts included) comes before the timed ones, so that
@@ -153,10 +155,18 @@ def per_format(source: Path, folder: Path, count: int, rounds: int) -> None:
                     tuple(findings))
     drawings = [draw_charts(run) for _ in range(rounds)]
     drawn = min(drawings, key=lambda d: d.seconds)
-    charts = drawn.images
-    print(f"\ncharts drawn alone, same {count} findings (best of {rounds}): "
-          f"{drawn.seconds * 1000 / count:.2f} ms per series, {drawn.seconds:.2f} s, "
-          f"{len(charts)} charts, {sum(map(len, charts.values())) / 1e6:.2f} MB of PNG")
+    charts = drawn.charts
+    print(f"\ncharts made alone, same {count} findings (best of {rounds}): "
+          f"{drawn.seconds * 1000 / count:.2f} ms per series, {len(charts)} charts")
+    from tauscope.report.chart_svg import chart_svg
+    from tauscope.ui.chart_paint import plan_to_png
+
+    for label, draw in (("as SVG", chart_svg), ("as the .xlsx's PNG", plan_to_png)):
+        start = time.perf_counter()
+        size = sum(len(draw(plan)) for plan in charts.values())
+        seconds = time.perf_counter() - start
+        print(f"  drawn {label:20} {seconds * 1000 / count:6.2f} ms per series, "
+              f"{size / 1e6:.2f} MB")
     print(f"\neach format alone with those charts, same {count} findings (best of {rounds}):")
     total = drawn.seconds
     for suffix in FORMATS:

@@ -6,6 +6,9 @@ ticks minus the interval is the longest stall of the event loop, measured until 
 moment after the run ends (so the work done when it ends, such as the autosave of
 the study, counts too).  Target: under 50 ms.  The workbook (monthly, random walks)
 is generated in a temporary folder and opened through the window's real loader.
+Then the same findings are exported as the window does it (Ctrl+E) to .xlsx, .html and .pdf,
+charts included, and the longest stall while they are written is measured the same way
+(``--no-export`` leaves this out).
 As a reference measured in the same run, the script also times the same
 analysis done directly (what the window would freeze for if it ran the engine
 on its own thread) and prints the ratio.
@@ -46,6 +49,8 @@ def main() -> int:
     parser = argparse.ArgumentParser(description=__doc__)
     parser.add_argument("--series", type=int, default=500)
     parser.add_argument("--length", type=int, default=240)
+    parser.add_argument("--no-export", action="store_true",
+                        help="leave out the export's stall (Ctrl+E to .xlsx, .html and .pdf)")
     args = parser.parse_args()
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
 
@@ -116,6 +121,20 @@ def main() -> int:
         idle_stall = longest[0]
         received = window.last_run[1] if window.last_run else 0
 
+        export_stall, exported = 0.0, 0.0
+        if not args.no_export:
+            longest[0] = 0.0
+            last[0] = clock.nsecsElapsed() / 1e6
+            timer.start()
+            started = time.perf_counter()
+            for suffix in (".xlsx", ".html", ".pdf"):
+                if not window.export_findings(Path(folder) / f"findings{suffix}"):
+                    raise SystemExit(f"the export to {suffix} failed")
+            exported = time.perf_counter() - started
+            app.processEvents()
+            timer.stop()
+            export_stall = longest[0]
+
         series = read_workbook(path).series()
         pairs = [(s.name, s.testable_values()) for s in series]
         started = time.perf_counter()
@@ -126,11 +145,14 @@ def main() -> int:
 
     print(f"series analysed in the window : {received} of {len(series)} in {windowed:.2f} s")
     print(f"longest event-loop stall      : {busy_stall:.1f} ms (target under {TARGET_MS:.0f} ms)")
+    if not args.no_export:
+        print(f"export (Ctrl+E) to .xlsx, .html and .pdf with charts: {exported:.2f} s, "
+              f"longest stall {export_stall:.1f} ms")
     print(f"same loop idle (machine noise): {idle_stall:.1f} ms")
     print(f"reference: the same analysis on the window thread would block it for {direct * 1000:.0f} ms")
     print(f"ratio stall / reference block : {busy_stall / (direct * 1000):.4f}")
     print(f"ratio window run / direct run : {windowed / direct:.2f}")
-    return 0 if busy_stall < TARGET_MS else 1
+    return 0 if max(busy_stall, export_stall) < TARGET_MS else 1
 
 
 if __name__ == "__main__":

@@ -12,10 +12,12 @@ from pathlib import Path
 import pytest
 
 from tauscope.engine import formatting as fmt
-from tauscope.report import export
+from tauscope.report import RunRecord, export
+from tauscope.report.chart_plan import ChartPlan, plan_chart
+from tauscope.report.chart_svg import chart_svg
 from tauscope.report.methods import methods_for
 from tauscope.report.tables import deciding_tau, marker
-from test_report_support import FORMULA_NAME, make_run, tiny_png
+from test_report_support import FORMULA_NAME, make_run
 
 
 class _Reader(HTMLParser):
@@ -67,8 +69,14 @@ def page() -> _Reader:
     from tauscope.report.html_export import run_to_html
 
     reader = _Reader()
-    reader.feed(run_to_html(run, charts={run.findings[1].name: tiny_png()}))
+    reader.feed(run_to_html(run, charts={run.findings[1].name: _plan(run, 1)}))
     return reader
+
+
+def _plan(run: RunRecord, index: int) -> ChartPlan:
+    plan = plan_chart(run.findings[index].result)
+    assert plan is not None
+    return plan
 
 
 def test_summary_table_shows_each_verdict_and_tau(page: _Reader) -> None:
@@ -114,8 +122,9 @@ def test_notes_and_methods_are_in_the_page(page: _Reader) -> None:
 
 def test_self_contained_with_the_chart_embedded(page: _Reader) -> None:
     assert page.links, "the chart should be there"
-    assert all(link.startswith("data:image/png;base64,") for link in page.links)
-    assert base64.b64decode(page.links[0].split(",", 1)[1]) == tiny_png()
+    assert all(link.startswith("data:image/svg+xml;base64,") for link in page.links)
+    run = make_run()
+    assert base64.b64decode(page.links[0].split(",", 1)[1]).decode() == chart_svg(_plan(run, 1))
 
 
 def test_markup_special_characters_are_escaped(tmp_path: Path) -> None:
@@ -131,7 +140,7 @@ def test_pdf_is_written_with_every_series(tmp_path: Path, qapp: object) -> None:
 
     run = make_run()
     target = tmp_path / "findings.pdf"
-    export(target, run, charts={run.findings[0].name: tiny_png()})
+    export(target, run, charts={run.findings[0].name: _plan(run, 0)})
     data = target.read_bytes()
     assert data.startswith(b"%PDF-")
     assert data.rstrip().endswith(b"%%EOF")

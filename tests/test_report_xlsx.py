@@ -10,7 +10,7 @@ import pytest
 from openpyxl.worksheet.worksheet import Worksheet
 
 from tauscope import __version__
-from tauscope.report import RunRecord, export
+from tauscope.report import RunRecord, chart_plan, export
 from tauscope.report.tables import marker, tau_steps
 from tauscope.report.xlsx_export import put
 from test_report_support import FORMULA_NAME, SOURCE_SHA, make_run, tiny_png
@@ -26,7 +26,15 @@ def same(value: float | None) -> object:
 def written(tmp_path_factory: pytest.TempPathFactory) -> tuple[RunRecord, Path]:
     run = make_run()
     target = tmp_path_factory.mktemp("xlsx") / "findings.xlsx"
-    export(target, run, charts={run.findings[0].name: tiny_png(40, 20)})
+    saved = list(chart_plan._PNG)
+    # the report layer draws no picture itself: it asks the painter registered (Qt's, in the
+    # program); a hand-made PNG here, so the writer's part is checked without Qt
+    chart_plan.register_png_painter(lambda plan: tiny_png(40, 20))
+    try:
+        plan = chart_plan.plan_chart(run.findings[0].result)
+        export(target, run, charts={run.findings[0].name: plan} if plan is not None else {})
+    finally:
+        chart_plan._PNG[:] = saved
     return run, target
 
 
@@ -136,6 +144,21 @@ def test_no_chart_sheet_without_charts(tmp_path: Path) -> None:
     target = tmp_path / "plain.xlsx"
     export(target, make_run())
     assert "Charts" not in openpyxl.load_workbook(target).sheetnames
+
+
+def test_no_chart_sheet_without_a_painter(tmp_path: Path) -> None:
+    """Charts handed over but no painter registered (no Qt): the workbook is written
+    without pictures rather than failing."""
+    run = make_run()
+    plan = chart_plan.plan_chart(run.findings[0].result)
+    assert plan is not None
+    saved = list(chart_plan._PNG)
+    chart_plan._PNG.clear()
+    try:
+        export(tmp_path / "plain.xlsx", run, {run.findings[0].name: plan})
+    finally:
+        chart_plan._PNG[:] = saved
+    assert "Charts" not in openpyxl.load_workbook(tmp_path / "plain.xlsx").sheetnames
 
 
 @pytest.mark.parametrize("text", ["=1+1", "+1", "-1-1", "@A1", "\t=2", "=cmd|' /C calc'!A0"])

@@ -1,13 +1,18 @@
-"""Charts in every report: drawn headless by the window's chart views (``ui/report_charts``),
-read back from the .xlsx (openpyxl), the .html (html.parser, data: URIs decoded) and the .pdf
-(its page and image objects), written by the window and by ``tauscope batch`` alike.
+"""Charts in every report: made once per series as plain data (``report/chart_plan``, through
+``ui/report_charts.draw_charts``) and read back from the .xlsx (its PNG pictures), the .html
+(SVG drawings in data: URIs, parsed as XML) and the .pdf (its pages and the paths its content
+streams draw), written by the window and by ``tauscope batch`` alike.
 
 PNG sizes are read from the IHDR chunk, the first chunk of every PNG, width and height as
-4-byte big-endian integers (W3C, PNG Specification, 2nd ed., §11.2.2).  PDF pages and images
-are read from the file's objects: a page object has ``/Type /Page`` (ISO 32000-1:2008, §7.7.3.3)
-and an image XObject ``/Subtype /Image`` with ``/Width`` and ``/Height`` (§8.9.5); Qt's PDF
-writer keeps every object in plain view (no object streams, which the test checks), and
-poppler's pdfinfo and pdfimages check the same counts where they are installed (CI)."""
+4-byte big-endian integers (W3C, PNG Specification, 2nd ed., §11.2.2).  SVG drawings are read
+with ElementTree (W3C, SVG 1.1, 2nd ed.: ``svg`` width and height §5.1.2, ``title`` §5.4,
+``polyline`` points §9.6, ``text`` §10.4).  PDF pages are read from the file's objects: a page
+object has ``/Type /Page`` (ISO 32000-1:2008, §7.7.3.3), an image XObject ``/Subtype /Image``
+(§8.9.5); content streams are inflated (``/FlateDecode``, §7.4.4) and each path's segments
+counted: ``x y m`` begins a subpath, each ``x y l`` adds a straight segment (§8.5.2.1), so a
+curve through n points is one ``m`` followed by n − 1 ``l``.  Qt's PDF writer keeps every
+object in plain view (no object streams, which the test checks), and poppler's pdfinfo and
+pdfimages check the same counts where they are installed (CI)."""
 
 from __future__ import annotations
 
@@ -20,6 +25,7 @@ import subprocess
 import unicodedata
 import xml.etree.ElementTree as ElementTree
 import zipfile
+import zlib
 from html.parser import HTMLParser
 from pathlib import Path
 
@@ -32,7 +38,10 @@ pytest.importorskip("pytestqt")
 from conftest import simulated_series, write_workbook
 from tauscope.commands.batch import main
 from tauscope.report import RunRecord, export
-from tauscope.ui.report_charts import CHART_PIXELS, DrawnCharts, draw_charts
+from tauscope.report.chart_plan import ACCENT, CHART_SIZE, LINE, ChartPlan, plan_chart
+from tauscope.ui.chart_paint import plan_to_png
+from tauscope.ui.chart_paint import png_size as plan_png_size
+from tauscope.ui.report_charts import DrawnCharts, draw_charts
 from test_report_record import _check_methods
 from test_report_support import make_run
 
@@ -71,18 +80,38 @@ class _Images(HTMLParser):
             self._in_h3.append(data)
 
 
+SVG = "{http://www.w3.org/2000/svg}"
+
+
 def html_charts(path: Path) -> list[tuple[str, bytes]]:
-    """(heading, decoded PNG) for every image of the page; each must be a PNG data: URI."""
+    """(heading, decoded SVG) for every image of the page; each must be an SVG data: URI whose
+    drawing is the report's chart size and is titled after the series."""
     reader = _Images()
     reader.feed(path.read_text(encoding="utf-8"))
     out = []
     for heading, attrs in reader.images:
         src = attrs.get("src") or ""
-        assert src.startswith("data:image/png;base64,"), src[:40]
-        png = base64.b64decode(src.split(",", 1)[1], validate=True)
-        assert attrs.get("alt") == f"Chart of {heading.split('. ', 1)[1]}"
-        out.append((heading, png))
+        assert src.startswith("data:image/svg+xml;base64,"), src[:40]
+        svg = base64.b64decode(src.split(",", 1)[1], validate=True)
+        name = heading.split(". ", 1)[1]
+        assert attrs.get("alt") == f"Chart of {name}"
+        root = ElementTree.fromstring(svg)
+        assert root.tag == f"{SVG}svg"
+        assert (float(root.get("width", 0)), float(root.get("height", 0))) == CHART_SIZE
+        assert root.findtext(f"{SVG}title") == f"Chart of {name}"
+        out.append((heading, svg))
     return out
+
+
+def svg_curves(svg: bytes, color: str) -> list[np.ndarray]:
+    """The points of every polyline drawn in ``color``."""
+    root = ElementTree.fromstring(svg)
+    return [np.array([[float(v) for v in pair.split(",")] for pair in line.get("points", "").split()])
+            for line in root.iter(f"{SVG}polyline") if line.get("stroke") == color]
+
+
+def svg_texts(svg: bytes) -> list[str]:
+    return [text.text or "" for text in ElementTree.fromstring(svg).iter(f"{SVG}text")]
 
 
 XLSX_NS = {
@@ -164,6 +193,41 @@ def pdf_objects(path: Path) -> tuple[int, list[tuple[int, int]]]:
     return pages, images
 
 
+PATH_RUN = re.compile(rb"[-\d.]+ [-\d.]+ m\n(?:[-\d.]+ [-\d.]+ l\n)+")
+
+
+def pdf_curves(path: Path, shortest: int = 20) -> list[bytes]:
+    """Every path of at least ``shortest`` straight segments the pages draw, in order, as its
+    operators (a chart's curves: the table rules and grid lines are single segments)."""
+    data = path.read_bytes()
+    out = []
+    for header, body in re.findall(rb"<<((?:(?!>>).)*?)>>\s*stream\r?\n(.*?)\r?\nendstream",
+                                   data, re.S):
+        if b"/FlateDecode" in header:
+            body = zlib.decompress(body)
+        out += [m.group(0) for m in PATH_RUN.finditer(body)
+                if m.group(0).count(b" l\n") >= shortest]
+    return out
+
+
+def segments(curves: list[bytes]) -> list[int]:
+    return [curve.count(b" l\n") for curve in curves]
+
+
+def expected_segments(run: RunRecord) -> list[int]:
+    """Per charted series (``charted``), the segments of its curves: the series and its
+    deterministic path (n − 1 each) in the Fitted path view, else the series (n − 1) and its
+    first difference (n − 2) in the Data view."""
+    out = []
+    for finding in run.findings:
+        result = finding.result
+        if not result.ok or result.values is None:
+            continue
+        n = len(result.values)
+        out += [n - 1, n - 1] if result.fitted is not None else [n - 1, n - 2]
+    return out
+
+
 def charted(run: RunRecord) -> list[str]:
     """The series whose chart the HTML and the PDF show: tested, with values to draw."""
     return [f.name for f in run.findings if f.result.ok and f.result.values is not None]
@@ -182,15 +246,61 @@ def test_each_tested_series_gets_one_chart_of_the_fixed_size(
     run, charts = drawn
     assert charts.problems == ()
     with_values = [f for f in run.findings if f.result.values is not None]
-    assert set(charts.images) == {f.key for f in with_values}
+    assert set(charts.charts) == {f.key for f in with_values}
     assert len(with_values) == 3  # the series too short to test carries no values: no chart
     from PySide6.QtGui import QImage
 
-    for png in charts.images.values():
-        assert png_size(png) == CHART_PIXELS
+    pictures = []
+    for plan in charts.charts.values():
+        assert (plan.width, plan.height) == CHART_SIZE
+        png = plan_to_png(plan)
+        assert png_size(png) == plan_png_size(plan)
         decoded = QImage.fromData(png, "PNG")  # Qt's reader (libpng): a valid PNG file
-        assert (decoded.width(), decoded.height()) == CHART_PIXELS
-    assert len(set(charts.images.values())) == len(charts.images)  # each its own drawing
+        assert (decoded.width(), decoded.height()) == plan_png_size(plan)
+        pictures.append(png)
+    assert len(set(pictures)) == len(pictures)  # each its own drawing
+
+
+def test_each_chart_draws_its_series_and_what_the_verdict_implies(
+        drawn: tuple[RunRecord, DrawnCharts]) -> None:
+    """The Fitted path view holds the series and the deterministic path through every
+    observation, titled "name: verdict", with a key; the Data view (no path implied) the
+    series and its first difference.  Points keep the data's order and shape: the x positions
+    rise, and the heights are the values mapped linearly (checked by a straight-line fit)."""
+    run, charts = drawn
+    from tauscope.report.chart_svg import chart_svg
+
+    views = set()
+    for finding in run.findings:
+        plan = charts.charts.get(finding.key or "")
+        result = finding.result
+        if plan is None:
+            continue
+        svg = chart_svg(plan).encode("utf-8")
+        values = np.asarray(result.values, dtype=float)
+        series = svg_curves(svg, LINE)[0]  # then the key's sample line, if any
+        assert len(series) == len(values) and np.all(np.diff(series[:, 0]) > 0)
+        assert np.all((series >= 0) & (series <= np.array(CHART_SIZE)))
+        slope, _ = np.polyfit(values, series[:, 1], 1)  # y grows downwards on the page
+        assert slope < 0
+        assert np.allclose(np.polyval(np.polyfit(values, series[:, 1], 1), values),
+                           series[:, 1], atol=0.01)
+        others = svg_curves(svg, ACCENT)
+        texts = svg_texts(svg)
+        if result.fitted is not None:
+            views.add("fitted")
+            path = others[0]  # then the key's sample line
+            assert len(path) == len(values)
+            assert np.allclose(np.polyval(np.polyfit(values, series[:, 1], 1),
+                                          np.asarray(result.fitted, dtype=float)), path[:, 1],
+                               atol=0.01)
+            assert f"{finding.name}: {result.verdict.label}" in texts
+            assert "series" in texts and "deterministic path" in texts
+        else:
+            views.add("data")
+            assert len(others[0]) == len(values) - 1
+            assert finding.name in texts and "First difference" in texts
+    assert views == {"fitted", "data"}
 
 
 def test_the_drawing_does_not_depend_on_the_window_palette(
@@ -203,33 +313,37 @@ def test_the_drawing_does_not_depend_on_the_window_palette(
     run, charts = drawn
     app = QApplication.instance()
     assert isinstance(app, QApplication)
+    before_pictures = [plan_to_png(p) for p in charts.charts.values()]
     before = app.palette()
     app.setPalette(dark_palette())
     try:
         again = draw_charts(run)
+        pictures = [plan_to_png(p) for p in again.charts.values()]
     finally:
         app.setPalette(before)
-    assert again.images == charts.images
+    assert list(again.charts) == list(charts.charts)
+    assert all(a.same_as(b) for a, b in zip(again.charts.values(), charts.charts.values(),
+                                            strict=True))
+    assert pictures == before_pictures
 
 
 def test_a_chart_that_fails_is_left_out_with_a_sentence(
         drawn: tuple[RunRecord, DrawnCharts], monkeypatch: pytest.MonkeyPatch) -> None:
-    from tauscope.ui.charts.fitted import FittedChart
+    import tauscope.ui.report_charts as report_charts
 
     run, charts = drawn
     bad = run.findings[0]
-    draw = FittedChart.draw
 
-    def failing(self: FittedChart) -> None:
-        if self.result is not None and self.result.name == bad.name:
+    def failing(result: object, values: object = None) -> ChartPlan | None:
+        if getattr(result, "name", None) == bad.name:
             raise ValueError("a drawing that fails")
-        draw(self)
+        return plan_chart(result, values)  # type: ignore[arg-type]
 
-    monkeypatch.setattr(FittedChart, "draw", failing)
+    monkeypatch.setattr(report_charts, "plan_chart", failing)
     again = draw_charts(run)
     assert again.problems == (f"{bad.name}: its chart could not be drawn "
                               "(ValueError: a drawing that fails)",)
-    assert again.images == {k: v for k, v in charts.images.items() if k != bad.key}
+    assert set(again.charts) == set(charts.charts) - {bad.key}
 
 
 # --- each format read back -----------------------------------------------------------------
@@ -237,40 +351,44 @@ def test_a_chart_that_fails_is_left_out_with_a_sentence(
 def test_xlsx_holds_each_chart_under_its_series_name(
         drawn: tuple[RunRecord, DrawnCharts], tmp_path: Path) -> None:
     run, charts = drawn
-    export(tmp_path / "f.xlsx", run, charts.images)
+    export(tmp_path / "f.xlsx", run, charts.charts)
     found = xlsx_charts(tmp_path / "f.xlsx")
     assert [name for name, _png in found] == [f.name for f in run.findings
-                                             if f.key in charts.images]
-    for finding, (_name, png) in zip((f for f in run.findings if f.key in charts.images), found,
+                                             if f.key in charts.charts]
+    for finding, (_name, png) in zip((f for f in run.findings if f.key in charts.charts), found,
                                      strict=True):
-        assert png == charts.images[finding.key or ""]  # the picture itself, not re-encoded
-        assert png_size(png) == CHART_PIXELS
+        plan = charts.charts[finding.key or ""]
+        assert png == plan_to_png(plan)  # the picture itself, not re-encoded
+        assert png_size(png) == plan_png_size(plan)
 
 
-def test_html_embeds_each_chart_as_a_png_data_uri(drawn: tuple[RunRecord, DrawnCharts],
-                                                  tmp_path: Path) -> None:
+def test_html_embeds_each_chart_as_an_svg_data_uri(drawn: tuple[RunRecord, DrawnCharts],
+                                                   tmp_path: Path) -> None:
+    from tauscope.report.chart_svg import chart_svg
+
     run, charts = drawn
-    export(tmp_path / "f.html", run, charts.images)
+    export(tmp_path / "f.html", run, charts.charts)
     found = html_charts(tmp_path / "f.html")
     names = charted(run)
-    assert [heading.split(". ", 1)[1] for heading, _png in found] == names
+    assert [heading.split(". ", 1)[1] for heading, _svg in found] == names
     by_name = {f.name: f.key for f in run.findings}
-    for heading, png in found:
-        assert png == charts.images[by_name[heading.split(". ", 1)[1]] or ""]
-        assert png_size(png) == CHART_PIXELS
+    for heading, svg in found:
+        assert svg == chart_svg(charts.charts[by_name[heading.split(". ", 1)[1]] or ""]).encode()
 
 
-def test_pdf_holds_each_chart_as_an_image(drawn: tuple[RunRecord, DrawnCharts],
-                                          tmp_path: Path) -> None:
+def test_pdf_draws_each_chart_as_vectors(drawn: tuple[RunRecord, DrawnCharts],
+                                         tmp_path: Path) -> None:
+    """No picture in the PDF: each charted series' curves are paths through all its points."""
     import tauscope.ui.pdf_report  # noqa: F401  (registers ".pdf")
 
     run, charts = drawn
-    export(tmp_path / "with.pdf", run, charts.images)
+    export(tmp_path / "with.pdf", run, charts.charts)
     export(tmp_path / "without.pdf", run)
     pages, images = pdf_objects(tmp_path / "with.pdf")
     bare_pages, bare_images = pdf_objects(tmp_path / "without.pdf")
-    assert images == [CHART_PIXELS] * len(charted(run))
-    assert bare_images == []
+    assert images == [] and bare_images == []
+    assert segments(pdf_curves(tmp_path / "with.pdf")) == expected_segments(run)
+    assert pdf_curves(tmp_path / "without.pdf") == []
     assert pages > bare_pages >= 1  # three charts of 620 × 300 units take room
 
 
@@ -282,8 +400,23 @@ def _workbook(tmp_path: Path) -> Path:
     return write_workbook(tmp_path / "quarterly data.xlsx", series)
 
 
+BATCH_PLANS: list[dict[str, ChartPlan]] = []
+
+
 @pytest.fixture
-def batch_reports(tmp_path: Path, capsys: pytest.CaptureFixture[str]) -> tuple[Path, str]:
+def batch_reports(tmp_path: Path, capsys: pytest.CaptureFixture[str],
+                  monkeypatch: pytest.MonkeyPatch) -> tuple[Path, str]:
+    """The batch's reports; the charts it made are kept in ``BATCH_PLANS`` (its last run)."""
+    import tauscope.commands.batch as batch
+
+    made = batch.draw_report_charts
+
+    def keeping(*args: object) -> object:
+        charts, notes = made(*args)  # type: ignore[arg-type]
+        BATCH_PLANS[:] = [dict(charts)]
+        return charts, notes
+
+    monkeypatch.setattr(batch, "draw_report_charts", keeping)
     source = _workbook(tmp_path)
     outs = [str(tmp_path / f"batch{s}") for s in (".xlsx", ".html", ".pdf", ".json")]
     assert main([str(source), *[a for o in outs for a in ("--out", o)]]) == 0
@@ -303,11 +436,25 @@ def test_batch_reports_hold_every_chart_and_say_what_the_run_did(
     xlsx = xlsx_charts(folder / "batch.xlsx")
     html = html_charts(folder / "batch.html")
     assert [n for n, _png in xlsx] == names
-    assert [h.split(". ", 1)[1] for h, _png in html] == names
-    assert [png for _n, png in xlsx] == [png for _h, png in html]
-    assert all(png_size(png) == CHART_PIXELS for _n, png in xlsx)
+    assert [h.split(". ", 1)[1] for h, _svg in html] == names
+    # every format draws the one chart made for each series
+    from tauscope.report.chart_svg import chart_svg
+
+    plans = list(BATCH_PLANS[0].values())
+    assert [p.name for p in plans] == names
+    assert [png for _n, png in xlsx] == [plan_to_png(p) for p in plans]
+    assert [svg for _h, svg in html] == [chart_svg(p).encode() for p in plans]
+    assert all(png_size(png) == plan_png_size(p) for (_n, png), p in zip(xlsx, plans,
+                                                                         strict=True))
+    for item, (_h, svg) in zip(data["series"], html, strict=True):
+        assert len(svg_curves(svg, LINE)[0]) == item["nobs"]  # the series, every observation
     pages, images = pdf_objects(folder / "batch.pdf")
-    assert images == [CHART_PIXELS] * 4 and pages >= 2
+    assert images == [] and pages >= 2
+    fitted = [bool(svg_curves(svg, ACCENT)[0].shape[0] == item["nobs"])
+              for item, (_h, svg) in zip(data["series"], html, strict=True)]
+    assert segments(pdf_curves(folder / "batch.pdf")) == [
+        k for item, path in zip(data["series"], fitted, strict=True)
+        for k in (item["nobs"] - 1, item["nobs"] - (1 if path else 2))]
     # Each series' observations and sample, and the methods text of this run, are still there.
     book = openpyxl.load_workbook(folder / "batch.xlsx")
     summary = list(book["Summary"].iter_rows(values_only=True))
@@ -362,31 +509,33 @@ def test_batch_no_charts_leaves_them_out(tmp_path: Path) -> None:
         assert not [n for n in book.namelist() if n.startswith("xl/media/")]
     assert html_charts(tmp_path / "bare.html") == []
     assert pdf_objects(tmp_path / "bare.pdf")[1] == []
+    assert pdf_curves(tmp_path / "bare.pdf") == []
 
 
 def test_batch_goes_on_when_a_chart_fails(tmp_path: Path, monkeypatch: pytest.MonkeyPatch,
                                           capsys: pytest.CaptureFixture[str]) -> None:
-    from tauscope.ui.charts.fitted import FittedChart
+    import tauscope.ui.report_charts as report_charts
 
     source = _workbook(tmp_path)
-    fitted_names: list[str] = []
-    draw = FittedChart.draw
+    failed: list[str] = []
 
-    def fitted_fails_once(self: FittedChart) -> None:
-        if not fitted_names:
-            fitted_names.append(self.result.name if self.result is not None else "")
+    def fails_once(result: object, values: object = None) -> ChartPlan | None:
+        if not failed:
+            failed.append(str(getattr(result, "name", "")))
             raise RuntimeError("no room to draw")
-        draw(self)
+        return plan_chart(result, values)  # type: ignore[arg-type]
 
-    monkeypatch.setattr(FittedChart, "draw", fitted_fails_once)
+    monkeypatch.setattr(report_charts, "plan_chart", fails_once)
     assert main([str(source), "--out", str(tmp_path / "f.html"), "--out",
-                 str(tmp_path / "f.xlsx")]) == 0
+                 str(tmp_path / "f.xlsx"), "--out", str(tmp_path / "f.pdf")]) == 0
     err = capsys.readouterr().err
     assert "Traceback" not in err and len(err.strip().splitlines()) == 1
-    assert (f"{fitted_names[0]}: its chart could not be drawn (RuntimeError: no room to draw)"
+    assert (f"{failed[0]}: its chart could not be drawn (RuntimeError: no room to draw)"
             f" (left out of the reports)") in err
     assert len(html_charts(tmp_path / "f.html")) == 3
-    assert fitted_names[0] not in [n for n, _png in xlsx_charts(tmp_path / "f.xlsx")]
+    assert failed[0] not in [n for n, _png in xlsx_charts(tmp_path / "f.xlsx")]
+    assert len(xlsx_charts(tmp_path / "f.xlsx")) == 3
+    assert len(pdf_curves(tmp_path / "f.pdf")) == 6  # two curves for each of three charts
 
 
 # --- the window and batch: one report path ---------------------------------------------------
@@ -410,47 +559,45 @@ def test_window_and_batch_reports_carry_the_same_charts(  # type: ignore[no-unty
     assert window_html == html_charts(tmp_path / "batch.html")
     assert xlsx_charts(tmp_path / "window.xlsx") == xlsx_charts(tmp_path / "batch.xlsx")
     assert pdf_objects(tmp_path / "window.pdf") == pdf_objects(tmp_path / "batch.pdf")
+    window_curves = pdf_curves(tmp_path / "window.pdf")
+    assert len(window_curves) == 8  # two curves for each of four charts, point by point:
+    assert window_curves == pdf_curves(tmp_path / "batch.pdf")
 
 
-def test_a_series_name_with_markup_characters_is_drawn_as_written() -> None:
-    """pyqtgraph reads titles as rich text: "Real output & <prices>" lost "<prices>"."""
-    from tauscope.ui.report_charts import ChartRenderer
+def test_a_series_name_with_markup_characters_is_drawn_as_written(tmp_path: Path) -> None:
+    """A name with markup characters ("Real output & <prices>") comes out as written in the
+    SVG's title and text (escaped once, read back by an XML parser)."""
+    from tauscope.report.chart_svg import chart_svg
 
     run = make_run()
     finding = run.findings[0]
     assert finding.name == "Real output & <prices>"
-    renderer = ChartRenderer()
-    try:
-        assert renderer.render(None, finding.result) is not None
-        title = renderer.fitted_page._shown[0].titleLabel.item.toPlainText()
-    finally:
-        renderer.close()
-    assert title == f"{finding.name}: {finding.result.verdict.label}"
+    plan = plan_chart(finding.result)
+    assert plan is not None
+    svg = chart_svg(plan).encode()
+    assert f"{finding.name}: {finding.result.verdict.label}" in svg_texts(svg)
+    assert ElementTree.fromstring(svg).findtext(f"{SVG}title") == f"Chart of {finding.name}"
 
 
-def test_the_picture_is_taken_once_the_axes_have_the_room_their_labels_need() -> None:
-    """An axis measures its tick labels only while drawn: a page drawn for the first time
-    would lose labels wider than its starting room ("1000" on the I(2) series, which climbs
-    past 1,000).  Drawing the page again after its layout settles gives the same picture."""
-    from PySide6.QtWidgets import QApplication
-
-    from tauscope.ui.report_charts import ChartRenderer
+def test_each_chart_depends_on_its_own_series_and_leaves_room_for_its_labels() -> None:
+    """A chart is the same whatever was made before it, and the room left of the plot holds
+    its widest tick label ("1000" and more on the I(2) series, which climbs past 1,000)."""
+    from tauscope.report.chart_plan import TICK_SIZE, text_width
 
     run = make_run()
     climbing = run.findings[2].result  # the I(2) series: no deterministic path, Data view
     assert climbing.fitted is None and climbing.values is not None
     assert float(climbing.values.max()) > 1000
-    renderer = ChartRenderer()
-    try:  # as in a report: the Fitted path charts of the series before it come first
-        for finding in run.findings[:2]:
-            renderer.render(None, finding.result)
-        first = renderer.render(None, climbing)
-        QApplication.processEvents()
-        again = renderer.picture(renderer.data_page)
-    finally:
-        renderer.close()
-    assert first is not None and png_size(first) == CHART_PIXELS
-    assert first == again
+    for finding in run.findings[:2]:
+        plan_chart(finding.result)
+    after = plan_chart(climbing)
+    alone = plan_chart(make_run().findings[2].result)
+    assert after is not None and alone is not None and after.same_as(alone)
+    axis = after.strokes[[s.color for s in after.strokes].index("#1a1a1a")]
+    left = float(axis.points[0, 0])
+    ticks = [label for label in after.labels if label.anchor == "end"]
+    assert any(len(t.text) >= 4 for t in ticks)
+    assert all(t.x - text_width(t.text, TICK_SIZE) >= 0 and t.x < left for t in ticks)
 
 
 def test_batch_draws_its_charts_without_a_display_or_a_platform_named(tmp_path: Path) -> None:

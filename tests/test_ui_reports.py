@@ -40,7 +40,7 @@ def test_export_writes_every_format_through_the_report_writers(analysed, tmp_pat
         assert window.export_findings(tmp_path / f"findings{suffix}")
         assert (tmp_path / f"findings{suffix}").stat().st_size > 0
     page = (tmp_path / "findings.html").read_text(encoding="utf-8")
-    assert page.count("data:image/png;base64,") == len(results)  # one chart per series
+    assert page.count("data:image/svg+xml;base64,") == len(results)  # one chart per series
     with zipfile.ZipFile(tmp_path / "findings.xlsx") as book:
         images = [n for n in book.namelist() if n.startswith("xl/media/")]
     assert len(images) == len(results)
@@ -126,3 +126,29 @@ def test_findings_made_with_other_settings_are_not_exported_as_current(analysed,
     assert window.export_findings(tmp_path / "again.json")
     data = json.loads((tmp_path / "again.json").read_text(encoding="utf-8"))
     assert len(data["series"]) == len(results) and data["left_out"] == []
+
+
+def test_export_is_written_while_the_window_keeps_answering(analysed, tmp_path, monkeypatch):  # type: ignore[no-untyped-def]
+    """The writing runs off the window's thread: a writer that waits for the window's event
+    loop to run a timer finishes (it would wait in vain, and fail, if it ran in that loop);
+    a second export asked for meanwhile is refused, and the file is written once."""
+    import threading
+
+    from PySide6.QtCore import QTimer
+
+    from tauscope.report import WRITERS
+
+    ticked = threading.Event()
+    again: list[bool] = []
+    json_writer = WRITERS[".json"]
+
+    def waiting(path, run, charts=None):  # type: ignore[no-untyped-def]
+        QTimer.singleShot(0, analysed, lambda: (again.append(analysed.export_findings(
+            tmp_path / "other.json")), ticked.set()))
+        assert ticked.wait(30), "the window's event loop did not run during the export"
+        json_writer(path, run, charts)
+
+    monkeypatch.setitem(WRITERS, ".json", waiting)
+    assert analysed.export_findings(tmp_path / "findings.json")
+    assert ticked.is_set() and again == [False]
+    assert (tmp_path / "findings.json").is_file() and not (tmp_path / "other.json").exists()

@@ -7,8 +7,9 @@ not tested and says how to go on; ``longest`` tests its longest stretch without 
 ``fill`` fills the gaps by straight lines; the notes say which), applies one
 transformation to each, runs the engine on every series and writes the findings
 (``--out``, format by suffix) or prints a table.  The .xlsx, .html and .pdf reports hold
-each series' chart, drawn as the window draws it on Qt's offscreen platform, so no display
-is needed (``--no-charts`` leaves them out); a chart that cannot be drawn is left out with a
+each series' chart, made as the window's export makes it (``tauscope.ui.report_charts``) and
+drawn per format (the .pdf and the .xlsx's picture on Qt's offscreen platform, so no display
+is needed; ``--no-charts`` leaves them out); a chart that cannot be made is left out with a
 note on standard error.  The reader's notes (rows skipped, sheets
 empty, dates guessed) go to standard error on one line.
 
@@ -196,9 +197,10 @@ def main(argv: list[str]) -> int:
 
 
 def draw_report_charts(run: RunRecord, series: Mapping[str, SeriesData]) -> tuple[Charts, str]:
-    """Each finding's chart, drawn as the window draws it (``tauscope.ui.report_charts``) on
-    Qt's offscreen platform (no display needed), and one sentence on any chart that could not
-    be drawn ("" when all were): such a chart is left out, the reports are still written."""
+    """Each finding's chart, made as the window's export makes it
+    (``tauscope.ui.report_charts``; the formats draw it on Qt's offscreen platform, no display
+    needed), and one sentence on any chart that could not be made ("" when all were): such a
+    chart is left out, the reports are still written."""
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
     try:
         from tauscope.ui.report_charts import draw_charts, problems_text
@@ -207,7 +209,7 @@ def draw_report_charts(run: RunRecord, series: Mapping[str, SeriesData]) -> tupl
     except Exception as exc:  # Qt missing or broken: reports without charts, never a traceback
         reason = f"{type(exc).__name__}: {exc}".replace("\n", " ")
         return {}, f"the charts could not be drawn ({reason}); the reports hold none"
-    return drawn.images, problems_text(drawn)
+    return drawn.charts, problems_text(drawn)
 
 
 def _settings(args: argparse.Namespace) -> Settings:

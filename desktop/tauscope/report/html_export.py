@@ -1,19 +1,20 @@
 """One self-contained HTML report: summary table, one section per series, methods.
 
-Charts, when supplied, are embedded as ``data:`` URIs so the single file can be
-mailed or archived.  The same markup feeds the PDF writer (Qt's rich-text
+Charts, when supplied, are embedded as SVG drawings in ``data:`` URIs
+(:mod:`.chart_svg`), so the single file can be mailed or archived.  The same markup feeds the PDF writer (Qt's rich-text
 engine), so it keeps to HTML 4 tables and simple CSS that both render.
 """
 
 from __future__ import annotations
 
-import base64
 import html
 from collections.abc import Callable
 from pathlib import Path
 
 from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
+from tauscope.report.chart_plan import ChartPlan
+from tauscope.report.chart_svg import svg_data_uri
 from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, Finding, RunRecord, chart_for
 from tauscope.report.tables import (
@@ -29,8 +30,8 @@ from tauscope.report.tables import (
 )
 from tauscope.report.text_safety import html_text
 
-ImageSource = Callable[[int, bytes], str]
-"""Gives the ``src`` of chart number ``i`` (0-based, in series order) from its PNG bytes."""
+ImageSource = Callable[[int, ChartPlan], str]
+"""Gives the ``src`` of chart number ``i`` (0-based, in series order) from its plan."""
 
 CHART_WIDTH = 620
 PATH_WIDTHS = {"step": 6, "on": 11, "regression": 12, "hypothesis": 24, "symbol": 9, "value": 9,
@@ -62,8 +63,8 @@ ol.refs li { margin-bottom: 0.3em; }
 """
 
 
-def data_uri(_index: int, png: bytes) -> str:
-    return "data:image/png;base64," + base64.b64encode(png).decode("ascii")
+def data_uri(_index: int, plan: ChartPlan) -> str:
+    return svg_data_uri(plan)
 
 
 def _esc(text: object) -> str:
@@ -235,10 +236,10 @@ def run_to_html(run: RunRecord, charts: Charts | None = None,
               "<h2>Series</h2>"]
     index = 0
     for number, finding in enumerate(run.findings, start=1):
-        png = chart_for(finding, charts)
+        plan = chart_for(finding, charts)
         image = None
-        if png is not None:
-            image = image_source(index, png)
+        if plan is not None:
+            image = image_source(index, plan)
             index += 1
         parts.append(_series_section(number, finding, image))
     methods = methods_for(run)

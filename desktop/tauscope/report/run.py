@@ -10,9 +10,11 @@ from typing import Any, Protocol
 
 from tauscope import __version__
 from tauscope.engine import SeriesResult, Settings
+from tauscope.report.chart_plan import ChartPlan
 
-Charts = Mapping[str, bytes]
-"""PNG bytes per series, keyed by ``Finding.key`` or by series name."""
+Charts = Mapping[str, ChartPlan]
+"""Each series' chart as plain data (:class:`~tauscope.report.chart_plan.ChartPlan`), keyed by
+``Finding.key`` or by series name; each format draws it in its own way."""
 
 CHART_FORMATS = frozenset({".xlsx", ".html", ".pdf"})
 """The formats that hold a chart per series (the others are tables and text)."""
@@ -200,8 +202,8 @@ class RunRecord:
         return tuple(t for t in TEST_ORDER if t in found) + tuple(sorted(found - set(TEST_ORDER)))
 
 
-def chart_for(finding: Finding, charts: Charts | None) -> bytes | None:
-    """The PNG the caller supplied for this finding: looked up by key, then by series name."""
+def chart_for(finding: Finding, charts: Charts | None) -> ChartPlan | None:
+    """The chart the caller supplied for this finding: looked up by key, then by series name."""
     if not charts:
         return None
     if finding.key is not None and finding.key in charts:

@@ -7,7 +7,8 @@ Sheets:
 * "Decision path": each series' steps in order;
 * "About this run": program, version, date, settings, methods paragraph,
   and each source file with its SHA-256;
-* "Charts": the PNG charts the caller supplied, one block per series.
+* "Charts": each series' chart the caller supplied, drawn as a PNG picture by the painter
+  the Qt layer registers (``report.chart_plan.register_png_painter``), one block per series.
 
 Every text cell goes through :func:`put`, which keeps text that looks like a
 formula as a plain string (formula-injection guard).
@@ -30,6 +31,7 @@ from openpyxl.worksheet._write_only import WriteOnlyWorksheet
 from openpyxl.writer.excel import ExcelWriter
 
 from tauscope.report.atomic import write_bytes_atomic
+from tauscope.report.chart_plan import plan_png
 from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, RunRecord, chart_for
 from tauscope.report.safety import looks_like_formula
@@ -250,20 +252,29 @@ def _about(rows: Rows, run: RunRecord) -> None:
         rows.add([None, styled(sheet, paragraph, alignment=wrap)])
 
 
-def _charts(rows: Rows, run: RunRecord, charts: Charts) -> None:
+def _charts(rows: Rows, pictures: list[tuple[str, bytes]]) -> None:
     row = 1
-    for finding in run.findings:
-        png = chart_for(finding, charts)
-        if png is None:
-            continue
+    for name, png in pictures:
         rows.skip_to(row)
-        rows.add([styled(rows.sheet, finding.name, Font(bold=True, size=12))])
+        rows.add([styled(rows.sheet, name, Font(bold=True, size=12))])
         image = _PngImage(png)
         if image.width > 900:
             scale = 900 / image.width
             image.width, image.height = 900, int(image.height * scale)
         rows.sheet.add_image(image, f"A{row + 1}")
         row += 2 + int(image.height / 20) + 1
+
+
+def _pictures(run: RunRecord, charts: Charts | None) -> list[tuple[str, bytes]]:
+    """(series name, PNG) for each finding with a chart, drawn by the registered painter
+    (``tauscope.ui.chart_paint``); none without one."""
+    out = []
+    for finding in run.findings:
+        plan = chart_for(finding, charts)
+        png = plan_png(plan) if plan is not None else None
+        if png is not None:
+            out.append((finding.name, png))
+    return out
 
 
 def run_to_xlsx(run: RunRecord, charts: Charts | None = None) -> bytes:
@@ -275,8 +286,9 @@ def run_to_xlsx(run: RunRecord, charts: Charts | None = None) -> bytes:
     _all_tests(Rows(book.create_sheet("All tests")), run)
     _paths(Rows(book.create_sheet("Decision path")), run)
     _about(Rows(book.create_sheet("About this run")), run)
-    if charts and any(chart_for(f, charts) is not None for f in run.findings):
-        _charts(Rows(book.create_sheet("Charts")), run, charts)
+    pictures = _pictures(run, charts)
+    if pictures:
+        _charts(Rows(book.create_sheet("Charts")), pictures)
     buffer = io.BytesIO()
     with ZipFile(buffer, "w", ZIP_DEFLATED, allowZip64=True) as archive:
         _StoredPictures(book, archive).save()

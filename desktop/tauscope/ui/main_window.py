@@ -356,6 +356,9 @@ class MainWindow(WindowFrame, WindowApi):
         return answer == "discard"
 
     def closeEvent(self, event: QCloseEvent) -> None:
+        if self.export.busy:  # an export is being written (a few seconds): close after it
+            event.ignore()
+            return
         if not self.may_close():
             event.ignore()
             return

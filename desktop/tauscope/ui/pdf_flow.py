@@ -21,9 +21,11 @@ from collections.abc import Callable, Sequence
 from dataclasses import dataclass, field
 
 from PySide6.QtCore import QPointF, QRectF
-from PySide6.QtGui import QColor, QFont, QFontMetricsF, QImage, QPainter, QTextLayout, QTextOption
+from PySide6.QtGui import QColor, QFont, QFontMetricsF, QPainter, QTextLayout, QTextOption
 
+from tauscope.report.chart_plan import ChartPlan
 from tauscope.report.text_safety import pdf_text
+from tauscope.ui.chart_paint import paint_plan
 from tauscope.ui.pdf_pages import Unit
 
 WIDTH = 1000.0
@@ -177,12 +179,20 @@ class Flow:
             self._keep = len(self.units) - 1
         self.y += after
 
-    def image(self, image: QImage, width: float, after: float = 6.0) -> None:
-        height = width * image.height() / max(image.width(), 1)
-        target = QRectF(0, self.y, width, height)
-        self._add(Unit(self.y, self.y + height),
-                  lambda painter: painter.drawImage(target, image))
-        self.y += height + after
+    def drawing(self, plan: ChartPlan, width: float, after: float = 6.0) -> None:
+        """A report chart drawn as vectors (lines and text, no picture), ``width`` wide."""
+        scale = width / plan.width
+        top = self.y
+
+        def draw(painter: QPainter) -> None:
+            painter.save()
+            painter.translate(0, top)
+            painter.scale(scale, scale)
+            paint_plan(painter, plan)
+            painter.restore()
+
+        self._add(Unit(top, top + plan.height * scale), draw)
+        self.y += plan.height * scale + after
 
     def table(self, columns: Sequence[Column], rows: Sequence[Sequence[Cell]], head: Style,
               body: Style, fill: str, line: str, after: float = 8.0) -> None:

@@ -19,7 +19,7 @@ started for the fonts and images (:mod:`tauscope.ui.headless`).
 from __future__ import annotations
 
 from pathlib import Path
-from typing import TYPE_CHECKING, Any
+from typing import TYPE_CHECKING
 
 from tauscope.report import register_writer
 from tauscope.report.atomic import write_bytes_atomic
@@ -104,14 +104,6 @@ def _table(flow: Flow, styles: _Styles, table: Table, widths: dict[str, int],
     flow.table(columns, rows, styles.head, styles.cell, fill="#2f5d62", line="#d5dfe0")
 
 
-def _chart(png: bytes) -> Any:
-    from PySide6.QtGui import QImage
-
-    image = QImage()
-    image.loadFromData(png, "PNG")
-    return image
-
-
 def layout_report(run: RunRecord, charts: Charts | None = None) -> Flow:
     """The whole report laid out in one long column."""
     from tauscope.ui.pdf_flow import Flow
@@ -140,10 +132,10 @@ def layout_report(run: RunRecord, charts: Charts | None = None) -> Flow:
             continue
         flow.paragraph("Decision path", styles.h4, before=4, after=2, heading=True)
         _table(flow, styles, path_table(result), PATH_WIDTHS)
-        png = chart_for(finding, charts)
-        if png is not None:
+        plan = chart_for(finding, charts)
+        if plan is not None:
             flow.paragraph("Chart", styles.h4, before=4, after=2, heading=True)
-            flow.image(_chart(png), CHART_WIDTH)
+            flow.drawing(plan, CHART_WIDTH)
         flow.paragraph("Reading", styles.h4, before=4, after=2, heading=True)
         for note in result.notes:
             flow.paragraph(note, styles.body)

@@ -1,6 +1,7 @@
 """Export: the findings on screen written through ``tauscope.report.export`` (the writers
-``tauscope batch`` uses), with each series' chart in Excel, the web page and the PDF (drawn by
-:func:`tauscope.ui.report_charts.draw_charts`, as batch draws them); and copied to the
+``tauscope batch`` uses), with each series' chart in Excel, the web page and the PDF (made by
+:func:`tauscope.ui.report_charts.draw_charts`, as batch makes them), written in a helper
+thread while the window keeps answering (:mod:`tauscope.ui.off_thread`); and copied to the
 clipboard as a table."""
 
 from __future__ import annotations
@@ -34,6 +35,7 @@ class ExportController(QObject):
         self.session = session
         self.prompts = prompts
         self.status = status
+        self.busy = False  # an export is being written
 
     def findings_record(self, keys: list[str] | None = None) -> RunRecord:
         """The findings on screen (all, or those of ``keys`` in row order) as a run record."""
@@ -45,10 +47,12 @@ class ExportController(QObject):
     def export_findings(self, target: str | Path | None = None) -> bool:
         """Write every finding to ``target`` (asking where when None); charts go into Excel,
         the web page and the PDF."""
-        import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
         from tauscope.report import ExportError, export
         from tauscope.ui.findings_export import suffix_for_filter
-        from tauscope.ui.report_charts import draw_charts, problems_text
+        from tauscope.ui.off_thread import wait_off_thread
+
+        if self.busy:  # Ctrl+E again while an export is being written: one at a time
+            return False
 
         results = self.findings_panel.model.results()
         if not results:
@@ -66,15 +70,32 @@ class ExportController(QObject):
         if path.suffix.lower() not in known:
             path = path.with_name(path.name + suffix_for_filter(""))
         run = self.findings_record()
-        charts, problems = None, ""
-        if path.suffix.lower() in CHART_FORMATS:  # the same drawing as tauscope batch's
-            drawn = draw_charts(run, self.series_panel.model.series_for_key)
-            charts, problems = drawn.images, problems_text(drawn)
+        with_charts = path.suffix.lower() in CHART_FORMATS
+        lookup = self.series_panel.model.series_for_key
+        series = {f.key: lookup(f.key) for f in run.findings if f.key is not None}
+
+        def write() -> tuple[RunRecord, str]:
+            # imported here, off the window's thread: loading them takes a tenth of a second
+            import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
+            from tauscope.ui.report_charts import draw_charts, problems_text
+
+            charts, problems = None, ""
+            if with_charts:  # the same charts as tauscope batch's
+                drawn = draw_charts(run, series.get)
+                charts, problems = drawn.charts, problems_text(drawn)
+            return export(path, run, charts), problems
+
+        # Charts and writing in a helper thread; the window keeps answering meanwhile.
+        self.status.setText(f"Exporting {_count(len(run.findings))} to {path.name}…")
+        self.busy = True
         try:
-            written = export(path, run, charts)
+            written, problems = wait_off_thread(write)
         except ExportError as exc:
+            self.status.setText("")
             self.prompts.tell(str(exc), title="The findings were not exported")
             return False
+        finally:
+            self.busy = False
         self.status.setText(f"Exported {_count(len(written.findings))} to {path.name}."
                             + _left_out_text(len(written.left_out))
                             + (f" Not drawn: {problems}." if problems else ""))
