@@ -45,7 +45,7 @@ import math
 from dataclasses import dataclass
 
 import numpy as np
-from scipy import stats
+from scipy.special import fdtrc
 
 PERIODS = (4, 12)
 FIND_LEVEL = 0.01  # a seasonal pattern is "found" when the F test's p-value is below this
@@ -149,7 +149,7 @@ def seasonal_means_test(x: np.ndarray, period: int, first_season: int = 0) -> Se
     if df_den < 1 or not rss_u > 0.0 or not np.isfinite(rss_r):
         return None
     f = ((rss_r - rss_u) / df_num) / (rss_u / df_den)
-    p_value = float(stats.f.sf(f, df_num, df_den))
+    p_value = float(fdtrc(df_num, df_den, f))  # the function scipy.stats.f.sf calls: same value
     return SeasonalMeansFit(float(f), p_value, df_num, df_den, best, seasonal_effects(y, period, first_season))
 
 
