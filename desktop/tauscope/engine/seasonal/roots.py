@@ -15,7 +15,8 @@ come from a simulation at the series' own length and lag order
 Lag order p: chosen on the common sample of p_max (Ng & Perron 1995) by
 
 * ``"aic"`` (default) / ``"bic"`` — ln(RSS/m) + c·K/m with c = 2 or ln m,
-  K every coefficient, minimised over p = 0 … p_max;
+  K every coefficient, minimised over p = 0 … p_max (every RSS from one QR of
+  the nested designs);
 * ``"tsig"`` — general to specific: start at p_max and drop the last lag while
   |t| < 1.645 (10% two-sided), Ng & Perron (1995);
 * ``"fixed"`` — ``lags`` as given.
