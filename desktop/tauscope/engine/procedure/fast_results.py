@@ -5,9 +5,8 @@
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, fields
+from dataclasses import dataclass
 from functools import lru_cache
-from typing import Any, TypeVar
 
 import numpy as np
 
@@ -35,40 +34,11 @@ class LevelBatch:
     centres: np.ndarray  # (B,): y(t−1) is measured from these in the specs with a constant
 
 
-_T = TypeVar("_T")
 _column_names = lru_cache(maxsize=512)(column_names)
 _NO_DESIGN = np.empty((0, 0))
 _NO_RESPONSE = np.empty(0)
 _NO_DESIGN.flags.writeable = False
 _NO_RESPONSE.flags.writeable = False
-
-
-def plain(cls: type[_T], values: dict[str, Any]) -> _T:
-    """An instance of a frozen result dataclass from every one of its fields, without
-    its generated ``__init__`` (which sets each field through ``object.__setattr__``, the
-    larger part of building the hundred-odd objects of a series).  The object is the
-    same: equal, same ``to_dict()``; a missing or unknown field is an error."""
-    if values.keys() != _field_names(cls):
-        raise TypeError(f"{cls.__name__} needs exactly the fields {sorted(_field_names(cls))}")
-    obj = object.__new__(cls)
-    obj.__dict__.update(values)
-    return obj
-
-
-_FIELDS: dict[type, frozenset[str]] = {}
-
-
-def _field_names(cls: type) -> frozenset[str]:
-    names = _FIELDS.get(cls)
-    if names is None:
-        names = _FIELDS[cls] = frozenset(f.name for f in fields(cls))
-    return names
-
-
-def _coefficient(name: str, estimate: float, std_error: float, t_value: float) -> Coefficient:
-    obj = object.__new__(Coefficient)  # as plain(): every field, no generated __init__
-    obj.__dict__.update(name=name, estimate=estimate, std_error=std_error, t_value=t_value)
-    return obj
 
 
 def _coefficients(spec: str, lags: int, params: list[float], bse: list[float], scale: float
@@ -79,12 +49,12 @@ def _coefficients(spec: str, lags: int, params: list[float], bse: list[float], s
     names = _column_names(spec, lags)
     if scale == 1.0:
         return tuple(
-            _coefficient(name, params[j], bse[j], params[j] / bse[j]) for j, name in enumerate(names)
+            Coefficient(name, params[j], bse[j], params[j] / bse[j]) for j, name in enumerate(names)
         )
     terms = len(DETERMINISTIC_TERMS[spec])
     return tuple(
-        _coefficient(name, params[j] * scale, bse[j] * scale, params[j] / bse[j]) if j < terms
-        else _coefficient(name, params[j], bse[j], params[j] / bse[j])
+        Coefficient(name, params[j] * scale, bse[j] * scale, params[j] / bse[j]) if j < terms
+        else Coefficient(name, params[j], bse[j], params[j] / bse[j])
         for j, name in enumerate(names)
     )
 
@@ -114,38 +84,37 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
     rss = float(est.rss[i])
     coefficients = _coefficients(spec, lags, est.params[i].tolist(), est.bse[i].tolist(), scale)
     sigma2 = rss / (nobs - len(coefficients))
-    regression = plain(Regression, {
-        "spec": spec,
-        "difference": level.difference,
-        "lags": lags,
-        "lag_rule": choice.rule,
-        "max_lags": choice.max_lags,
-        "nobs": nobs,
-        "first_observation": lags + 1,
-        "coefficients": coefficients,
-        "sigma2": sigma2 if scale == 1.0 else sigma2 * scale * scale,
-        "rss": rss if scale == 1.0 else rss * scale * scale,
-        "lag_criteria": _criteria_in_units(choice, nobs, scale),
-        "design": _NO_DESIGN,  # not kept: the results of many series would hold every design
-        "response": _NO_RESPONSE,
-    })
+    regression = Regression(
+        spec=spec,
+        difference=level.difference,
+        lags=lags,
+        lag_rule=choice.rule,
+        max_lags=choice.max_lags,
+        nobs=nobs,
+        first_observation=lags + 1,
+        coefficients=coefficients,
+        sigma2=sigma2 if scale == 1.0 else sigma2 * scale * scale,
+        rss=rss if scale == 1.0 else rss * scale * scale,
+        lag_criteria=_criteria_in_units(choice, nobs, scale),
+        design=_NO_DESIGN,  # not kept: the results of many series would hold every design
+        response=_NO_RESPONSE,
+    )
     tau = coefficients[len(DETERMINISTIC_TERMS[spec])].t_value
     critical = fast_tables.tau_critical_value(spec, nobs, alpha)
-    return plain(TestResult, {
-        "test": "adf",
-        "spec": spec,
-        "difference": level.difference,
-        "statistic": tau,
-        "p_value": fast_tables.tau_p_value(tau, spec),
-        "lags": lags,
-        "nobs": nobs,
-        "critical_values": fast_tables.tau_critical_values(spec, nobs),
-        "reject": bool(tau < critical),
-        "critical_value": critical,
-        "p_value_bound": None,
-        "lag_rule": choice.rule,
-        "regression": regression,
-    })
+    return TestResult(
+        test="adf",
+        spec=spec,
+        difference=level.difference,
+        statistic=tau,
+        p_value=fast_tables.tau_p_value(tau, spec),
+        lags=lags,
+        nobs=nobs,
+        critical_values=fast_tables.tau_critical_values(spec, nobs),
+        reject=bool(tau < critical),
+        critical_value=critical,
+        lag_rule=choice.rule,
+        regression=regression,
+    )
 
 
 def phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:
@@ -158,20 +127,4 @@ def phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: flo
     q = len(joint.RESTRICTED_OUT[name])
     k = len(regression.coefficients)
     statistic = ((float(level.phi[name][i]) - rss_u) / q) / (rss_u / (regression.nobs - k))
-    # joint.phi_result's object, built as plain() builds it
-    critical = fast_tables.phi_critical_value(name, regression.nobs, alpha)
-    return plain(TestResult, {
-        "test": name,
-        "spec": regression.spec,
-        "difference": regression.difference,
-        "statistic": statistic,
-        "p_value": None,
-        "lags": regression.lags,
-        "nobs": regression.nobs,
-        "critical_values": fast_tables.phi_critical_values(name, regression.nobs),
-        "reject": bool(statistic > critical),
-        "critical_value": critical,
-        "p_value_bound": None,
-        "lag_rule": regression.lag_rule,
-        "regression": regression,
-    })
+    return joint.phi_result(regression, name, statistic, alpha)
