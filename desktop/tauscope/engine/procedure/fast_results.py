@@ -65,10 +65,10 @@ def _criteria_in_units(choice: LagChoice, nobs: int, scale: float) -> tuple[floa
         return choice.criteria
     log_s2 = 2.0 * math.log(scale)
     if choice.rule in ("aic", "bic", "hqc"):
-        common = nobs + choice.lag - choice.max_lags
-        return tuple(v + common * log_s2 for v in choice.criteria)
+        shift = (nobs + choice.lag - choice.max_lags) * log_s2
+        return tuple((np.asarray(choice.criteria) + shift).tolist())  # v + shift, as floats do it
     if choice.rule == "maic":
-        return tuple(v + log_s2 for v in choice.criteria)
+        return tuple((np.asarray(choice.criteria) + log_s2).tolist())
     return choice.criteria
 
 

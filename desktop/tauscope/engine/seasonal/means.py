@@ -45,7 +45,7 @@ import math
 from dataclasses import dataclass
 
 import numpy as np
-from scipy import stats
+from scipy.special import fdtrc
 
 PERIODS = (4, 12)
 FIND_LEVEL = 0.01  # a seasonal pattern is "found" when the F test's p-value is below this
@@ -128,10 +128,16 @@ def seasonal_means_test(x: np.ndarray, period: int, first_season: int = 0) -> Se
 
     best, best_ic = 0, np.inf
     with np.errstate(all="ignore"):
+        # Every lag order's RSS on the common sample from one QR of the nested designs
+        # [1, y_{t−1}, contrasts, Δy_{t−1} … Δy_{t−p_max}, Δy_t] (column order does not
+        # change an RSS): RSS_p = Σ_{i ≥ 1 + S + p} R_{iK}² (Golub & Van Loan 2013, §5.3).
+        target, base, dummies = design(p_max, first)
+        r = np.asarray(np.linalg.qr(np.column_stack([base[:, :2], dummies, base[:, 2:], target]),
+                                    mode="r"))
+        all_rss = np.cumsum((r[1 + period:, -1] ** 2)[::-1])[::-1]
         for p in range(p_max + 1):
-            target, base, dummies = design(p, first)
-            _, rss = _ols(target, np.column_stack([base, dummies]))
-            k = base.shape[1] + dummies.shape[1]
+            rss = float(all_rss[p])
+            k = 2 + p + dummies.shape[1]
             ic = math.log(max(rss, 1e-300) / rows.size) + 2.0 * k / rows.size
             if ic < best_ic - 1e-12:
                 best, best_ic = p, ic
@@ -143,7 +149,7 @@ def seasonal_means_test(x: np.ndarray, period: int, first_season: int = 0) -> Se
     if df_den < 1 or not rss_u > 0.0 or not np.isfinite(rss_r):
         return None
     f = ((rss_r - rss_u) / df_num) / (rss_u / df_den)
-    p_value = float(stats.f.sf(f, df_num, df_den))
+    p_value = float(fdtrc(df_num, df_den, f))  # the function scipy.stats.f.sf calls: same value
     return SeasonalMeansFit(float(f), p_value, df_num, df_den, best, seasonal_effects(y, period, first_season))
 
 

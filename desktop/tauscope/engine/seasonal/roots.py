@@ -15,7 +15,8 @@ come from a simulation at the series' own length and lag order
 Lag order p: chosen on the common sample of p_max (Ng & Perron 1995) by
 
 * ``"aic"`` (default) / ``"bic"`` — ln(RSS/m) + c·K/m with c = 2 or ln m,
-  K every coefficient, minimised over p = 0 … p_max;
+  K every coefficient, minimised over p = 0 … p_max (every RSS from one QR of
+  the nested designs);
 * ``"tsig"`` — general to specific: start at p_max and drop the last lag while
   |t| < 1.645 (10% two-sided), Ng & Perron (1995);
 * ``"fixed"`` — ``lags`` as given.
@@ -45,8 +46,8 @@ from tauscope.engine.seasonal.critical import (
     DEFAULT_SEED,
     critical_values,
     minimum_length,
-    p_value,
-    simulate,
+    p_value_sorted,
+    sorted_draws,
 )
 from tauscope.engine.seasonal.design import (
     BatchFit,
@@ -96,6 +97,24 @@ def _fit_one(y: np.ndarray, period: int, deterministic: str, lags: int, first_ro
     return fit(dependent, design, det)
 
 
+def _nested_rss(y: np.ndarray, period: int, deterministic: str, p_max: int,
+                first_row: int) -> np.ndarray:
+    """RSS of the regression with p = 0 … p_max lags on one common sample, from one QR.
+
+    The models are nested ([π, Δ_S y_{t−1} … Δ_S y_{t−p}] after μ_t is partialled out),
+    so with R the triangular factor of [X_{p_max}, Δ_S y] (K = S + p_max columns before
+    the dependent one) RSS_p = Σ_{i = S+p … K} R_{iK}² (Golub & Van Loan 2013, §5.3)."""
+    dependent, regressors, lag_block = build(y[None, :], period, p_max, first_row)
+    det = deterministic_columns(deterministic, np.arange(first_row, y.size), period)
+    augmented = np.concatenate([regressors, lag_block, dependent[:, :, None]], axis=2)[0]
+    if det.shape[1]:
+        qd, _ = np.linalg.qr(det)
+        augmented = augmented - qd @ (qd.T @ augmented)
+    r = np.asarray(np.linalg.qr(augmented, mode="r"))
+    tail = r[period:, -1] ** 2
+    return np.cumsum(tail[::-1])[::-1]
+
+
 def choose_lags(
     values: Sequence[float] | np.ndarray,
     period: int,
@@ -130,11 +149,11 @@ def choose_lags(
         return 0
     m = y.size - first
     penalty = 2.0 if rule == "aic" else float(np.log(m))
+    rss = _nested_rss(y, period, deterministic, p_max, first)
     best, best_ic = 0, np.inf
     for p in range(p_max + 1):
-        res = _fit_one(y, period, deterministic, p, first)
         k = n_deterministic(deterministic, period) + period + p
-        ic = float(np.log(res.rss[0] / m) + penalty * k / m)
+        ic = float(np.log(rss[p] / m) + penalty * k / m)
         if ic < best_ic - 1e-12:
             best, best_ic = p, ic
     return best
@@ -206,7 +225,7 @@ def seasonal_unit_roots(
     else:
         chosen = choose_lags(y, period, deterministic, lag_rule, p_max)
     found = seasonal_statistics(y, period, deterministic, chosen)
-    draws = simulate(period, deterministic, n, chosen, reps, seed)
+    draws = sorted_draws(period, deterministic, n, chosen, reps, seed)
     table = critical_values(period, deterministic, n, chosen, reps, seed)
     label = ALPHAS[alpha]
     tests = []
@@ -214,7 +233,7 @@ def seasonal_unit_roots(
         value = found[stat.name]
         crit = table[stat.name]
         reject = value < crit[label] if stat.kind == "t" else value > crit[label]
-        p = p_value(draws[:, i], value, stat.kind)
+        p = p_value_sorted(draws[i], value, stat.kind)
         tests.append(
             SeasonalTest(
                 name=stat.name,
