@@ -216,9 +216,12 @@ def check_breaks(prepared: PreparedSeries, order: int | None, kpss: Sequence[tup
     x = prepared.standardised  # the signs depend on neither level nor scale
     try:
         spec, lags, difference = swing_request(constant_lags)
+        # the swing's τ on the levels as the ADF regressions see them (the fixed seasonal
+        # means removed when the tests allow for them), as the cross-check's recursive τ
+        swing_x = prepared.level(difference)
         recursive: RecursiveStatistic | None = (
-            recursive_tau(x, spec, lags, alpha) if recursive_by is None
-            else recursive_by(x, spec, lags, difference, alpha))
+            recursive_tau(swing_x, spec, lags, alpha) if recursive_by is None
+            else recursive_by(swing_x, spec, lags, difference, alpha))
     except _FAILURES:
         recursive = None
     reasons, jump = break_reasons(x, order, kpss, recursive)

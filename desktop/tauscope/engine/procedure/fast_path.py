@@ -262,6 +262,8 @@ class SeriesBatch:
         for (spec, lags, difference), indices in groups.items():
             rows = sorted(indices)
             xs = np.diff(self._levels_in[rows], n=difference, axis=1)
+            if self.period is not None:  # as PreparedSeries.level(d) gives it on either path
+                xs = remove_seasonal_means(xs, self.period)
             for index, found in zip(rows, recursive_tau_many(xs, spec, lags, alpha), strict=True):
                 self._recursive[(index, spec, lags, difference, alpha)] = found
 
