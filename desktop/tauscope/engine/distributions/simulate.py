@@ -25,7 +25,10 @@ same numbers.  Results are cached and returned read-only.
 
 Finite-sample critical values and p-values from these draws complement the
 response surfaces of MacKinnon (1994, 2010) and the tables of Fuller (1976)
-and Dickey & Fuller (1981).
+and Dickey & Fuller (1981).  The "exact" values of an analysis (10⁶ replications, the
+default seed) are read from a table simulated once with this stream
+(:mod:`tauscope.engine.distributions.exact_grid`) when it holds the regression, and
+simulated per series length otherwise (:func:`tauscope.engine.distributions.exact.lag_null`).
 """
 
 from __future__ import annotations
@@ -47,7 +50,12 @@ from tauscope.engine.distributions.batched import solve_moments as solve_moments
 from tauscope.engine.distributions.batched import tau_statistics as tau_statistics
 from tauscope.engine.distributions.exact import EXACT_REPS as EXACT_REPS
 from tauscope.engine.distributions.exact import lag_null
-from tauscope.engine.distributions.exact_grid import distribution_at, quantile_at, table_quantiles
+from tauscope.engine.distributions.exact_grid import (
+    PROBABILITIES,
+    distribution_at,
+    quantile_at,
+    table_quantiles,
+)
 from tauscope.engine.regression.design import SPECS
 from tauscope.engine.results import TestResult
 
@@ -174,7 +182,9 @@ def null_p_value(statistic: float, name: str, nobs: int, lags: int, reps: int = 
         share, side = distribution_at(table, statistic)
         if lower:
             return share, "below" if side == "below" else None
-        return 1.0 - share, "below" if side == "above" else None
+        if side == "above":
+            return PROBABILITIES[0], "below"  # the grid is symmetric: 1 − 0.999
+        return 1.0 - share, None
     draws = lag_null(int(nobs), int(lags), int(reps), int(seed), _p_reps(reps)).kept[name]
     return empirical_p_value(statistic, draws, lower)
 
