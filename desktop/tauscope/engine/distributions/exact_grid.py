@@ -17,7 +17,7 @@ from __future__ import annotations
 
 import base64
 import bisect
-import zlib
+import lzma
 from functools import lru_cache
 from statistics import NormalDist
 
@@ -50,9 +50,9 @@ def table_lags(length: int) -> tuple[int, ...]:
     return tuple(p for p in lags if p <= reach)
 
 
-def decode(cells: tuple[tuple[int, int], ...], data: tuple[str, ...]) -> dict[tuple[int, int], dict[str, np.ndarray]]:
+def decode(cells: tuple[tuple[int, int], ...], data: str) -> dict[tuple[int, int], dict[str, np.ndarray]]:
     """The table's quantiles: (length, lag) → statistic → values at :data:`PROBABILITIES`."""
-    raw = np.frombuffer(zlib.decompress(base64.b64decode("".join(data))), dtype="<i4")
+    raw = np.frombuffer(lzma.decompress(base64.b64decode(data)), dtype="<i4")
     values = np.cumsum(raw.reshape(len(cells), len(TABLE_STATISTICS), len(PROBABILITIES)), axis=2) * UNIT
     return {key: {name: values[c, s] for s, name in enumerate(TABLE_STATISTICS)}
             for c, key in enumerate(cells)}

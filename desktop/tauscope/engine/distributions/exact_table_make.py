@@ -20,9 +20,9 @@ from __future__ import annotations
 
 import argparse
 import base64
+import lzma
 import math
 import time
-import zlib
 from pathlib import Path
 
 import numpy as np
@@ -74,7 +74,7 @@ def simulate_length(length: int, reps: int = REPS, seed: int = SEED
 
 def encode(cells: dict[tuple[int, int], dict[str, np.ndarray]]) -> str:
     """The quantiles in units of :data:`UNIT`, differenced along the probabilities (the first
-    kept whole), as little-endian int32, zlib-compressed and base64-encoded; cells in sorted
+    kept whole), as little-endian int32, lzma-compressed and base64-encoded; cells in sorted
     (length, lag) order, statistics in :data:`TABLE_STATISTICS` order."""
     rows = []
     for key in sorted(cells):
@@ -83,7 +83,7 @@ def encode(cells: dict[tuple[int, int], dict[str, np.ndarray]]) -> str:
             steps = np.diff(units, prepend=0)
             rows.append(steps)
     raw = np.concatenate(rows).astype("<i4").tobytes()
-    return base64.b64encode(zlib.compress(raw, 9)).decode("ascii")
+    return base64.b64encode(lzma.compress(raw, preset=9 | lzma.PRESET_EXTREME)).decode("ascii")
 
 
 def _existing() -> tuple[dict[tuple[int, int], dict[str, np.ndarray]], dict[tuple[int, int], dict[str, float]]]:
@@ -92,7 +92,8 @@ def _existing() -> tuple[dict[tuple[int, int], dict[str, np.ndarray]], dict[tupl
     from tauscope.engine.distributions import exact_table
 
     cells = decode(exact_table.CELLS, exact_table.DATA)
-    return cells, {key: dict(value) for key, value in exact_table.SE_TAU_1.items()}
+    specs = ("tau_none", "tau_constant", "tau_trend")
+    return cells, {key: dict(zip(specs, value, strict=True)) for key, value in exact_table.SE_TAU_1.items()}
 
 
 def write(cells: dict[tuple[int, int], dict[str, np.ndarray]],
@@ -101,7 +102,8 @@ def write(cells: dict[tuple[int, int], dict[str, np.ndarray]],
     data = encode(cells)
     lines = [data[i:i + 96] for i in range(0, len(data), 96)]
     specs = ("tau_none", "tau_constant", "tau_trend")
-    se = ",\n".join(f"    {key}: ({', '.join(f'{errors[key][n]:.4f}' for n in specs)})" for key in keys)
+    entries = [f"{key}: ({', '.join(f'{errors[key][n]:.4f}' for n in specs)})," for key in keys]
+    se = "\n".join("    " + " ".join(entries[i:i + 3]) for i in range(0, len(entries), 3))
     text = (
         '"""Written by ``python -m tauscope.engine.distributions.exact_table_make`` (do not edit).\n\n'
         f"Quantiles of τ and Φ from {REPS:,} random walks per (length, lag) cell, seed {SEED}; decoded\n"
@@ -111,7 +113,7 @@ def write(cells: dict[tuple[int, int], dict[str, np.ndarray]],
         f"REPS = {REPS}\n"
         f"CELLS = {tuple(keys)!r}\n"
         "DATA = (\n" + "".join(f'    "{line}"\n' for line in lines) + ")\n"
-        "SE_TAU_1 = {\n" + se + ",\n}\n"
+        "SE_TAU_1 = {\n" + se + "\n}\n"
     )
     # keep the lines short: the cell list wrapped by hand
     text = text.replace(f"CELLS = {tuple(keys)!r}\n", "CELLS = (\n" + "".join(
