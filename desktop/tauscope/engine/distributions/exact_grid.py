@@ -24,7 +24,7 @@ from statistics import NormalDist
 import numpy as np
 
 LENGTH_GRID = (25, 35, 50, 75, 110, 160, 250, 400)
-LAG_GRID = (0, 1, 2, 3, 4, 5, 6, 8, 10, 12, 14, 16, 18, 20)
+LAG_GRID = tuple(range(21))  # every lag: the quantiles move in steps of two lags, not linearly
 _LOWER = (0.001, 0.0025, 0.005, 0.01, 0.02, 0.025, 0.03, 0.05, 0.075, 0.10, 0.15, 0.20, 0.30,
           0.40)
 PROBABILITIES = (*_LOWER, 0.5, *(round(1.0 - p, 4) for p in reversed(_LOWER)))
