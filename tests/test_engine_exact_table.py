@@ -71,11 +71,12 @@ def test_a_grid_cell_is_read_as_stored_and_between_cells_lies_between() -> None:
     low, high = CELLS[(short, p)]["tau_trend"], CELLS[(long, p)]["tau_trend"]
     assert read is not None
     assert np.all(read >= np.minimum(low, high) - 1e-12) and np.all(read <= np.maximum(low, high) + 1e-12)
-    # between lags: lag 7 lies between the grid's 6 and 8
-    between = table_quantiles("tau_constant", nobs, 7)
-    six, eight = table_quantiles("tau_constant", nobs, 6), table_quantiles("tau_constant", nobs, 8)
-    assert between is not None and six is not None and eight is not None
-    assert np.allclose(between, (six + eight) / 2, atol=1e-12)
+    # every lag is read from its own cells, never between two lags
+    seven = table_quantiles("tau_constant", nobs, 7)
+    assert seven is not None
+    w = (1.0 / nobs - 1.0 / (long - 7)) / (1.0 / (short - 7) - 1.0 / (long - 7))
+    assert np.allclose(seven, w * CELLS[(short, 7)]["tau_constant"]
+                       + (1.0 - w) * CELLS[(long, 7)]["tau_constant"], atol=1e-12)
     assert table_quantiles("tau_constant", 10_000, 2) is None  # off the grid: simulated instead
 
 

@@ -4,11 +4,13 @@ The table (:mod:`tauscope.engine.distributions.exact_table`, written by
 :mod:`~tauscope.engine.distributions.exact_table_make`) holds, for each series length L on
 :data:`LENGTH_GRID` (shocks per path) and lag order p on :data:`LAG_GRID`, the quantiles at
 :data:`PROBABILITIES` of τ (three specs) and Φ1, Φ2, Φ3 of the ADF regression on nobs = L − p
-observations, each from 10⁶ random walks.  A request (nobs, p) is read as follows: for each of
-the two grid lags p₀ ≤ p ≤ p₁, the cell lengths L₀ ≤ nobs + p_g ≤ L₁ are interpolated linearly
-in 1/nobs (finite-sample terms of these quantiles are close to polynomials in 1/T, MacKinnon
-1994, 2010; the union's table is read the same way), then the two lags linearly in p.  A request
-the grid does not bracket gets ``None`` (the caller simulates).  A p-value is the
+observations, each from 10⁶ random walks.  A request (nobs, p) is read at its own lag p from
+the two cells whose lengths bracket nobs + p, interpolated linearly in 1/nobs (finite-sample
+terms of these quantiles are close to polynomials in 1/T, MacKinnon 1994, 2010; the union's
+table is read the same way).  Every lag order has its own cells: at a fixed nobs the quantiles
+move in steps of two lags (0 ≈ 1, 2 ≈ 3, …), so reading between lags is not linear
+(``benchmarks/exact_table_check.py``).  A request the grid does not bracket gets ``None`` (the
+caller simulates).  A p-value is the
 interpolated distribution function at the statistic, linear in the normal score of the
 probability between stored quantiles; beyond the outermost quantiles it is bounded.
 """
@@ -90,18 +92,9 @@ def table_quantiles(name: str, nobs: int, lags: int) -> np.ndarray | None:
     """The quantiles of ``name`` at :data:`PROBABILITIES` for the regression (nobs, lags),
     interpolated from the table, or None when the grid does not bracket the request."""
     table = _table()
-    if not table or lags < 0 or lags > LAG_GRID[-1]:
+    if not table or lags not in LAG_GRID:
         return None
-    j = bisect.bisect_left(LAG_GRID, lags)
-    if LAG_GRID[j] == lags:
-        out = _at_lag(table, name, nobs, lags)
-    else:
-        p0, p1 = LAG_GRID[j - 1], LAG_GRID[j]
-        low, high = _at_lag(table, name, nobs, p0), _at_lag(table, name, nobs, p1)
-        if low is None or high is None:
-            return None
-        w = (p1 - lags) / (p1 - p0)
-        out = w * low + (1.0 - w) * high
+    out = _at_lag(table, name, nobs, lags)
     if out is not None:
         out.setflags(write=False)
     return out
