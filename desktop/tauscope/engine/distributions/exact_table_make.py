@@ -101,7 +101,7 @@ def write(cells: dict[tuple[int, int], dict[str, np.ndarray]],
           errors: dict[tuple[int, int], dict[str, float]]) -> None:
     keys = sorted(cells)
     data = encode(cells)
-    lines = [data[i:i + 96] for i in range(0, len(data), 96)]
+    lines = [data[i:i + 112] for i in range(0, len(data), 112)]
     specs = ("tau_none", "tau_constant", "tau_trend")
     entries = [f"{key}: ({', '.join(f'{errors[key][n]:.4f}' for n in specs)})," for key in keys]
     se = "\n".join("    " + " ".join(entries[i:i + 3]) for i in range(0, len(entries), 3))
