@@ -25,7 +25,10 @@ same numbers.  Results are cached and returned read-only.
 
 Finite-sample critical values and p-values from these draws complement the
 response surfaces of MacKinnon (1994, 2010) and the tables of Fuller (1976)
-and Dickey & Fuller (1981).
+and Dickey & Fuller (1981).  The "exact" values of an analysis (10⁶ replications, the
+default seed) are read from a table simulated once with this stream
+(:mod:`tauscope.engine.distributions.exact_grid`) when it holds the regression, and
+simulated per series length otherwise (:func:`tauscope.engine.distributions.exact.lag_null`).
 """
 
 from __future__ import annotations
@@ -46,7 +49,13 @@ from tauscope.engine.distributions.batched import shock_chunks as shock_chunks
 from tauscope.engine.distributions.batched import solve_moments as solve_moments
 from tauscope.engine.distributions.batched import tau_statistics as tau_statistics
 from tauscope.engine.distributions.exact import EXACT_REPS as EXACT_REPS
-from tauscope.engine.distributions.exact import streamed_quantiles
+from tauscope.engine.distributions.exact import lag_null
+from tauscope.engine.distributions.exact_grid import (
+    PROBABILITIES,
+    distribution_at,
+    quantile_at,
+    table_quantiles,
+)
 from tauscope.engine.regression.design import SPECS
 from tauscope.engine.results import TestResult
 
@@ -141,35 +150,76 @@ def _p_reps(reps: int) -> int:
     return min(int(reps), P_VALUE_REPS)
 
 
+def _from_table(name: str, nobs: int, lags: int, reps: int, seed: int) -> np.ndarray | None:
+    """The table's quantiles for (nobs, lags) (:mod:`tauscope.engine.distributions.exact_grid`),
+    when the request is the default one (10⁶ replications, the default seed) and the grid
+    brackets it; otherwise None."""
+    if reps != EXACT_REPS or seed != DEFAULT_SEED:
+        return None
+    return table_quantiles(name, nobs, lags)
+
+
+def null_critical_values(name: str, nobs: int, lags: int, reps: int = EXACT_REPS,
+                         seed: int = DEFAULT_SEED) -> dict[str, float]:
+    """1%, 5%, 10% critical values of ``name`` (``tau_<spec>``, lower tail; ``phi1``-``phi3``,
+    upper tail) for the regression (nobs, lags): read from the table when it holds them,
+    else simulated with every lag order of this series length (:func:`lag_null`)."""
+    table = _from_table(name, nobs, lags, reps, seed)
+    if table is not None:
+        upper = name in PHI_SPEC
+        return {level: quantile_at(table, 1.0 - a if upper else a) for level, a in LEVELS.items()}
+    return dict(lag_null(int(nobs), int(lags), int(reps), int(seed), _p_reps(reps)).quantiles[name].values)
+
+
+def null_p_value(statistic: float, name: str, nobs: int, lags: int, reps: int = EXACT_REPS,
+                 seed: int = DEFAULT_SEED) -> tuple[float, str | None]:
+    """The p-value of ``statistic`` under the null of ``name`` at (nobs, lags) and its bound:
+    from the table's quantiles when it holds them (bounded at 0.001), else the share of the
+    first :data:`P_VALUE_REPS` simulated draws at least as extreme."""
+    lower = name.startswith("tau_")
+    table = _from_table(name, nobs, lags, reps, seed)
+    if table is not None:
+        share, side = distribution_at(table, statistic)
+        if lower:
+            return share, "below" if side == "below" else None
+        if side == "above":
+            return PROBABILITIES[0], "below"  # the grid is symmetric: 1 − 0.999
+        return 1.0 - share, None
+    draws = lag_null(int(nobs), int(lags), int(reps), int(seed), _p_reps(reps)).kept[name]
+    return empirical_p_value(statistic, draws, lower)
+
+
 def exact_critical_values(spec: str, nobs: int, lags: int = 0, reps: int = EXACT_REPS,
                           seed: int = DEFAULT_SEED) -> dict[str, float]:
     """Finite-sample τ critical values at the user's exact regression size, from ``reps``
-    streamed replications (:mod:`tauscope.engine.distributions.exact`)."""
+    replications (:func:`null_critical_values`)."""
     _check(spec, nobs, reps, lags)
-    return dict(streamed_quantiles(int(nobs), int(lags), int(reps), int(seed))[f"tau_{spec}"].values)
+    return null_critical_values(f"tau_{spec}", nobs, lags, reps, seed)
 
 
 def exact_p_value(statistic: float, spec: str, nobs: int, lags: int = 0, reps: int = EXACT_REPS,
                   seed: int = DEFAULT_SEED) -> float:
-    """Finite-sample lower-tail p-value of τ (the share of null draws at or below it;
-    at most :data:`P_VALUE_REPS` draws)."""
-    return empirical_p_value(statistic, null_distribution(spec, nobs, _p_reps(reps), seed, lags))[0]
+    """Finite-sample lower-tail p-value of τ (:func:`null_p_value`)."""
+    _check(spec, nobs, reps, lags)
+    return null_p_value(statistic, f"tau_{spec}", nobs, lags, reps, seed)[0]
 
 
 def exact_phi_critical_values(name: str, nobs: int, lags: int = 0, reps: int = EXACT_REPS,
                               seed: int = DEFAULT_SEED) -> dict[str, float]:
-    """Finite-sample upper-tail critical values of Φ1, Φ2 or Φ3 (streamed, as τ's)."""
+    """Finite-sample upper-tail critical values of Φ1, Φ2 or Φ3 (as τ's)."""
     if name not in PHI_SPEC:
         raise ValueError(f"name must be one of {', '.join(PHI_SPEC)}, not {name!r}")
     _check(PHI_SPEC[name], nobs, reps, lags)
-    return dict(streamed_quantiles(int(nobs), int(lags), int(reps), int(seed))[name].values)
+    return null_critical_values(name, nobs, lags, reps, seed)
 
 
 def exact_phi_p_value(statistic: float, name: str, nobs: int, lags: int = 0,
                       reps: int = EXACT_REPS, seed: int = DEFAULT_SEED) -> float:
     """Finite-sample upper-tail p-value of Φ1, Φ2 or Φ3."""
-    return empirical_p_value(statistic, phi_null_distribution(name, nobs, _p_reps(reps), seed, lags),
-                             lower=False)[0]
+    if name not in PHI_SPEC:
+        raise ValueError(f"name must be one of {', '.join(PHI_SPEC)}, not {name!r}")
+    _check(PHI_SPEC[name], nobs, reps, lags)
+    return null_p_value(statistic, name, nobs, lags, reps, seed)[0]
 
 
 def exact_critical_value(spec: str, nobs: int, alpha: float, lags: int = 0,
@@ -181,26 +231,22 @@ def exact_critical_value(spec: str, nobs: int, alpha: float, lags: int = 0,
 def with_exact_values(test: TestResult, alpha: float, use_lags: bool = True, reps: int = EXACT_REPS,
                       seed: int = DEFAULT_SEED) -> TestResult:
     """The same ADF τ or Φ test judged against its simulated null at the test's own
-    regression size (and lag order, unless ``use_lags`` is False): critical values
-    (``reps`` streamed replications), decision and p-value (at most
-    :data:`P_VALUE_REPS` draws) replaced; other tests, and tests on samples too short to
-    simulate, are returned unchanged."""
+    regression size (and lag order, unless ``use_lags`` is False): critical values,
+    decision and p-value replaced (:func:`null_critical_values`, :func:`null_p_value`);
+    other tests, and tests on samples too short to simulate, are returned unchanged."""
     lags = test.lags if use_lags else 0
     level = f"{round(alpha * 100):d}%"
     if test.nobs < lags + 4:
         return test  # too few observations to simulate: the published values stay
     if test.test == "adf":
-        values = exact_critical_values(test.spec, test.nobs, lags, reps, seed)
-        draws = null_distribution(test.spec, test.nobs, _p_reps(reps), seed, lags)
-        p_value, bound = empirical_p_value(test.statistic, draws)
-        reject = test.statistic < values[level]
+        name = f"tau_{test.spec}"
     elif test.test in PHI_SPEC:
-        values = exact_phi_critical_values(test.test, test.nobs, lags, reps, seed)
-        draws = phi_null_distribution(test.test, test.nobs, _p_reps(reps), seed, lags)
-        p_value, bound = empirical_p_value(test.statistic, draws, lower=False)
-        reject = test.statistic > values[level]
+        name = test.test
     else:
         return test
+    values = null_critical_values(name, test.nobs, lags, reps, seed)
+    p_value, bound = null_p_value(test.statistic, name, test.nobs, lags, reps, seed)
+    reject = test.statistic > values[level] if name in PHI_SPEC else test.statistic < values[level]
     return replace(test, critical_values=values, critical_value=values[level], reject=bool(reject),
                    p_value=p_value, p_value_bound=reportable_bound(p_value, bound))
 
