@@ -64,3 +64,19 @@ def test_notes_say_when_the_level_or_the_strategy_changes_the_verdict() -> None:
     assert other is not None and "%" not in other
     assert grade_note("inconclusive", ("fewer than 150 observations",)) == (
         "Cross-check unclear: the verdict is not confirmed, because fewer than 150 observations.")
+
+
+def test_no_drift_is_confirmed_only_where_a_small_drift_would_be_seen() -> None:
+    """Condition 9: the trend test's mean under a drift δ is about δ√T (a t ratio of the
+    mean of Δy; Harvey, Leybourne & Taylor 2007), so 90% power at 5% two-sided against
+    δ = 0.1 needs T ≥ ((1.95996 + 1.28155)/0.1)² = 1,050.7 (normal quantiles, common
+    practice)."""
+    from tauscope.engine.reading.grade import NO_DRIFT_LENGTH
+
+    assert NO_DRIFT_LENGTH == 1051
+    walk = {**GOOD_I1, "deterministic": "none", "nobs": 500}
+    graded = grade(**walk)  # type: ignore[arg-type]
+    assert graded.agreement == "inconclusive" and "small drift" in graded.missing[0]
+    assert grade(**{**walk, "nobs": 1051}).agreement == "confirmed"  # type: ignore[arg-type]
+    # a drift found, or a stationary verdict, is not held to it
+    assert grade(**{**walk, "deterministic": "constant"}).agreement == "confirmed"  # type: ignore[arg-type]

@@ -7,15 +7,20 @@ both the trend and initial condition", Journal of Econometrics 169(2), 188-195.
 
 Components: the Dickey-Fuller t statistic on the GLS-detrended series (DF-GLS, c̄ = −7
 with a constant, −13.5 with a trend; Elliott, Rothenberg & Stock 1996) and, in the
-four-test form of HLT (2012), on the OLS-detrended series (asymptotically the usual
-ADF τ_μ and τ_τ), which keeps its power when the initial observation is far from the
-mean, where the GLS versions lose it.  Each component i has its own α-level critical
-value cv_i; the unit root is rejected when any
+four-test form of HLT (2012), a statistic on the OLS-detrended series, which keeps its
+power when the initial observation is far from the mean, where the GLS versions lose it:
+here MSB (Stock 1999; Perron & Ng 1996) with Ng & Perron's (2001) s²_AR, which keeps more
+power with MAIC lags (:mod:`tauscope.engine.unitroot.union_components`, which also holds
+the short-sample rule: on the levels (d = 0) of fewer than 100 values a minimum lag of 2
+and a null simulated with the lag choice included).
+Each component i has its own α-level critical value cv_i (τ_i below stands for any
+component's statistic); the unit root is rejected when any
 
     τ_i < κ·cv_i,   i.e. when   M = max_i τ_i / cv_i > κ,
 
 and κ ≥ 1, the (1 − α) quantile of M under the null, makes the union's size α.  The
-null is simulated (driftless Gaussian random walks, no lag augmentation, fixed seed):
+null is simulated (driftless Gaussian random walks, fixed seed; no lag augmentation except
+on a level that takes the short-sample rule):
 ``critical="finite"`` at the series' own length, read from the table simulated once on a
 grid of lengths and interpolated in 1/T (:mod:`tauscope.engine.unitroot.union_lookup`;
 simulated directly, cached, below the grid), ``"simulate"`` always simulated directly at
@@ -23,7 +28,10 @@ the series' length, ``"asymptotic"`` the large-T values of :data:`ASYMPTOTIC`.  
 components are invariant to the level, and the trend ones to a linear trend, so a drifting
 unit root is no easier to reject.  The lag order of each deterministic case is chosen
 once, on the OLS-detrended series (MAIC, Ng & Perron 2001; Perron & Qu 2007), and used
-by both of its components.
+by both of its components.  The engine takes MAIC here whatever the user's lag rule (a
+fixed order excepted): Ng & Perron (2001) built MAIC for these statistics and HLT (2009,
+2012) use it; AIC's long lags on an over-differenced series leave MSB without power
+(:func:`union_rule`).
 
 The order of integration comes from the highest difference down (Dickey, D.A. &
 Pantula, S.G. 1987, JBES 5(4)): the union on Δ^d y for d = max, …, 0 while it rejects;
@@ -50,15 +58,14 @@ from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.unitroot.dfgls_many import (
     VECTOR_RULES,
     choose_lags_detrended,
-    dfgls_tau_many,
-    gls_detrend_many,
-    ols_detrend_many,
+    choose_lags_many,
 )
 from tauscope.engine.unitroot.trend_robust import (
     trend_critical_value,
     trend_found,
     trend_statistics,
 )
+from tauscope.engine.unitroot.union_components import component_values, detrended, min_lag, short
 from tauscope.engine.unitroot.union_lookup import table_constants, table_power
 
 COMPONENTS = {
@@ -71,13 +78,20 @@ COMPONENTS = {
 # scorecard as the value that keeps ARIMA(0,1,1) with θ = −0.8 near its size and the
 # AR(1) alternatives near their power (benchmarks/verdict_scorecard.py).
 UNION_LAG_SCALE = 6.0
+# On the differences (d ≥ 1) the maximum is Schwert's short rule ⌊4 (T/100)^{1/4}⌋: there the
+# question is whether the series was over-differenced, and on an over-differenced or white-noise
+# series MAIC's τ-term favours long lags, which pull α̂ toward 0 and leave the unit root of
+# the difference unrejected (random walks of 50 values called I(2) 19.6% with c = 6, 12.7% with
+# c = 4; 2,000 series; DEVELOPERS.md, "Verdict scorecard").  The levels keep c = 6.
+DIFFERENCE_LAG_SCALE = 4.0
 UNION_REPS = 20_000  # finite-sample constants simulated directly: κ to about ±0.005
 POWER_PHI = 0.95  # the tabulated power's AR(1) alternative (the badge's condition)
 POWER_REPS = 2_000  # union_power's default replications when simulated directly
 ASYMPTOTIC_LENGTH = 2_000
 ASYMPTOTIC_REPS = 200_000
-# cv of each component and κ, simulated at T = 2,000 with 200,000 replications, seed
-# DEFAULT_SEED, by ``python -m tauscope.engine.unitroot.union``.
+# cv of each component (the OLS ones as −1/MSB) and κ, simulated at T = 2,000 with 200,000
+# replications, seed DEFAULT_SEED (the same draws as the table's T = 2,000 row; also printed
+# by ``python -m tauscope.engine.unitroot.union``).
 ASYMPTOTIC: dict[str, dict[float, tuple[tuple[float, ...], float]]] = {
     "two": {
         0.01: ((-2.5739, -3.4178), 1.0670),
@@ -85,17 +99,20 @@ ASYMPTOTIC: dict[str, dict[float, tuple[tuple[float, ...], float]]] = {
         0.10: ((-1.6224, -2.5670), 1.1252),
     },
     "four": {
-        0.01: ((-2.5739, -3.4178, -3.4247, -3.9601), 1.1119),
-        0.05: ((-1.9474, -2.8571, -2.8649, -3.4134), 1.1591),
-        0.10: ((-1.6224, -2.5670, -2.5666, -3.1301), 1.1981),
+        0.01: ((-2.5739, -3.4178, -6.3076, -7.5595), 1.0993),
+        0.05: ((-1.9474, -2.8571, -5.2163, -6.5127), 1.1405),
+        0.10: ((-1.6224, -2.5670, -4.6519, -5.9711), 1.1732),
     },
 }
 
 
-def detrended(xs: np.ndarray, component: str) -> np.ndarray:
-    """The series of a component ("gls-constant", …): GLS- or OLS-detrended rows."""
-    method, spec = component.split("-")
-    return gls_detrend_many(xs, spec) if method == "gls" else ols_detrend_many(xs, spec)
+def union_rule(rule: str) -> str:
+    """The lag rule of the union's components: the user's fixed order, else MAIC whatever
+    the user chose (Ng & Perron 2001 built MAIC for the M statistics, and HLT 2009/2012 use
+    it; with AIC's long lags MSB does not reject on an over-differenced series, so plainly
+    stationary series came out unresolved).  The user's rule still drives the classic
+    sequence and the cross-checks."""
+    return "fixed" if rule == "fixed" else "maic"
 
 
 @dataclass(frozen=True)
@@ -108,22 +125,35 @@ class UnionConstants:
     kappa: float
     length: int | None  # None: asymptotic
     reps: int
+    lagged: bool = False  # the null with the lag choice included (the short-sample rule)
 
 
 def union_null(length: int, reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
-               components: tuple[str, ...] = COMPONENTS["four"], period: int | None = None) -> np.ndarray:
+               components: tuple[str, ...] = COMPONENTS["four"], period: int | None = None,
+               lagged: bool = False) -> np.ndarray:
     """(reps, components) statistics for driftless Gaussian random walks of ``length``
-    values, all components from the same path, without lag augmentation; with ``period``,
-    each walk's fixed seasonal means are removed first."""
+    values, all components from the same path: without lag augmentation, or, with
+    ``lagged`` (a level that takes the short-sample rule,
+    :func:`~tauscope.engine.unitroot.union_components.short`), with the default lag choice
+    applied to each path (MAIC up to ⌊6 (T/100)^{1/4}⌋, at least the short-sample minimum),
+    so that the null includes the lag-selection step.  With ``period``, each walk's fixed
+    seasonal means are removed first."""
     if length < 10:
         raise ValueError("the union needs at least 10 values")
     parts = []
+    cap = max_lags_schwert(length, None, UNION_LAG_SCALE)
     for shocks in shock_chunks(length, reps, seed, width=2 * len(components)):
         paths = np.cumsum(shocks, axis=1)
         if period is not None:
             paths = remove_seasonal_means(paths, period)
-        zeros = np.zeros(paths.shape[0], dtype=int)
-        parts.append(np.column_stack([dfgls_tau_many(detrended(paths, c), zeros) for c in components]))
+        if lagged:
+            chosen = {spec: choose_lags_many(paths, spec, "maic", cap, None, min_lag(length, "maic"))
+                      for spec in ("constant", "trend")}
+            lags = [chosen[c.split("-")[1]] for c in components]
+        else:
+            lags = [np.zeros(paths.shape[0], dtype=int)] * len(components)
+        parts.append(np.column_stack([component_values(detrended(paths, c), c, k)
+                                      for c, k in zip(components, lags, strict=True)]))
     return np.vstack(parts)
 
 
@@ -136,20 +166,24 @@ def constants_from_draws(draws: np.ndarray, alpha: float) -> tuple[tuple[float, 
 
 @lru_cache(maxsize=64)
 def _simulated(length: int, reps: int, seed: int, components: tuple[str, ...],
-               period: int | None = None) -> np.ndarray:
-    draws = union_null(length, reps, seed, components, period)
+               period: int | None = None, lagged: bool = False) -> np.ndarray:
+    draws = union_null(length, reps, seed, components, period, lagged)
     draws.setflags(write=False)
     return draws
 
 
 def union_constants(length: int | None, alpha: float = 0.05, components: str = "four",
                     reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
-                    source: str = "table", period: int | None = None) -> UnionConstants:
+                    source: str = "table", period: int | None = None,
+                    lagged: bool = False) -> UnionConstants:
     """The constants at the series' own ``length``, or the asymptotic ones for
     ``length=None``.  ``source="table"``: interpolated from the pre-simulated table when it
     holds this length and α (and ``reps`` and ``seed`` are the defaults), else simulated;
     ``"simulate"``: simulated at ``length`` with ``reps`` replications (cached).  With
-    ``period``, simulated with the seasonal means removed (the table holds none)."""
+    ``period``, simulated with the seasonal means removed (the table holds none).
+    ``lagged``: the null with the lag choice included (the short-sample rule, levels of
+    fewer than 100 values); the table holds that null below 100 values and the plain one
+    from 100, so the other null at a short length is simulated directly."""
     names = COMPONENTS[components]
     if length is None:
         table = ASYMPTOTIC[components]
@@ -158,12 +192,14 @@ def union_constants(length: int | None, alpha: float = 0.05, components: str = "
             raise ValueError(f"no asymptotic union constants for alpha = {alpha}")
         cvs, kappa = table[key]
         return UnionConstants(alpha, names, cvs, kappa, None, ASYMPTOTIC_REPS)
-    if source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED and period is None:
+    lagged = bool(lagged and short(int(length)))
+    if (source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED and period is None
+            and lagged == short(int(length))):
         tabled = table_constants(int(length), alpha, components)
         if tabled is not None:
-            return UnionConstants(alpha, names, tabled[0], tabled[1], int(length), tabled[2])
-    cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names, period), alpha)
-    return UnionConstants(alpha, names, cvs, kappa, int(length), reps)
+            return UnionConstants(alpha, names, tabled[0], tabled[1], int(length), tabled[2], lagged)
+    cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names, period, lagged), alpha)
+    return UnionConstants(alpha, names, cvs, kappa, int(length), reps, lagged)
 
 
 @dataclass(frozen=True)
@@ -214,25 +250,27 @@ def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha
             series[component] = detrended(xs, component)
         return series[component]
 
+    floor = min_lag(xs.shape[1], rule, difference)
     searched = rule in VECTOR_RULES and max_lags > 0
     lags = {spec: choose_lags_detrended(xs, rows_of(f"ols-{spec}") if searched else None, spec, rule,
-                                        max_lags, fixed) for spec in ("constant", "trend")}
+                                        max_lags, fixed, floor) for spec in ("constant", "trend")}
     tau = {c: _component_tau(rows_of(c), lags[c.split("-")[1]], known, c) for c in COMPONENTS[components]}
     constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components,
-                                source=_source(critical), period=period)
+                                source=_source(critical), period=period, lagged=floor > 0)
     margin = margins(tau, constants)
     return UnionLevel(difference, tau, lags, constants, margin, np.asarray(margin > 1.0), series)
 
 
 def _component_tau(rows: np.ndarray, lags: np.ndarray, known: UnionLevel | None, component: str) -> np.ndarray:
-    """DF-GLS τ of every row, taken from ``known`` where it used the same lag order."""
+    """The component's statistic of every row (DF-GLS t, or −1/MSB), taken from ``known``
+    where it used the same lag order."""
     spec = component.split("-")[1]
     if known is None or component not in known.tau or spec not in known.lags:
-        return dfgls_tau_many(rows, lags)
+        return component_values(rows, component, lags)
     tau = np.array(known.tau[component], dtype=float)
     fresh = np.flatnonzero(np.asarray(known.lags[spec]) != lags)
     if fresh.size:
-        tau[fresh] = dfgls_tau_many(rows[fresh], lags[fresh])
+        tau[fresh] = component_values(rows[fresh], component, lags[fresh])
     return tau
 
 
@@ -250,6 +288,13 @@ class UnionOrders:
     deterministic: tuple[str | None, ...]
     trend_z: np.ndarray
     levels: dict[int, UnionLevel]
+
+
+def level_lag_scale(difference: int, lag_scale: float = UNION_LAG_SCALE) -> float:
+    """The union's lag-maximum constant c on the level Δ^``difference``: the default c = 6 on
+    the levels and :data:`DIFFERENCE_LAG_SCALE` on the differences (another ``lag_scale``,
+    such as the long-lag check's c = 12, applies on every level)."""
+    return DIFFERENCE_LAG_SCALE if difference > 0 and lag_scale == UNION_LAG_SCALE else lag_scale
 
 
 def max_lags_schwert(length: int, max_lags: int | None = None, scale: float = 12.0) -> int:
@@ -279,7 +324,7 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
     levels: dict[int, UnionLevel] = {}
     for d in range(max_difference, -1, -1):
         xd = level_rows(xs, d, period)
-        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
+        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, level_lag_scale(d, lag_scale))
         levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components,
                                 None if known is None else known.levels.get(d), period)
     order = orders_from_rejections({d: level.reject for d, level in levels.items()}, max_difference)
@@ -304,8 +349,9 @@ def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, Un
             continue
         xd = level_rows(xs[chosen], d, period)
         z[chosen] = trend_statistics(xd, levels[d].tau_trend[chosen])["z"]
-        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
-        critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0), source=_source(critical))
+        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, level_lag_scale(d, lag_scale))
+        critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0), source=_source(critical),
+                                              difference=d)
         trend[chosen] = trend_found(z[chosen], critical_value)
     labels: list[str | None] = []
     for o, t in zip(order, trend, strict=True):
@@ -344,7 +390,7 @@ def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "
     for d, level in levels.items():
         kind = next(k for k, v in COMPONENTS.items() if v == level.constants.components)
         c = union_constants(None if critical == "asymptotic" else level.constants.length, alpha, kind,
-                            source=_source(critical), period=period)
+                            source=_source(critical), period=period, lagged=level.constants.lagged)
         out[d] = np.asarray(margins(level.tau, c) > 1.0)
     return out
 

@@ -9,14 +9,15 @@ Each quantity comes from the same simulator and seed as the direct path, only wi
 replications:
 
 * the union's null (:func:`~tauscope.engine.unitroot.union.union_null`, seed
-  ``DEFAULT_SEED``): every component's α quantile cv_i and κ, the (1 − α) quantile of
+  ``DEFAULT_SEED``; below 100 values with the lag choice included, so the grid holds
+  T = 99, the last short length, beside T = 100): every component's α quantile cv_i and κ, the (1 − α) quantile of
   max_i τ_i / cv_i (Harvey, Leybourne & Taylor 2009, 2012), for the four-test and (its
   first two columns, the same draws) the two-test union; at T = 2,000 with the
   replications of ``union.ASYMPTOTIC``, so the table's end reproduces it;
 * the trend test's null (Harvey, Leybourne & Taylor 2007): the 1 − α quantiles of |z_λ|
   for driftless random walks and for white noise, drawn in the order of
   :func:`~tauscope.engine.unitroot.trend_robust.trend_critical_value`, MAIC lags up to
-  ⌊6 (T/100)^{1/4}⌋ (the union's default);
+  ⌊6 (T/100)^{1/4}⌋ (the union's default; at least 2 below 100 values);
 * the union's power against a stationary AR(1) with φ = 0.95, drawn in the order of
   :func:`~tauscope.engine.unitroot.union.union_power`, with the table's own constants.
 
@@ -35,7 +36,7 @@ from pathlib import Path
 import numpy as np
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED
-from tauscope.engine.unitroot.dfgls_many import choose_lags_many, dfgls_many, dfgls_tau_many
+from tauscope.engine.unitroot.dfgls_many import choose_lags_many, dfgls_many
 from tauscope.engine.unitroot.trend_robust import trend_statistics
 from tauscope.engine.unitroot.union import (
     ASYMPTOTIC_LENGTH,
@@ -43,16 +44,16 @@ from tauscope.engine.unitroot.union import (
     COMPONENTS,
     UNION_LAG_SCALE,
     constants_from_draws,
-    detrended,
     max_lags_schwert,
     union_null,
 )
+from tauscope.engine.unitroot.union_components import component_statistic, min_lag, short
 
-GRID = (10, 12, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300, 400, 500,
+GRID = (10, 12, 15, 20, 25, 30, 40, 50, 60, 75, 99, 100, 125, 150, 200, 250, 300, 400, 500,
         750, 1000, 2000)
 ALPHAS = (0.01, 0.05, 0.10)
 POWER_PHI = 0.95
-NULL_REPS = 1_000_000
+NULL_REPS = 300_000  # κ SE at 5% about 0.0008 (T = 100); 1,000,000 before the M statistics
 TREND_REPS = 20_000
 POWER_REPS = 20_000
 BATCHES = 20
@@ -80,7 +81,8 @@ def _se(estimates: list[float]) -> float:
 
 def null_entry(length: int, reps: int | None = None) -> NullEntry:
     """Per α: (cv of the four components, κ four, κ two, SE of κ four, SE of κ two)."""
-    draws = union_null(length, null_reps(length) if reps is None else reps, DEFAULT_SEED, COMPONENTS["four"])
+    draws = union_null(length, null_reps(length) if reps is None else reps, DEFAULT_SEED, COMPONENTS["four"],
+                       lagged=short(length))
     return null_summary(draws)
 
 
@@ -113,7 +115,7 @@ def trend_null_z(length: int, reps: int = TREND_REPS, rule: str = "maic",
         parts = []
         for shocks in _row_chunks(rng, reps, length):
             xs = np.cumsum(shocks, axis=1) if walk else shocks
-            u, _ = dfgls_many(xs, "trend", rule, p)
+            u, _ = dfgls_many(xs, "trend", rule, p, None, min_lag(length, rule))
             parts.append(np.abs(trend_statistics(xs, u)["z"]))
         out.append(np.concatenate(parts))
     return out[0], out[1]
@@ -143,9 +145,9 @@ def power_rejections(length: int, constants: dict[float, tuple[tuple[float, ...]
         y[:, 0] = e[:, 0] / np.sqrt(1.0 - phi * phi)
         for t in range(1, length):
             y[:, t] = phi * y[:, t - 1] + e[:, t]
-        lags = {spec: choose_lags_many(y, spec, "maic", p) for spec in ("constant", "trend")}
-        tau = np.column_stack([dfgls_tau_many(detrended(y, c), lags[c.split("-")[1]])
-                               for c in COMPONENTS["four"]])
+        lags = {spec: choose_lags_many(y, spec, "maic", p, None, min_lag(length, "maic"))
+                for spec in ("constant", "trend")}
+        tau = np.column_stack([component_statistic(y, c, lags[c.split("-")[1]]) for c in COMPONENTS["four"]])
         for alpha, (cvs, kappa4, kappa2) in constants.items():
             for kind, kappa in (("four", kappa4), ("two", kappa2)):
                 m = len(COMPONENTS[kind])
