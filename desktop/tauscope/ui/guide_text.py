@@ -98,9 +98,9 @@ series with its mean or trend removed by GLS (Elliott, Rothenberg &amp; Stock 19
 statistic (Stock 1999; Perron &amp; Ng 1996, with the long-run variance of Ng &amp; Perron 2001) on
 the series with them removed by OLS, each against its own critical value scaled by a constant κ,
 simulated at the series' length, so that the whole decision on each difference keeps the chosen
-level. On a difference of fewer than 100 observations the lag order is at least 2 and the
-critical values are simulated with the lag choice included, because short series with a negative
-moving average otherwise look stationary too often. The steps are marked <b>DF-GLS</b>,
+level. On the levels of a series of fewer than 100 observations the lag order is at least 2 and
+the critical values are simulated with the lag choice included, because short series with a
+negative moving average otherwise look stationary too often. The steps are marked <b>DF-GLS</b>,
 <b>MSB</b> (small values speak against a unit root), <b>M</b> (the union against κ) and
 <b>z<sub>λ</sub></b>: whether the series has a trend (or, with a unit root, a
 drift) comes from the trend test of Harvey, Leybourne &amp; Taylor (2007), which holds with or
@@ -173,7 +173,10 @@ The lag order is chosen by the rule in Settings, comparing all orders on a commo
 last lag, or the modified AIC of Ng &amp; Perron (2001), which behaves better when the series has
 a large negative moving-average part. The search runs from 0 up to Schwert's (1989) maximum
 12·(T/100)<sup>¼</sup> unless you set another. The chosen regression is then re-estimated on the
-longest sample available.</p>""",
+longest sample available. The size-controlled strategy's four tests take the modified AIC whatever
+rule you choose (Ng &amp; Perron built it for them; a fixed order is kept), up to 6·(T/100)<sup>¼</sup>
+on the levels and 4·(T/100)<sup>¼</sup> on the differences; your rule drives the classic sequence
+and the cross-checks.</p>""",
     "critical": """
 <p>A <b>critical value</b> is the threshold the statistic must pass for the step to reject at the
 chosen significance level. For τ it is negative (reject when τ is below it); for the Φ tests and

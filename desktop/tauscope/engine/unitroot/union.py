@@ -66,7 +66,7 @@ from tauscope.engine.unitroot.trend_robust import (
     trend_statistics,
 )
 from tauscope.engine.unitroot.union_components import component_values, detrended, min_lag, short
-from tauscope.engine.unitroot.union_lookup import table_constants, table_power
+from tauscope.engine.unitroot.union_lookup import plain_constants, table_constants, table_power
 
 COMPONENTS = {
     "two": ("gls-constant", "gls-trend"),
@@ -183,7 +183,7 @@ def union_constants(length: int | None, alpha: float = 0.05, components: str = "
     ``period``, simulated with the seasonal means removed (the table holds none).
     ``lagged``: the null with the lag choice included (the short-sample rule, levels of
     fewer than 100 values); the table holds that null below 100 values and the plain one
-    from 100, so the other null at a short length is simulated directly."""
+    from 100, and ``union_table_plain`` the plain one below 100."""
     names = COMPONENTS[components]
     if length is None:
         table = ASYMPTOTIC[components]
@@ -193,9 +193,9 @@ def union_constants(length: int | None, alpha: float = 0.05, components: str = "
         cvs, kappa = table[key]
         return UnionConstants(alpha, names, cvs, kappa, None, ASYMPTOTIC_REPS)
     lagged = bool(lagged and short(int(length)))
-    if (source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED and period is None
-            and lagged == short(int(length))):
-        tabled = table_constants(int(length), alpha, components)
+    if source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED and period is None:
+        tabled = (table_constants(int(length), alpha, components) if lagged == short(int(length))
+                  else plain_constants(int(length), alpha, components))
         if tabled is not None:
             return UnionConstants(alpha, names, tabled[0], tabled[1], int(length), tabled[2], lagged)
     cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names, period, lagged), alpha)

@@ -59,6 +59,7 @@ POWER_REPS = 20_000
 BATCHES = 20
 _CHUNK_VALUES = 2_000_000  # values drawn at once (rows × length)
 OUTPUT = Path(__file__).with_name("union_table.py")
+PLAIN_OUTPUT = Path(__file__).with_name("union_table_plain.py")
 
 NullEntry = dict[float, tuple[tuple[float, ...], float, float, float, float]]
 TrendEntry = dict[float, tuple[float, float, float, float]]
@@ -216,11 +217,41 @@ def render(entries: list[Entry]) -> str:
     return "\n".join(lines)
 
 
+def plain_entry(length: int) -> tuple[int, NullEntry]:
+    """The null without lag augmentation at a short grid length (the differences of a short
+    series, which do not take the short-sample rule)."""
+    return length, null_summary(union_null(length, NULL_REPS, DEFAULT_SEED, COMPONENTS["four"]))
+
+
+def render_plain(entries: list[tuple[int, NullEntry]]) -> str:
+    """The module of the short lengths' null without lag augmentation (NULL's layout)."""
+    lines = ['"""Simulated once by ``python -m tauscope.engine.unitroot.union_tables_make --plain`` '
+             "(do not edit).", "", "The union's null without lag augmentation at the grid lengths "
+             "below 100 (NULL's layout in", "union_table.py, whose rows there include the lag choice).",
+             '"""', "", f"SEED = {DEFAULT_SEED}", f"GRID = {tuple(e[0] for e in entries)!r}",
+             f"NULL_REPS = {NULL_REPS}", "",
+             "NULL: dict[int, dict[float, tuple[tuple[float, ...], float, float, float, float]]] = {"]
+    for length, null in entries:
+        lines.append(f"    {length}: {{")
+        lines += [f"        {a}: ({_fmt(v[0])}, {_fmt(v[1:])[1:-1]})," for a, v in null.items()]
+        lines.append("    },")
+    return "\n".join([*lines, "}", ""])
+
+
 def main(argv: list[str] | None = None) -> None:  # pragma: no cover - run by hand
     parser = argparse.ArgumentParser(description=__doc__)
     parser.add_argument("--processes", type=int, default=2)
-    parser.add_argument("--out", type=Path, default=OUTPUT)
+    parser.add_argument("--out", type=Path, default=None)
+    parser.add_argument("--plain", action="store_true",
+                        help="only the short lengths' null without lag augmentation")
     args = parser.parse_args(argv)
+    if args.plain:
+        plain = [plain_entry(t) for t in GRID if short(t)]
+        out = args.out or PLAIN_OUTPUT
+        out.write_text(render_plain(plain), encoding="utf-8")
+        print(f"wrote {out}")
+        return
+    args.out = args.out or OUTPUT
     order = sorted(GRID, reverse=True)  # the longest first, so the two processes finish together
     with ProcessPoolExecutor(max_workers=max(1, min(args.processes, 2))) as pool:
         entries = []
