@@ -12,6 +12,7 @@ from dataclasses import dataclass
 from tauscope import engine
 from tauscope.engine import formatting as fmt
 from tauscope.engine.settings import UNION_STRATEGIES
+from tauscope.engine.unitroot.union_components import SHORT_LENGTH, SHORT_MIN_LAG
 from tauscope.report.run import RunRecord
 
 REFERENCES = {
@@ -276,7 +277,8 @@ _COMPONENTS = ("the Dickey-Fuller t statistic on the GLS-detrended series (Ellio
                "with the autoregressive estimate of the long-run variance of Ng & Perron (2001), each "
                "with a constant and with a trend")
 _ORDER_TERMS = (
-    " On the levels of a series of fewer than 100 values the lag order was at least 2 and the critical "
+    f" On the levels of a series of fewer than {SHORT_LENGTH} values the lag order was at least {SHORT_MIN_LAG} "
+    "and the critical "
     "values were simulated with the lag choice included (a rule of this program, set on its own "
     "simulations). The order was found from the highest difference down, and the deterministic terms by "
     "the trend test of Harvey, Leybourne & Taylor (2007), valid with or without a unit root. The "

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 from tauscope.engine.reading.words import CROSS_CHECK_WORDS, cross_check_meaning
+from tauscope.engine.unitroot.union_components import SHORT_LENGTH, SHORT_MIN_LAG
 
 SECTIONS = (
     ("start", "Getting started"),
@@ -86,7 +87,7 @@ drift belongs (then z again), otherwise</li>
 1987): the sequence runs on the second difference, then the first, then the levels, and stops at
 the first difference level where a unit root is not rejected. Finally the KPSS test, which
 starts from the opposite null, cross-checks the verdict.</p>""",
-    "strategy": """
+    "strategy": f"""
 <p>Each step of the classic sequence tests at the chosen level on its own, so over a whole
 decision a series with a unit root is called stationary far more often than that level: on the
 verdict scorecard (known processes, 500 series per cell, 50 to 500 observations) the classic
@@ -98,8 +99,8 @@ series with its mean or trend removed by GLS (Elliott, Rothenberg &amp; Stock 19
 statistic (Stock 1999; Perron &amp; Ng 1996, with the long-run variance of Ng &amp; Perron 2001) on
 the series with them removed by OLS, each against its own critical value scaled by a constant κ,
 simulated at the series' length, so that the whole decision on each difference keeps the chosen
-level. On the levels of a series of fewer than 100 observations the lag order is at least 2 and
-the critical values are simulated with the lag choice included, because short series with a
+level. On the levels of a series of fewer than {SHORT_LENGTH} observations the lag order is at least
+{SHORT_MIN_LAG} and the critical values are simulated with the lag choice included, because short series with a
 negative moving average otherwise look stationary too often. The steps are marked <b>DF-GLS</b>,
 <b>MSB</b> (small values speak against a unit root), <b>M</b> (the union against κ) and
 <b>z<sub>λ</sub></b>: whether the series has a trend (or, with a unit root, a

@@ -11,8 +11,8 @@ four-test form of HLT (2012), a statistic on the OLS-detrended series, which kee
 power when the initial observation is far from the mean, where the GLS versions lose it:
 here MSB (Stock 1999; Perron & Ng 1996) with Ng & Perron's (2001) s²_AR, which keeps more
 power with MAIC lags (:mod:`tauscope.engine.unitroot.union_components`, which also holds
-the short-sample rule: on the levels (d = 0) of fewer than 100 values a minimum lag of 2
-and a null simulated with the lag choice included).
+the short-sample rule: on the levels (d = 0) of fewer than 100 values a minimum lag
+(``SHORT_MIN_LAG``) and a null simulated with the lag choice included).
 Each component i has its own α-level critical value cv_i (τ_i below stands for any
 component's statistic); the unit root is rejected when any
 

@@ -25,7 +25,7 @@ OLS-detrended series, Perron & Qu 2007, up to ⌊6 (T/100)^{1/4}⌋, at least
 are this project's choice, made on the verdict scorecard (no published rule).  The rule
 applies only on the levels (:data:`SHORT_LEVELS`), whose unit root decides I(1) against
 I(0) and where the size rows of the scorecard failed without it; on the differences of a
-short series (Δy, Δ²y of an I(1) or I(0) series) two forced lags cost power (random walks
+short series (Δy, Δ²y of an I(1) or I(0) series) forced lags cost power (random walks
 called I(2), stationary series left unresolved) and bought no size there (measured:
 DEVELOPERS.md, "Verdict scorecard").
 """
@@ -38,7 +38,7 @@ from tauscope.engine.unitroot.dfgls_many import dfgls_tau_many, gls_detrend_many
 from tauscope.engine.unitroot.ng_perron_many import m_statistics_many
 
 SHORT_LENGTH = 100  # below this many values on a level, the short-sample rule applies
-SHORT_MIN_LAG = 2  # the smallest lag order there
+SHORT_MIN_LAG = 3  # the smallest lag order there
 SHORT_LEVELS = (0,)  # the difference levels that take the rule
 STATISTIC = {"gls": "dfgls", "ols": "msb"}  # the statistic of each detrending
 

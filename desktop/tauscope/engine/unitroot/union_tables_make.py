@@ -5,6 +5,9 @@ Run by hand (fixed seed, at most two processes)::
 
     python -m tauscope.engine.unitroot.union_tables_make --processes 2
 
+``--short`` simulates only the rows below 100 values (those the short-sample rule touches,
+after a change of ``SHORT_MIN_LAG``) and keeps the others from the current table.
+
 Each quantity comes from the same simulator and seed as the direct path, only with more
 replications:
 
@@ -17,7 +20,7 @@ replications:
 * the trend test's null (Harvey, Leybourne & Taylor 2007): the 1 − α quantiles of |z_λ|
   for driftless random walks and for white noise, drawn in the order of
   :func:`~tauscope.engine.unitroot.trend_robust.trend_critical_value`, MAIC lags up to
-  ⌊6 (T/100)^{1/4}⌋ (the union's default; at least 2 below 100 values);
+  ⌊6 (T/100)^{1/4}⌋ (the union's default; at least ``SHORT_MIN_LAG`` below 100 values);
 * the union's power against a stationary AR(1) with φ = 0.95, drawn in the order of
   :func:`~tauscope.engine.unitroot.union.union_power`, with the table's own constants.
 
@@ -238,12 +241,21 @@ def render_plain(entries: list[tuple[int, NullEntry]]) -> str:
     return "\n".join([*lines, "}", ""])
 
 
+def kept_entry(length: int) -> Entry:
+    """The current table's row at ``length``, as :func:`grid_entry` returns it (``--short``)."""
+    from tauscope.engine.unitroot import union_table
+
+    return length, union_table.NULL[length], union_table.TREND[length], union_table.POWER[length], 0.0
+
+
 def main(argv: list[str] | None = None) -> None:  # pragma: no cover - run by hand
     parser = argparse.ArgumentParser(description=__doc__)
     parser.add_argument("--processes", type=int, default=2)
     parser.add_argument("--out", type=Path, default=None)
     parser.add_argument("--plain", action="store_true",
                         help="only the short lengths' null without lag augmentation")
+    parser.add_argument("--short", action="store_true",
+                        help="only the rows below 100 values (the short-sample rule's); the others kept")
     args = parser.parse_args(argv)
     if args.plain:
         plain = [plain_entry(t) for t in GRID if short(t)]
@@ -252,9 +264,9 @@ def main(argv: list[str] | None = None) -> None:  # pragma: no cover - run by ha
         print(f"wrote {out}")
         return
     args.out = args.out or OUTPUT
-    order = sorted(GRID, reverse=True)  # the longest first, so the two processes finish together
+    order = sorted((t for t in GRID if short(t) or not args.short), reverse=True)  # the longest first
+    entries = [] if not args.short else [kept_entry(t) for t in GRID if not short(t)]
     with ProcessPoolExecutor(max_workers=max(1, min(args.processes, 2))) as pool:
-        entries = []
         for entry in pool.map(grid_entry, order):
             print(f"T = {entry[0]}: {entry[4]:.1f} s", flush=True)
             entries.append(entry)
