@@ -28,6 +28,14 @@ verdicts were wrong (issue 13 asks for at least 90% in every cell with 20 or mor
    for the label; it was added when the union's power at T = 500 rose above 90% (the MSB
    components) and random walks with a drift of 0.1σ, whose drift the trend test misses
    about 40% of the time at T = 500, were confirmed "no drift".
+11. for an I(0) verdict, the first-order autocorrelation r₁ of Δy (its fixed seasonal means
+    removed when the tests allow for them) is not below :data:`MA_CANCEL_BELOW`.  A unit
+    root whose moving average nearly cancels it, Δy_t = e_t + θ e_{t−1} with θ near −1, has
+    ρ₁ = θ/(1 + θ²) (−0.49 at θ = −0.8, −0.40 at θ = −0.5), close to the −0.5 of a
+    white-noise series differenced once, and there the unit-root tests over-reject and
+    cannot tell the two apart (Schwert 1989; Pantula 1991); a stationary AR(1) with φ ≥ 0.5
+    gives ρ₁ = −(1 − φ)/2 ≥ −0.25.  The threshold is this project's choice, measured on the
+    verdict scorecard (DEVELOPERS.md, "Verdict scorecard").
 
 "conflict": every KPSS check contradicts the verdict at the chosen level; otherwise
 "inconclusive".  The reasons a verdict was not confirmed are kept, for the notes.
@@ -40,6 +48,8 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from statistics import NormalDist
 
+import numpy as np
+
 from tauscope.engine.results import TestResult
 
 MIN_LENGTH = 150
@@ -47,6 +57,7 @@ POWER_NEEDED = 0.90
 KPSS_KEEP_ABOVE = 0.10
 KPSS_REJECT_BELOW = 0.01
 NO_DRIFT_DELTA = 0.1  # the smallest drift of the verdict scorecard, in shock standard deviations
+MA_CANCEL_BELOW = -0.35  # condition 11: r₁ of Δy below this withholds "confirmed" from an I(0) verdict
 NO_DRIFT_LENGTH = math.ceil(((NormalDist().inv_cdf(0.975) + NormalDist().inv_cdf(POWER_NEEDED)) / NO_DRIFT_DELTA) ** 2)
 
 
@@ -73,8 +84,9 @@ def _kpss_strict(checks: Sequence[tuple[TestResult, bool]]) -> bool:
 def grade(order: int | None, deterministic: str | None, checks: Sequence[tuple[TestResult, bool]],
           classic_order: int | None, orders_at: dict[float, int | None], long_lag_order: int | None,
           power: tuple[float, float] | None, nobs: int, break_found: bool,
-          variance_changed: bool = False) -> Grade:
-    """The grade of the union's verdict from all the evidence (conditions 1-9 above)."""
+          variance_changed: bool = False, difference_autocorrelation: float | None = None) -> Grade:
+    """The grade of the union's verdict from all the evidence (conditions 1-11 above);
+    ``difference_autocorrelation``: r₁ of Δy (:func:`first_autocorrelation`)."""
     if not checks:
         return Grade(None, ())
     if order is None:
@@ -102,8 +114,24 @@ def grade(order: int | None, deterministic: str | None, checks: Sequence[tuple[T
         missing.append("a break is suspected")
     if variance_changed:
         missing.append("the size of the shocks changes over the sample")
+    r1 = difference_autocorrelation
+    if order == 0 and r1 is not None and r1 < MA_CANCEL_BELOW:
+        missing.append(f"the changes of the series alternate strongly (first autocorrelation {r1:.2f}): "
+                       "a unit root whose moving average nearly cancels it looks just like this, and the "
+                       "tests cannot tell the two apart")
     if not missing:
         return Grade("confirmed", ())
     if all(test.reject != expect for test, expect in checks):
         return Grade("conflict", tuple(missing))
     return Grade("inconclusive", tuple(missing))
+
+
+def first_autocorrelation(x: np.ndarray) -> float | None:
+    """r₁ = Σ (x_t − x̄)(x_{t−1} − x̄) / Σ (x_t − x̄)² (Box & Jenkins 1970); None below three
+    values or for a constant series."""
+    x = np.asarray(x, dtype=float)
+    if x.size < 3:
+        return None
+    c = x - x.mean()
+    denom = float(c @ c)
+    return None if denom <= 0.0 or not np.isfinite(denom) else float(c[1:] @ c[:-1]) / denom
