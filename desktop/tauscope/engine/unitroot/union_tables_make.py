@@ -245,7 +245,8 @@ def kept_entry(length: int) -> Entry:
     """The current table's row at ``length``, as :func:`grid_entry` returns it (``--short``)."""
     from tauscope.engine.unitroot import union_table
 
-    return length, union_table.NULL[length], union_table.TREND[length], union_table.POWER[length], 0.0
+    power: PowerEntry = {a: tuple(v) for a, v in union_table.POWER[length].items()}
+    return length, union_table.NULL[length], union_table.TREND[length], power, 0.0
 
 
 def main(argv: list[str] | None = None) -> None:  # pragma: no cover - run by hand
