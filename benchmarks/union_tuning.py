@@ -28,8 +28,8 @@ The series are the scorecard's (same generator, same seeds).  A configuration se
   (:mod:`tauscope.engine.unitroot.ng_perron_many`): "mzt", "mza", "nmsb" (−1/MSB, so that
   small MSB rejects), "mzt0"/"mza0" with the initial value's term T⁻¹ỹ_1² (needed on
   OLS-detrended series, Perron & Ng 1996; "mzt" on OLS data leaves it out, which is not a
-  published statistic).  "msb-ols-short" is the candidate of the M-statistics study
-  (DEVELOPERS.md, "Verdict scorecard"; wired on the branch verdict-msb-wired, not here).
+  published statistic).  "msb-ols-short" (= "engine") is the engine's default since the
+  M-statistics study (DEVELOPERS.md, "Verdict scorecard"); "tau-union" the union before it.
 
 ``--frontier LENGTH:PROCESS`` prints power against the worst size as κ is scaled: it shows
 whether any κ at that length meets both rows for a given lag rule and cap.
@@ -105,8 +105,8 @@ class Config:
 
 
 CONFIGS: dict[str, Config] = {
-    "engine": Config(),  # the union as wired: four t statistics
-    "tau-union": Config(),  # the same, by the name the M-statistics study uses
+    "engine": Config(ols_statistic="nmsb", small_null="selected", small_min_lag=2),  # as wired
+    "tau-union": Config(),  # the union before the M-statistics study: four t statistics
     "selected-null": Config(null="selected"),
     "own-lags": Config(select_on="own"),
     "two": Config(components="two"),

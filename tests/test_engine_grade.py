@@ -74,3 +74,51 @@ def test_notes_say_when_the_level_or_the_strategy_changes_the_verdict() -> None:
     assert other is not None and "%" not in other
     assert grade_note("inconclusive", ("fewer than 150 observations",)) == (
         "Cross-check unclear: the verdict is not confirmed, because fewer than 150 observations.")
+
+
+def test_no_drift_is_confirmed_only_where_a_small_drift_would_be_seen() -> None:
+    """Condition 9: the trend test's mean under a drift δ is about δ√T (a t ratio of the
+    mean of Δy; Harvey, Leybourne & Taylor 2007), so 90% power at 5% two-sided against
+    δ = 0.1 needs T ≥ ((1.95996 + 1.28155)/0.1)² = 1,050.7 (normal quantiles, common
+    practice)."""
+    from tauscope.engine.reading.grade import NO_DRIFT_LENGTH
+
+    assert NO_DRIFT_LENGTH == 1051
+    walk = {**GOOD_I1, "deterministic": "none", "nobs": 500}
+    graded = grade(**walk)  # type: ignore[arg-type]
+    assert graded.agreement == "inconclusive" and "small drift" in graded.missing[0]
+    assert grade(**{**walk, "nobs": 1051}).agreement == "confirmed"  # type: ignore[arg-type]
+    # a drift found, or a stationary verdict, is not held to it
+    assert grade(**{**walk, "deterministic": "constant"}).agreement == "confirmed"  # type: ignore[arg-type]
+
+
+GOOD_I0 = dict(order=0, deterministic="constant",
+               checks=[(_kpss(0.10, False), False)], classic_order=0, orders_at={0.01: 0, 0.10: 0},
+               long_lag_order=0, power=None, nobs=200, break_found=False)
+
+
+def test_a_near_cancelling_negative_ma_withholds_confirmed_from_i0() -> None:
+    """Condition 11: r₁ of Δy near −0.5 (θ = −0.8 gives θ/(1 + θ²) = −0.49) fits a unit root
+    whose MA nearly cancels it as well as a stationary series; an AR(1) with φ = 0.5 gives
+    −(1 − φ)/2 = −0.25 and keeps its grade."""
+    from tauscope.engine.reading.grade import MA_CANCEL_BELOW
+
+    assert grade(**GOOD_I0).agreement == "confirmed"  # type: ignore[arg-type]
+    assert grade(**GOOD_I0, difference_autocorrelation=-0.25).agreement == "confirmed"  # type: ignore[arg-type]
+    graded = grade(**GOOD_I0, difference_autocorrelation=-0.49)  # type: ignore[arg-type]
+    assert graded.agreement == "inconclusive" and len(graded.missing) == 1
+    assert "\u22120.49" in graded.missing[0] and "cannot tell" in graded.missing[0]
+    assert -0.49 < MA_CANCEL_BELOW < -0.25
+    # Only an I(0) verdict: a differenced random walk's Δ²y has ρ₁ = −0.5 whatever the truth.
+    assert grade(**GOOD_I1, difference_autocorrelation=-0.5).agreement == "confirmed"  # type: ignore[arg-type]
+
+
+def test_first_autocorrelation_matches_statsmodels_acf() -> None:
+    import numpy as np
+    from statsmodels.tsa.stattools import acf
+
+    from tauscope.engine.reading.grade import first_autocorrelation
+
+    x = np.random.default_rng(3).standard_normal(120).cumsum()
+    assert abs(first_autocorrelation(np.diff(x)) - acf(np.diff(x), nlags=1)[1]) < 1e-12  # type: ignore[operator]
+    assert first_autocorrelation(np.ones(10)) is None and first_autocorrelation(np.ones(2)) is None

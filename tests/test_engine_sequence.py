@@ -110,12 +110,12 @@ def test_to_dict_contract_keys_and_json() -> None:
         assert s["decision"] in ("reject", "do not reject")
         assert s["strategy"] in ("union", "classic")
         names = ("tau", "phi1", "phi2", "phi3", "z") if s["strategy"] == "classic" else (
-            "dfgls", "tau", "union", "trend")
+            "dfgls", "msb", "union", "trend")
         assert s["statistic_name"] in names
         if s["test_index"] is not None:
             assert d["tests"][s["test_index"]]["difference"] == s["difference"]
         else:  # only the union's own steps have no single test behind them
-            assert s["strategy"] == "union" and s["statistic_name"] in ("tau", "union", "trend")
+            assert s["strategy"] == "union" and s["statistic_name"] in ("msb", "union", "trend")
     # The union's steps come first, then the classic path, each in its own order.
     kinds = [s["strategy"] for s in d["steps"]]
     assert kinds == sorted(kinds, key=lambda k: k != "union")

@@ -46,8 +46,11 @@ def test_default_run_states_sequence_rule_sources_level_and_caution() -> None:
     assert "union of rejections" in text
     for author_year in ("Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2007)",
                         "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2009)",
-                        "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2012)"):
+                        "Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2012)",
+                        # the union's OLS components: MSB with Ng & Perron's (2001) s²_AR
+                        "Perron, P. & Ng, S. (1996)", "Stock, J.H. (1999)"):
         assert author_year in refs
+    assert "MSB statistic" in text and "fewer than 100" in text
     assert list(methods.references) == sorted(methods.references)
 
 
@@ -63,7 +66,10 @@ def test_fixed_lags_and_user_bound_are_stated_without_schwert() -> None:
     assert "union of rejections" not in classic.text
     assert not any(r.startswith(("Ng, S. & Perron, P. (2001)", "Harvey")) for r in classic.references)
     assert "fixed at 3" in fixed.text
-    assert not any(r.startswith("Ng, S.") for r in fixed.references)
+    # No lag rule to cite with fixed lags; Ng & Perron (2001) stays cited by the default
+    # strategy for the MSB components' long-run variance (since the M-statistics study).
+    assert not any(r.startswith("Ng, S. & Perron, P. (1995)") for r in fixed.references)
+    assert "MAIC" not in fixed.text
     assert not any(r.startswith("Schwert") for r in fixed.references)
     bounded = methods_for(_with(Settings(lag_rule="bic", max_lags=4)))
     assert "maximum lag order of 4" in bounded.text

@@ -31,7 +31,7 @@ def _orders(name: str, length: int) -> np.ndarray:
 
 @pytest.mark.parametrize("name", ["random walk", "random walk drift=0.5", "ARIMA(1,1,0) phi=0.6",
                                   "ARIMA(0,1,1) theta=-0.5", "ARIMA(0,1,1) theta=0.5", "I(2)"])
-@pytest.mark.parametrize("length", [100, 200])
+@pytest.mark.parametrize("length", [50, 100, 200])
 def test_size_one_order_too_low(name: str, length: int) -> None:
     order = _orders(name, length)
     true_order = SCORECARD.by_name(name).order

@@ -332,7 +332,6 @@ TARGETS: dict[tuple[str, str], tuple[int, str | None]] = {
     ("Quarterly", "Container throughput"): (0, "trend"),
     ("Monthly", "Capacity utilisation (%)"): (0, "constant"),
     ("Monthly", "Ferry passengers (thousands)"): (1, None),
-    ("Annual", "Lighthouse survey index"): (0, None),
 }
 
 

@@ -12,6 +12,7 @@ from dataclasses import dataclass
 from tauscope import engine
 from tauscope.engine import formatting as fmt
 from tauscope.engine.settings import UNION_STRATEGIES
+from tauscope.engine.unitroot.union_components import SHORT_LENGTH, SHORT_MIN_LAG
 from tauscope.report.run import RunRecord
 
 REFERENCES = {
@@ -45,6 +46,12 @@ REFERENCES = {
     "Association 90(429), 268–281.",
     "np2001": "Ng, S. & Perron, P. (2001), “Lag Length Selection and the Construction of Unit "
     "Root Tests with Good Size and Power”, Econometrica 69(6), 1519–1554.",
+    "pn1996": "Perron, P. & Ng, S. (1996), “Useful Modifications to Some Unit Root Tests with "
+    "Dependent Errors and Their Local Asymptotic Properties”, Review of Economic Studies 63(3), "
+    "435–463.",
+    "stock1999": "Stock, J.H. (1999), “A Class of Tests for Integration and Cointegration”, in "
+    "R.F. Engle & H. White (eds), Cointegration, Causality and Forecasting: A Festschrift in "
+    "Honour of Clive W.J. Granger, Oxford University Press, 135–167.",
     "pp1988": "Phillips, P.C.B. & Perron, P. (1988), “Testing for a Unit Root in Time Series "
     "Regression”, Biometrika 75(2), 335–346.",
     "sd1984": "Said, S.E. & Dickey, D.A. (1984), “Testing for Unit Roots in "
@@ -268,13 +275,28 @@ def critical_words(run: RunRecord) -> str:
 
 
 # The union's parts, said the same way whichever critical value judges it.
-_COMPONENTS = ("Dickey-Fuller t statistics on the GLS-detrended (Elliott, Rothenberg & Stock 1996) and "
-               "OLS-detrended series, with a constant and with a trend")
-_LAGS_ORDER_TERMS = (
-    "the lag order by the same rule, chosen on the OLS-detrended series (Perron & Qu 2007). The order "
-    "was found from the highest difference down, and the deterministic terms by the trend test of "
-    "Harvey, Leybourne & Taylor (2007), valid with or without a unit root. The sequence above was "
-    "computed as well and is reported beside it.")
+_COMPONENTS = ("the Dickey-Fuller t statistic on the GLS-detrended series (Elliott, Rothenberg & Stock "
+               "1996) and the MSB statistic (Stock 1999; Perron & Ng 1996) on the OLS-detrended series, "
+               "with the autoregressive estimate of the long-run variance of Ng & Perron (2001), each "
+               "with a constant and with a trend")
+_ORDER_TERMS = (
+    f" On the levels of a series of fewer than {SHORT_LENGTH} values the lag order was at least "
+    f"{SHORT_MIN_LAG} and the critical values were simulated with the lag choice included (a rule of "
+    "this program, set on its own simulations). The order was found from the highest difference down, "
+    "and the deterministic terms by the trend test of Harvey, Leybourne & Taylor (2007), valid with or "
+    "without a unit root. The sequence above was computed as well and is reported beside it.")
+
+
+def _lags_order_terms(run: RunRecord) -> str:
+    """The union's lag order (MAIC whatever the sequence's rule, a fixed order excepted), the
+    short-sample rule, the order and the terms."""
+    if getattr(run.settings, "lag_rule", "maic") == "fixed":
+        lags = "the lag order fixed as the settings asked."
+    else:
+        lags = ("the lag order by the modified AIC of Ng & Perron (2001), built for these statistics, "
+                "whatever rule the settings name for the sequence, chosen on the OLS-detrended series "
+                "(Perron & Qu 2007).")
+    return lags + _ORDER_TERMS
 
 
 def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
@@ -282,7 +304,8 @@ def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
     strategy = getattr(run.settings, "strategy", "classic")
     if strategy not in UNION_STRATEGIES:
         return []
-    cited.update({"hlt2007", "hlt2009", "hlt2012", "ers1996", "pq2007", "sac2004"})
+    cited.update({"hlt2007", "hlt2009", "hlt2012", "ers1996", "pq2007", "sac2004", "np2001", "pn1996",
+                   "stock1999"})
     volatility = (
         " A change in the size of the shocks was tested with the κ2 statistic of Sansó, Aragó & "
         "Carrion-i-Silvestre (2004) on the residuals of the Dickey-Fuller regression with a trend; where "
@@ -300,14 +323,14 @@ def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
             "bootstrap series. These were built under the unit-root null from the residuals of an "
             "autoregression of the differenced series (lag order the larger of the union's two), each "
             "multiplied by a random sign (Rademacher weights, Davidson & Flachaire 2008) and recoloured "
-            "with the fitted lag polynomial, with a seed taken from the series' own values; " + _LAGS_ORDER_TERMS
+            "with the fitted lag polynomial, with a seed taken from the series' own values; " + _lags_order_terms(run)
             + volatility
         ]
     return [
         "The verdict was decided by the union of rejections over the deterministic terms (Harvey, "
         "Leybourne & Taylor 2009, 2012): " + _COMPONENTS + ", each "
         "compared with its own critical value scaled by a constant simulated at the series' length, "
-        f"so that the whole decision on each difference has size {a}; " + _LAGS_ORDER_TERMS + volatility
+        f"so that the whole decision on each difference has size {a}; " + _lags_order_terms(run) + volatility
     ]
 
 

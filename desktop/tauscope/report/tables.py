@@ -26,7 +26,7 @@ DIFFERENCE_NAMES = {0: "levels", 1: "first difference", 2: "second difference"}
 DIFFERENCE_SHORT = {0: "levels", 1: "Δy", 2: "Δ²y"}
 SPEC_CODES = {"trend": "ct", "constant": "c", "none": "n"}
 STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z", "dfgls": "DF-GLS t",
-                     "union": "M (union)", "trend": "z_λ (trend)"}
+                     "union": "M (union)", "trend": "z_λ (trend)", "msb": "MSB"}
 UNION_SPEC_WORDS = "all deterministic cases"  # the union step's spec ("union")
 TEST_LABELS = {
     "adf": "ADF τ",

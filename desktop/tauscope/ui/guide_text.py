@@ -2,7 +2,11 @@
 
 from __future__ import annotations
 
+from tauscope.engine.reading.grade import MA_CANCEL_BELOW
 from tauscope.engine.reading.words import CROSS_CHECK_WORDS, cross_check_meaning
+from tauscope.engine.unitroot.union_components import SHORT_LENGTH, SHORT_MIN_LAG
+
+MA_CANCEL_BELOW_TEXT = f"{MA_CANCEL_BELOW:.2f}".replace("-", "\u2212")  # a true minus sign
 
 SECTIONS = (
     ("start", "Getting started"),
@@ -86,23 +90,31 @@ drift belongs (then z again), otherwise</li>
 1987): the sequence runs on the second difference, then the first, then the levels, and stops at
 the first difference level where a unit root is not rejected. Finally the KPSS test, which
 starts from the opposite null, cross-checks the verdict.</p>""",
-    "strategy": """
+    "strategy": f"""
 <p>Each step of the classic sequence tests at the chosen level on its own, so over a whole
 decision a series with a unit root is called stationary far more often than that level: on the
 verdict scorecard (known processes, 500 series per cell, 50 to 500 observations) the classic
 sequence called random walks stationary 15–21% of the time with AIC lags and 10–13% with the
 modified AIC, at a nominal 5%.</p>
 <p>The <b>Size-controlled</b> strategy, the default, decides instead with the union of rejections
-(Harvey, Leybourne &amp; Taylor 2009, 2012): four Dickey-Fuller tests (on the series with its mean
-or trend removed by GLS, Elliott, Rothenberg &amp; Stock 1996, and by OLS) each against its own
-critical value scaled by a constant κ, simulated at the series' length, so that the whole decision
-on each difference keeps the chosen level. The steps are marked <b>DF-GLS</b>, τ, <b>M</b> (the
-union against κ) and <b>z<sub>λ</sub></b>: whether the series has a trend (or, with a unit root, a
+(Harvey, Leybourne &amp; Taylor 2009, 2012): four unit-root tests, the Dickey-Fuller t on the
+series with its mean or trend removed by GLS (Elliott, Rothenberg &amp; Stock 1996) and the MSB
+statistic (Stock 1999; Perron &amp; Ng 1996, with the long-run variance of Ng &amp; Perron 2001) on
+the series with them removed by OLS, each against its own critical value scaled by a constant κ,
+simulated at the series' length, so that the whole decision on each difference keeps the chosen
+level. On the levels of a series of fewer than {SHORT_LENGTH} observations the lag order is at least
+{SHORT_MIN_LAG} and the critical values are simulated with the lag choice included, because short series with a
+negative moving average otherwise look stationary too often. The steps are marked <b>DF-GLS</b>,
+<b>MSB</b> (small values speak against a unit root), <b>M</b> (the union against κ) and
+<b>z<sub>λ</sub></b>: whether the series has a trend (or, with a unit root, a
 drift) comes from the trend test of Harvey, Leybourne &amp; Taylor (2007), which holds with or
-without a unit root. The scorecard measures random walks called stationary 2.4–5.0% of the time.
+without a unit root. The scorecard measures random walks called stationary 3.0–5.8% of the time.
 The price is some power against stationary series whose root is close to one, mostly around a
-trend: at 100 observations, AR(1) series around a trend got the right order 29% of the time
-(51% with the classic sequence).</p>
+trend: at 100 observations, AR(1) series around a trend got the right order 30% of the time
+(51% with the classic sequence). Below 100 observations the price is higher: at 50, random walks
+were called I(2) 15% of the time and AR(1) series with root 0.5 around a mean were called
+stationary only 41% of the time (at 30 observations, with root 0.3, 18%): there a verdict of a
+unit root is weak evidence of one.</p>
 <p>The classic sequence is always computed and shown after the size-controlled steps; when the
 two disagree, the Reading says so and which to trust. Choose <b>Classic Dickey-Fuller
 sequence</b> in Settings to let it decide.</p>
@@ -123,12 +135,19 @@ agreed.</p>
 KPSS backs it strictly (no rejection even at 10% where none is expected, a rejection at 1% where
 one is), the classic sequence gives the same order, the verdict is the same at 1% and at 10% and
 with a longer maximum lag, the test had at least 90% power at this length against a stationary
-series with root 0.95 (for a unit-root verdict), there are at least 150 observations, no
-break is suspected, the size of the shocks does not change over the sample, and no seasonal
-unit root is found (quarterly and monthly series). Whatever the strategy, a seasonal unit root
+series with root 0.95 (for a unit-root verdict), there are at least 150 observations (1,051 for
+a unit root without drift, enough to see a drift of a tenth of the shocks' size per period), no
+break is suspected, the size of the shocks does not change over the sample, no seasonal unit
+root is found (quarterly and monthly series), and, for a stationary verdict, the changes of the
+series do not alternate so strongly (first autocorrelation of the changes below
+{MA_CANCEL_BELOW_TEXT}) that a unit root whose moving average nearly cancels it would look the
+same: there the tests cannot tell the two apart. Whatever the strategy, a seasonal unit root
 keeps the verdict from "agrees", and the Reading says why in plain words. On the
-scorecard such verdicts were right 97.9% of the time overall (order and deterministic terms)
-and at least 95.2% in every cell with 20 or more of them; about 1 in 10 verdicts qualified.
+scorecard such verdicts were right 98.1% of the time overall (order and deterministic terms)
+and at least 95% in every case measured; about 1 in 10 verdicts qualified. Without the last
+condition, all 20 confirmed verdicts in one case (a unit root with a strong negative moving
+average, 150 observations) were wrong. The price: a stationary series with little memory is
+never marked "agrees".
 The old rule (KPSS alone) was right 71.0% of the time.</p>""",
     "tau": """
 <p><b>τ (tau)</b> is the t ratio of γ̂ in the ADF regression. Under a unit root it does not
@@ -167,7 +186,10 @@ The lag order is chosen by the rule in Settings, comparing all orders on a commo
 last lag, or the modified AIC of Ng &amp; Perron (2001), which behaves better when the series has
 a large negative moving-average part. The search runs from 0 up to Schwert's (1989) maximum
 12·(T/100)<sup>¼</sup> unless you set another. The chosen regression is then re-estimated on the
-longest sample available.</p>""",
+longest sample available. The size-controlled strategy's four tests take the modified AIC whatever
+rule you choose (Ng &amp; Perron built it for them; a fixed order is kept), up to 6·(T/100)<sup>¼</sup>
+on the levels and 4·(T/100)<sup>¼</sup> on the differences; your rule drives the classic sequence
+and the cross-checks.</p>""",
     "critical": """
 <p>A <b>critical value</b> is the threshold the statistic must pass for the step to reject at the
 chosen significance level. For τ it is negative (reject when τ is below it); for the Φ tests and

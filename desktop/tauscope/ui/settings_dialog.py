@@ -115,7 +115,9 @@ class SettingsDialog(QDialog):
                                  "Never: leave the seasons alone."))
         form.addRow("Lag &rule", self.lag_rule)
         form.addRow("", _explain("How the number of lagged differences in the ADF regression is "
-                                 "chosen; too few lags distort τ, too many cost power."))
+                                 "chosen; too few lags distort τ, too many cost power. The "
+                                 "size-controlled tests always use the modified AIC, built for them, "
+                                 "unless the order is fixed."))
         form.addRow("&Fixed lag order", self.fixed_lags)
         form.addRow("", _explain("Used only with the fixed lag rule."))
         form.addRow("Largest lag &order", self.max_lags)

@@ -7,7 +7,7 @@ from tauscope.engine.reading.words import decision_word
 
 STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z", "kpss": "KPSS",
                      "adf": "τ", "pp": "Zτ", "dfgls": "τ-GLS", "za": "ZA", "union": "M",
-                     "trend": "z_λ"}
+                     "trend": "z_λ", "msb": "MSB"}
 
 STATISTIC_TIPS = {
     "tau": "τ (tau) is the t ratio on y(t−1) in the ADF regression. Strongly negative values are "
@@ -29,6 +29,9 @@ STATISTIC_TIPS = {
     "dfgls": "DF-GLS (Elliott, Rothenberg & Stock 1996): the mean or trend is removed by GLS "
              "before the Dickey-Fuller regression, which gives the test more power near a unit "
              "root.",
+    "msb": "MSB (Stock 1999; Perron & Ng 1996; Ng & Perron 2001): the spread of the demeaned "
+           "or detrended series measured against its long-run variance. Small values are "
+           "evidence against a unit root. One of the four parts of the size-controlled test.",
     "za": "Zivot-Andrews (Zivot & Andrews 1992): a unit-root test that allows one break in the "
           "level and/or the trend at the date where the evidence against a unit root is "
           "strongest.",
@@ -40,7 +43,7 @@ OUT_OF_DATE = "(settings changed — run again)"
 
 GUIDE_ANCHORS = {"tau": "tau", "adf": "tau", "phi1": "phi", "phi2": "phi", "phi3": "phi",
                  "z": "z", "kpss": "kpss", "pp": "pp", "dfgls": "dfgls", "za": "za",
-                 "union": "strategy", "trend": "strategy"}
+                 "union": "strategy", "trend": "strategy", "msb": "strategy"}
 
 DIFFERENCE_NAMES = {0: "Levels", 1: "First difference", 2: "Second difference"}
 DIFFERENCE_SHORT = {0: "Levels", 1: "1st diff.", 2: "2nd diff."}

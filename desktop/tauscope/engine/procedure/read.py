@@ -23,7 +23,7 @@ from tauscope.engine.reading.breaks import (
     verdict_under_break,
 )
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
-from tauscope.engine.reading.grade import grade, seasonal_root_reason
+from tauscope.engine.reading.grade import first_autocorrelation, grade, seasonal_root_reason
 from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
 from tauscope.engine.reading.seasonal import seasonal_found, seasonal_notes
 from tauscope.engine.reading.strategies import (
@@ -113,8 +113,10 @@ def _union_reading(checked: CrossCheck, evidence: Evidence,
         checked.breaks is not None and checked.breaks.suspected)
     variance = row.variance
     changed = variance is not None and variance.found
+    r1 = first_autocorrelation(decision.estimates.prepared.level(1)) if order == 0 else None
     graded = grade(order, deterministic, list(checked.kpss), classic.order, row.orders_at,
-                   row.long_lag_order, row.power, nobs, found, changed, seasonal_roots_found(checked))
+                   row.long_lag_order, row.power, nobs, found, changed, seasonal_roots_found(checked),
+                   difference_autocorrelation=r1)
     block = ClassicVerdict(classic.order, classic.deterministic,
                            classic_sentence(classic.order, classic.deterministic, classic.weak,
                                             options.alpha), classic.weak)

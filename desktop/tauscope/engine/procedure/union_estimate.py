@@ -35,6 +35,7 @@ from tauscope.engine.unitroot.union import (
     UnionConstants,
     UnionLevel,
     deterministic_labels,
+    level_lag_scale,
     level_rows,
     max_lags_schwert,
     orders_from_rejections,
@@ -42,6 +43,7 @@ from tauscope.engine.unitroot.union import (
     union_constants,
     union_orders,
     union_power,
+    union_rule,
 )
 from tauscope.engine.unitroot.union_bootstrap import ALPHAS as BOOT_ALPHAS
 from tauscope.engine.unitroot.union_bootstrap import BOOTSTRAP_REPS, BootstrapLevel, bootstrap_level
@@ -94,9 +96,10 @@ class UnionRow:
 
 
 @lru_cache(maxsize=256)
-def _constants(length: int | None, alpha: float, period: int | None = None) -> UnionConstants:
+def _constants(length: int | None, alpha: float, period: int | None = None,
+               lagged: bool = False) -> UnionConstants:
     """The union's constants at this length and level, kept for the next batch."""
-    return union_constants(length, alpha, period=period)
+    return union_constants(length, alpha, period=period, lagged=lagged)
 
 
 def _order(value: int) -> int | None:
@@ -107,8 +110,10 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
                max_lags: int | None, fixed: int | None, bootstrap: bool = False,
                period: int | None = None) -> list[UnionRow]:
     """One :class:`UnionRow` per row of ``xs`` (series of one length); with ``period``,
-    every level's fixed seasonal means are removed first (seasonal dummies)."""
+    every level's fixed seasonal means are removed first (seasonal dummies).  The union's
+    lag rule is MAIC whatever ``rule`` says, a fixed order excepted (:func:`union_rule`)."""
     xs = np.asarray(xs, dtype=float)
+    rule = union_rule(rule)
     with np.errstate(all="ignore"):
         result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, period=period)
         at = {a: orders_from_rejections(rejections_at(result.levels, a, period=period), max_difference)
@@ -127,7 +132,8 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         with np.errstate(all="ignore"):
             labels, trend_z = deterministic_labels(xs, order_all, result.levels, rule, alpha, max_lags, fixed,
                                                    period=period)
-    per_alpha = {d: {a: _constants(level.constants.length, a, period) for a in (0.01, 0.05, 0.10)}
+    per_alpha = {d: {a: _constants(level.constants.length, a, period, level.constants.lagged)
+                     for a in (0.01, 0.05, 0.10)}
                  for d, level in result.levels.items()}
     rows = []
     for i in range(xs.shape[0]):
@@ -148,14 +154,15 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
                 kappa = float(boot[d].critical[i, BOOT_ALPHAS.index(_alpha_key(alpha))])
                 reject, p_value = bool(statistic > kappa), float(boot[d].p_value[i])
             levels[d] = UnionLevelRow(
-                d, n, comps, tau, lags, _level_max_lags(n, rule, max_lags, fixed),
+                d, n, comps, tau, lags, _level_max_lags(n, d, rule, max_lags, fixed),
                 c.critical_values, values, kappa, statistic, reject, p_value)
         problem = _problem(levels, order, max_difference)
         trend_d = None if order is None else (1 if order == 2 else 0)
         trend_cv = float("nan")
         if trend_d is not None:
             n = xs.shape[1] - trend_d
-            trend_cv = trend_critical_value(n, alpha, rule, _level_max_lags(n, rule, max_lags, fixed))
+            trend_cv = trend_critical_value(n, alpha, rule, _level_max_lags(n, trend_d, rule, max_lags, fixed),
+                                            difference=trend_d)
         power = None
         if order is not None and order >= 1 and problem is None:
             power = union_power(xs.shape[1] - (order - 1), POWER_PHI, rule, alpha)
@@ -183,7 +190,7 @@ def _bootstrap(xs: np.ndarray, levels: dict[int, UnionLevel], rule: str, max_lag
     out = {}
     for d, level in levels.items():
         xd = level_rows(xs, d, period)
-        out[d] = bootstrap_level(xd, level, rule, _level_max_lags(xd.shape[1], rule, max_lags, fixed), fixed,
+        out[d] = bootstrap_level(xd, level, rule, _level_max_lags(xd.shape[1], d, rule, max_lags, fixed), fixed,
                                  period=period)
     return out
 
@@ -194,11 +201,11 @@ def _variance(x: np.ndarray, lags: int, alpha: float) -> VarianceChange | None:
         return variance_change(x, int(lags), alpha)
 
 
-def _level_max_lags(n: int, rule: str, max_lags: int | None, fixed: int | None) -> int:
-    """The union's maximum lag order on a level of n values (as ``union_orders``)."""
+def _level_max_lags(n: int, d: int, rule: str, max_lags: int | None, fixed: int | None) -> int:
+    """The union's maximum lag order on the level Δ^d of n values (as ``union_orders``)."""
     if rule == "fixed":
         return int(fixed or 0)
-    return max_lags_schwert(n, max_lags, UNION_LAG_SCALE)
+    return max_lags_schwert(n, max_lags, level_lag_scale(d, UNION_LAG_SCALE))
 
 
 def _problem(levels: dict[int, UnionLevelRow], order: int | None, max_difference: int) -> str | None:

@@ -39,6 +39,7 @@ from scipy.stats import norm
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED
 from tauscope.engine.unitroot.dfgls_many import dfgls_many
+from tauscope.engine.unitroot.union_components import min_lag
 from tauscope.engine.unitroot.union_lookup import table_trend_critical_value
 
 HLT_G = 0.00025  # Harvey, Leybourne & Taylor (2007), two-sided 5% (from memory)
@@ -88,14 +89,18 @@ def trend_statistics(xs: np.ndarray, dfgls_trend: np.ndarray) -> dict[str, np.nd
 
 @lru_cache(maxsize=64)
 def trend_critical_value(length: int, alpha: float = 0.05, rule: str = "maic", max_lags: int = 0,
-                         reps: int = 2_000, seed: int = DEFAULT_SEED, source: str = "table") -> float:
+                         reps: int = 2_000, seed: int = DEFAULT_SEED, source: str = "table",
+                         difference: int = 0) -> float:
     """The larger of the 1 − α quantiles of |z_λ| for driftless random walks and for white
     noise of ``length`` values (U with the same lag rule and maximum), and the normal
     two-sided value.  ``source="table"``: interpolated from the table (20,000 replications
     per null) when ``rule`` is MAIC, ``max_lags`` the union's ⌊6 (T/100)^{1/4}⌋ (capped
-    at T//2 − 3) and ``reps`` and ``seed`` the defaults; ``"simulate"``: always simulated."""
+    at T//2 − 3) and ``reps`` and ``seed`` the defaults; ``"simulate"``: always simulated.
+    U's lag order has the union's floor on the level Δ^``difference`` (the short-sample rule
+    on the levels; the table holds the levels' floor)."""
+    floor = min_lag(length, rule, difference)
     if (source == "table" and rule == "maic" and reps == 2_000 and seed == DEFAULT_SEED
-            and max_lags == _union_max_lags(length)):
+            and max_lags == _union_max_lags(length) and floor == min_lag(length, rule)):
         tabled = table_trend_critical_value(length, alpha)
         if tabled is not None:
             return tabled
@@ -103,7 +108,7 @@ def trend_critical_value(length: int, alpha: float = 0.05, rule: str = "maic", m
     quantiles = [float(norm.ppf(1.0 - alpha / 2.0))]
     for xs in (np.cumsum(rng.standard_normal((reps, length)), axis=1),
                rng.standard_normal((reps, length))):
-        u, _ = dfgls_many(xs, "trend", rule, max_lags)
+        u, _ = dfgls_many(xs, "trend", rule, max_lags, None, floor)
         z = trend_statistics(xs, u)["z"]
         quantiles.append(float(np.nanquantile(np.abs(z), 1.0 - alpha)))
     return max(quantiles)

@@ -7,15 +7,20 @@ both the trend and initial condition", Journal of Econometrics 169(2), 188-195.
 
 Components: the Dickey-Fuller t statistic on the GLS-detrended series (DF-GLS, c̄ = −7
 with a constant, −13.5 with a trend; Elliott, Rothenberg & Stock 1996) and, in the
-four-test form of HLT (2012), on the OLS-detrended series (asymptotically the usual
-ADF τ_μ and τ_τ), which keeps its power when the initial observation is far from the
-mean, where the GLS versions lose it.  Each component i has its own α-level critical
-value cv_i; the unit root is rejected when any
+four-test form of HLT (2012), a statistic on the OLS-detrended series, which keeps its
+power when the initial observation is far from the mean, where the GLS versions lose it:
+here MSB (Stock 1999; Perron & Ng 1996) with Ng & Perron's (2001) s²_AR, which keeps more
+power with MAIC lags (:mod:`tauscope.engine.unitroot.union_components`, which also holds
+the short-sample rule: on the levels (d = 0) of fewer than 100 values a minimum lag
+(``SHORT_MIN_LAG``) and a null simulated with the lag choice included).
+Each component i has its own α-level critical value cv_i (τ_i below stands for any
+component's statistic); the unit root is rejected when any
 
     τ_i < κ·cv_i,   i.e. when   M = max_i τ_i / cv_i > κ,
 
 and κ ≥ 1, the (1 − α) quantile of M under the null, makes the union's size α.  The
-null is simulated (driftless Gaussian random walks, no lag augmentation, fixed seed):
+null is simulated (driftless Gaussian random walks, fixed seed; no lag augmentation except
+on a level that takes the short-sample rule):
 ``critical="finite"`` at the series' own length, read from the table simulated once on a
 grid of lengths and interpolated in 1/T (:mod:`tauscope.engine.unitroot.union_lookup`;
 simulated directly, cached, below the grid), ``"simulate"`` always simulated directly at
@@ -23,7 +28,10 @@ the series' length, ``"asymptotic"`` the large-T values of :data:`ASYMPTOTIC`.  
 components are invariant to the level, and the trend ones to a linear trend, so a drifting
 unit root is no easier to reject.  The lag order of each deterministic case is chosen
 once, on the OLS-detrended series (MAIC, Ng & Perron 2001; Perron & Qu 2007), and used
-by both of its components.
+by both of its components.  The engine takes MAIC here whatever the user's lag rule (a
+fixed order excepted): Ng & Perron (2001) built MAIC for these statistics and HLT (2009,
+2012) use it; AIC's long lags on an over-differenced series leave MSB without power
+(:func:`union_rule`).
 
 The order of integration comes from the highest difference down (Dickey, D.A. &
 Pantula, S.G. 1987, JBES 5(4)): the union on Δ^d y for d = max, …, 0 while it rejects;
@@ -45,125 +53,32 @@ from functools import lru_cache
 
 import numpy as np
 
-from tauscope.engine.distributions.simulate import DEFAULT_SEED, shock_chunks
+from tauscope.engine.distributions.simulate import DEFAULT_SEED
 from tauscope.engine.seasonal.means import remove_seasonal_means
-from tauscope.engine.unitroot.dfgls_many import (
-    VECTOR_RULES,
-    choose_lags_detrended,
-    dfgls_tau_many,
-    gls_detrend_many,
-    ols_detrend_many,
-)
+from tauscope.engine.unitroot.dfgls_many import VECTOR_RULES, choose_lags_detrended
 from tauscope.engine.unitroot.trend_robust import (
     trend_critical_value,
     trend_found,
     trend_statistics,
 )
-from tauscope.engine.unitroot.union_lookup import table_constants, table_power
-
-COMPONENTS = {
-    "two": ("gls-constant", "gls-trend"),
-    "four": ("gls-constant", "gls-trend", "ols-constant", "ols-trend"),
-}
-# The union's maximum lag order is ⌊c (T/100)^{1/4}⌋ (Schwert 1989 uses c = 12 and c = 4).
-# MAIC picks long lags when the series is far from a unit root, which costs power there
-# (white noise called I(1), random walks called I(2)); c = 6 was chosen on the verdict
-# scorecard as the value that keeps ARIMA(0,1,1) with θ = −0.8 near its size and the
-# AR(1) alternatives near their power (benchmarks/verdict_scorecard.py).
-UNION_LAG_SCALE = 6.0
-UNION_REPS = 20_000  # finite-sample constants simulated directly: κ to about ±0.005
-POWER_PHI = 0.95  # the tabulated power's AR(1) alternative (the badge's condition)
-POWER_REPS = 2_000  # union_power's default replications when simulated directly
-ASYMPTOTIC_LENGTH = 2_000
-ASYMPTOTIC_REPS = 200_000
-# cv of each component and κ, simulated at T = 2,000 with 200,000 replications, seed
-# DEFAULT_SEED, by ``python -m tauscope.engine.unitroot.union``.
-ASYMPTOTIC: dict[str, dict[float, tuple[tuple[float, ...], float]]] = {
-    "two": {
-        0.01: ((-2.5739, -3.4178), 1.0670),
-        0.05: ((-1.9474, -2.8571), 1.0992),
-        0.10: ((-1.6224, -2.5670), 1.1252),
-    },
-    "four": {
-        0.01: ((-2.5739, -3.4178, -3.4247, -3.9601), 1.1119),
-        0.05: ((-1.9474, -2.8571, -2.8649, -3.4134), 1.1591),
-        0.10: ((-1.6224, -2.5670, -2.5666, -3.1301), 1.1981),
-    },
-}
-
-
-def detrended(xs: np.ndarray, component: str) -> np.ndarray:
-    """The series of a component ("gls-constant", …): GLS- or OLS-detrended rows."""
-    method, spec = component.split("-")
-    return gls_detrend_many(xs, spec) if method == "gls" else ols_detrend_many(xs, spec)
-
-
-@dataclass(frozen=True)
-class UnionConstants:
-    """Each component's critical value and the union's scaling κ at level ``alpha``."""
-
-    alpha: float
-    components: tuple[str, ...]
-    critical_values: tuple[float, ...]
-    kappa: float
-    length: int | None  # None: asymptotic
-    reps: int
-
-
-def union_null(length: int, reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
-               components: tuple[str, ...] = COMPONENTS["four"], period: int | None = None) -> np.ndarray:
-    """(reps, components) statistics for driftless Gaussian random walks of ``length``
-    values, all components from the same path, without lag augmentation; with ``period``,
-    each walk's fixed seasonal means are removed first."""
-    if length < 10:
-        raise ValueError("the union needs at least 10 values")
-    parts = []
-    for shocks in shock_chunks(length, reps, seed, width=2 * len(components)):
-        paths = np.cumsum(shocks, axis=1)
-        if period is not None:
-            paths = remove_seasonal_means(paths, period)
-        zeros = np.zeros(paths.shape[0], dtype=int)
-        parts.append(np.column_stack([dfgls_tau_many(detrended(paths, c), zeros) for c in components]))
-    return np.vstack(parts)
-
-
-def constants_from_draws(draws: np.ndarray, alpha: float) -> tuple[tuple[float, ...], float]:
-    """Lower α quantile of each column, and κ, the (1 − α) quantile of max_i τ_i/cv_i."""
-    cvs = np.quantile(draws, alpha, axis=0)
-    kappa = float(np.quantile(np.max(draws / cvs, axis=1), 1.0 - alpha))
-    return tuple(float(c) for c in cvs), kappa
-
-
-@lru_cache(maxsize=64)
-def _simulated(length: int, reps: int, seed: int, components: tuple[str, ...],
-               period: int | None = None) -> np.ndarray:
-    draws = union_null(length, reps, seed, components, period)
-    draws.setflags(write=False)
-    return draws
-
-
-def union_constants(length: int | None, alpha: float = 0.05, components: str = "four",
-                    reps: int = UNION_REPS, seed: int = DEFAULT_SEED,
-                    source: str = "table", period: int | None = None) -> UnionConstants:
-    """The constants at the series' own ``length``, or the asymptotic ones for
-    ``length=None``.  ``source="table"``: interpolated from the pre-simulated table when it
-    holds this length and α (and ``reps`` and ``seed`` are the defaults), else simulated;
-    ``"simulate"``: simulated at ``length`` with ``reps`` replications (cached).  With
-    ``period``, simulated with the seasonal means removed (the table holds none)."""
-    names = COMPONENTS[components]
-    if length is None:
-        table = ASYMPTOTIC[components]
-        key = next((a for a in table if abs(a - alpha) < 1e-12), None)
-        if key is None:
-            raise ValueError(f"no asymptotic union constants for alpha = {alpha}")
-        cvs, kappa = table[key]
-        return UnionConstants(alpha, names, cvs, kappa, None, ASYMPTOTIC_REPS)
-    if source == "table" and reps == UNION_REPS and seed == DEFAULT_SEED and period is None:
-        tabled = table_constants(int(length), alpha, components)
-        if tabled is not None:
-            return UnionConstants(alpha, names, tabled[0], tabled[1], int(length), tabled[2])
-    cvs, kappa = constants_from_draws(_simulated(int(length), reps, seed, names, period), alpha)
-    return UnionConstants(alpha, names, cvs, kappa, int(length), reps)
+from tauscope.engine.unitroot.union_components import component_values, detrended, min_lag
+from tauscope.engine.unitroot.union_critical import ASYMPTOTIC as ASYMPTOTIC
+from tauscope.engine.unitroot.union_critical import ASYMPTOTIC_LENGTH as ASYMPTOTIC_LENGTH
+from tauscope.engine.unitroot.union_critical import ASYMPTOTIC_REPS as ASYMPTOTIC_REPS
+from tauscope.engine.unitroot.union_critical import COMPONENTS as COMPONENTS
+from tauscope.engine.unitroot.union_critical import DIFFERENCE_LAG_SCALE as DIFFERENCE_LAG_SCALE
+from tauscope.engine.unitroot.union_critical import POWER_PHI as POWER_PHI
+from tauscope.engine.unitroot.union_critical import POWER_REPS as POWER_REPS
+from tauscope.engine.unitroot.union_critical import UNION_LAG_SCALE as UNION_LAG_SCALE
+from tauscope.engine.unitroot.union_critical import UNION_REPS as UNION_REPS
+from tauscope.engine.unitroot.union_critical import UnionConstants as UnionConstants
+from tauscope.engine.unitroot.union_critical import constants_from_draws as constants_from_draws
+from tauscope.engine.unitroot.union_critical import level_lag_scale as level_lag_scale
+from tauscope.engine.unitroot.union_critical import max_lags_schwert as max_lags_schwert
+from tauscope.engine.unitroot.union_critical import union_constants as union_constants
+from tauscope.engine.unitroot.union_critical import union_null as union_null
+from tauscope.engine.unitroot.union_critical import union_rule as union_rule
+from tauscope.engine.unitroot.union_lookup import table_power
 
 
 @dataclass(frozen=True)
@@ -214,25 +129,27 @@ def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha
             series[component] = detrended(xs, component)
         return series[component]
 
+    floor = min_lag(xs.shape[1], rule, difference)
     searched = rule in VECTOR_RULES and max_lags > 0
     lags = {spec: choose_lags_detrended(xs, rows_of(f"ols-{spec}") if searched else None, spec, rule,
-                                        max_lags, fixed) for spec in ("constant", "trend")}
+                                        max_lags, fixed, floor) for spec in ("constant", "trend")}
     tau = {c: _component_tau(rows_of(c), lags[c.split("-")[1]], known, c) for c in COMPONENTS[components]}
     constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components,
-                                source=_source(critical), period=period)
+                                source=_source(critical), period=period, lagged=floor > 0)
     margin = margins(tau, constants)
     return UnionLevel(difference, tau, lags, constants, margin, np.asarray(margin > 1.0), series)
 
 
 def _component_tau(rows: np.ndarray, lags: np.ndarray, known: UnionLevel | None, component: str) -> np.ndarray:
-    """DF-GLS τ of every row, taken from ``known`` where it used the same lag order."""
+    """The component's statistic of every row (DF-GLS t, or −1/MSB), taken from ``known``
+    where it used the same lag order."""
     spec = component.split("-")[1]
     if known is None or component not in known.tau or spec not in known.lags:
-        return dfgls_tau_many(rows, lags)
+        return component_values(rows, component, lags)
     tau = np.array(known.tau[component], dtype=float)
     fresh = np.flatnonzero(np.asarray(known.lags[spec]) != lags)
     if fresh.size:
-        tau[fresh] = dfgls_tau_many(rows[fresh], lags[fresh])
+        tau[fresh] = component_values(rows[fresh], component, lags[fresh])
     return tau
 
 
@@ -250,13 +167,6 @@ class UnionOrders:
     deterministic: tuple[str | None, ...]
     trend_z: np.ndarray
     levels: dict[int, UnionLevel]
-
-
-def max_lags_schwert(length: int, max_lags: int | None = None, scale: float = 12.0) -> int:
-    """Schwert (1989), ⌊c (T/100)^{1/4}⌋ (c = 12 the long rule, 4 the short one), capped at
-    T//2 − 3 as the engine does; ``max_lags`` overrides it."""
-    wanted = int(np.floor(scale * (length / 100.0) ** 0.25)) if max_lags is None else max_lags
-    return max(0, min(wanted, length // 2 - 3))
 
 
 def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_difference: int = 2,
@@ -279,7 +189,7 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
     levels: dict[int, UnionLevel] = {}
     for d in range(max_difference, -1, -1):
         xd = level_rows(xs, d, period)
-        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
+        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, level_lag_scale(d, lag_scale))
         levels[d] = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components,
                                 None if known is None else known.levels.get(d), period)
     order = orders_from_rejections({d: level.reject for d, level in levels.items()}, max_difference)
@@ -304,8 +214,9 @@ def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, Un
             continue
         xd = level_rows(xs[chosen], d, period)
         z[chosen] = trend_statistics(xd, levels[d].tau_trend[chosen])["z"]
-        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, lag_scale)
-        critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0), source=_source(critical))
+        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, level_lag_scale(d, lag_scale))
+        critical_value = trend_critical_value(xd.shape[1], alpha, rule, int(p or 0), source=_source(critical),
+                                              difference=d)
         trend[chosen] = trend_found(z[chosen], critical_value)
     labels: list[str | None] = []
     for o, t in zip(order, trend, strict=True):
@@ -344,7 +255,7 @@ def rejections_at(levels: dict[int, UnionLevel], alpha: float, critical: str = "
     for d, level in levels.items():
         kind = next(k for k, v in COMPONENTS.items() if v == level.constants.components)
         c = union_constants(None if critical == "asymptotic" else level.constants.length, alpha, kind,
-                            source=_source(critical), period=period)
+                            source=_source(critical), period=period, lagged=level.constants.lagged)
         out[d] = np.asarray(margins(level.tau, c) > 1.0)
     return out
 

@@ -1,8 +1,4 @@
-"""A candidate set of the union's component statistics, and a rule for short samples.
-
-Measured by benchmarks/union_tuning.py and the verdict scorecard (DEVELOPERS.md, "Verdict
-scorecard"); not used by the engine's union on this branch (MSB with AIC lags fails to
-reject on over-differenced series).
+"""The union's component statistics, and its rule for short samples.
 
 The union of rejections (Harvey, Leybourne & Taylor 2009, 2012) takes one unit-root
 statistic per detrending (GLS or OLS) and deterministic case (constant or trend):
@@ -20,13 +16,18 @@ statistic per detrending (GLS or OLS) and deterministic case (constant or trend)
   union takes −1/MSB, so that, as for the t statistics, the unit root is rejected when the
   statistic is below κ times its critical value (MSB < cv_MSB/κ).
 
-Short samples (fewer than :data:`SHORT_LENGTH` values on a level): MAIC's lag choice is
-noisy, and a negative moving average left with lag 0 or 1 over-rejects.  There the lag
-order is at least :data:`SHORT_MIN_LAG` and the null distribution (κ and each cv) is
-simulated with the lag choice included: random walks with the default rule (MAIC on the
+Short samples (fewer than :data:`SHORT_LENGTH` values on the levels, d = 0): MAIC's lag
+choice is noisy, and a negative moving average left with lag 0 or 1 over-rejects.  There
+the lag order is at least :data:`SHORT_MIN_LAG` and the null distribution (κ and each cv)
+is simulated with the lag choice included: random walks with the default rule (MAIC on the
 OLS-detrended series, Perron & Qu 2007, up to ⌊6 (T/100)^{1/4}⌋, at least
 :data:`SHORT_MIN_LAG`) applied to each simulated path.  Both the length and the minimum lag
-are this project's choice, made on the verdict scorecard (no published rule).
+are this project's choice, made on the verdict scorecard (no published rule).  The rule
+applies only on the levels (:data:`SHORT_LEVELS`), whose unit root decides I(1) against
+I(0) and where the size rows of the scorecard failed without it; on the differences of a
+short series (Δy, Δ²y of an I(1) or I(0) series) forced lags cost power (random walks
+called I(2), stationary series left unresolved) and bought no size there (measured:
+DEVELOPERS.md, "Verdict scorecard").
 """
 
 from __future__ import annotations
@@ -37,7 +38,8 @@ from tauscope.engine.unitroot.dfgls_many import dfgls_tau_many, gls_detrend_many
 from tauscope.engine.unitroot.ng_perron_many import m_statistics_many
 
 SHORT_LENGTH = 100  # below this many values on a level, the short-sample rule applies
-SHORT_MIN_LAG = 2  # the smallest lag order there
+SHORT_MIN_LAG = 3  # the smallest lag order there
+SHORT_LEVELS = (0,)  # the difference levels that take the rule
 STATISTIC = {"gls": "dfgls", "ols": "msb"}  # the statistic of each detrending
 
 
@@ -46,10 +48,10 @@ def short(length: int) -> bool:
     return length < SHORT_LENGTH
 
 
-def min_lag(length: int, rule: str) -> int:
-    """The smallest lag order the rule may choose on a level of ``length`` values (0 with a
-    fixed lag order)."""
-    return SHORT_MIN_LAG if short(length) and rule != "fixed" else 0
+def min_lag(length: int, rule: str, difference: int = 0) -> int:
+    """The smallest lag order the rule may choose on the level Δ^``difference`` of
+    ``length`` values (0 with a fixed lag order, and on the differences)."""
+    return SHORT_MIN_LAG if short(length) and rule != "fixed" and difference in SHORT_LEVELS else 0
 
 
 def detrended(xs: np.ndarray, component: str) -> np.ndarray:
@@ -62,7 +64,11 @@ def component_statistic(xs: np.ndarray, component: str, lags: np.ndarray) -> np.
     """One component's statistic for every row of ``xs`` at each row's lag order: DF-GLS t
     for "gls-…", −1/MSB on the OLS-detrended series for "ols-…" (NaN where it cannot be
     computed)."""
-    series = detrended(xs, component)
+    return component_values(detrended(xs, component), component, lags)
+
+
+def component_values(series: np.ndarray, component: str, lags: np.ndarray) -> np.ndarray:
+    """:func:`component_statistic` from rows already detrended for ``component``."""
     if component.startswith("gls"):
         return dfgls_tau_many(series, lags)
     with np.errstate(divide="ignore", invalid="ignore"):

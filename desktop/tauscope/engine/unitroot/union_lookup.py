@@ -35,6 +35,11 @@ try:
 except ImportError:  # pragma: no cover - only before the generator's first run
     table = None  # type: ignore[assignment]
 
+try:
+    from tauscope.engine.unitroot import union_table_plain as plain
+except ImportError:  # pragma: no cover - only before the generator's first run
+    plain = None  # type: ignore[assignment]
+
 SURFACE_FROM = 20
 
 
@@ -146,3 +151,27 @@ def table_power(length: int, alpha: float, kind: str) -> tuple[float, float] | N
     if values is None:
         return None
     return float(np.clip(values[0], 0.0, 1.0)), float(np.clip(values[1], 0.0, 1.0))
+
+
+def plain_constants(length: int, alpha: float, kind: str) -> tuple[tuple[float, ...], float, int] | None:
+    """(each component's cv, κ, replications) of the null without lag augmentation at a
+    length below 100 (a difference of a short series), interpolated in 1/T between the grid
+    lengths of :mod:`~tauscope.engine.unitroot.union_table_plain`, and between its last one
+    and the main table's T = 100 (plain there); None outside that range."""
+    key = _alpha_key(alpha)
+    if plain is None or table is None or key is None or not plain.GRID[0] <= length < 100:
+        return None
+    rows = {t: plain.NULL[t][key] for t in plain.GRID}
+    rows[100] = table.NULL[100][key]
+    grid = sorted(rows)
+    hi = next(i for i, g in enumerate(grid) if g > length)
+    lo_t, hi_t = grid[hi - 1], grid[hi]
+    w = (1.0 / length - 1.0 / lo_t) / (1.0 / hi_t - 1.0 / lo_t)
+    columns = 2 if kind == "two" else 4
+
+    def values(t: int) -> np.ndarray:
+        cvs, k4, k2, *_ = rows[t]
+        return np.asarray((*cvs[:columns], k2 if kind == "two" else k4))
+
+    got = (1.0 - w) * values(lo_t) + w * values(hi_t)
+    return tuple(float(v) for v in got[:-1]), float(got[-1]), int(plain.NULL_REPS)

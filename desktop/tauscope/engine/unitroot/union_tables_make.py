@@ -5,18 +5,22 @@ Run by hand (fixed seed, at most two processes)::
 
     python -m tauscope.engine.unitroot.union_tables_make --processes 2
 
+``--short`` simulates only the rows below 100 values (those the short-sample rule touches,
+after a change of ``SHORT_MIN_LAG``) and keeps the others from the current table.
+
 Each quantity comes from the same simulator and seed as the direct path, only with more
 replications:
 
 * the union's null (:func:`~tauscope.engine.unitroot.union.union_null`, seed
-  ``DEFAULT_SEED``): every component's α quantile cv_i and κ, the (1 − α) quantile of
+  ``DEFAULT_SEED``; below 100 values with the lag choice included, so the grid holds
+  T = 99, the last short length, beside T = 100): every component's α quantile cv_i and κ, the (1 − α) quantile of
   max_i τ_i / cv_i (Harvey, Leybourne & Taylor 2009, 2012), for the four-test and (its
   first two columns, the same draws) the two-test union; at T = 2,000 with the
   replications of ``union.ASYMPTOTIC``, so the table's end reproduces it;
 * the trend test's null (Harvey, Leybourne & Taylor 2007): the 1 − α quantiles of |z_λ|
   for driftless random walks and for white noise, drawn in the order of
   :func:`~tauscope.engine.unitroot.trend_robust.trend_critical_value`, MAIC lags up to
-  ⌊6 (T/100)^{1/4}⌋ (the union's default);
+  ⌊6 (T/100)^{1/4}⌋ (the union's default; at least ``SHORT_MIN_LAG`` below 100 values);
 * the union's power against a stationary AR(1) with φ = 0.95, drawn in the order of
   :func:`~tauscope.engine.unitroot.union.union_power`, with the table's own constants.
 
@@ -35,7 +39,7 @@ from pathlib import Path
 import numpy as np
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED
-from tauscope.engine.unitroot.dfgls_many import choose_lags_many, dfgls_many, dfgls_tau_many
+from tauscope.engine.unitroot.dfgls_many import choose_lags_many, dfgls_many
 from tauscope.engine.unitroot.trend_robust import trend_statistics
 from tauscope.engine.unitroot.union import (
     ASYMPTOTIC_LENGTH,
@@ -43,21 +47,22 @@ from tauscope.engine.unitroot.union import (
     COMPONENTS,
     UNION_LAG_SCALE,
     constants_from_draws,
-    detrended,
     max_lags_schwert,
     union_null,
 )
+from tauscope.engine.unitroot.union_components import component_statistic, min_lag, short
 
-GRID = (10, 12, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300, 400, 500,
+GRID = (10, 12, 15, 20, 25, 30, 40, 50, 60, 75, 99, 100, 125, 150, 200, 250, 300, 400, 500,
         750, 1000, 2000)
 ALPHAS = (0.01, 0.05, 0.10)
 POWER_PHI = 0.95
-NULL_REPS = 1_000_000
+NULL_REPS = 300_000  # κ SE at 5% about 0.0008 (T = 100); 1,000,000 before the M statistics
 TREND_REPS = 20_000
 POWER_REPS = 20_000
 BATCHES = 20
 _CHUNK_VALUES = 2_000_000  # values drawn at once (rows × length)
 OUTPUT = Path(__file__).with_name("union_table.py")
+PLAIN_OUTPUT = Path(__file__).with_name("union_table_plain.py")
 
 NullEntry = dict[float, tuple[tuple[float, ...], float, float, float, float]]
 TrendEntry = dict[float, tuple[float, float, float, float]]
@@ -80,7 +85,8 @@ def _se(estimates: list[float]) -> float:
 
 def null_entry(length: int, reps: int | None = None) -> NullEntry:
     """Per α: (cv of the four components, κ four, κ two, SE of κ four, SE of κ two)."""
-    draws = union_null(length, null_reps(length) if reps is None else reps, DEFAULT_SEED, COMPONENTS["four"])
+    draws = union_null(length, null_reps(length) if reps is None else reps, DEFAULT_SEED, COMPONENTS["four"],
+                       lagged=short(length))
     return null_summary(draws)
 
 
@@ -113,7 +119,7 @@ def trend_null_z(length: int, reps: int = TREND_REPS, rule: str = "maic",
         parts = []
         for shocks in _row_chunks(rng, reps, length):
             xs = np.cumsum(shocks, axis=1) if walk else shocks
-            u, _ = dfgls_many(xs, "trend", rule, p)
+            u, _ = dfgls_many(xs, "trend", rule, p, None, min_lag(length, rule))
             parts.append(np.abs(trend_statistics(xs, u)["z"]))
         out.append(np.concatenate(parts))
     return out[0], out[1]
@@ -143,9 +149,9 @@ def power_rejections(length: int, constants: dict[float, tuple[tuple[float, ...]
         y[:, 0] = e[:, 0] / np.sqrt(1.0 - phi * phi)
         for t in range(1, length):
             y[:, t] = phi * y[:, t - 1] + e[:, t]
-        lags = {spec: choose_lags_many(y, spec, "maic", p) for spec in ("constant", "trend")}
-        tau = np.column_stack([dfgls_tau_many(detrended(y, c), lags[c.split("-")[1]])
-                               for c in COMPONENTS["four"]])
+        lags = {spec: choose_lags_many(y, spec, "maic", p, None, min_lag(length, "maic"))
+                for spec in ("constant", "trend")}
+        tau = np.column_stack([component_statistic(y, c, lags[c.split("-")[1]]) for c in COMPONENTS["four"]])
         for alpha, (cvs, kappa4, kappa2) in constants.items():
             for kind, kappa in (("four", kappa4), ("two", kappa2)):
                 m = len(COMPONENTS[kind])
@@ -214,14 +220,54 @@ def render(entries: list[Entry]) -> str:
     return "\n".join(lines)
 
 
+def plain_entry(length: int) -> tuple[int, NullEntry]:
+    """The null without lag augmentation at a short grid length (the differences of a short
+    series, which do not take the short-sample rule)."""
+    return length, null_summary(union_null(length, NULL_REPS, DEFAULT_SEED, COMPONENTS["four"]))
+
+
+def render_plain(entries: list[tuple[int, NullEntry]]) -> str:
+    """The module of the short lengths' null without lag augmentation (NULL's layout)."""
+    lines = ['"""Simulated once by ``python -m tauscope.engine.unitroot.union_tables_make --plain`` '
+             "(do not edit).", "", "The union's null without lag augmentation at the grid lengths "
+             "below 100 (NULL's layout in", "union_table.py, whose rows there include the lag choice).",
+             '"""', "", f"SEED = {DEFAULT_SEED}", f"GRID = {tuple(e[0] for e in entries)!r}",
+             f"NULL_REPS = {NULL_REPS}", "",
+             "NULL: dict[int, dict[float, tuple[tuple[float, ...], float, float, float, float]]] = {"]
+    for length, null in entries:
+        lines.append(f"    {length}: {{")
+        lines += [f"        {a}: ({_fmt(v[0])}, {_fmt(v[1:])[1:-1]})," for a, v in null.items()]
+        lines.append("    },")
+    return "\n".join([*lines, "}", ""])
+
+
+def kept_entry(length: int) -> Entry:
+    """The current table's row at ``length``, as :func:`grid_entry` returns it (``--short``)."""
+    from tauscope.engine.unitroot import union_table
+
+    power: PowerEntry = {a: tuple(v) for a, v in union_table.POWER[length].items()}
+    return length, union_table.NULL[length], union_table.TREND[length], power, 0.0
+
+
 def main(argv: list[str] | None = None) -> None:  # pragma: no cover - run by hand
     parser = argparse.ArgumentParser(description=__doc__)
     parser.add_argument("--processes", type=int, default=2)
-    parser.add_argument("--out", type=Path, default=OUTPUT)
+    parser.add_argument("--out", type=Path, default=None)
+    parser.add_argument("--plain", action="store_true",
+                        help="only the short lengths' null without lag augmentation")
+    parser.add_argument("--short", action="store_true",
+                        help="only the rows below 100 values (the short-sample rule's); the others kept")
     args = parser.parse_args(argv)
-    order = sorted(GRID, reverse=True)  # the longest first, so the two processes finish together
+    if args.plain:
+        plain = [plain_entry(t) for t in GRID if short(t)]
+        out = args.out or PLAIN_OUTPUT
+        out.write_text(render_plain(plain), encoding="utf-8")
+        print(f"wrote {out}")
+        return
+    args.out = args.out or OUTPUT
+    order = sorted((t for t in GRID if short(t) or not args.short), reverse=True)  # the longest first
+    entries = [] if not args.short else [kept_entry(t) for t in GRID if not short(t)]
     with ProcessPoolExecutor(max_workers=max(1, min(args.processes, 2))) as pool:
-        entries = []
         for entry in pool.map(grid_entry, order):
             print(f"T = {entry[0]}: {entry[4]:.1f} s", flush=True)
             entries.append(entry)

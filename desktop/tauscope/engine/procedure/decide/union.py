@@ -2,10 +2,11 @@
 
 Harvey, D.I., Leybourne, S.J. & Taylor, A.M.R. (2009), Econometric Theory 25(3);
 (2012), Journal of Econometrics 169(2).  On each difference level, from the highest
-down (Dickey & Pantula 1987), four Dickey-Fuller t statistics (GLS and OLS detrending,
-with a constant and with a trend) are compared with their own critical values scaled
-by κ: the unit root is rejected when M = max_i τ_i / cv_i > κ, and κ makes the size of
-the whole union α.  The first level where it is not rejected at d gives I(d + 1).
+down (Dickey & Pantula 1987), four statistics (DF-GLS t with a constant and with a
+trend; MSB of Stock 1999 and Perron & Ng 1996, with Ng & Perron's 2001 s²_AR, on the
+OLS-demeaned and -detrended series) are compared with their own critical values scaled
+by κ: the unit root is rejected when M = max_i τ_i / cv_i > κ (MSB enters as −1/MSB), and
+κ makes the size of the whole union α.  The first level where it is not rejected at d gives I(d + 1).
 
 The deterministic label comes from the trend test of Harvey, Leybourne & Taylor (2007),
 valid whether the series is I(0) or I(1) (never from a pre-test that assumes the
@@ -25,14 +26,16 @@ from tauscope.engine.procedure.stages import DecideOptions, Decision, Estimates
 from tauscope.engine.procedure.union_estimate import UnionLevelRow, UnionRow
 from tauscope.engine.results import Step, TestResult
 from tauscope.engine.results_strategy import ClassicVerdict
+from tauscope.engine.unitroot.union import union_rule
+from tauscope.engine.unitroot.union_components import shown
 
 STRATEGY = "union"
 _WHERE = classic.DIFFERENCE_WORDS
 _COMPONENT_WORDS = {
     "gls-constant": ("constant", "dfgls", "DF-GLS with a constant only"),
     "gls-trend": ("trend", "dfgls", "DF-GLS with a constant and trend"),
-    "ols-constant": ("constant", "tau", "Dickey-Fuller t on the demeaned series"),
-    "ols-trend": ("trend", "tau", "Dickey-Fuller t on the detrended series"),
+    "ols-constant": ("constant", "msb", "MSB on the demeaned series"),
+    "ols-trend": ("trend", "msb", "MSB on the detrended series"),
 }
 
 
@@ -50,7 +53,7 @@ def dfgls_tests(row: UnionRow, alpha: float, lag_rule: str) -> dict[tuple[int, s
             values = level.component_values[j]
             out[(d, name)] = TestResult(
                 "dfgls", spec, d, level.tau[j], None, level.lags[j], level.nobs - level.lags[j] - 1,
-                dict(values), bool(level.tau[j] < values[key]), values[key], lag_rule=lag_rule)
+                dict(values), bool(level.tau[j] < values[key]), values[key], lag_rule=union_rule(lag_rule))
     return out
 
 
@@ -58,16 +61,18 @@ def _component_step(level: UnionLevelRow, j: int, alpha: float, test: TestResult
                     strategy: str = STRATEGY) -> Step:
     name = level.components[j]
     spec, kind, words = _COMPONENT_WORDS[name]
-    critical = level.kappa * level.critical_values[j]
-    reject = level.tau[j] < critical
+    reject = level.tau[j] < level.kappa * level.critical_values[j]
+    # MSB is held as −1/MSB (rejects below κ·cv like the t statistics); shown as MSB
+    value = shown(name, level.tau[j])
+    critical = shown(name, level.kappa * level.critical_values[j])
     a = fmt.percent(alpha)
     scaled = "scaled for the union" if level.p_value is None else "scaled by the union's bootstrap value"
     text = (
-        f"On {_WHERE[level.difference]}, {words} (lag {level.lags[j]}): {fmt.stat(level.tau[j])} against "
+        f"On {_WHERE[level.difference]}, {words} (lag {level.lags[j]}): {fmt.stat(value)} against "
         f"its {a} value {scaled}, {fmt.stat(critical)} "
         f"({'rejects' if reject else 'does not reject'} on its own)."
     )
-    return Step(level.difference, spec, f"unit root, {words}", kind, level.tau[j], critical, None,
+    return Step(level.difference, spec, f"unit root, {words}", kind, value, critical, None,
                 "reject" if reject else "do not reject", text, test, strategy)
 
 
