@@ -45,16 +45,6 @@ def _published() -> ModuleType:
     return module
 
 
-def _quantile_se(draws: np.ndarray, prob: float) -> tuple[float, float]:
-    """The quantile and half the order-statistic interval of ±1 binomial s.d."""
-    ordered = np.sort(draws)
-    reps = ordered.size
-    half = math.sqrt(prob * (1.0 - prob) * reps)
-    lo = ordered[max(0, int(reps * prob - half))]
-    hi = ordered[min(reps - 1, int(reps * prob + half))]
-    return float(np.quantile(draws, prob)), float(hi - lo) / 2.0
-
-
 def _scale(deterministic: str, n: int) -> float:
     m = n - 4
     return math.sqrt(m / (m - 4 - n_deterministic(deterministic, 4)))
@@ -106,7 +96,7 @@ def published_twins(tables: ModuleType, reps: int) -> None:
           f"largest {float(np.abs(differences).max()):.2f}")
     for i, p in enumerate(SIZES):
         se_published = math.sqrt(float(np.mean(differences[:, i] ** 2)) / 2.0)
-        ours = [_quantile_se(simulate(4, d, 100, 0, reps, SEED)[:, 0], p)[1]
+        ours = [tables._quantile(simulate(4, d, 100, 0, reps, SEED)[:, 0], p)[1]
                 for d in ("none", "dummies")]
         se_ours = float(np.mean(ours))
         implied = reps * (se_ours / se_published) ** 2
