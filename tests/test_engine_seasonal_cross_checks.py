@@ -73,9 +73,11 @@ def test_kpss_does_not_depend_on_the_size_of_the_seasonal_means() -> None:
     # directly): 8.5% rejections on the adjusted levels whatever the means' size; on the raw
     # levels 5.5% with these means and 1% with means twice as large (the seasons inflate
     # the long-run variance, so the raw KPSS loses its power, not its size)
+    # 240 months: every verdict here must be I(0) for the comparison of KPSS on the levels;
+    # at 150 the size-controlled default (DF-GLS + MSB) called one raw series I(1)
     for seed in (43, 44):
-        noise = _monthly_seasonal_ar(np.random.default_rng(seed), 150, size=0.0)
-        seasons = _monthly_seasonal_ar(np.random.default_rng(seed), 150, size=1.0) - noise
+        noise = _monthly_seasonal_ar(np.random.default_rng(seed), 240, size=0.0)
+        seasons = _monthly_seasonal_ar(np.random.default_rng(seed), 240, size=1.0) - noise
         allowed, raw = [], []
         for size in (0.0, 1.0, 5.0):
             x = noise + size * seasons

@@ -99,8 +99,10 @@ def fitted_deterministic(x: np.ndarray, order: int | None, deterministic: str | 
 
     I(0): OLS fit on [1, t] (trend), the mean (constant) or zero (none).
     I(1) with drift: y_1 + μ̂ (t − 1) with μ̂ the mean change; with trend: OLS on [1, t, t²].
+    I(2): OLS on [1, t, t²] when its differences drift; none without drift (no deterministic
+    path to draw).
     """
-    if order is None or deterministic is None:
+    if order is None or deterministic is None or (order >= 2 and deterministic == "none"):
         return None
     n = x.shape[0]
     t = np.arange(n, dtype=float)
