@@ -60,9 +60,19 @@ def test_default_settings_add_only_the_power_sentence_for_a_unit_root() -> None:
     dfgls = [(t.spec, t.difference) for t in result.tests if t.test == "dfgls"]
     assert len(dfgls) == len(set(dfgls)) and {s for s, _ in dfgls} == {"constant", "trend"}
     assert result.verdict.unit_root  # a random walk of 160 values (seed 12)
-    assert any(note.startswith("How often the deciding ADF test") for note in result.notes)
+    # Under the default the power describes the classic sequence's ADF, not the verdict's test,
+    # and the sentence says so.
+    power_notes = [note for note in result.notes if note.startswith("How often")]
+    assert len(power_notes) == 1
+    assert power_notes[0].startswith("How often the last ADF test of the classic sequence")
+    assert "not from this ADF test" in power_notes[0]
     power = result.to_dict()["evidence"]["power"]
     assert power is not None and 0.0 <= power["power"]["0.95"] <= power["power"]["0.90"] <= 1.0
+    classic = analyse_series(walk, Settings(strategy="classic"), name="walk")
+    assert classic.verdict.unit_root
+    classic_power = [note for note in classic.notes if note.startswith("How often")]
+    assert len(classic_power) == 1 and classic_power[0].startswith("How often the deciding ADF test")
+    assert "not from this ADF test" not in classic_power[0]
 
 
 def test_exact_critical_values_change_only_the_yardstick() -> None:

@@ -268,12 +268,17 @@ for a new length takes a few seconds) and matters most for short series.</p>""",
     "power": """
 <p>Not rejecting a unit root is weak evidence when the test rarely rejects anyway. With
 <b>power</b> turned on, Tauscope simulates stationary series of your length whose autoregressive
-coefficient is 0.90 and 0.95 and reports how often the deciding ADF test would reject a unit
-root. A power of 30% means seven times in ten a stationary series this persistent would also
-have looked like a unit root: the verdict then rests on little.</p>""",
+coefficient is 0.90 and 0.95 and reports how often the last ADF test of the classic sequence
+would reject a unit root (under the classic strategy it is the test that decided; under the
+size-controlled strategies the verdict rests on DF-GLS and MSB instead, whose measured rates are
+in the scorecard of the section on the testing sequence). A power of 30% means seven times in
+ten a stationary series this persistent would also have looked like a unit root: the verdict
+then rests on little.</p>""",
     "chart-recursive": """
-<p>τ recomputed on an expanding window: the first part of the series, then a little more, up to
-all of it, with the critical value for each window length as a dashed line. A τ that crosses the
+<p>The ADF τ of the classic sequence's last step recomputed on an expanding window: the first
+part of the series, then a little more, up to all of it, with the critical value for each window
+length as a dashed line. Under the size-controlled strategies this ADF test is a cross-check, not
+the test that decided the verdict. A τ that crosses the
 line and stays there shows when the evidence settled; one that wanders across it several times
 says the verdict depends on the span, often because of a break.</p>""",
     "chart-null": """

@@ -50,7 +50,8 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
     kpss_status = agreement(order, checks)
     if order is None and options.kpss:
         kpss_status = "inconclusive"
-    evidence = read_evidence(checked.extra, order, [t for t, _ in checks], kpss_status, options.alpha)
+    evidence = read_evidence(checked.extra, order, [t for t, _ in checks], kpss_status, options.alpha,
+                             classic_decides=decision.strategy == "classic")
     status = evidence.agreement if evidence.tests else kpss_status
     strategy_notes: list[str] = []
     classic: ClassicVerdict | None = None
@@ -155,15 +156,18 @@ def _weak(verdict: Verdict, decision: Decision, alpha: float) -> Verdict:
 
 
 def read_evidence(extra: ExtraEvidence, order: int | None, kpss: Sequence[TestResult],
-                  kpss_status: str | None, alpha: float) -> Evidence:
+                  kpss_status: str | None, alpha: float, *, classic_decides: bool = True) -> Evidence:
     """The extra evidence with its reading against the ADF verdict, the combined
-    agreement (KPSS's own status counting as one vote) and its sentences."""
+    agreement (KPSS's own status counting as one vote) and its sentences.
+    ``classic_decides``: whether the classic sequence decided the verdict (the power
+    sentence then speaks of the deciding ADF test, otherwise of the classic sequence's)."""
     d = extra.difference
     adf_stationary = None if order is None else (order == 0 if d == 0 else False)
     kpss_here = next((k for k in kpss if k.difference == d), None)
     text = reading(adf_stationary, extra.spec, d, alpha, extra.tests, kpss_here, extra.break_info)
     status = combined_agreement(adf_stationary, kpss_status, extra.tests) if extra.tests else kpss_status
-    notes = evidence_notes(extra.tests, alpha, extra.fixed_lags, extra.break_info, extra.power)
+    notes = evidence_notes(extra.tests, alpha, extra.fixed_lags, extra.break_info, extra.power,
+                           classic_decides=classic_decides)
     all_notes = ([text] if text else []) + notes + list(extra.problems)
     return Evidence(d, extra.spec, extra.tests, tuple(all_notes), text, status, extra.break_info,
                     extra.power, extra.recursive, extra.phillips_perron, extra.z_alpha_critical_values,

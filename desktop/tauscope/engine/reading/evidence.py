@@ -42,21 +42,29 @@ def evidence_sentence(test: TestResult, alpha: float, spec_words: str, extra: st
             f"{_decision(test, alpha)}{extra}.")
 
 
-def power_sentence(power: PowerResult) -> str:
+def power_sentence(power: PowerResult, *, classic_decides: bool = True) -> str:
+    """The simulated power of the classic sequence's last ADF test, in words.  When another
+    strategy decided the verdict, the sentence names the test it describes and says the
+    verdict's own test is another one, so the figures are not read as the verdict's power."""
     a = fmt.percent(power.alpha)
     parts = []
     for coefficient, rate in sorted(zip(power.coefficients, power.rates, strict=True), reverse=True):
         parts.append(f"against a coefficient of {coefficient:.2f} it rejects "
                      f"{'only ' if rate < 0.5 else ''}{rate:.0%} of the time")
     lag_words = f"{power.lags} lag{'s' if power.lags != 1 else ''}"
-    return (f"How often the deciding ADF test ({SPEC_LABELS[power.spec]}, {lag_words}, {a}, "
+    which = ("the deciding ADF test" if classic_decides
+             else "the last ADF test of the classic sequence")
+    return (f"How often {which} ({SPEC_LABELS[power.spec]}, {lag_words}, {a}, "
             f"{power.nobs} observations) would reject a unit root if the series were in fact "
             f"stationary with an autoregressive coefficient close to one: " + "; ".join(parts)
             + f" at this sample size (simulation, {power.reps:,} replications). "
             + ("A test that often misses stationarity makes not rejecting a unit root weak evidence "
                "for one." if min(power.rates) < 0.8 else
                "With power this high, not rejecting a unit root says more than usual, though a root "
-               "closer to one than 0.95 would still be hard to detect."))
+               "closer to one than 0.95 would still be hard to detect.")
+            + ("" if classic_decides else
+               " The verdict itself comes from the size-controlled strategy (DF-GLS and MSB), not "
+               "from this ADF test; the guide gives its measured rates."))
 
 
 def _join(names: Sequence[str]) -> str:
@@ -146,7 +154,8 @@ SPEC_WORDS = {"trend": "with constant and trend", "constant": "with a constant",
 
 
 def evidence_notes(tests: Sequence[TestResult], alpha: float, fixed_lags: bool,
-                   break_info: BreakInfo | None, power: PowerResult | None) -> list[str]:
+                   break_info: BreakInfo | None, power: PowerResult | None, *,
+                   classic_decides: bool = True) -> list[str]:
     """One sentence per extra test, in the order they ran, then the power's."""
     notes = []
     for test in tests:
@@ -162,5 +171,5 @@ def evidence_notes(tests: Sequence[TestResult], alpha: float, fixed_lags: bool,
                 test, alpha, f"allowing {break_info.description}",
                 f" (most likely break: the new regime starts at {break_info.first_new_label})"))
     if power is not None:
-        notes.append(power_sentence(power))
+        notes.append(power_sentence(power, classic_decides=classic_decides))
     return notes

@@ -9,7 +9,7 @@ from PySide6.QtCore import Qt
 
 from tauscope.engine import formatting as fmt
 from tauscope.ui.charts.base import Chart, x_positions
-from tauscope.ui.texts import SPEC_NAMES
+from tauscope.ui.texts import SPEC_SHORT
 
 
 class RecursiveChart(Chart):
@@ -38,9 +38,12 @@ class RecursiveChart(Chart):
             x, dates = x_positions(values.index[ends])
         else:
             x = ends.astype(float) + 1
-        spec = SPEC_NAMES.get(recursive.spec, recursive.spec)
+        spec = SPEC_SHORT.get(recursive.spec, recursive.spec)
         level = fmt.percent(recursive.alpha)
-        plot = self.new_plot(0, dates, f"τ on an expanding window · {spec}, {recursive.lags} lags")
+        # Under a size-controlled strategy this is the classic sequence's ADF, a cross-check: the
+        # title says so, so the chart is not read as the test that decided the verdict.
+        whose = "ADF τ" if result.verdict.strategy == "classic" else "Classic ADF τ"
+        plot = self.new_plot(0, dates, f"{whose} over time · {spec}, {recursive.lags} lags")
         plot.plot(x, np.asarray(recursive.statistics, dtype=float),
                   pen=pg.mkPen(colors.line, width=1.5), name="τ up to this date", connect="finite")
         plot.plot(x, np.asarray(recursive.critical_values, dtype=float),
