@@ -8,11 +8,15 @@ DF-GLS t ratio (Elliott, Rothenberg & Stock 1996; constant and trend) under a dr
 random walk of T values, each from 10⁶ walks with the seed of the direct simulation
 (:func:`tauscope.engine.unitroot.dfgls.dfgls_null_distribution`), so a cell holds that
 simulation's quantiles to rounding.  A request (spec, T, p) is read at its own lag from the two
-cells whose lengths bracket T, interpolated linearly in 1/T (finite-sample terms of such
-quantiles are close to polynomials in 1/T: MacKinnon 1994, 2010; Cheung & Lai 1995 fit the
-DF-GLS ones that way), as the τ table is read
-(:mod:`~tauscope.engine.distributions.exact_grid`); every lag has its own cells.  A request
-the grid does not bracket gets ``None`` (the caller simulates).
+cells whose lengths bracket T, interpolated linearly in 1/df, df = T − 2 − 2p the regression's
+residual degrees of freedom (finite-sample terms of such quantiles are close to polynomials in
+1/T: MacKinnon 1994, 2010; Cheung & Lai 1995 fit the DF-GLS ones in T and p; with many lags on
+a short series the distortion follows df rather than T: read in 1/T, the 1% value at T = 30,
+9 lags was off by 0.2, in 1/df by 0.08, hence the lengths 30 and 40 on the grid), as the τ
+table is read (:mod:`~tauscope.engine.distributions.exact_grid`); every lag has its own cells.
+A request the grid does not bracket, or one whose shorter cell keeps fewer than
+:data:`MIN_DF` residual degrees of freedom (T between 25 and 30 with 7 or 8 lags), gets
+``None`` (the caller simulates); ``benchmarks/dfgls_table_check.py`` measures the rest.
 """
 
 from __future__ import annotations
@@ -24,8 +28,14 @@ import numpy as np
 
 from tauscope.engine.distributions.exact_grid import decode
 
-DFGLS_LENGTHS = (25, 35, 50, 75, 110, 160, 250)
+DFGLS_LENGTHS = (25, 30, 35, 40, 50, 75, 110, 160, 250)
 DFGLS_SPECS = ("constant", "trend")
+MIN_DF = 10  # between two lengths, the shorter cell's regression keeps at least this many
+
+
+def _df(length: int, lags: int) -> int:
+    """Residual degrees of freedom of the DF-GLS regression: (T − 1 − p) − (p + 1)."""
+    return length - 2 - 2 * lags
 
 
 def _schwert(values: int) -> int:
@@ -67,9 +77,10 @@ def dfgls_quantiles(spec: str, length: int, lags: int) -> np.ndarray | None:
     else:
         short, long = DFGLS_LENGTHS[i - 1], DFGLS_LENGTHS[i]
         low, high = table.get((short, lags)), table.get((long, lags))
-        if low is None or high is None:
+        if low is None or high is None or _df(short, lags) < MIN_DF:
             return None
-        w = (1.0 / length - 1.0 / long) / (1.0 / short - 1.0 / long)
+        x, x0, x1 = 1.0 / _df(length, lags), 1.0 / _df(short, lags), 1.0 / _df(long, lags)
+        w = (x - x1) / (x0 - x1)
         out = np.asarray(w * low[spec] + (1.0 - w) * high[spec])
     if out is not None:
         out.setflags(write=False)

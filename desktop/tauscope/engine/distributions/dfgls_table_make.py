@@ -67,8 +67,10 @@ def _existing() -> tuple[Cells, Errors]:
         return {}, {}
     from tauscope.engine.distributions import dfgls_table
 
+    on_grid = [key for key in dfgls_table.CELLS if key[0] in DFGLS_LENGTHS and key[1] in dfgls_table_lags(key[0])]
     cells = decode(dfgls_table.CELLS, dfgls_table.DATA, DFGLS_SPECS)
-    return cells, {key: dict(zip(DFGLS_SPECS, value, strict=True)) for key, value in dfgls_table.SE_1.items()}
+    errors = {key: dict(zip(DFGLS_SPECS, value, strict=True)) for key, value in dfgls_table.SE_1.items()}
+    return {key: cells[key] for key in on_grid}, {key: errors[key] for key in on_grid}  # cells off the grid dropped
 
 
 def write(cells: Cells, errors: Errors) -> None:
