@@ -125,7 +125,15 @@ def against_arch() -> None:
 
 
 def _dicts(results: list[Any]) -> dict[str, Any]:
-    return {result.name: result.to_dict() for result in results}
+    """to_dict() of each result, with the cross-checks' own results added (``to_dict`` keeps
+    only their reading; the notes say their numbers rounded)."""
+    out = {}
+    for result in results:
+        data = result.to_dict()
+        evidence = getattr(result, "evidence", None)
+        data["cross_checks"] = [t.to_dict() for t in evidence.tests] if evidence is not None else []
+        out[result.name] = data
+    return out
 
 
 def every_box(count: int, saved: Path | None) -> None:

@@ -14,6 +14,7 @@ import numpy as np
 import pytest
 from arch.unitroot.unitroot import mackinnoncrit as arch_mackinnoncrit
 
+from tauscope.engine import formatting as fmt
 from tauscope.engine.distributions import dfgls_table
 from tauscope.engine.distributions.dfgls_grid import (
     DFGLS_LENGTHS,
@@ -103,6 +104,10 @@ def test_the_engine_reads_the_table_for_an_exact_run_only() -> None:
                                          DEFAULT_SEED)
     assert p_value == pytest.approx(0.05, abs=1e-9) and bound is None
     assert fixed_lag_values(-50.0, "trend", 240, 4, EXACT_REPS, DEFAULT_SEED)[1:] == (0.001, "below")
+    far, _ = dfgls_test(np.random.default_rng(4).standard_normal(240), "trend", 0.05, lags=0, critical="exact",
+                        reps=EXACT_REPS)
+    assert (far.p_value, far.p_value_bound) == (0.001, "below")  # said "below 0.001", as the simulation did
+    assert fmt.p_value(far.p_value, far.p_value_bound) == "below 0.001"
     # another seed or replication count is simulated, as before
     other, _, _ = fixed_lag_values(-3.0, "trend", 240, 4, 2_000, DEFAULT_SEED)
     assert other == lower_critical_values(dfgls_null_distribution("trend", 240, 2_000, DEFAULT_SEED, 4))

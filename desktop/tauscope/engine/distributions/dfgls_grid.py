@@ -10,7 +10,7 @@ random walk of T values, each from 10⁶ walks with the seed of the direct simul
 simulation's quantiles to rounding.  A request (spec, T, p) is read at its own lag from the two
 cells whose lengths bracket T, interpolated linearly in 1/df, df = T − 2 − 2p the regression's
 residual degrees of freedom (finite-sample terms of such quantiles are close to polynomials in
-1/T: MacKinnon 1994, 2010; Cheung & Lai 1995 fit the DF-GLS ones in T and p; with many lags on
+1/T: MacKinnon 1994, 2010; Cheung & Lai 1995 fit the DF-GLS ones in T and p, from memory; with many lags on
 a short series the distortion follows df rather than T: read in 1/T, the 1% value at T = 30,
 9 lags was off by 0.2, in 1/df by 0.08, hence the lengths 30 and 40 on the grid), as the τ
 table is read (:mod:`~tauscope.engine.distributions.exact_grid`); every lag has its own cells.
