@@ -188,9 +188,15 @@ def _compare(before: dict[str, Any], after: dict[str, Any]) -> None:
     print("numbers that differ, largest difference by field (list positions dropped):")
     for key, value in sorted(largest.items(), key=lambda kv: -kv[1])[:12]:
         print(f"  {value:.4f}  {key}")
-    print(f"other entries that differ: {len(other)}")
-    for line in other[:20]:
-        print(f"  {line}")
+    print(f"other entries that differ: {len(other)}, by field:")
+    kinds: dict[str, int] = {}
+    for line in other:
+        kind = re.sub(r"\[\d+\]", "[]", line.split(": ", 1)[1])
+        kinds[kind] = kinds.get(kind, 0) + 1
+    for kind, count in sorted(kinds.items(), key=lambda kv: -kv[1]):
+        print(f"  {count:4d}  {kind}")
+    for line in other[:8]:
+        print(f"  e.g. {line}")
 
 
 def main() -> None:
