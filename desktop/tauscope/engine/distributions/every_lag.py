@@ -100,11 +100,18 @@ def _spec_statistics(s: np.ndarray, nobs: int, lags: int) -> dict[str, np.ndarra
 def every_lag_statistics(shocks: np.ndarray, lags: Sequence[int]) -> dict[int, dict[str, np.ndarray]]:
     """Every statistic of :data:`STATISTICS` for each lag order in ``lags``, for the random
     walks of ``shocks`` (r, L) (rows e_1 … e_L); lag p uses nobs = L − p (p + 4 ≤ nobs)."""
-    reps, length = shocks.shape
+    y = np.zeros((shocks.shape[0], shocks.shape[1] + 1))
+    np.cumsum(shocks, axis=1, out=y[:, 1:])
+    return every_lag_levels(y, lags, shocks)
+
+
+def every_lag_levels(y: np.ndarray, lags: Sequence[int], changes: np.ndarray | None = None
+                     ) -> dict[int, dict[str, np.ndarray]]:
+    """:func:`every_lag_statistics` for any paths ``y`` (r, L + 1) (rows y_0 … y_L, e.g. the
+    AR(1) alternatives of the power simulation); ``changes``: their differences, if at hand."""
+    e = np.diff(y, axis=1) if changes is None else changes
+    reps, length = e.shape
     top = max(lags)
-    e = shocks
-    y = np.zeros((reps, length + 1))
-    np.cumsum(e, axis=1, out=y[:, 1:])
     t = np.broadcast_to(np.arange(1.0, length + 1.0), e.shape)
     ones = np.ones_like(e)
     lagged = y[:, :-1]  # y_{t−1} for t = 1 … L

@@ -52,11 +52,13 @@ def table_lags(length: int) -> tuple[int, ...]:
     return tuple(p for p in lags if p <= reach)
 
 
-def decode(cells: tuple[tuple[int, int], ...], data: str) -> dict[tuple[int, int], dict[str, np.ndarray]]:
-    """The table's quantiles: (length, lag) → statistic → values at :data:`PROBABILITIES`."""
+def decode(cells: tuple[tuple[int, int], ...], data: str, names: tuple[str, ...] = TABLE_STATISTICS
+           ) -> dict[tuple[int, int], dict[str, np.ndarray]]:
+    """The table's quantiles: (length, lag) → statistic (``names``, in the order written) →
+    values at :data:`PROBABILITIES`."""
     raw = np.frombuffer(lzma.decompress(base64.b64decode(data)), dtype="<i4")
-    values = np.cumsum(raw.reshape(len(cells), len(TABLE_STATISTICS), len(PROBABILITIES)), axis=2) * UNIT
-    return {key: {name: values[c, s] for s, name in enumerate(TABLE_STATISTICS)}
+    values = np.cumsum(raw.reshape(len(cells), len(names), len(PROBABILITIES)), axis=2) * UNIT
+    return {key: {name: values[c, s] for s, name in enumerate(names)}
             for c, key in enumerate(cells)}
 
 

@@ -73,13 +73,14 @@ def simulate_length(length: int, reps: int = REPS, seed: int = SEED, lags: tuple
     return quantiles, errors
 
 
-def encode(cells: dict[tuple[int, int], dict[str, np.ndarray]]) -> str:
+def encode(cells: dict[tuple[int, int], dict[str, np.ndarray]],
+           names: tuple[str, ...] = TABLE_STATISTICS) -> str:
     """The quantiles in units of :data:`UNIT`, differenced along the probabilities (the first
     kept whole), as little-endian int32, lzma-compressed and base64-encoded; cells in sorted
-    (length, lag) order, statistics in :data:`TABLE_STATISTICS` order."""
+    (length, lag) order, statistics in ``names`` order."""
     rows = []
     for key in sorted(cells):
-        for name in TABLE_STATISTICS:
+        for name in names:
             units = np.rint(np.asarray(cells[key][name]) / UNIT).astype(np.int64)
             steps = np.diff(units, prepend=0)
             rows.append(steps)

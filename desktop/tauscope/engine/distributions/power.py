@@ -11,8 +11,11 @@ depend on the error variance, nor on a mean (constant spec) or a linear trend
 (trend spec), so these cover every stationary AR(1) alternative with that root.
 
 Vectorised over replications (scipy's ``lfilter`` runs the AR recursion for
-all rows at once; the regressions reuse :mod:`tauscope.engine.distributions.simulate`),
-with a fixed seed, common random numbers across coefficients, and a cache.
+all rows at once), with a fixed seed, common random numbers across coefficients, and a
+cache.  The samples of one length (shocks after y_0) are the same whatever the spec and lag
+order, so τ of every spec and lag order a default search reaches there is computed at once
+from window sums (:mod:`tauscope.engine.distributions.every_lag`, which equals the batched
+regressions of :mod:`tauscope.engine.distributions.batched` lag by lag) and kept for the run.
 """
 
 from __future__ import annotations
@@ -23,6 +26,8 @@ import numpy as np
 from scipy.signal import lfilter
 
 from tauscope.engine.distributions.critical import tau_critical_value
+from tauscope.engine.distributions.every_lag import every_lag_levels
+from tauscope.engine.distributions.exact import default_top_lag
 from tauscope.engine.distributions.simulate import (
     DEFAULT_REPS,
     DEFAULT_SEED,
@@ -30,6 +35,7 @@ from tauscope.engine.distributions.simulate import (
     shock_chunks,
     tau_statistics,
 )
+from tauscope.engine.regression.design import SPECS
 from tauscope.engine.results import PowerResult
 
 COEFFICIENTS = (0.90, 0.95)
@@ -63,6 +69,16 @@ def rejection_rates(spec: str, nobs: int, coefficients: tuple[float, ...], alpha
     if any(not 0.0 < c <= 1.0 for c in coefficients):
         raise ValueError("AR coefficients must be in (0, 1]")
     threshold = critical_value_for(spec, nobs, alpha, lags, critical)
+    length = nobs + lags
+    if nobs < lags + 4:  # too short for the every-lag sums: this regression alone
+        return _one_regression(spec, nobs, coefficients, lags, reps, seed, threshold)
+    top = max(lags, default_top_lag(length))
+    return tuple(float(np.count_nonzero(alternative_taus(length, c, top, reps, seed)[lags][spec] < threshold)) / reps
+                 for c in coefficients)
+
+
+def _one_regression(spec: str, nobs: int, coefficients: tuple[float, ...], lags: int, reps: int, seed: int,
+                    threshold: float) -> tuple[float, ...]:
     starts = np.random.default_rng(seed + 1)  # a stream apart from the shocks
     rejections = np.zeros(len(coefficients), dtype=np.int64)
     for shocks in shock_chunks(nobs + lags, reps, seed, width=2 + lags):
@@ -71,6 +87,26 @@ def rejection_rates(spec: str, nobs: int, coefficients: tuple[float, ...], alpha
             tau = tau_statistics(ar1_paths(shocks, coefficient, start), lags, spec)
             rejections[i] += int(np.count_nonzero(tau < threshold))
     return tuple(float(r) / reps for r in rejections)
+
+
+@lru_cache(maxsize=64)
+def alternative_taus(length: int, coefficient: float, top: int, reps: int, seed: int
+                     ) -> dict[int, dict[str, np.ndarray]]:
+    """lag → spec → τ of ``reps`` AR(1) samples of ``length`` shocks after y_0 (the shocks of
+    :func:`shock_chunks` with ``seed``, the starts from seed + 1), for every lag order 0 …
+    ``top`` the sample allows (nobs = length − p ≥ p + 4) at once
+    (:func:`~tauscope.engine.distributions.every_lag.every_lag_levels`): every (spec, lag)
+    the run asks for at this length and coefficient reads the same paths."""
+    lags = [p for p in range(top + 1) if length - p >= p + 4]
+    starts = np.random.default_rng(seed + 1)  # a stream apart from the shocks
+    parts: dict[int, dict[str, list[np.ndarray]]] = {p: {s: [] for s in SPECS} for p in lags}
+    for shocks in shock_chunks(length, reps, seed, width=2 + top):
+        start = np.asarray(starts.standard_normal(shocks.shape[0]))
+        statistics = every_lag_levels(ar1_paths(shocks, coefficient, start), lags)
+        for p in lags:
+            for spec in SPECS:
+                parts[p][spec].append(statistics[p][f"tau_{spec}"])
+    return {p: {spec: np.concatenate(values) for spec, values in by_spec.items()} for p, by_spec in parts.items()}
 
 
 def rejection_rate(spec: str, nobs: int, coefficient: float, alpha: float, lags: int = 0,

@@ -142,8 +142,9 @@ def empirical_p_value(statistic: float, draws: np.ndarray, lower: bool = True) -
 
 def reportable_bound(p_value: float, bound: str | None) -> str | None:
     """Drop a "below" bound the plain p-value already says: a value under 0.001 is
-    written "below 0.001" (DESIGN.md §7), which is true of any bounded p-value that small."""
-    return None if bound == "below" and p_value <= 0.001 else bound
+    written "below 0.001" (DESIGN.md §7), which is true of any bounded p-value that small.
+    A bound at 0.001 itself (the tables' last quantile) is kept: plain, 0.001 would read "0.001"."""
+    return None if bound == "below" and p_value < 0.001 else bound
 
 
 def _p_reps(reps: int) -> int:

@@ -23,7 +23,9 @@ included (:mod:`tauscope.engine.distributions.dfgls_values`; the asymptotic valu
 the Dickey-Fuller ones without deterministic terms for the constant case and ERS 1996
 Table 1 for the trend case, hold only for long series: at T = 30 the constant case's
 asymptotic −1.95 rejects a true unit root about 9-14% of the time); with a fixed lag
-order, the null simulated at T with that lag ("exact": always the latter).
+order, the null at T with that lag ("exact": always the latter), read from a table simulated
+once (10⁶ walks per length and lag, :mod:`tauscope.engine.distributions.dfgls_grid`) when the
+request is the default one and the table brackets T, else simulated here.
 :func:`table_critical_values` keeps the published asymptotic and ERS values.
 """
 
@@ -35,11 +37,13 @@ from functools import lru_cache
 import numpy as np
 
 from tauscope.engine.distributions.critical import tau_critical_values
+from tauscope.engine.distributions.dfgls_grid import dfgls_quantiles
 from tauscope.engine.distributions.dfgls_values import (
     covers,
     surface_critical_values,
     surface_p_value,
 )
+from tauscope.engine.distributions.exact_grid import distribution_at, quantile_at
 from tauscope.engine.distributions.simulate import (
     DEFAULT_SEED,
     EXACT_REPS,
@@ -206,6 +210,23 @@ def dfgls_null_distribution(spec: str, length: int, reps: int = EXACT_REPS,
     return draws
 
 
+def fixed_lag_values(statistic: float, spec: str, length: int, lags: int, reps: int, seed: int
+                     ) -> tuple[dict[str, float], float, str | None]:
+    """Critical values, p-value and its bound under the null of a series of ``length`` values
+    with ``lags`` fixed lags: read from the DF-GLS table
+    (:mod:`tauscope.engine.distributions.dfgls_grid`) when the request is the default one
+    (10⁶ replications, the default seed) and the grid brackets it (the p-value bounded at
+    0.001), else from ``reps`` draws simulated here (:func:`dfgls_null_distribution`)."""
+    table = dfgls_quantiles(spec, length, lags) if reps == EXACT_REPS and seed == DEFAULT_SEED else None
+    if table is not None:
+        values = {level: quantile_at(table, a) for level, a in zip(LEVELS, (0.01, 0.05, 0.10), strict=True)}
+        share, side = distribution_at(table, statistic)
+        return values, share, "below" if side == "below" else None
+    draws = dfgls_null_distribution(spec, length, reps, seed, lags)
+    p_value, bound = empirical_p_value(statistic, draws)
+    return lower_critical_values(draws), p_value, bound
+
+
 def dfgls_test(x: np.ndarray, spec: str, alpha: float, difference: int = 0,
                lag_rule: str = "maic", max_lags: int = 0, lags: int | None = None,
                critical: str = "table", reps: int = DFGLS_P_VALUE_REPS,
@@ -213,8 +234,9 @@ def dfgls_test(x: np.ndarray, spec: str, alpha: float, difference: int = 0,
     """DF-GLS as a :class:`TestResult` (test "dfgls").  ``critical`` "table": finite-sample
     values at this series' length T, from the response surfaces of the whole procedure
     with its lag choice (:mod:`tauscope.engine.distributions.dfgls_values`), or, when the
-    lag order is fixed, from the null simulated at T with that lag; "exact" simulates the
-    null at T with the chosen lag order.  ``reps``: replications of those simulations."""
+    lag order is fixed, from the null simulated at T with that lag; "exact" takes the
+    null at T with the chosen lag order (:func:`fixed_lag_values`: the table when ``reps``
+    and ``seed`` are the defaults of an exact run).  ``reps``: replications of those nulls."""
     result = dfgls(x, spec, lag_rule, max_lags, lags)
     length = int(np.asarray(x).shape[0])
     bound: str | None = None
@@ -224,9 +246,8 @@ def dfgls_test(x: np.ndarray, spec: str, alpha: float, difference: int = 0,
         p_value, bound = surface_p_value(result.statistic, spec, length)
     else:
         # "exact", or a lag order fixed by the user: the null at this length and this lag
-        draws = dfgls_null_distribution(spec, length, reps, seed, result.lags)
-        critical_values = lower_critical_values(draws)
-        p_value, bound = empirical_p_value(result.statistic, draws)
+        critical_values, p_value, bound = fixed_lag_values(result.statistic, spec, length,
+                                                           result.lags, reps, seed)
     level = f"{round(alpha * 100):d}%"
     return TestResult(
         test="dfgls",
