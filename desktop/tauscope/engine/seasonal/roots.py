@@ -45,6 +45,7 @@ from tauscope.engine.seasonal.critical import (
     DEFAULT_REPS,
     DEFAULT_SEED,
     critical_values,
+    default_max_lags,
     minimum_length,
     p_value_sorted,
     sorted_draws,
@@ -66,14 +67,6 @@ from tauscope.engine.seasonal.results import SeasonalRootsResult, SeasonalTest
 LAG_RULES = ("aic", "bic", "tsig", "fixed")
 ALPHAS = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
 _T_DROP = 1.645
-
-
-def default_max_lags(n: int, period: int, deterministic: str) -> int:
-    """Schwert (1989): ⌊12 (n/100)^{1/4}⌋, cut to the largest p that leaves the
-    regression at least 10 residual degrees of freedom."""
-    schwert = int(np.floor(12.0 * (n / 100.0) ** 0.25))
-    room = (n - minimum_length(period, deterministic, 0)) // 2
-    return max(0, min(schwert, room))
 
 
 def _clean(values: Sequence[float] | np.ndarray, period: int) -> np.ndarray:
