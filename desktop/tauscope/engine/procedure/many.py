@@ -113,6 +113,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     decisions: dict[int, Decision] = {}
     wanted: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
     windows: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
+    seasonal: dict[SeriesBatch, list[tuple[int, int]]] = {}
     for position, item in enumerate(prepared):
         if stop():
             return
@@ -126,6 +127,8 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
         decisions[position] = decision
         wanted.setdefault(batch, []).append((slot, *decision.profile_request))
         windows.setdefault(batch, []).extend((slot, *request) for request in recursive_requests(decision))
+        if item.seasonal is not None:
+            seasonal.setdefault(batch, []).append((slot, item.seasonal.period))
     for batch, requests in wanted.items():
         # On failure each series asks on its own below, and falls back if it must.
         with suppress(*FALLBACK_ERRORS):
@@ -133,6 +136,8 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     for batch, requests in windows.items():
         with suppress(*FALLBACK_ERRORS):  # likewise: a failing series asks alone below
             batch.prefetch_recursive(requests, plan.cross_check.alpha)
+    for batch, pairs in seasonal.items():  # errors are kept per series: none escapes here
+        batch.seasonal.prefetch(pairs, plan.cross_check.alpha)
 
     for position, (name, values) in enumerate(chunk):
         if stop():

@@ -282,6 +282,22 @@ def p_value_sorted(ordered: np.ndarray, statistic: float, kind: str) -> float | 
     return float(1.0 - np.interp(statistic, ordered, positions, left=0.0))
 
 
+def p_values_sorted(ordered: np.ndarray, values: np.ndarray, kind: str) -> list[float | None]:
+    """:func:`p_value_sorted` for many statistics at once (the same numbers: one
+    ``np.interp`` over the column)."""
+    values = np.asarray(values, dtype=float)
+    positions = _plotting_positions(ordered.size)
+    with np.errstate(invalid="ignore"):
+        if kind == "t":
+            shares = np.interp(values, ordered, positions, right=1.0)
+            beyond = values < ordered[0]
+        else:
+            shares = 1.0 - np.interp(values, ordered, positions, left=0.0)
+            beyond = values > ordered[-1]
+    return [None if out or not np.isfinite(v) else float(p)
+            for p, v, out in zip(shares, values, beyond, strict=True)]
+
+
 @lru_cache(maxsize=8)
 def _plotting_positions(reps: int) -> np.ndarray:
     """(i − ½)/R for i = 1 … R, read-only."""
