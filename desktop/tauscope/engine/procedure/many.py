@@ -29,7 +29,7 @@ from tauscope.engine.procedure.analyse import (
 from tauscope.engine.procedure.cross_check import recursive_requests
 from tauscope.engine.procedure.fast_path import SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
-from tauscope.engine.procedure.seasonal_means import with_seasonal
+from tauscope.engine.procedure.seasonal_means import with_seasonal_many
 from tauscope.engine.procedure.stages import Decision, Plan, plan_for
 from tauscope.engine.reference.estimation import REFERENCE
 from tauscope.engine.results import SeriesResult
@@ -97,9 +97,10 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     prepared: list[PreparedSeries | None] = []
     for _, values in chunk:
         try:
-            prepared.append(with_seasonal(prepare(values), plan.estimate.seasonal))
+            prepared.append(prepare(values))
         except (UntestableSeries, *_PREPARE_ERRORS):
             prepared.append(None)  # analyse_series gives the message
+    prepared = with_seasonal_many(prepared, plan.estimate.seasonal)  # likewise None on failure
     by_length: dict[tuple[int, int | None], list[int]] = {}
     for position, item in enumerate(prepared):
         if item is not None:
