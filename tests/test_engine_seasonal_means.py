@@ -205,6 +205,9 @@ def test_many_series_at_once_equal_each_alone(period: int, start: int) -> None:
         assert got.p_value == pytest.approx(want.p_value, abs=1e-10)
         np.testing.assert_allclose(got.effects, want.effects, rtol=1e-10, atol=1e-10)
     assert seasonal_means_tests(values[:, :3 * period + 9], period, start) == [None] * len(rows)
+    # a row alone gets the batch's very bits (analyse_series and analyse_many agree exactly)
+    for i, got in enumerate(many):
+        assert seasonal_means_tests(values[i:i + 1], period, start)[0] == got
 
 
 def test_analyse_many_takes_the_same_seasonal_decision_as_each_series_alone() -> None:

@@ -424,6 +424,10 @@ def test_many_series_at_once_equal_each_alone(period: int, n: int) -> None:
         _same_outcome(item, lambda row=row: seasonal_unit_roots(row, period, "dummies", alpha=0.05,
                                                                  reps=1_000))
     assert isinstance(found[-2], ValueError) and isinstance(found[-1], ValueError)
+    # and each row alone through the batched function gets the batch's very bits
+    for i, item in enumerate(found[:-2]):
+        alone = seasonal_unit_roots_many(values[i:i + 1], period, "dummies", alpha=0.05, reps=1_000)[0]
+        assert dataclasses.asdict(alone) == dataclasses.asdict(item)  # type: ignore[call-overload]
     # a batch too short for the test gives every row the per-series sentence
     short = seasonal_unit_roots_many(values[:2, :20], period, reps=1_000)
     for row, item in zip(values[:2, :20], short, strict=True):

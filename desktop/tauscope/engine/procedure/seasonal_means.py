@@ -24,7 +24,6 @@ from tauscope.engine.seasonal.means import (
     FIND_LEVEL,
     PERIODS,
     SeasonalMeansFit,
-    seasonal_means_test,
     seasonal_means_tests,
 )
 
@@ -60,7 +59,9 @@ def with_seasonal(prepared: PreparedSeries, mode: str) -> PreparedSeries:
     if period is None:
         return prepared
     start = first_season(prepared.index, period)
-    return _decided(prepared, mode, period, seasonal_means_test(prepared.standardised, period, start))
+    # the batched test on one row: the same bits as the series gets in a batch (analyse_many)
+    fit = seasonal_means_tests(prepared.standardised[None, :], period, start)[0]
+    return _decided(prepared, mode, period, fit)
 
 
 def with_seasonal_many(prepared: list[PreparedSeries | None], mode: str) -> list[PreparedSeries | None]:

@@ -29,9 +29,7 @@ from tauscope.engine.seasonal.critical import (
 from tauscope.engine.seasonal.design import (
     build,
     deterministic_columns,
-    fit,
     n_deterministic,
-    statistics,
     statistics_for,
 )
 from tauscope.engine.seasonal.results import SeasonalRootsResult
@@ -150,10 +148,37 @@ def _statistics(y: np.ndarray, period: int, deterministic: str,
     n = y.shape[1]
     dependent, regressors, lag_block = build(y, period, lags, period + lags)
     det = deterministic_columns(deterministic, np.arange(period + lags, n), period)
+    stats = statistics_for(period)
     try:
-        res = fit(dependent, np.concatenate([regressors, lag_block], axis=2), det)
+        coef, cov, rss = _fit_rows(dependent[:, :, None], np.concatenate([regressors, lag_block], axis=2), det)
     except np.linalg.LinAlgError:
-        return np.full((y.shape[0], len(statistics_for(period))), np.nan), np.zeros(y.shape[0], bool)
-    found = statistics(res, statistics_for(period))
-    fine = (res.rss > 1e-20 * (n - period - lags)) & np.isfinite(found).all(axis=1)
+        return np.full((y.shape[0], len(stats)), np.nan), np.zeros(y.shape[0], bool)
+    s2 = rss / (dependent.shape[1] - det.shape[1] - coef.shape[1])
+    found = np.empty((y.shape[0], len(stats)))
+    for i, stat in enumerate(stats):
+        cols = list(stat.columns)
+        if stat.kind == "t":
+            found[:, i] = coef[:, cols[0]] / np.sqrt(s2 * cov[:, cols[0], cols[0]])
+        else:  # b_B'V_BB⁻¹b_B / (q s²), as design.statistics
+            b = coef[:, cols]
+            # numpy's own row sums, not a BLAS dot: its result can depend on the alignment
+            solved = np.linalg.solve(cov[:, cols][:, :, cols], b[:, :, None])[:, :, 0]
+            quad = np.sum(b * solved, axis=1)
+            found[:, i] = quad / (len(cols) * s2)
+    fine = (rss > 1e-20 * (n - period - lags)) & np.isfinite(found).all(axis=1)
     return found, fine
+
+
+def _fit_rows(y: np.ndarray, x: np.ndarray, det: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """``design.fit`` with every product taken matrix by matrix over the stack (y: B × m × 1),
+    so that a row gets the same bits alone as in a batch of any size: (coef, (X'X)⁻¹, RSS)."""
+    if det.shape[1]:
+        qd, _ = np.linalg.qr(det)
+        y = y - qd @ (qd.T @ y)
+        x = x - qd @ (qd.T @ x)
+    q, r = np.linalg.qr(x)
+    qy = np.swapaxes(q, 1, 2) @ y
+    r_inv = np.linalg.inv(r)
+    resid = y - q @ qy
+    rss = (np.swapaxes(resid, 1, 2) @ resid)[:, 0, 0]
+    return (r_inv @ qy)[:, :, 0], r_inv @ np.swapaxes(r_inv, 1, 2), rss
