@@ -10,8 +10,16 @@ import math
 import numpy as np
 import pytest
 
-from tauscope.engine.seasonal.critical import p_value, simulate
-from tauscope.engine.seasonal.design import DETERMINISTIC, n_deterministic, statistics_for
+from tauscope.engine.seasonal.critical import p_value, simulate, simulate_lags
+from tauscope.engine.seasonal.design import (
+    DETERMINISTIC,
+    fit_from_gram,
+    n_deterministic,
+    statistics,
+    statistics_for,
+)
+from tauscope.engine.seasonal.gram import RunningSums, regression_gram
+from tauscope.engine.seasonal.gram_stats import columns_lags_first, statistics_lags_first
 
 # ---------------------------------------------------------------------------------------
 # (b) Simulated critical values against the published tables.
@@ -348,3 +356,27 @@ def test_p_values_interpolate_the_simulated_distribution() -> None:
     crit_f = float(np.quantile(f_col, 0.90))
     assert p_value(f_col, crit_f, "F") == pytest.approx(0.10, abs=0.002)
     assert p_value(f_col, 0.0, "F") == pytest.approx(1.0)
+
+
+@pytest.mark.parametrize("period,n,deterministic", [(4, 70, "dummies"), (12, 150, "dummies_trend"),
+                                                    (4, 64, "constant")])
+def test_every_lag_order_from_one_pass_equals_each_alone(period: int, n: int, deterministic: str) -> None:
+    # one set of walks for every lag order: each order's draws are those it gets alone
+    together = simulate_lags(period, deterministic, n, (0, 1, 3), 600, 21)
+    for lags, draws in together.items():
+        assert np.array_equal(draws, simulate(period, deterministic, n, lags, 600, 21))
+        assert not draws.flags.writeable
+
+
+@pytest.mark.parametrize("period,lags", [(4, 0), (4, 3), (12, 2)])
+def test_statistics_from_one_cholesky_factor_equal_the_inverse_route(period: int, lags: int) -> None:
+    # the simulation's statistics (gram_stats, lags first) against fit_from_gram + statistics
+    rng = np.random.default_rng(5)
+    n = 5 * period + 40
+    y = np.cumsum(rng.standard_normal((8, n)), axis=1) + rng.standard_normal((8, n))
+    d = n_deterministic("dummies", period)
+    direct = statistics(fit_from_gram(regression_gram(y, period, lags, "dummies"),
+                                      n - period - lags, d), statistics_for(period))
+    gram = RunningSums(y, period, "dummies", lags).gram(lags, columns_lags_first(period, lags))
+    fast = statistics_lags_first(gram, period, lags, n - 2 * period - 2 * lags - d)
+    np.testing.assert_allclose(fast, direct, rtol=1e-9, atol=1e-9)

@@ -20,6 +20,7 @@ from tauscope.engine.seasonal.means import (
     contrasts,
     remove_seasonal_means,
     seasonal_means_test,
+    seasonal_means_tests,
 )
 from tauscope.engine.unitroot.union import union_constants, union_level
 
@@ -180,3 +181,43 @@ def test_effects_are_named_by_calendar_season_whatever_the_first_quarter() -> No
         means = result.seasonal.means
         effects = dict(zip(means.seasons, means.effects, strict=True))
         assert abs(effects["Q1"] - 5.0) < 0.5 and abs(effects["Q3"] + 5.0) < 0.5
+
+
+@pytest.mark.parametrize("period,start", [(4, 0), (4, 3), (12, 5)])
+def test_many_series_at_once_equal_each_alone(period: int, start: int) -> None:
+    # the batched F test (seasonal_means_tests) against seasonal_means_test row by row
+    rng = np.random.default_rng(31)
+    n = 150
+    rows = [_seasonal_ar(rng, n, period, size) for size in (0.0, 0.2, 1.0, 3.0)]
+    rows += [np.cumsum(rng.standard_normal(n)) for _ in range(3)]
+    gap = _seasonal_ar(rng, n, period)
+    gap[40] = np.nan
+    rows.append(gap)
+    values = np.vstack(rows)
+    many = seasonal_means_tests(values, period, start)
+    assert many[-1] is None and seasonal_means_test(gap, period, start) is None
+    for row, got in zip(values[:-1], many[:-1], strict=True):
+        want = seasonal_means_test(row, period, start)
+        assert want is not None and got is not None
+        assert (got.lags, got.df_num, got.df_den, got.found) == (want.lags, want.df_num, want.df_den,
+                                                                 want.found)
+        assert got.statistic == pytest.approx(want.statistic, rel=1e-10, abs=1e-10)
+        assert got.p_value == pytest.approx(want.p_value, abs=1e-10)
+        np.testing.assert_allclose(got.effects, want.effects, rtol=1e-10, atol=1e-10)
+    assert seasonal_means_tests(values[:, :3 * period + 9], period, start) == [None] * len(rows)
+    # a row alone gets the batch's very bits (analyse_series and analyse_many agree exactly)
+    for i, got in enumerate(many):
+        assert seasonal_means_tests(values[i:i + 1], period, start)[0] == got
+
+
+def test_analyse_many_takes_the_same_seasonal_decision_as_each_series_alone() -> None:
+    rng = np.random.default_rng(32)
+    series = [(f"s{i}", _dated(_seasonal_ar(rng, 96, 4, size), 4)) for i, size in
+              enumerate((0.0, 0.5, 2.0))]
+    settings = Settings(power=False)
+    for (name, values), batched in zip(series, analyse_many(series, settings), strict=True):
+        alone = analyse_series(values, settings, name)
+        assert batched.seasonal is not None and alone.seasonal is not None
+        assert batched.seasonal.means.found == alone.seasonal.means.found
+        assert batched.seasonal.means.statistic == pytest.approx(alone.seasonal.means.statistic,
+                                                                 rel=1e-10)

@@ -32,6 +32,7 @@ from tauscope.engine.seasonal.design import (
 )
 from tauscope.engine.seasonal.gram import regression_gram
 from tauscope.engine.seasonal.roots import choose_lags, seasonal_statistics, seasonal_unit_roots
+from tauscope.engine.seasonal.roots_many import seasonal_unit_roots_many
 
 R3 = math.sqrt(3.0)
 
@@ -379,3 +380,55 @@ def test_seasonal_lines_for_the_chart() -> None:
     stable = seasonal_lines(_stationary_seasonal(4, 200, rng), 4)
     walk = seasonal_lines(_seasonal_walk(4, 200, rng), 4)
     assert np.nanstd(stable, axis=0).max() < np.nanstd(walk, axis=0).max()
+
+
+# ---------------------------------------------------------------------------------------
+# Many series at once against one by one
+# ---------------------------------------------------------------------------------------
+
+
+def _same_outcome(many: object, alone: Callable[[], object]) -> None:
+    """A batched row against the series tested alone: the same error sentence, or the
+    same result (numbers to 1e-8, everything else equal)."""
+    try:
+        expected = alone()
+    except ValueError as exc:
+        assert isinstance(many, ValueError) and str(many) == str(exc)
+        return
+    assert not isinstance(many, Exception), many
+    got, want = dataclasses.asdict(many), dataclasses.asdict(expected)  # type: ignore[call-overload]
+    tests_got, tests_want = got.pop("tests"), want.pop("tests")
+    assert got == want
+    for a, b in zip(tests_got, tests_want, strict=True):
+        for field in ("statistic", "p_value"):
+            x, y = a.pop(field), b.pop(field)
+            assert (x is None) == (y is None)
+            if x is not None:
+                assert abs(x - y) <= 1e-8, (a["name"], field, x, y)
+        assert a == b
+
+
+@pytest.mark.parametrize("period,n", [(4, 120), (12, 180)])
+def test_many_series_at_once_equal_each_alone(period: int, n: int) -> None:
+    rng = np.random.default_rng(2026)
+    rows = [_seasonal_walk(period, n, rng) for _ in range(5)]
+    rows += [_stationary_seasonal(period, n, rng) for _ in range(5)]
+    rows += [np.cumsum(rng.standard_normal(n)) * 1e6 for _ in range(3)]  # large scale
+    gap = _seasonal_walk(period, n, rng)
+    gap[17] = np.nan
+    rows += [gap, np.arange(n, dtype=float)]  # a gap; the same change every year
+    values = np.vstack(rows)
+    found = seasonal_unit_roots_many(values, period, "dummies", alpha=0.05, reps=1_000)
+    assert len(found) == len(rows)
+    for row, item in zip(values, found, strict=True):
+        _same_outcome(item, lambda row=row: seasonal_unit_roots(row, period, "dummies", alpha=0.05,
+                                                                 reps=1_000))
+    assert isinstance(found[-2], ValueError) and isinstance(found[-1], ValueError)
+    # and each row alone through the batched function gets the batch's very bits
+    for i, item in enumerate(found[:-2]):
+        alone = seasonal_unit_roots_many(values[i:i + 1], period, "dummies", alpha=0.05, reps=1_000)[0]
+        assert dataclasses.asdict(alone) == dataclasses.asdict(item)  # type: ignore[call-overload]
+    # a batch too short for the test gives every row the per-series sentence
+    short = seasonal_unit_roots_many(values[:2, :20], period, reps=1_000)
+    for row, item in zip(values[:2, :20], short, strict=True):
+        _same_outcome(item, lambda row=row: seasonal_unit_roots(row, period, reps=1_000))

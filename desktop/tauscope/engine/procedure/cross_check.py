@@ -102,7 +102,7 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, options.alpha,
                           estimation.recursive) if options.break_check else None
     return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks,
-                      seasonal_check(prepared, options.alpha))
+                      seasonal_check(prepared, options.alpha, estimation.seasonal_roots))
 
 
 def recursive_requests(decision: Decision) -> list[tuple[str, int, int]]:

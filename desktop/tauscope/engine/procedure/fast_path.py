@@ -17,6 +17,7 @@ import numpy as np
 
 from tauscope.engine.distributions import tables as fast_tables
 from tauscope.engine.procedure.fast_results import LevelBatch, adf_result, phi_result
+from tauscope.engine.procedure.seasonal_roots import SeasonalBatch
 from tauscope.engine.procedure.stages import EstimateOptions
 from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS
@@ -48,6 +49,7 @@ from tauscope.engine.results import (
     TestResult,
 )
 from tauscope.engine.seasonal.means import remove_seasonal_means
+from tauscope.engine.seasonal.results import SeasonalRootsResult
 from tauscope.engine.unitroot.kpss_fast import kpss_fast
 from tauscope.engine.unitroot.recursive import recursive_tau_many
 
@@ -212,6 +214,9 @@ class FastEstimation:
                   alpha: float) -> RecursiveStatistic:
         return self._batch.recursive(self._index, spec, lags, difference, alpha)
 
+    def seasonal_roots(self, x: np.ndarray, period: int, alpha: float) -> SeasonalRootsResult:
+        return self._batch.seasonal.result(self._index, period, alpha)
+
 
 class SeriesBatch:
     """Series of one length analysed together; each difference level is computed for
@@ -226,6 +231,7 @@ class SeriesBatch:
         self._profiles: dict[tuple[int, str, int, int], tuple[np.ndarray, np.ndarray]] = {}
         self._union: list[UnionRow] | None = None
         self._recursive: dict[tuple[int, str, int, int, float], RecursiveStatistic] = {}
+        self.seasonal = SeasonalBatch(self._levels_in)  # the seasonal unit-root tests, batched
 
     def __len__(self) -> int:
         return int(self._levels_in.shape[0])

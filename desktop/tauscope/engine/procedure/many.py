@@ -29,7 +29,7 @@ from tauscope.engine.procedure.analyse import (
 from tauscope.engine.procedure.cross_check import recursive_requests
 from tauscope.engine.procedure.fast_path import SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
-from tauscope.engine.procedure.seasonal_means import with_seasonal
+from tauscope.engine.procedure.seasonal_means import with_seasonal_many
 from tauscope.engine.procedure.stages import Decision, Plan, plan_for
 from tauscope.engine.reference.estimation import REFERENCE
 from tauscope.engine.results import SeriesResult
@@ -97,9 +97,10 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     prepared: list[PreparedSeries | None] = []
     for _, values in chunk:
         try:
-            prepared.append(with_seasonal(prepare(values), plan.estimate.seasonal))
+            prepared.append(prepare(values))
         except (UntestableSeries, *_PREPARE_ERRORS):
             prepared.append(None)  # analyse_series gives the message
+    prepared = with_seasonal_many(prepared, plan.estimate.seasonal)  # likewise None on failure
     by_length: dict[tuple[int, int | None], list[int]] = {}
     for position, item in enumerate(prepared):
         if item is not None:
@@ -113,6 +114,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     decisions: dict[int, Decision] = {}
     wanted: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
     windows: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
+    seasonal: dict[SeriesBatch, list[tuple[int, int]]] = {}
     for position, item in enumerate(prepared):
         if stop():
             return
@@ -126,6 +128,8 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
         decisions[position] = decision
         wanted.setdefault(batch, []).append((slot, *decision.profile_request))
         windows.setdefault(batch, []).extend((slot, *request) for request in recursive_requests(decision))
+        if item.seasonal is not None:
+            seasonal.setdefault(batch, []).append((slot, item.seasonal.period))
     for batch, requests in wanted.items():
         # On failure each series asks on its own below, and falls back if it must.
         with suppress(*FALLBACK_ERRORS):
@@ -133,6 +137,8 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     for batch, requests in windows.items():
         with suppress(*FALLBACK_ERRORS):  # likewise: a failing series asks alone below
             batch.prefetch_recursive(requests, plan.cross_check.alpha)
+    for batch, pairs in seasonal.items():  # errors are kept per series: none escapes here
+        batch.seasonal.prefetch(pairs, plan.cross_check.alpha)
 
     for position, (name, values) in enumerate(chunk):
         if stop():

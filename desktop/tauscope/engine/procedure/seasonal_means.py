@@ -13,13 +13,19 @@ from __future__ import annotations
 
 from dataclasses import replace
 
+import numpy as np
 import pandas as pd
 
 from tauscope.engine.formatting import p_value as fmt_p
 from tauscope.engine.formatting import stat
 from tauscope.engine.procedure.prepare import PreparedSeries
 from tauscope.engine.results_seasonal import SeasonalMeans
-from tauscope.engine.seasonal.means import FIND_LEVEL, PERIODS, seasonal_means_test
+from tauscope.engine.seasonal.means import (
+    FIND_LEVEL,
+    PERIODS,
+    SeasonalMeansFit,
+    seasonal_means_tests,
+)
 
 SEASON_NAMES = {
     4: ("Q1", "Q2", "Q3", "Q4"),
@@ -38,15 +44,72 @@ def first_season(index: pd.Index | None, period: int) -> int:
     return (int(month) - 1) // 3 if period == 4 else int(month) - 1
 
 
+def seasonal_period(prepared: PreparedSeries, mode: str) -> int | None:
+    """The period S whose seasonal means the setting tests for, or None (the setting is
+    "never", or the series is neither quarterly nor monthly)."""
+    ppy = prepared.periods_per_year
+    period = int(ppy) if ppy is not None and int(ppy) in PERIODS else None
+    return None if mode == "never" else period
+
+
 def with_seasonal(prepared: PreparedSeries, mode: str) -> PreparedSeries:
     """The prepared series with its ``seasonal`` decision (unchanged for "never" or a
     series that is neither quarterly nor monthly)."""
-    ppy = prepared.periods_per_year
-    period = int(ppy) if ppy is not None and int(ppy) in PERIODS else None
-    if mode == "never" or period is None:
+    period = seasonal_period(prepared, mode)
+    if period is None:
         return prepared
     start = first_season(prepared.index, period)
-    fit = seasonal_means_test(prepared.standardised, period, start)
+    # the batched test on one row: the same bits as the series gets in a batch (analyse_many)
+    fit = seasonal_means_tests(prepared.standardised[None, :], period, start)[0]
+    return _decided(prepared, mode, period, fit)
+
+
+def with_seasonal_many(prepared: list[PreparedSeries | None], mode: str) -> list[PreparedSeries | None]:
+    """:func:`with_seasonal` of every series (None stays None), the F tests of the series
+    of one length, period and first season run together (``seasonal_means_tests``, the same
+    numbers to rounding); a series whose test fails comes back None, as it would alone."""
+    out = list(prepared)
+    groups: dict[tuple[int, int, int], list[int]] = {}
+    for i, item in enumerate(prepared):
+        period = None if item is None else seasonal_period(item, mode)
+        if item is not None and period is not None:
+            start = first_season(item.index, period)
+            groups.setdefault((item.standardised.shape[0], period, start), []).append(i)
+    for (_, period, start), members in groups.items():
+        rows = np.vstack([_standardised(prepared[i]) for i in members])
+        try:
+            fits = seasonal_means_tests(rows, period, start)
+        except _FAILURES:
+            for i in members:
+                out[i] = _alone(prepared[i], mode)
+            continue
+        for i, fit in zip(members, fits, strict=True):
+            out[i] = _decided(_prepared(prepared[i]), mode, period, fit)
+    return out
+
+
+_FAILURES = (np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
+
+
+def _alone(item: PreparedSeries | None, mode: str) -> PreparedSeries | None:
+    try:
+        return with_seasonal(_prepared(item), mode)
+    except _FAILURES:
+        return None
+
+
+def _prepared(item: PreparedSeries | None) -> PreparedSeries:
+    assert item is not None
+    return item
+
+
+def _standardised(item: PreparedSeries | None) -> np.ndarray:
+    return _prepared(item).standardised
+
+
+def _decided(prepared: PreparedSeries, mode: str, period: int,
+             fit: SeasonalMeansFit | None) -> PreparedSeries:
+    """The prepared series with the decision the F test ``fit`` (None: too short) gives."""
     # the effects in the series' units, in calendar order from the first quarter or January
     # fit.effects are in calendar order already (the contrasts start at ``start``).
     effects = () if fit is None else tuple(float(v) * prepared.scale for v in fit.effects)

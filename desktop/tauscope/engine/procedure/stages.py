@@ -45,6 +45,7 @@ from tauscope.engine.results import (
 from tauscope.engine.results_breaks import BreakCheck
 from tauscope.engine.results_seasonal import SeasonalCheck
 from tauscope.engine.results_strategy import ClassicVerdict
+from tauscope.engine.seasonal.results import SeasonalRootsResult
 from tauscope.engine.settings import UNION_STRATEGIES, Settings
 
 EXTRA_TESTS = ("pp", "dfgls", "za")
@@ -145,6 +146,10 @@ class Estimation(Protocol):
 
     def recursive(self, x: np.ndarray, spec: str, lags: int, difference: int,
                   alpha: float) -> RecursiveStatistic: ...
+
+    def seasonal_roots(self, x: np.ndarray, period: int, alpha: float) -> SeasonalRootsResult:
+        """The seasonal unit-root test of ``x`` (y / s) at ``period``; raises ValueError
+        with one sentence when the series cannot be tested."""
 
 
 @dataclass(frozen=True)

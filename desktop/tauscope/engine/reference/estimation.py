@@ -7,6 +7,7 @@ from __future__ import annotations
 import numpy as np
 
 from tauscope.engine.distributions import tables
+from tauscope.engine.procedure.seasonal_roots import seasonal_roots_alone
 from tauscope.engine.procedure.stages import EstimateOptions
 from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
 from tauscope.engine.procedure.units import level_in_units
@@ -14,6 +15,7 @@ from tauscope.engine.regression.design import SPECS
 from tauscope.engine.regression.lagchoice import choose_lag
 from tauscope.engine.regression.scaling import level_centre
 from tauscope.engine.results import LagPoint, LevelTests, RecursiveStatistic, TestResult
+from tauscope.engine.seasonal.results import SeasonalRootsResult
 from tauscope.engine.unitroot.adf import adf_test, estimate
 from tauscope.engine.unitroot.kpss import kpss_test
 from tauscope.engine.unitroot.phi import phi_test
@@ -74,6 +76,10 @@ class ReferenceEstimation:
                   alpha: float) -> RecursiveStatistic:
         """τ on expanding windows of ``x`` (Δ^d y), one series."""
         return recursive_tau(x, spec, lags, alpha)
+
+    def seasonal_roots(self, x: np.ndarray, period: int, alpha: float) -> SeasonalRootsResult:
+        """The seasonal unit-root test of this series alone."""
+        return seasonal_roots_alone(x, period, alpha)
 
 
 REFERENCE = ReferenceEstimation()

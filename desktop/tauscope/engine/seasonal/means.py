@@ -162,3 +162,79 @@ def seasonal_effects(x: np.ndarray, period: int, first_season: int = 0) -> tuple
     delta = coef[2:]
     effects = np.append(delta, -delta.sum())
     return tuple(float(v) for v in effects)
+
+
+def seasonal_means_tests(xs: np.ndarray, period: int,
+                         first_season: int = 0) -> list[SeasonalMeansFit | None]:
+    """:func:`seasonal_means_test` for every row of ``xs`` (R, n; one length and first
+    season), the same numbers to rounding: each row's lag search from one QR of its nested
+    designs, the QRs stacked; the F statistic of the chosen lag order from one QR of
+    [1, y_{t−1}, Δy lags, contrasts, Δy_t] (the contrasts' rows of R hold RSS_r − RSS_u,
+    Golub & Van Loan 2013, §5.3), the rows of one lag order stacked; the effects from one
+    least-squares solve for all rows.  Rows with a gap get None, as alone."""
+    if period not in PERIODS:
+        raise ValueError(f"seasonal means are tested for quarterly (4) or monthly (12) series, not {period}")
+    ys = np.atleast_2d(np.asarray(xs, dtype=float))
+    count, n = ys.shape
+    out: list[SeasonalMeansFit | None] = [None] * count
+    if n < 3 * period + 10:
+        return out
+    keep = np.flatnonzero(np.isfinite(ys).all(axis=1))
+    if keep.size == 0:
+        return out
+    y = ys[keep]
+    dy = np.diff(y, axis=1)
+    c = contrasts(n, period, first_season)[1:]
+    p_max = max(0, min(_short_max_lags(n), (n - 3 * period - 10) // 2))
+
+    def design(p: int, start: int, rows: np.ndarray) -> np.ndarray:
+        """[1, y_{t−1}, contrasts, Δy_{t−1} … Δy_{t−p}, Δy_t] for rows t = start … (B, m, ·)."""
+        r = np.arange(start, dy.shape[1])
+        parts = [np.ones((rows.size, r.size)), y[rows][:, r]]
+        parts += [c[r, j][None, :].repeat(rows.size, axis=0) for j in range(period - 1)]
+        parts += [dy[rows][:, r - i] for i in range(1, p + 1)]
+        parts.append(dy[rows][:, r])
+        return np.stack(parts, axis=2)
+
+    every = np.arange(keep.size)
+    m = dy.shape[1] - p_max
+    with np.errstate(all="ignore"):
+        r = np.asarray(np.linalg.qr(design(p_max, p_max, every), mode="r"))
+        all_rss = np.cumsum((r[:, 1 + period:, -1] ** 2)[:, ::-1], axis=1)[:, ::-1]
+        best = np.zeros(keep.size, dtype=int)
+        best_ic = np.full(keep.size, np.inf)
+        for p in range(p_max + 1):
+            k = 2 + p + period - 1
+            ic = np.log(np.maximum(all_rss[:, p], 1e-300) / m) + 2.0 * k / m
+            better = ic < best_ic - 1e-12
+            best[better], best_ic[better] = p, ic[better]
+        effects = _effects_many(y, period, first_season)
+        df_num = period - 1
+        for p in np.unique(best):
+            members = np.flatnonzero(best == p)
+            full = design(int(p), int(p), members)
+            # contrasts last among the regressors: [1, y, lags, contrasts, Δy_t]
+            order = [0, 1, *range(1 + period, 1 + period + int(p)), *range(2, 1 + period), full.shape[2] - 1]
+            rr = np.asarray(np.linalg.qr(full[:, :, order], mode="r"))
+            rss_u = rr[:, -1, -1] ** 2
+            gain = np.sum(rr[:, 2 + int(p):-1, -1] ** 2, axis=1)  # RSS_r − RSS_u
+            df_den = full.shape[1] - (full.shape[2] - 1)
+            if df_den < 1:
+                continue
+            f = (gain / df_num) / (rss_u / df_den)
+            p_values = fdtrc(df_num, df_den, f)
+            for j, member in enumerate(members):
+                if not (rss_u[j] > 0.0 and np.isfinite(rss_u[j] + gain[j])):
+                    continue  # None, as alone
+                out[int(keep[member])] = SeasonalMeansFit(
+                    float(f[j]), float(p_values[j]), df_num, df_den, int(p),
+                    tuple(float(v) for v in effects[member]))
+    return out
+
+
+def _effects_many(y: np.ndarray, period: int, first_season: int) -> np.ndarray:
+    """:func:`seasonal_effects` of every row (R, S): one product with the design's
+    pseudo-inverse (as :func:`remove_seasonal_means` does)."""
+    design, _ = _trend_and_contrasts(y.shape[1], period, first_season)
+    delta = np.einsum("rn,kn->rk", y, np.linalg.pinv(design)[2:])
+    return np.concatenate([delta, -delta.sum(axis=1, keepdims=True)], axis=1)

@@ -38,6 +38,7 @@ the scale of y, and the regression stays well conditioned at any scale.
 from __future__ import annotations
 
 from collections.abc import Sequence
+from dataclasses import dataclass
 
 import numpy as np
 
@@ -45,6 +46,7 @@ from tauscope.engine.seasonal.critical import (
     DEFAULT_REPS,
     DEFAULT_SEED,
     critical_values,
+    default_max_lags,
     minimum_length,
     p_value_sorted,
     sorted_draws,
@@ -66,14 +68,6 @@ from tauscope.engine.seasonal.results import SeasonalRootsResult, SeasonalTest
 LAG_RULES = ("aic", "bic", "tsig", "fixed")
 ALPHAS = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
 _T_DROP = 1.645
-
-
-def default_max_lags(n: int, period: int, deterministic: str) -> int:
-    """Schwert (1989): ⌊12 (n/100)^{1/4}⌋, cut to the largest p that leaves the
-    regression at least 10 residual degrees of freedom."""
-    schwert = int(np.floor(12.0 * (n / 100.0) ** 0.25))
-    room = (n - minimum_length(period, deterministic, 0)) // 2
-    return max(0, min(schwert, room))
 
 
 def _clean(values: Sequence[float] | np.ndarray, period: int) -> np.ndarray:
@@ -189,6 +183,21 @@ def seasonal_statistics(
     return {s.name: float(v) for s, v in zip(stats, values_out, strict=True)}
 
 
+def check_options(period: int, deterministic: str, alpha: float, lag_rule: str, n: int) -> None:
+    """The checks of :func:`seasonal_unit_roots` that do not look at the values."""
+    check_period(period)
+    check_deterministic(deterministic)
+    if alpha not in ALPHAS:
+        raise ValueError("alpha must be 0.01, 0.05 or 0.10")
+    if lag_rule not in LAG_RULES:
+        raise ValueError(f"lag_rule must be one of {', '.join(LAG_RULES)}, not {lag_rule!r}")
+    if n < minimum_length(period, deterministic, 0):
+        raise ValueError(
+            f"a series of {n} observations is too short for a seasonal unit-root test "
+            f"(at least {minimum_length(period, deterministic, 0)} needed)"
+        )
+
+
 def seasonal_unit_roots(
     values: Sequence[float] | np.ndarray,
     period: int,
@@ -204,18 +213,8 @@ def seasonal_unit_roots(
 
     Raises ValueError with one plain sentence when the series cannot be tested
     (wrong period, too short, gaps, no year-to-year change)."""
-    check_period(period)
-    check_deterministic(deterministic)
-    if alpha not in ALPHAS:
-        raise ValueError("alpha must be 0.01, 0.05 or 0.10")
-    if lag_rule not in LAG_RULES:
-        raise ValueError(f"lag_rule must be one of {', '.join(LAG_RULES)}, not {lag_rule!r}")
     n = np.asarray(values, dtype=float).size
-    if n < minimum_length(period, deterministic, 0):
-        raise ValueError(
-            f"a series of {n} observations is too short for a seasonal unit-root test "
-            f"(at least {minimum_length(period, deterministic, 0)} needed)"
-        )
+    check_options(period, deterministic, alpha, lag_rule, n)
     y = _clean(values, period)
     p_max = default_max_lags(n, period, deterministic) if max_lags is None else int(max_lags)
     if lag_rule == "fixed":
@@ -227,13 +226,37 @@ def seasonal_unit_roots(
     found = seasonal_statistics(y, period, deterministic, chosen)
     draws = sorted_draws(period, deterministic, n, chosen, reps, seed)
     table = critical_values(period, deterministic, n, chosen, reps, seed)
+    stats = statistics_for(period)
+    p_values = [p_value_sorted(draws[i], found[stat.name], stat.kind) for i, stat in enumerate(stats)]
+    return roots_result(RootsKey(period, deterministic, lag_rule, p_max, n, alpha, reps, seed),
+                        chosen, [found[stat.name] for stat in stats], table, p_values)
+
+
+@dataclass(frozen=True)
+class RootsKey:
+    """What every series of one batch shares in :func:`roots_result`."""
+
+    period: int
+    deterministic: str
+    lag_rule: str
+    max_lags: int
+    n: int
+    alpha: float
+    reps: int
+    seed: int
+
+
+def roots_result(key: RootsKey, chosen: int, values: Sequence[float],
+                 table: dict[str, dict[str, float]],
+                 p_values: Sequence[float | None]) -> SeasonalRootsResult:
+    """The result of one series from its lag order, statistics (``statistics_for``
+    order), the critical values at its key and its p-values."""
+    period, deterministic, alpha, reps, n = key.period, key.deterministic, key.alpha, key.reps, key.n
     label = ALPHAS[alpha]
     tests = []
-    for i, stat in enumerate(statistics_for(period)):
-        value = found[stat.name]
+    for stat, value, p in zip(statistics_for(period), values, p_values, strict=True):
         crit = table[stat.name]
         reject = value < crit[label] if stat.kind == "t" else value > crit[label]
-        p = p_value_sorted(draws[i], value, stat.kind)
         tests.append(
             SeasonalTest(
                 name=stat.name,
@@ -266,13 +289,13 @@ def seasonal_unit_roots(
         period=period,
         deterministic=deterministic,
         lags=chosen,
-        lag_rule=lag_rule,
-        max_lags=p_max,
+        lag_rule=key.lag_rule,
+        max_lags=key.max_lags,
         n=n,
         nobs=n - period - chosen,
         alpha=alpha,
         reps=reps,
-        seed=seed,
+        seed=key.seed,
         tests=tuple(tests),
         seasonal_roots=roots,
         long_run_root=long_run,

@@ -1,0 +1,184 @@
+"""The seasonal unit-root test of many series of one length and period at once.
+
+The same test as :func:`tauscope.engine.seasonal.roots.seasonal_unit_roots` (HEGY 1990
+for quarters, Beaulieu & Miron 1993 for months), each step batched over the rows: the
+scaling by the spread of Δ_S y, the lag search (every lag order's RSS from one QR of
+the nested designs per row, the QRs stacked: Golub & Van Loan 2013, §5.3), the chosen
+regression (the rows of one lag order fitted by one stacked QR, ``design.fit``), and
+the critical values and sorted null draws looked up once per (length, lag order), the
+p-values interpolated for a whole column at a time.  Each row's numbers depend on that
+row alone; tests/test_engine_seasonal_roots.py checks them against the series tested
+one by one (1e-8).  A row the batch cannot promise that for (a gap, no change from year
+to year, an exact or failed fit, a lag rule other than AIC or BIC) is tested one by one,
+so it gets the per-series result or error sentence.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+from tauscope.engine.seasonal.critical import (
+    DEFAULT_REPS,
+    DEFAULT_SEED,
+    critical_values,
+    default_max_lags,
+    minimum_length,
+    p_values_sorted,
+    sorted_draws,
+)
+from tauscope.engine.seasonal.design import (
+    build,
+    deterministic_columns,
+    n_deterministic,
+    statistics_for,
+)
+from tauscope.engine.seasonal.results import SeasonalRootsResult
+from tauscope.engine.seasonal.roots import (
+    RootsKey,
+    check_options,
+    roots_result,
+    seasonal_unit_roots,
+)
+
+Outcome = SeasonalRootsResult | ValueError | ArithmeticError
+_BATCHED_RULES = ("aic", "bic")
+
+
+def seasonal_unit_roots_many(
+    rows: np.ndarray,
+    period: int,
+    deterministic: str = "dummies",
+    lag_rule: str = "aic",
+    max_lags: int | None = None,
+    alpha: float = 0.05,
+    reps: int = DEFAULT_REPS,
+    seed: int = DEFAULT_SEED,
+) -> list[Outcome]:
+    """``seasonal_unit_roots(row, period, deterministic, lag_rule, None, max_lags, alpha,
+    reps, seed)`` for every row of ``rows`` (B, n): its result, or the error it raises."""
+    values = np.atleast_2d(np.asarray(rows, dtype=float))
+    count, n = values.shape
+    out: list[Outcome | None] = [None] * count
+    try:
+        check_options(period, deterministic, alpha, lag_rule, n)
+    except ValueError as exc:
+        return [exc] * count
+    p_max = default_max_lags(n, period, deterministic) if max_lags is None else int(max_lags)
+    batched = (lag_rule in _BATCHED_RULES and p_max >= 0
+               and n >= minimum_length(period, deterministic, p_max))
+    if batched and count:
+        key = RootsKey(period, deterministic, lag_rule, p_max, n, alpha, reps, seed)
+        try:
+            with np.errstate(all="ignore"):
+                _batch(values, period, deterministic, lag_rule, p_max, key, out)
+        except (ValueError, ArithmeticError):
+            out = [None] * count  # every row one by one
+    for i in range(count):
+        if out[i] is None:
+            try:
+                out[i] = seasonal_unit_roots(values[i], period, deterministic, lag_rule, None,
+                                             max_lags, alpha, reps, seed)
+            except (ValueError, ArithmeticError) as exc:
+                out[i] = exc
+    return [item for item in out if item is not None]
+
+
+def _batch(values: np.ndarray, period: int, deterministic: str, rule: str, p_max: int,
+           key: RootsKey, out: list[Outcome | None]) -> None:
+    """Fill ``out`` for the rows the batch can test (the others stay None)."""
+    n = values.shape[1]
+    finite = np.isfinite(values).all(axis=1)
+    spread = np.std(values[:, period:] - values[:, :-period], axis=1)
+    usable = finite & np.isfinite(spread) & (spread != 0.0)
+    rows = np.flatnonzero(usable)
+    if rows.size == 0:
+        return
+    y = values[rows] / spread[rows, None]
+    # seasonal_unit_roots scales twice (its lag search and its fit clean the scaled series
+    # again, dividing by a spread of 1 up to rounding): so do the rows here
+    y = y / np.std(y[:, period:] - y[:, :-period], axis=1)[:, None]
+    chosen = choose_lags_many(y, period, deterministic, rule, p_max)
+    stats = statistics_for(period)
+    for lag in np.unique(chosen):
+        members = np.flatnonzero(chosen == lag)
+        found, fine = _statistics(y[members], period, deterministic, int(lag))
+        draws = sorted_draws(period, deterministic, n, int(lag), key.reps, key.seed)
+        table = critical_values(period, deterministic, n, int(lag), key.reps, key.seed)
+        p_columns = [p_values_sorted(draws[i], found[:, i], stat.kind) for i, stat in enumerate(stats)]
+        for j, member in enumerate(members):
+            if not fine[j]:
+                continue  # tested one by one: its error sentence
+            p_values = [column[j] for column in p_columns]
+            out[int(rows[member])] = roots_result(key, int(lag), [float(v) for v in found[j]],
+                                                  table, p_values)
+
+
+def choose_lags_many(y: np.ndarray, period: int, deterministic: str, rule: str,
+                     p_max: int) -> np.ndarray:
+    """AIC or BIC lag order of every row of ``y`` (scaled series, B × n): ``choose_lags``
+    with the QRs of the nested designs stacked."""
+    if p_max == 0:
+        return np.zeros(y.shape[0], dtype=int)
+    first = period + p_max
+    m = y.shape[1] - first
+    dependent, regressors, lag_block = build(y, period, p_max, first)
+    det = deterministic_columns(deterministic, np.arange(first, y.shape[1]), period)
+    augmented = np.concatenate([regressors, lag_block, dependent[:, :, None]], axis=2)
+    if det.shape[1]:
+        qd, _ = np.linalg.qr(det)
+        augmented = augmented - qd @ (qd.T @ augmented)
+    r = np.asarray(np.linalg.qr(augmented, mode="r"))
+    tail = r[:, period:, -1] ** 2
+    rss = np.cumsum(tail[:, ::-1], axis=1)[:, ::-1]  # (B, p_max + 1)
+    penalty = 2.0 if rule == "aic" else float(np.log(m))
+    best = np.zeros(y.shape[0], dtype=int)
+    best_ic = np.full(y.shape[0], np.inf)
+    for p in range(p_max + 1):
+        k = n_deterministic(deterministic, period) + period + p
+        ic = np.log(rss[:, p] / m) + penalty * k / m
+        better = ic < best_ic - 1e-12
+        best[better], best_ic[better] = p, ic[better]
+    return best
+
+
+def _statistics(y: np.ndarray, period: int, deterministic: str,
+                lags: int) -> tuple[np.ndarray, np.ndarray]:
+    """(statistics (B, k), rows whose fit the batch may keep): ``seasonal_statistics``
+    over the rows, which sends an exact fit or a non-finite statistic back one by one."""
+    n = y.shape[1]
+    dependent, regressors, lag_block = build(y, period, lags, period + lags)
+    det = deterministic_columns(deterministic, np.arange(period + lags, n), period)
+    stats = statistics_for(period)
+    try:
+        coef, cov, rss = _fit_rows(dependent[:, :, None], np.concatenate([regressors, lag_block], axis=2), det)
+    except np.linalg.LinAlgError:
+        return np.full((y.shape[0], len(stats)), np.nan), np.zeros(y.shape[0], bool)
+    s2 = rss / (dependent.shape[1] - det.shape[1] - coef.shape[1])
+    found = np.empty((y.shape[0], len(stats)))
+    for i, stat in enumerate(stats):
+        cols = list(stat.columns)
+        if stat.kind == "t":
+            found[:, i] = coef[:, cols[0]] / np.sqrt(s2 * cov[:, cols[0], cols[0]])
+        else:  # b_B'V_BB⁻¹b_B / (q s²), as design.statistics
+            b = coef[:, cols]
+            # numpy's own row sums, not a BLAS dot: its result can depend on the alignment
+            solved = np.linalg.solve(cov[:, cols][:, :, cols], b[:, :, None])[:, :, 0]
+            quad = np.sum(b * solved, axis=1)
+            found[:, i] = quad / (len(cols) * s2)
+    fine = (rss > 1e-20 * (n - period - lags)) & np.isfinite(found).all(axis=1)
+    return found, fine
+
+
+def _fit_rows(y: np.ndarray, x: np.ndarray, det: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """``design.fit`` with every product taken matrix by matrix over the stack (y: B × m × 1),
+    so that a row gets the same bits alone as in a batch of any size: (coef, (X'X)⁻¹, RSS)."""
+    if det.shape[1]:
+        qd, _ = np.linalg.qr(det)
+        y = y - qd @ (qd.T @ y)
+        x = x - qd @ (qd.T @ x)
+    q, r = np.linalg.qr(x)
+    qy = np.swapaxes(q, 1, 2) @ y
+    r_inv = np.linalg.inv(r)
+    resid = y - q @ qy
+    rss = (np.swapaxes(resid, 1, 2) @ resid)[:, 0, 0]
+    return (r_inv @ qy)[:, :, 0], r_inv @ np.swapaxes(r_inv, 1, 2), rss
