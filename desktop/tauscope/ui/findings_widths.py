@@ -9,7 +9,7 @@ from PySide6.QtWidgets import QTreeView
 
 from tauscope.engine import SeriesResult
 from tauscope.engine.reading.words import CROSS_CHECK_WORDS
-from tauscope.ui.columns import header_width, text_width
+from tauscope.ui.columns import PADDING, header_width, text_width
 from tauscope.ui.findings_model import FindingsModel
 from tauscope.ui.findings_rows import (
     CHECK,
@@ -48,13 +48,24 @@ class RowWidths:
     def __init__(self) -> None:
         self._font = ""
         self._rows: dict[str, tuple[SeriesResult, str, tuple[int, int, int, int]]] = {}
+        self._advances: dict[str, int] = {}  # text -> its width in the view's font
+
+    def _width(self, view: QTreeView, texts: set[str] | list[str], indent: int = 0) -> int:
+        """As :func:`text_width`, each distinct text measured once (the steps' places and
+        null hypotheses repeat from one finding to the next)."""
+        advances = self._advances
+        for text in texts:
+            if text not in advances:
+                advances[text] = view.fontMetrics().horizontalAdvance(text)
+        widest = max((advances[t] for t in texts), default=0)
+        return widest + PADDING + indent * view.indentation()
 
     def measure(self, view: QTreeView, key: str, result: SeriesResult,
                 label: str) -> tuple[int, int, int, int]:
         """(name, places, verdict label with its shape, null hypotheses) widths of one row."""
         font = view.font().key()
         if font != self._font:
-            self._font, self._rows = font, {}
+            self._font, self._rows, self._advances = font, {}, {}
         known = self._rows.get(key)
         if known is not None and known[0] is result and known[1] == label:
             return known[2]
@@ -65,8 +76,8 @@ class RowWidths:
         if result.evidence is not None and result.evidence.break_info is not None:
             nulls.add("a unit root; break: new regime from "
                       f"{result.evidence.break_info.first_new_label}")
-        widths = (text_width(view, [result.name], 1), text_width(view, sorted(places), 2),
-                  text_width(view, [label]) + ICON, text_width(view, sorted(nulls)))
+        widths = (text_width(view, [result.name], 1), self._width(view, places, 2),
+                  self._width(view, [label]) + ICON, self._width(view, nulls))
         self._rows[key] = (result, label, widths)
         return widths
 
