@@ -14,6 +14,12 @@ analysis done directly (what the window would freeze for if it ran the engine
 on its own thread) and prints the ratio.
 
     QT_QPA_PLATFORM=offscreen python benchmarks/ui_latency.py [--series 500] [--length 240]
+
+``--trace FILE`` says where a stall comes from: whenever the window's loop has not ticked
+for ``STALL_DUMP_MS``, ``faulthandler`` (a C thread, so it runs even while another thread
+holds the GIL) writes every Python thread's stack to FILE, again every ``STALL_DUMP_MS``
+until the loop ticks; each stall over that is then marked in FILE with its length, and
+garbage collections longer than 5 ms are listed at the end with their generation and thread.
 """
 
 from __future__ import annotations
@@ -23,13 +29,64 @@ import datetime as dt
 import os
 import sys
 import tempfile
+import threading
 import time
+from collections.abc import Callable
 from pathlib import Path
+from typing import IO
 
 import numpy as np
 
 TICK_MS = 5
 TARGET_MS = 50.0
+STALL_DUMP_MS = 25
+
+
+class StallTrace:
+    """Stacks of every thread during each stall, and the long garbage collections."""
+
+    def __init__(self, handle: IO[str]) -> None:
+        import faulthandler
+        import gc
+
+        self.handle = handle
+        self.collections: list[tuple[float, float, int, str]] = []
+        self._starts: dict[int, float] = {}
+        self._arm: Callable[[], None] = lambda: faulthandler.dump_traceback_later(
+            STALL_DUMP_MS / 1000, repeat=True, file=handle)
+        self._cancel = faulthandler.cancel_dump_traceback_later
+        handle.write(f"window thread: 0x{threading.get_ident():016x}\n")
+        handle.flush()
+        gc.callbacks.append(self._on_collection)
+
+    def _on_collection(self, phase: str, info: dict[str, int]) -> None:
+        now = time.perf_counter()
+        ident = threading.get_ident()
+        if phase == "start":
+            self._starts[ident] = now
+            return
+        took = now - self._starts.pop(ident, now)
+        if took > 0.005:
+            self.collections.append((now - took, took, info["generation"],
+                                     threading.current_thread().name))
+
+    def tick(self, gap_ms: float) -> None:
+        if gap_ms > STALL_DUMP_MS:
+            self.handle.write(f"=== stall of {gap_ms:.1f} ms ended (stacks above) ===\n\n")
+            self.handle.flush()
+        self._arm()
+
+    def pause(self) -> None:
+        self._cancel()
+        self.handle.write("=== measuring paused ===\n\n")
+        self.handle.flush()
+
+    def close(self) -> None:
+        self._cancel()
+        for _start, took, generation, thread in self.collections:
+            self.handle.write(f"collection of generation {generation} in {thread}: "
+                              f"{took * 1000:.1f} ms\n")
+        self.handle.close()
 
 
 def write_workbook(path: Path, count: int, length: int, seed: int = 7) -> None:
@@ -51,6 +108,8 @@ def main() -> int:
     parser.add_argument("--length", type=int, default=240)
     parser.add_argument("--no-export", action="store_true",
                         help="leave out the export's stall (Ctrl+E to .xlsx, .html and .pdf)")
+    parser.add_argument("--trace", type=Path, default=None,
+                        help="write the threads' stacks during each stall to this file")
     args = parser.parse_args()
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
 
@@ -80,9 +139,13 @@ def main() -> int:
         longest = [0.0]
         last = [0.0]
 
+        trace = StallTrace(args.trace.open("w")) if args.trace else None
+
         def tick() -> None:
             now = clock.nsecsElapsed() / 1e6
             longest[0] = max(longest[0], now - last[0] - TICK_MS)
+            if trace is not None:
+                trace.tick(now - last[0] - TICK_MS)
             last[0] = now
 
         timer = QTimer()
@@ -107,6 +170,8 @@ def main() -> int:
             app.processEvents()
             time.sleep(0.001)
         timer.stop()
+        if trace is not None:
+            trace.pause()
         busy_stall = longest[0]
 
         # baseline on this machine, same loop, nothing running: what any program would see
@@ -118,6 +183,8 @@ def main() -> int:
             app.processEvents()
             time.sleep(0.001)
         timer.stop()
+        if trace is not None:
+            trace.pause()
         idle_stall = longest[0]
         received = window.last_run[1] if window.last_run else 0
 
@@ -133,6 +200,8 @@ def main() -> int:
             exported = time.perf_counter() - started
             app.processEvents()
             timer.stop()
+            if trace is not None:
+                trace.pause()
             export_stall = longest[0]
 
         series = read_workbook(path).series()
@@ -141,6 +210,8 @@ def main() -> int:
         for _ in iter_analyse(pairs, window.settings):
             pass
         direct = time.perf_counter() - started
+        if trace is not None:
+            trace.close()
         dispose(window)
 
     print(f"series analysed in the window : {received} of {len(series)} in {windowed:.2f} s")

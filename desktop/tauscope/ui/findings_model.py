@@ -205,8 +205,9 @@ class FindingsModel(QStandardItemModel):
 
     def results(self) -> dict[str, SeriesResult]:
         """Results in row order."""
-        keys = [str(item_value(self.index(r, NAME), KEY_ROLE)) for r in range(self.rowCount())]
-        return {k: self._results[k] for k in keys if k in self._results}
+        rows = {key: self.row_for_key(key) for key in self._results}
+        ordered = sorted((row, key) for key, row in rows.items() if row is not None)
+        return {key: self._results[key] for _row, key in ordered}
 
     def clear_results(self) -> None:
         self.removeRows(0, self.rowCount())

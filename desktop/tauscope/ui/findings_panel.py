@@ -17,7 +17,7 @@ from tauscope.ui.findings_model import (
     FindingsModel,
     FindingsSortProxy,
 )
-from tauscope.ui.findings_widths import natural_widths
+from tauscope.ui.findings_widths import RowWidths, natural_widths
 from tauscope.ui.qtcompat import item_value
 from tauscope.ui.roles import GUIDE_ROLE, KEY_ROLE, KIND_ROLE
 
@@ -43,6 +43,7 @@ class FindingsPanel(QWidget):
         self.model = FindingsModel(self)
         # keys (row order) -> the findings as a run record; set by the window
         self.record_for: Callable[[list[str]], RunRecord] | None = None
+        self._row_widths = RowWidths()  # per-row text widths, kept between fits
         self.proxy = FindingsSortProxy(self)
         self.proxy.setSourceModel(self.model)
         self.view = QTreeView(self)
@@ -90,7 +91,7 @@ class FindingsPanel(QWidget):
                 self.view.setFirstColumnSpanned(r, index, True)
 
     def _natural_widths(self) -> list[int]:
-        return natural_widths(self.view, self.model)
+        return natural_widths(self.view, self.model, self._row_widths)
 
     def expand_all(self) -> None:
         self.model.populate_all()

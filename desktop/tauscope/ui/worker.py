@@ -11,8 +11,6 @@ the thread, the stop flag and the signals the window listens to.
 
 from __future__ import annotations
 
-import gc
-import sys
 import threading
 import time
 import traceback
@@ -26,13 +24,10 @@ from PySide6.QtCore import QObject, QThread, QTimer, Signal, Slot
 
 from tauscope.engine import SeriesResult, Settings
 from tauscope.engine.results import failed_result
+from tauscope.ui.off_thread import BackgroundWork
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData
-
-
-RUN_SWITCH_INTERVAL = 0.001  # seconds (Python's default is 0.005)
-
 
 
 # The statistics libraries (statsmodels, scipy) load on the first run, or earlier through
@@ -217,7 +212,7 @@ class AnalysisRunner(QObject):
         self._stopped = False
         self._total = 0
         self._received = 0
-        self._switch_interval: float | None = None
+        self._background = BackgroundWork()
         self._timer = QTimer(self)
         self._timer.setInterval(self.TICK_MS)
         self._timer.timeout.connect(self._drain)
@@ -240,15 +235,9 @@ class AnalysisRunner(QObject):
         worker.finished.connect(self._on_worker_finished)
         self._thread, self._worker = thread, worker
         self.started.emit(self._total)
-        # A full garbage collection walks every object of the libraries loaded so far and
-        # holds the GIL meanwhile (~0.4 s): triggered in the worker it would freeze the
-        # window.  Objects alive now are moved out of the collector's way.
-        gc.freeze()
-        # While the engine thread runs, the interpreter hands the GIL over every 1 ms
-        # instead of every 5 ms, so the window thread waits less for it (fewer, shorter
-        # stalls of the event loop; see benchmarks/ui_latency.py).
-        self._switch_interval = sys.getswitchinterval()
-        sys.setswitchinterval(min(self._switch_interval, RUN_SWITCH_INTERVAL))
+        # GIL handed over every 1 ms and no garbage collection while the engine thread
+        # runs (see BackgroundWork and benchmarks/ui_latency.py).
+        self._background.enter()
         thread.start()
         self._timer.start()
         return True
@@ -293,9 +282,7 @@ class AnalysisRunner(QObject):
 
     def _finish(self) -> None:
         self._timer.stop()
-        if self._switch_interval is not None:
-            sys.setswitchinterval(self._switch_interval)
-            self._switch_interval = None
+        self._background.leave()
         crash_details = ""
         if self._worker is not None:
             self._stopped = self._stopped or self._stop.is_set()
