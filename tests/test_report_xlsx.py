@@ -12,7 +12,7 @@ from openpyxl.worksheet.worksheet import Worksheet
 from tauscope import __version__
 from tauscope.report import RunRecord, chart_plan, export
 from tauscope.report.tables import marker, tau_steps
-from tauscope.report.xlsx_export import put
+from tauscope.report.xlsx_package import Book
 from test_report_support import FORMULA_NAME, SOURCE_SHA, make_run, tiny_png
 
 
@@ -162,16 +162,15 @@ def test_no_chart_sheet_without_a_painter(tmp_path: Path) -> None:
 
 
 @pytest.mark.parametrize("text", ["=1+1", "+1", "-1-1", "@A1", "\t=2", "=cmd|' /C calc'!A0"])
-def test_put_keeps_formula_like_text_as_the_same_plain_string(tmp_path: Path, text: str) -> None:
-    book = openpyxl.Workbook()
-    sheet = book.active
-    assert sheet is not None
-    put(sheet["A1"], text)
-    put(sheet["A2"], 1.5)
-    book.save(tmp_path / "guard.xlsx")
+def test_formula_like_text_is_kept_as_the_same_plain_string(tmp_path: Path, text: str) -> None:
+    book = Book("Tauscope test")
+    book.sheet("Sheet").add([text])
+    book.sheets[0].add([1.5])
+    (tmp_path / "guard.xlsx").write_bytes(book.package())
     back = openpyxl.load_workbook(tmp_path / "guard.xlsx").active
     assert back is not None
     assert back["A1"].value == text and back["A1"].data_type == "s"
+    assert back["A1"].quotePrefix
     assert back["A2"].value == 1.5 and back["A2"].data_type == "n"
     with zipfile.ZipFile(tmp_path / "guard.xlsx") as archive:
         assert b"<f>" not in archive.read("xl/worksheets/sheet1.xml")

@@ -4,7 +4,7 @@ A spreadsheet treats a cell that starts with ``=``, ``+``, ``-`` or ``@`` (and,
 in some programs, a leading tab or carriage return) as a formula.  A series
 name or a header taken from a downloaded workbook must never run as one, so
 such text is written as text: with a leading apostrophe in CSV, and as a
-string-typed cell in xlsx (see :func:`tauscope.report.xlsx_export.put`).
+string-typed cell marked as text in xlsx (see :meth:`tauscope.report.xlsx_package.Sheet.add`).
 """
 
 from __future__ import annotations
