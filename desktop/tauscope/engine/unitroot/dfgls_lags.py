@@ -24,7 +24,7 @@ from collections.abc import Sequence
 
 import numpy as np
 
-from tauscope.engine.unitroot.dfgls import C_BAR, deterministic_columns
+from tauscope.engine.unitroot.dfgls_null import gls_detrended
 
 SPECS = ("constant", "trend")
 
@@ -75,17 +75,10 @@ class _Sums:
 
 
 def _gls_detrended(paths: np.ndarray, spec: str) -> np.ndarray:
-    """ỹ = y − z'β̂ (columns of ``paths`` (T, r)) with β̂ = pinv(z^ᾱ) y^ᾱ, the quasi-differencing
-    folded into the weights: P'y^ᾱ = W'y with W_t = P_t − ᾱ P_{t+1} (P_{T+1} = 0)."""
-    length = paths.shape[0]
-    abar = 1.0 + C_BAR[spec] / length
-    z = deterministic_columns(spec, length)
-    zq = z.copy()
-    zq[1:] = z[1:] - abar * z[:-1]
-    projector = np.linalg.pinv(zq).T
-    weights = projector.copy()
-    weights[:-1] -= abar * projector[1:]
-    return np.asarray(paths - z @ (weights.T @ paths))
+    """ERS (1996) GLS detrending of each column of ``paths`` (T, r): the null simulator's
+    row-wise detrending, :func:`tauscope.engine.unitroot.dfgls_null.gls_detrended`, on the
+    transpose."""
+    return np.ascontiguousarray(gls_detrended(paths.T, spec).T)
 
 
 def _t_ratios(products: list[_Sums], crosses: list[_Sums], squares: _Sums, n_all: int, p: int
