@@ -48,30 +48,20 @@ from tauscope.engine.distributions.dfgls_grid import (
     dfgls_quantiles,
     dfgls_table_lags,
 )
+from tauscope.engine.distributions.dfgls_table_make import null_draws
 from tauscope.engine.distributions.exact_grid import distribution_at, quantile_at
 from tauscope.engine.distributions.simulate import DEFAULT_SEED
 from tauscope.engine.unitroot import dfgls as dfgls_module
-from tauscope.engine.unitroot.dfgls_lags import every_lag_dfgls
 
 CHECK_SEED = 20261202
 LEVELS = (0.01, 0.05, 0.10)
 BATCHES = 10
-CHUNK = 2_000
 
 
 def direct(length: int, lags: tuple[int, ...], reps: int, seed: int) -> dict[str, dict[int, np.ndarray]]:
     """spec → lag → ``reps`` DF-GLS draws at length T, rows in order from default_rng(seed)."""
-    rng = np.random.default_rng(seed)
-    out = {s: {p: np.empty(reps) for p in lags} for s in DFGLS_SPECS}
-    done = 0
-    while done < reps:
-        size = min(CHUNK, reps - done)
-        values = every_lag_dfgls(rng.standard_normal((size, length)), lags)
-        for spec in DFGLS_SPECS:
-            for p in lags:
-                out[spec][p][done:done + size] = values[spec][p]
-        done += size
-    return out
+    draws = null_draws(length, lags, reps, seed)
+    return {s: {p: draws[(p, s)] for p in lags} for s in DFGLS_SPECS}
 
 
 def _bracketed_lags(length: int) -> tuple[int, ...]:

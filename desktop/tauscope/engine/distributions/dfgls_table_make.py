@@ -38,13 +38,13 @@ Cells = dict[tuple[int, int], dict[str, np.ndarray]]
 Errors = dict[tuple[int, int], dict[str, float]]
 
 
-def simulate_length(length: int, reps: int = REPS, seed: int = SEED,
-                    lags: tuple[int, ...] | None = None) -> tuple[Cells, Errors]:
-    """((T, p) → spec → quantiles at :data:`PROBABILITIES`, (T, p) → spec → SE of the 1%
-    quantile) at series length ``length`` for ``lags`` (default :func:`dfgls_table_lags`)."""
-    lags = dfgls_table_lags(length) if lags is None else lags
+def null_draws(length: int, lags: tuple[int, ...], reps: int, seed: int,
+               dtype: type = np.float64) -> dict[tuple[int, str], np.ndarray]:
+    """(p, spec) → ``reps`` DF-GLS statistics of fixed lag p on random walks of length T,
+    rows in order from default_rng(seed) (the same walks whatever the lags asked for)."""
     rng = np.random.default_rng(seed)
-    draws = {(p, s): np.empty(reps, dtype=np.float32) for p in lags for s in DFGLS_SPECS}
+    draws: dict[tuple[int, str], np.ndarray] = {(p, s): np.empty(reps, dtype=dtype) for p in lags
+                                                 for s in DFGLS_SPECS}
     done = 0
     while done < reps:
         size = min(CHUNK_ROWS, reps - done)
@@ -52,6 +52,15 @@ def simulate_length(length: int, reps: int = REPS, seed: int = SEED,
         for (p, spec), values in draws.items():
             values[done:done + size] = statistics[spec][p]
         done += size
+    return draws
+
+
+def simulate_length(length: int, reps: int = REPS, seed: int = SEED,
+                    lags: tuple[int, ...] | None = None) -> tuple[Cells, Errors]:
+    """((T, p) → spec → quantiles at :data:`PROBABILITIES`, (T, p) → spec → SE of the 1%
+    quantile) at series length ``length`` for ``lags`` (default :func:`dfgls_table_lags`)."""
+    lags = dfgls_table_lags(length) if lags is None else lags
+    draws = null_draws(length, lags, reps, seed, np.float32)
     cells: Cells = {}
     errors: Errors = {}
     for (p, spec), values in draws.items():
