@@ -8,7 +8,7 @@ and when the columns do not fit, the ones named optional are hidden, in order.
 
 from __future__ import annotations
 
-from collections.abc import Callable, Sequence
+from collections.abc import Callable, Collection, Sequence
 
 from PySide6.QtCore import QByteArray, QEvent, QObject, Qt, QTimer
 from PySide6.QtWidgets import QTreeView
@@ -94,10 +94,19 @@ class ColumnFitter(QObject):
         return False
 
 
-def text_width(view: QTreeView, texts: Sequence[str], indent: int = 0) -> int:
-    """The width a column needs for the widest of ``texts`` at ``indent`` levels deep."""
+def text_width(view: QTreeView, texts: Collection[str], indent: int = 0,
+               advances: dict[str, int] | None = None) -> int:
+    """The width a column needs for the widest of ``texts`` at ``indent`` levels deep.
+    ``advances`` (text → width in the view's font), when given, keeps each text's width so
+    a text that repeats is measured once; the caller empties it when the font changes."""
     metrics = view.fontMetrics()
-    widest = max((metrics.horizontalAdvance(t) for t in texts), default=0)
+    if advances is None:
+        widest = max((metrics.horizontalAdvance(t) for t in texts), default=0)
+    else:
+        for text in texts:
+            if text not in advances:
+                advances[text] = metrics.horizontalAdvance(text)
+        widest = max((advances[t] for t in texts), default=0)
     return widest + PADDING + indent * view.indentation()
 
 

@@ -9,7 +9,7 @@ from PySide6.QtWidgets import QTreeView
 
 from tauscope.engine import SeriesResult
 from tauscope.engine.reading.words import CROSS_CHECK_WORDS
-from tauscope.ui.columns import PADDING, header_width, text_width
+from tauscope.ui.columns import header_width, text_width
 from tauscope.ui.findings_model import FindingsModel
 from tauscope.ui.findings_rows import (
     CHECK,
@@ -51,14 +51,9 @@ class RowWidths:
         self._advances: dict[str, int] = {}  # text -> its width in the view's font
 
     def _width(self, view: QTreeView, texts: set[str] | list[str], indent: int = 0) -> int:
-        """As :func:`text_width`, each distinct text measured once (the steps' places and
-        null hypotheses repeat from one finding to the next)."""
-        advances = self._advances
-        for text in texts:
-            if text not in advances:
-                advances[text] = view.fontMetrics().horizontalAdvance(text)
-        widest = max((advances[t] for t in texts), default=0)
-        return widest + PADDING + indent * view.indentation()
+        """:func:`text_width` with this object's kept widths (the steps' places and null
+        hypotheses repeat from one finding to the next)."""
+        return text_width(view, texts, indent, self._advances)
 
     def measure(self, view: QTreeView, key: str, result: SeriesResult,
                 label: str) -> tuple[int, int, int, int]:
