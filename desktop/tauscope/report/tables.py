@@ -11,7 +11,6 @@ own formatting; floats are the engine's numbers, unrounded.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
 from statistics import NormalDist
 
 from tauscope.engine import LAG_RULE_LABELS, SeriesResult, Settings, Step, TestResult
@@ -19,8 +18,7 @@ from tauscope.engine import formatting as fmt
 from tauscope.engine.reading.words import CROSS_CHECK_WORDS
 from tauscope.engine.regression.design import SPEC_LABELS
 from tauscope.report.run import Finding, RunRecord
-
-Value = str | int | float | None
+from tauscope.report.table_types import Column, Table, Value
 
 DIFFERENCE_NAMES = {0: "levels", 1: "first difference", 2: "second difference"}
 DIFFERENCE_SHORT = {0: "levels", 1: "Δy", 2: "Δ²y"}
@@ -42,25 +40,6 @@ MARKER_NOTE = (
     "Significance: *** 1%, ** 5%, * 10% (ADF τ below, KPSS above the critical value at that "
     "level; τ critical values from MacKinnon 2010, KPSS from Kwiatkowski et al. 1992)."
 )
-
-
-@dataclass(frozen=True)
-class Column:
-    """``ident`` names the column in CSV; ``header`` is what a reader sees;
-    ``kind`` is ``"text"``, ``"int"``, ``"stat"`` or ``"p"``."""
-
-    ident: str
-    header: str
-    kind: str = "text"
-
-
-@dataclass(frozen=True)
-class Table:
-    columns: tuple[Column, ...]
-    rows: tuple[tuple[Value, ...], ...]
-
-    def column(self, ident: str) -> int:
-        return next(i for i, c in enumerate(self.columns) if c.ident == ident)
 
 
 def marker(test: TestResult) -> str:
