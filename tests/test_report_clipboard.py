@@ -44,7 +44,7 @@ def test_selection_as_tab_separated_text() -> None:
         assert cells[0] == finding.name
         assert cells[1] == finding.result.verdict.label
         compared = 0
-        for d, title in enumerate(("τ, levels", "τ, Δy", "τ, Δ²y")):
+        for d, title in enumerate(("Classic τ, levels", "Classic τ, Δy", "Classic τ, Δ²y")):
             test = deciding_tau(finding.result, d)
             if test is None:
                 assert title not in header or cells[header.index(title)] == ""

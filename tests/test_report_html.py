@@ -15,6 +15,7 @@ from tauscope.engine import formatting as fmt
 from tauscope.report import RunRecord, export
 from tauscope.report.chart_plan import ChartPlan, plan_chart
 from tauscope.report.chart_svg import chart_svg
+from tauscope.report.deciding import union_steps
 from tauscope.report.methods import methods_for
 from tauscope.report.tables import deciding_tau, marker
 from test_report_support import FORMULA_NAME, make_run
@@ -88,10 +89,15 @@ def test_summary_table_shows_each_verdict_and_tau(page: _Reader) -> None:
         result = finding.result
         assert row[header.index("Series")] == finding.name
         assert row[header.index("Verdict")] == result.verdict.label
+        union = union_steps(result).get(0)
+        if union is not None:  # the number that decided under the default strategy
+            sign = ">" if union.decision == "reject" else "≤"
+            assert row[header.index("Union M, levels")] == (
+                f"{fmt.stat(union.statistic, 3)} ({sign}\u00a0{union.critical_value:.2f})")
         test = deciding_tau(result, 0)
         if test is None:
             continue
-        cell = row[header.index("τ, levels")]
+        cell = row[header.index("Classic τ, levels")]
         assert cell.startswith(fmt.stat(test.statistic, 3) + marker(test))
 
 

@@ -11,6 +11,8 @@ from openpyxl.worksheet.worksheet import Worksheet
 
 from tauscope import __version__
 from tauscope.report import RunRecord, chart_plan, export
+from tauscope.report.deciding import union_steps
+from tauscope.report.table_types import DIFFERENCE_SHORT
 from tauscope.report.tables import marker, tau_steps
 from tauscope.report.xlsx_package import Book
 from test_report_support import FORMULA_NAME, SOURCE_SHA, make_run, tiny_png
@@ -58,19 +60,27 @@ def test_summary_has_one_row_per_series_with_the_engine_numbers(
         assert row[col["Order of integration"]] == result.verdict.order
         if not result.ok:
             assert row[col["Problem"]] == result.error
-            assert row[col["Step 1 τ"]] is None
+            assert row[col["Classic step 1 τ"]] is None
             continue
         assert row[col["Observations"]] == result.nobs
         assert (row[col["First"]], row[col["Last"]]) == result.span
         steps = tau_steps(result)
         for k, step in enumerate(steps, start=1):
-            assert row[col[f"Step {k} τ"]] == same(step.statistic)
-            assert row[col[f"Step {k} p"]] == same(step.p_value)
+            assert row[col[f"Classic step {k} τ"]] == same(step.statistic)
+            assert row[col[f"Classic step {k} p"]] == same(step.p_value)
             assert step.test is not None
-            assert row[col[f"Step {k} sig."]] == (marker(step.test) or None)
+            assert row[col[f"Classic step {k} sig."]] == (marker(step.test) or None)
         assert steps[-1].test is not None
-        assert row[col["Lags, deciding τ"]] == steps[-1].test.lags
+        assert row[col["Lags, classic deciding τ"]] == steps[-1].test.lags
         assert row[col["Max lags, levels"]] == result.max_lags
+        # the numbers that decided under the size-controlled default: the union's M
+        union = union_steps(result)
+        assert union, "the default strategy decides with the union"
+        for d, step in union.items():
+            short = DIFFERENCE_SHORT[d]
+            assert row[col[f"Union M, {short}"]] == same(step.statistic)
+            sign = ">" if step.decision == "reject" else "≤"
+            assert row[col[f"Union M decision, {short}"]] == f"{sign} {step.critical_value:.2f}"
         for test in (t for t in result.tests if t.test == "kpss"):
             name = {0: "levels", 1: "first difference", 2: "second difference"}[test.difference]
             assert row[col[f"KPSS, {name}"]] == same(test.statistic)
@@ -81,7 +91,7 @@ def test_summary_is_styled_frozen_and_has_the_marker_note(written: tuple[RunReco
     sheet = openpyxl.load_workbook(target)["Summary"]
     assert sheet.freeze_panes == "B2"
     assert sheet["A1"].font.bold
-    tau_col = _header(sheet).index("Step 1 τ") + 1
+    tau_col = _header(sheet).index("Classic step 1 τ") + 1
     assert sheet.cell(row=2, column=tau_col).number_format == "0.000"
     assert sheet.column_dimensions["A"].width >= len(FORMULA_NAME) * 0.9
     note = sheet.cell(row=len(run.findings) + 3, column=1).value

@@ -15,6 +15,7 @@ from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.chart_plan import ChartPlan
 from tauscope.report.chart_svg import svg_data_uri
+from tauscope.report.deciding import union_note
 from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, Finding, RunRecord, chart_for
 from tauscope.report.tables import (
@@ -158,7 +159,8 @@ def summary_note(run: RunRecord) -> str:
             "order.")
     if any(normal_step(f.result, d) is not None for f in run.findings for d in range(3)):
         note += " " + NORMAL_NOTE
-    return note
+    union = union_note(f.result for f in run.findings)
+    return f"{note} {union}" if union else note
 
 
 def meta_line(run: RunRecord) -> str:

@@ -5,6 +5,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 Value = str | int | float | None
+DIFFERENCE_SHORT = {0: "levels", 1: "Δy", 2: "Δ²y"}  # the differences in column headers
 
 
 @dataclass(frozen=True)

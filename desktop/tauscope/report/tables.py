@@ -17,11 +17,11 @@ from tauscope.engine import LAG_RULE_LABELS, SeriesResult, Settings, Step, TestR
 from tauscope.engine import formatting as fmt
 from tauscope.engine.reading.words import CROSS_CHECK_WORDS
 from tauscope.engine.regression.design import SPEC_LABELS
+from tauscope.report.deciding import union_cells, union_columns, union_differences
 from tauscope.report.run import Finding, RunRecord
-from tauscope.report.table_types import Column, Table, Value
+from tauscope.report.table_types import DIFFERENCE_SHORT, Column, Table, Value
 
 DIFFERENCE_NAMES = {0: "levels", 1: "first difference", 2: "second difference"}
-DIFFERENCE_SHORT = {0: "levels", 1: "Δy", 2: "Δ²y"}
 SPEC_CODES = {"trend": "ct", "constant": "c", "none": "n"}
 STATISTIC_SYMBOLS = {"tau": "τ", "phi1": "Φ1", "phi2": "Φ2", "phi3": "Φ3", "z": "z", "dfgls": "DF-GLS t",
                      "union": "M (union)", "trend": "z_λ (trend)", "msb": "MSB"}
@@ -148,7 +148,9 @@ def _source_cells(finding: Finding) -> tuple[Value, ...]:
 
 
 def summary_table(run: RunRecord) -> Table:
-    """One row per series: origin, verdict, every τ step, lags, KPSS and agreement."""
+    """One row per series: origin, verdict, the union's M on each difference when a
+    size-controlled strategy decided (``deciding``), every τ step of the classic path, lags,
+    KPSS and agreement."""
     n_steps = max((len(tau_steps(f.result)) for f in run.findings), default=0)
     kpss_diffs = sorted({d for f in run.findings for d in kpss_tests(f.result)})
     columns = [
@@ -164,15 +166,17 @@ def summary_table(run: RunRecord) -> Table:
         Column("order", "Order of integration", "int"),
         Column("deterministic", "Deterministic terms"),
     ]
+    union_diffs = union_differences(f.result for f in run.findings)
+    columns += union_columns(union_diffs)
     for k in range(1, n_steps + 1):
         columns += [
-            Column(f"step{k}_on", f"Step {k} on"),
-            Column(f"step{k}_tau", f"Step {k} τ", "stat"),
-            Column(f"step{k}_p", f"Step {k} p", "p"),
-            Column(f"step{k}_sig", f"Step {k} sig."),
+            Column(f"step{k}_on", f"Classic step {k} on"),
+            Column(f"step{k}_tau", f"Classic step {k} τ", "stat"),
+            Column(f"step{k}_p", f"Classic step {k} p", "p"),
+            Column(f"step{k}_sig", f"Classic step {k} sig."),
         ]
     columns += [
-        Column("lags", "Lags, deciding τ", "int"),
+        Column("lags", "Lags, classic deciding τ", "int"),
         Column("lag_rule", "Lag rule"),
         Column("max_lags", "Max lags, levels", "int"),
     ]
@@ -200,6 +204,7 @@ def summary_table(run: RunRecord) -> Table:
             result.verdict.order,
             deterministic_words(result),
         ]
+        row += union_cells(result, union_diffs)
         steps = tau_steps(result)
         for k in range(n_steps):
             if k < len(steps):
@@ -222,13 +227,16 @@ def summary_table(run: RunRecord) -> Table:
 
 
 def compact_table(run: RunRecord) -> Table:
-    """The short summary: verdict, deciding τ per difference (with markers), KPSS, agreement,
+    """The short summary: verdict, the union's M per difference when a size-controlled strategy
+    decided, the classic path's deciding τ per difference (with markers), KPSS, agreement,
     and the reason a series could not be tested when any could not."""
     diffs = sorted({d for f in run.findings for d in range(3) if deciding_tau(f.result, d)})
+    union_diffs = union_differences(f.result for f in run.findings)
     columns = [Column("series", "Series"), Column("verdict", "Verdict"),
-               Column("nobs", "Obs.", "int"), Column("span", "Span")]
+               Column("nobs", "Obs.", "int"), Column("span", "Span"),
+               *union_columns(union_diffs)]
     for d in diffs:
-        columns += [Column(f"tau{d}", f"τ, {DIFFERENCE_SHORT[d]}", "stat"),
+        columns += [Column(f"tau{d}", f"Classic τ, {DIFFERENCE_SHORT[d]}", "stat"),
                     Column(f"tau{d}_sig", "", "text"),
                     Column(f"tau{d}_spec", f"Terms, lags ({DIFFERENCE_SHORT[d]})")]
     columns += [Column("kpss", "KPSS"), Column("agreement", "Cross-check")]
@@ -240,7 +248,8 @@ def compact_table(run: RunRecord) -> Table:
         result = finding.result
         span = f"{result.span[0]} – {result.span[1]}" if result.span else ""
         row: list[Value] = [finding.name, result.verdict.label,
-                            result.nobs if result.ok else None, span]
+                            result.nobs if result.ok else None, span,
+                            *union_cells(result, union_diffs)]
         for d in diffs:
             test = deciding_tau(result, d)
             if test is None:

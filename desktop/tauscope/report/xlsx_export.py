@@ -22,6 +22,7 @@ from pathlib import Path
 
 from tauscope.report.atomic import write_bytes_atomic
 from tauscope.report.chart_plan import plan_png
+from tauscope.report.deciding import union_note
 from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, RunRecord, chart_for
 from tauscope.report.tables import (
@@ -97,6 +98,9 @@ def _summary(sheet: Sheet, run: RunRecord) -> None:
     _write_table(sheet, table)
     sheet.skip_to(len(table.rows) + 3)
     _styled(sheet, [(MARKER_NOTE, NOTE)])
+    union = union_note(f.result for f in run.findings)
+    if union:
+        _styled(sheet, [(union, NOTE)])
     left = left_out_note(run)
     if left is not None:
         _styled(sheet, [(left, LEFT_OUT)])
