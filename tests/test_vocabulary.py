@@ -53,7 +53,7 @@ def test_the_notes_use_the_words_and_to_dict_keeps_the_contract() -> None:
 
 
 def test_the_command_line_summary_uses_the_words() -> None:
-    from tauscope.commands.batch import summary_table
+    from tauscope.commands.console_summary import summary_table
 
     results = _results()
     text = summary_table([Finding(r) for r in results])

@@ -26,12 +26,12 @@ from __future__ import annotations
 import argparse
 import dataclasses
 import os
-import re
 import sys
 from collections.abc import Mapping, Sequence
 from pathlib import Path
 from typing import NoReturn, TextIO
 
+from tauscope.commands.console_summary import summary_table
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
 from tauscope.data.notes import reader_notes
 from tauscope.data.sample import GAP_RULES, apply_gap_rule, cut_sample, parse_sample
@@ -44,7 +44,6 @@ from tauscope.engine import (
     Settings,
     analyse_many,
 )
-from tauscope.engine.reading.words import cross_check_word
 from tauscope.engine.results import failed_result
 from tauscope.report import (
     CHART_FORMATS,
@@ -61,7 +60,6 @@ from tauscope.report.ownership import same_file
 from tauscope.ui import pdf_report  # noqa: F401  (registers ".pdf"; Qt loads only when used)
 
 EXIT_DONE, EXIT_USAGE, EXIT_INPUT, EXIT_OUTPUT = 0, 2, 3, 1
-_PREPARED_NOTE = re.compile(r"longest stretch|were filled|Sample chosen")
 TRANSFORM_CHOICES = ("none", "log", "diff", "logdiff")
 
 
@@ -349,41 +347,3 @@ def analyse_with_series(chosen: Sequence[SeriesData], settings: Settings,
                 result = dataclasses.replace(result, notes=(*item.notes, *result.notes))
         analysed.append((Finding.from_series(result, item.series), item.series))
     return analysed
-
-
-def _difference_label(d: int) -> str:
-    return ("levels", "Δ", "Δ²")[d] if 0 <= d <= 2 else f"Δ^{d}"
-
-
-def tau_steps(result: SeriesResult) -> str:
-    """The τ of each step taken, e.g. "Δ² constant −6.31; Δ constant −4.52; levels trend −1.80"."""
-    parts = [
-        f"{_difference_label(s.difference)} {s.spec} {s.statistic:.2f}".replace("-", "−")
-        for s in result.steps if s.statistic_name == "tau" and s.strategy == "classic"
-    ]
-    return "; ".join(parts) or "—"
-
-
-def summary_table(findings: Sequence[Finding]) -> str:
-    """A plain-text table: series, observations, span, verdict, τ of each step, cross-check agreement."""
-    header = ("Series", "Obs", "Span", "Verdict", "Cross-check", "τ of each step (difference, terms, τ)")
-    rows = []
-    for f in findings:
-        r = f.result
-        span = f"{r.span[0]} to {r.span[1]}" if r.span else "—"
-        verdict = r.verdict.label if r.ok else "Not tested"
-        kpss = cross_check_word(r.verdict.agreement) if r.ok else "—"
-        last = tau_steps(r) if r.ok else (r.error or "")
-        rows.append((r.name, str(r.nobs), span, verdict, kpss, last))
-    widths = [max(len(row[i]) for row in (header, *rows)) for i in range(len(header) - 1)]
-    lines = []
-    for row in (header, *rows):
-        cells = [c.ljust(w) if i != 1 else c.rjust(w) for i, (c, w) in
-                 enumerate(zip(row, widths, strict=False))]
-        lines.append("  ".join([*cells, row[-1]]).rstrip())
-    notes = [f"{f.result.name}: {f.result.notes[0]}" for f in findings
-             if f.result.ok and f.result.notes and _PREPARED_NOTE.search(f.result.notes[0])]
-    if notes:
-        lines.append("")
-        lines.extend(notes)
-    return "\n".join(lines)
