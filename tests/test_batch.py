@@ -137,9 +137,10 @@ def test_table_on_stdout_and_transform(tmp_path: Path, capsys: pytest.CaptureFix
     row = out[1]
     assert row.startswith("log(Walk)") and " 60 " in row and "1990Q1 to 2004Q4" in row
     assert result.verdict.label in row
-    taus = [f"{s.statistic:.2f}".replace("-", "−") for s in result.steps
-            if s.statistic_name == "tau" and s.strategy == "classic"]  # the classic path's τ
-    assert taus and all(t in row for t in taus)
+    # the numbers that decided under the default strategy: the union's M on each difference
+    union = [f"M {s.statistic:.2f}" for s in result.steps
+             if s.statistic_name == "union" and s.strategy == result.verdict.strategy]
+    assert union and all(m in row for m in union)
 
 
 def test_log_of_negative_series_carries_an_error_and_batch_goes_on(tmp_path: Path) -> None:

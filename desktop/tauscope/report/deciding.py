@@ -18,13 +18,29 @@ from tauscope.report.table_types import DIFFERENCE_SHORT, Column, Value
 UNION_NOTE = (
     "Union M: the union of rejections of Harvey, Leybourne & Taylor (2009), which decided "
     "each verdict; it rejects a unit root when it is above its critical value (shown as "
-    "\"> value\"; \"≤ value\" when it does not). The classic τ is shown beside it for the "
-    "record.")
+    "\"> value\"; \"≤ value\" when it does not).")
+CLASSIC_BESIDE = " The classic τ is shown beside it for the record."
+BREAK_NOTE = (" A verdict \"around a mean that shifts\" was given by the break test (Lee & "
+              "Strazicich 2013), which allows the shift under both hypotheses, after the union "
+              "kept a unit root.")
 
 
-def union_note(results: Iterable[SeriesResult]) -> str:
-    """:data:`UNION_NOTE` when any of these verdicts was decided by the union, else ""."""
-    return UNION_NOTE if any(union_steps(r) for r in results) else ""
+def union_note(results: Iterable[SeriesResult], beside_classic: bool = True) -> str:
+    """:data:`UNION_NOTE` when any of these verdicts was decided by the union, else "";
+    with :data:`BREAK_NOTE` when the break test then gave any verdict."""
+    results = list(results)
+    if not any(union_steps(r) for r in results):
+        return ""
+    note = UNION_NOTE + (CLASSIC_BESIDE if beside_classic else "")
+    if any(break_decided(r) for r in results):
+        note += BREAK_NOTE
+    return note
+
+
+def break_decided(result: SeriesResult) -> bool:
+    """The verdict was given under a break found by the break test."""
+    return (result.breaks is not None and result.breaks.stationary_with_break
+            and result.breaks.test is not None)
 
 
 def union_steps(result: SeriesResult) -> dict[int, Step]:
