@@ -123,6 +123,13 @@ def test_notes_state_lag_rule_sources_and_level() -> None:
     assert "Dickey \\& Fuller (1981)" in notes
     assert "10\\% level" in notes
     assert "$^{***}$" in notes
+    # the default strategy decided: the note says the union did, not the classic τ shown
+    assert "union of rejections" in notes and "not by $\\tau$" in notes
+
+
+def test_notes_under_the_classic_strategy_do_not_name_the_union() -> None:
+    tex = run_to_latex(make_run(strategy="classic"))
+    assert "union of rejections" not in tex.split("\\parbox", 1)[1]
 
 
 @pytest.mark.parametrize(("text", "expected"), [

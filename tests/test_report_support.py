@@ -39,28 +39,28 @@ def simulated_series() -> dict[str, pd.Series]:
 
 
 def run_settings(alpha: float = 0.05, exact: bool = False,
-                 checks: tuple[str, ...] = ("kpss",)) -> Settings:
+                 checks: tuple[str, ...] = ("kpss",), strategy: str = "union") -> Settings:
     return Settings(alpha=alpha, critical_values="exact" if exact else "mackinnon",
-                    confirm=checks)
+                    confirm=checks, strategy=strategy)
 
 
 @functools.lru_cache(maxsize=4)
-def results(alpha: float = 0.05, exact: bool = False,
-            checks: tuple[str, ...] = ("kpss",)) -> tuple[SeriesResult, ...]:
-    settings = run_settings(alpha, exact, checks)
+def results(alpha: float = 0.05, exact: bool = False, checks: tuple[str, ...] = ("kpss",),
+            strategy: str = "union") -> tuple[SeriesResult, ...]:
+    settings = run_settings(alpha, exact, checks, strategy)
     return tuple(analyse_series(v, settings, name) for name, v in simulated_series().items())
 
 
 def make_run(alpha: float = 0.05, exact: bool = False,
-             checks: tuple[str, ...] = ("kpss",)) -> RunRecord:
+             checks: tuple[str, ...] = ("kpss",), strategy: str = "union") -> RunRecord:
     """The run on the simulated series; ``exact``: critical values simulated at each
-    regression's size; ``checks``: the cross-check tests."""
+    regression's size; ``checks``: the cross-check tests; ``strategy``: the deciding one."""
     findings = tuple(
         Finding(r, file=SOURCE, sheet="Quarterly", column=r.name, frequency="quarterly",
                 key=f"macro quarterly.xlsx|Quarterly|{r.name}|")
-        for r in results(alpha, exact, checks)
+        for r in results(alpha, exact, checks, strategy)
     )
-    return RunRecord(run_settings(alpha, exact, checks), (SourceFile(SOURCE, SOURCE_SHA),),
+    return RunRecord(run_settings(alpha, exact, checks, strategy), (SourceFile(SOURCE, SOURCE_SHA),),
                      findings)
 
 

@@ -16,6 +16,7 @@ from pathlib import Path
 from tauscope.engine import SeriesResult
 from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
+from tauscope.report.deciding import union_steps
 from tauscope.report.methods import left_out_note
 from tauscope.report.run import Charts, RunRecord
 from tauscope.report.tables import (
@@ -206,6 +207,13 @@ def _critical_note(run: RunRecord) -> str:
             "$\\Phi_1$, $\\Phi_3$; KPSS")
 
 
+_UNION_DECIDED = (
+    ", by the union of rejections of DF-GLS and MSB tests with a constant and with a trend "
+    "(Harvey, Leybourne \\& Taylor 2009), not by $\\tau$: the union's statistic $M$ and its "
+    "critical value on each difference are in the findings' summary. $\\tau$ is given for "
+    "the record.")
+
+
 def _notes(run: RunRecord) -> str:
     settings = run.settings
     a = fmt.percent(settings.alpha)
@@ -217,7 +225,7 @@ def _notes(run: RunRecord) -> str:
     text = (
         "Notes: Under each series, the sample used (first and last observation) and $T$, the "
         "number of observations. "
-        "$\\tau$ is the augmented Dickey-Fuller statistic of the regression the testing "
+        "$\\tau$ is the augmented Dickey-Fuller statistic of the regression the classic testing "
         "sequence (Dolado, Jenkinson \\& Sosvilla-Rivero 1990) settled on for each difference; "
         "below each $\\tau$, in parentheses, the deterministic "
         "terms (ct constant and trend, c constant, n none) and the "
@@ -228,7 +236,8 @@ def _notes(run: RunRecord) -> str:
         + " (Kwiatkowski et al.\\ 1992, null of stationarity, critical values from their Table 1) "
         "rejects for large values. The order "
         f"of integration was decided at the {escape(a)} level, from the highest difference down "
-        "(Dickey \\& Pantula 1987)."
+        "(Dickey \\& Pantula 1987)"
+        + (_UNION_DECIDED if any(union_steps(f.result) for f in run.findings) else ".")
     )
     left = left_out_note(run)
     if left is not None:
