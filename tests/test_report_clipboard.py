@@ -4,7 +4,10 @@ from __future__ import annotations
 
 from html.parser import HTMLParser
 
+import pytest
+
 from tauscope.report.clipboard import findings_html, findings_tsv
+from tauscope.report.deciding import union_steps
 from tauscope.report.tables import deciding_tau
 from test_report_support import make_run
 
@@ -31,8 +34,9 @@ class _Cells(HTMLParser):
             self.rows[-1][-1] += data
 
 
-def test_selection_as_tab_separated_text() -> None:
-    run = make_run()
+@pytest.mark.parametrize("strategy", ["union", "classic"])
+def test_selection_as_tab_separated_text(strategy: str) -> None:
+    run = make_run(strategy=strategy)
     chosen = run.select([run.findings[2].key or "", run.findings[0].name])
     assert [f.name for f in chosen.findings] == [run.findings[0].name, run.findings[2].name]
     lines = findings_tsv(chosen).splitlines()
@@ -44,7 +48,19 @@ def test_selection_as_tab_separated_text() -> None:
         assert cells[0] == finding.name
         assert cells[1] == finding.result.verdict.label
         compared = 0
-        for d, title in enumerate(("Classic τ, levels", "Classic τ, Δy", "Classic τ, Δ²y")):
+        union = union_steps(finding.result)  # what decided under the size-controlled default
+        for d, title in enumerate(("Union M, levels", "Union M, Δy", "Union M, Δ²y")):
+            step = union.get(d)
+            if step is None:
+                assert title not in header or cells[header.index(title)] == ""
+                continue
+            assert float(cells[header.index(title)]) == round(step.statistic, 3)
+            compared += 1
+        assert (compared > 0) == (strategy == "union")
+        for d, title in enumerate(("τ, levels", "τ, Δy", "τ, Δ²y")):
+            if strategy == "union":  # the classic τ stays in the decision path only
+                assert title not in header
+                continue
             test = deciding_tau(finding.result, d)
             if test is None:
                 assert title not in header or cells[header.index(title)] == ""

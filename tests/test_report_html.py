@@ -94,10 +94,18 @@ def test_summary_table_shows_each_verdict_and_tau(page: _Reader) -> None:
             sign = ">" if union.decision == "reject" else "≤"
             assert row[header.index("Union M, levels")] == (
                 f"{fmt.stat(union.statistic, 3)} ({sign}\u00a0{union.critical_value:.2f})")
-        test = deciding_tau(result, 0)
+        assert "τ, levels" not in header  # under the default the classic τ is in the path only
+    classic = make_run(strategy="classic")
+    from tauscope.report.html_export import run_to_html
+
+    page_classic = _Reader()
+    page_classic.feed(run_to_html(classic))
+    header, rows = page_classic.tables[0][0], page_classic.tables[0][1:]
+    for row, finding in zip(rows, classic.findings, strict=True):
+        test = deciding_tau(finding.result, 0)
         if test is None:
             continue
-        cell = row[header.index("Classic τ, levels")]
+        cell = row[header.index("τ, levels")]
         assert cell.startswith(fmt.stat(test.statistic, 3) + marker(test))
 
 

@@ -58,7 +58,7 @@ def summary_table(findings: Sequence[Finding]) -> str:
         lines.append("  ".join([*cells, row[-1]]).rstrip())
     notes = [f"{f.result.name}: {f.result.notes[0]}" for f in findings
              if f.result.ok and f.result.notes and _PREPARED_NOTE.search(f.result.notes[0])]
-    union = union_note((f.result for f in findings), beside_classic=False)
+    union = union_note((f.result for f in findings), classic="")
     if union:
         notes.append(union)
     if notes:

@@ -4,8 +4,9 @@ Under a size-controlled strategy (the default, and its bootstrap variant) the de
 each difference is the union of rejections: the statistic M of Harvey, Leybourne & Taylor
 (2009, 2012) rejects a unit root when it exceeds its critical value.  Only under the classic
 strategy does the ADF τ of the Dickey-Fuller sequence (Dickey & Fuller 1979, 1981) decide.
-The tables show the deciding strategy's M beside the classic path's τ, each under its own
-name, so that a reader never takes the classic τ for the number that decided.
+The spreadsheet summary shows the deciding strategy's M beside the classic path's τ, each
+under its own name, and the short summary shows only the numbers that decided, so that a
+reader never takes the classic τ for the number that decided.
 """
 
 from __future__ import annotations
@@ -20,18 +21,20 @@ UNION_NOTE = (
     "each verdict; it rejects a unit root when it is above its critical value (shown as "
     "\"> value\"; \"≤ value\" when it does not).")
 CLASSIC_BESIDE = " The classic τ is shown beside it for the record."
+CLASSIC_IN_PATH = " The classic sequence's τ is in each series' decision path, for the record."
 BREAK_NOTE = (" A verdict \"around a mean that shifts\" was given by the break test (Lee & "
               "Strazicich 2013), which allows the shift under both hypotheses, after the union "
               "kept a unit root.")
 
 
-def union_note(results: Iterable[SeriesResult], beside_classic: bool = True) -> str:
+def union_note(results: Iterable[SeriesResult], classic: str = CLASSIC_BESIDE) -> str:
     """:data:`UNION_NOTE` when any of these verdicts was decided by the union, else "";
-    with :data:`BREAK_NOTE` when the break test then gave any verdict."""
+    then ``classic`` (where the classic τ is shown, if anywhere), and :data:`BREAK_NOTE`
+    when the break test then gave any verdict."""
     results = list(results)
     if not any(union_steps(r) for r in results):
         return ""
-    note = UNION_NOTE + (CLASSIC_BESIDE if beside_classic else "")
+    note = UNION_NOTE + classic
     if any(break_decided(r) for r in results):
         note += BREAK_NOTE
     return note
@@ -52,8 +55,8 @@ def union_steps(result: SeriesResult) -> dict[int, Step]:
 
 
 def union_differences(results: Iterable[SeriesResult]) -> list[int]:
-    """The differences any result's union was computed on, highest first (the order tested)."""
-    return sorted({d for r in results for d in union_steps(r)}, reverse=True)
+    """The differences any result's union was computed on, levels first."""
+    return sorted({d for r in results for d in union_steps(r)})
 
 
 def union_columns(differences: Iterable[int]) -> list[Column]:

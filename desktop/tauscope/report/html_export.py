@@ -15,7 +15,7 @@ from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.chart_plan import ChartPlan
 from tauscope.report.chart_svg import svg_data_uri
-from tauscope.report.deciding import union_note
+from tauscope.report.deciding import CLASSIC_IN_PATH, union_note
 from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, Finding, RunRecord, chart_for
 from tauscope.report.tables import (
@@ -159,7 +159,7 @@ def summary_note(run: RunRecord) -> str:
             "order.")
     if any(normal_step(f.result, d) is not None for f in run.findings for d in range(3)):
         note += " " + NORMAL_NOTE
-    union = union_note(f.result for f in run.findings)
+    union = union_note((f.result for f in run.findings), CLASSIC_IN_PATH)
     return f"{note} {union}" if union else note
 
 

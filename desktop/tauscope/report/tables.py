@@ -227,16 +227,18 @@ def summary_table(run: RunRecord) -> Table:
 
 
 def compact_table(run: RunRecord) -> Table:
-    """The short summary: verdict, the union's M per difference when a size-controlled strategy
-    decided, the classic path's deciding τ per difference (with markers), KPSS, agreement,
-    and the reason a series could not be tested when any could not."""
-    diffs = sorted({d for f in run.findings for d in range(3) if deciding_tau(f.result, d)})
+    """The short summary: verdict, the numbers that decided on each difference (the union's M
+    under a size-controlled strategy; otherwise the classic path's deciding τ, with markers),
+    KPSS, agreement, and the reason a series could not be tested when any could not.  The
+    classic τ under a size-controlled strategy stays in each series' decision path."""
     union_diffs = union_differences(f.result for f in run.findings)
+    diffs = [] if union_diffs else sorted(
+        {d for f in run.findings for d in range(3) if deciding_tau(f.result, d)})
     columns = [Column("series", "Series"), Column("verdict", "Verdict"),
                Column("nobs", "Obs.", "int"), Column("span", "Span"),
                *union_columns(union_diffs)]
     for d in diffs:
-        columns += [Column(f"tau{d}", f"Classic τ, {DIFFERENCE_SHORT[d]}", "stat"),
+        columns += [Column(f"tau{d}", f"τ, {DIFFERENCE_SHORT[d]}", "stat"),
                     Column(f"tau{d}_sig", "", "text"),
                     Column(f"tau{d}_spec", f"Terms, lags ({DIFFERENCE_SHORT[d]})")]
     columns += [Column("kpss", "KPSS"), Column("agreement", "Cross-check")]
