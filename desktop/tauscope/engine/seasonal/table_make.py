@@ -73,14 +73,14 @@ def _cells_text(keys: list[tuple[int, int]]) -> str:
 
 
 def write(cells: dict[int, Cells], errors: dict[int, Errors], reps: int) -> None:
-    parts = {"CELLS": [], "DATA": [], "SE_1": []}
+    parts: dict[str, list[str]] = {"CELLS": [], "DATA": [], "SE_1": []}
     for period in sorted(LENGTHS):
         keys = sorted(cells[period])
         data = encode(cells[period], names(period)) if keys else ""
         lines = [data[i:i + 104] for i in range(0, len(data), 104)]
         parts["CELLS"].append(f"    {period}: {_cells_text(keys)},\n")
         parts["DATA"].append(f"    {period}: (\n" + "".join(f'        "{line}"\n' for line in lines)
-                             + "    ),\n")
+                             + "    ),\n" if lines else f'    {period}: "",\n')
         entries = [f"{key}: ({', '.join(f'{v:.4f}' for v in errors[period][key])}),"
                    for key in keys]
         parts["SE_1"].append(f"    {period}: {{\n" + "".join(f"        {e}\n" for e in entries)
