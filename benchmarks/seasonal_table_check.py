@@ -6,7 +6,7 @@ For each case (period:length, off the grid of ``seasonal/table_grid.py``) and la
 1, 5 and 10% critical values of every statistic (seasonal dummies) read from the table
 (interpolated in 1/df) against those of ``critical.simulate`` at that length with ``--reps``
 replications and another seed; prints the largest difference per statistic and the
-batch-means standard errors of the table's 1% values (``table.SE_1``), the precision of a cell.
+batch-means standard errors of the table's 1% values (``table_grid.table_errors``), the precision of a cell.
 A difference is interpolation error plus the noise of both simulations.  Nothing here is a
 pass/fail threshold.
 """
@@ -20,10 +20,14 @@ import time
 import numpy as np
 
 from tauscope.engine.distributions.exact_grid import quantile_at
-from tauscope.engine.seasonal import table
 from tauscope.engine.seasonal.critical import LEVELS, simulate_lags
 from tauscope.engine.seasonal.design import statistics_for
-from tauscope.engine.seasonal.table_grid import DETERMINISTIC, seasonal_quantiles
+from tauscope.engine.seasonal.table_grid import (
+    DETERMINISTIC,
+    seasonal_quantiles,
+    table_errors,
+    table_reps,
+)
 
 SEED = 20261203  # not the table's
 BATCHES = 10
@@ -36,9 +40,9 @@ def main() -> None:
     parser.add_argument("--cases", nargs="+", default=["12:200", "12:100", "4:120", "4:60"])
     parser.add_argument("--lags", type=int, nargs="+", default=[0, 4, 8])
     args = parser.parse_args()
-    print(f"table: {table.REPS:,} replications a cell; direct: {args.reps:,}, seed {SEED}")
+    print(f"table: {table_reps():,} replications a cell; direct: {args.reps:,}, seed {SEED}")
     for period in (4, 12):
-        se = np.array(list(table.SE_1[period].values()))
+        se = np.array(list(table_errors(period).values()))
         if se.size:
             names = [s.name for s in statistics_for(period)]
             worst = {name: float(se[:, i].max()) for i, name in enumerate(names)}

@@ -9,8 +9,9 @@ Beaulieu & Miron (1993), *Journal of Econometrics* 55: the auxiliary regression
 t_π1 (the long-run, ordinary unit root), t_π2 (frequency π), an F for each
 pair of complex frequencies, and the joint F over all seasonal frequencies and
 over all frequencies (Ghysels, Lee & Noh 1994).  Critical values and p-values
-come from a simulation at the series' own length and lag order
-(``seasonal_critical``).
+come from the null at the series' own length and lag order (``null.seasonal_null``):
+read from the shipped table for seasonal dummies at the default replications, else
+simulated (``critical``).
 
 Lag order p: chosen on the common sample of p_max (Ng & Perron 1995) by
 

@@ -1,12 +1,12 @@
 """The grid of the seasonal unit-root null table and how it is read.
 
-The table (:mod:`tauscope.engine.seasonal.table`, written by
+The table (the modules of :data:`PARTS`, ``table_quarterly_short`` …, written by
 :mod:`~tauscope.engine.seasonal.table_make`) holds, for seasonal dummies in the regression
 (the cross-check's design), each period S (4, 12), each series length n on :data:`LENGTHS`
 and each lag order p that a default search reaches before the next length, the quantiles at
 :data:`~tauscope.engine.distributions.exact_grid.PROBABILITIES` of every statistic of
 ``design.statistics_for(S)`` (HEGY 1990; Beaulieu & Miron 1993) under the seasonal random
-walk of :func:`tauscope.engine.seasonal.critical.simulate`, from ``table.REPS`` walks with
+walk of :func:`tauscope.engine.seasonal.critical.simulate`, from ``REPS`` walks (each module's) with
 that simulation's seed: a cell holds the direct simulation's quantiles at that many
 replications, to rounding (10⁻⁴).
 
@@ -21,7 +21,9 @@ bracket, or whose lag the shorter cell cannot hold, gets ``None`` (the caller si
 from __future__ import annotations
 
 import bisect
+import importlib
 from functools import lru_cache
+from types import ModuleType
 
 import numpy as np
 
@@ -32,6 +34,14 @@ DETERMINISTIC = "dummies"  # the only design tabulated
 LENGTHS = {
     4: (24, 28, 32, 40, 52, 72, 100, 140, 200, 280, 400),
     12: (48, 60, 72, 96, 120, 168, 240, 360, 480),
+}
+
+# the generated modules (each under the 400-line limit): name → (period, its grid lengths)
+PARTS = {
+    "table_quarterly_short": (4, LENGTHS[4][:6]),
+    "table_quarterly_long": (4, LENGTHS[4][6:]),
+    "table_monthly_short": (12, LENGTHS[12][:5]),
+    "table_monthly_long": (12, LENGTHS[12][5:]),
 }
 
 
@@ -64,25 +74,41 @@ def names(period: int) -> tuple[str, ...]:
     return tuple(stat.name for stat in statistics_for(period))
 
 
+def _parts(period: int) -> list[ModuleType]:
+    """The generated modules of ``period``'s cells (none before the maker's first run)."""
+    found = []
+    for name, (owner, _) in PARTS.items():
+        if owner != period:
+            continue
+        try:
+            found.append(importlib.import_module(f"tauscope.engine.seasonal.{name}"))
+        except ImportError:  # not generated yet
+            continue
+    return found
+
+
 @lru_cache(maxsize=2)
 def _table(period: int) -> dict[tuple[int, int], dict[str, np.ndarray]]:
-    try:
-        from tauscope.engine.seasonal import table
-    except ImportError:  # not generated yet
-        return {}
-    cells, data = table.CELLS.get(period), table.DATA.get(period)
-    if not cells or data is None:
-        return {}
-    return decode(cells, data, names(period))
+    out: dict[tuple[int, int], dict[str, np.ndarray]] = {}
+    for module in _parts(period):
+        if module.CELLS:
+            out.update(decode(module.CELLS, module.DATA, names(period)))
+    return out
 
 
 def table_reps() -> int:
     """The replications behind each cell of the table (0 when it is not generated)."""
-    try:
-        from tauscope.engine.seasonal import table
-    except ImportError:
-        return 0
-    return int(table.REPS)
+    modules = [m for period in LENGTHS for m in _parts(period)]
+    return int(modules[0].REPS) if modules else 0
+
+
+def table_errors(period: int) -> dict[tuple[int, int], tuple[float, ...]]:
+    """(n, p) → batch-means SE of each statistic's 1% critical value (``statistics_for``
+    order), as the maker measured them."""
+    out: dict[tuple[int, int], tuple[float, ...]] = {}
+    for module in _parts(period):
+        out.update(module.SE_1)
+    return out
 
 
 @lru_cache(maxsize=1024)

@@ -1,5 +1,6 @@
-"""Writes :mod:`tauscope.engine.seasonal.table`: quantiles of the seasonal unit-root statistics
-(seasonal dummies in the regression) under the null on a grid of series lengths and lag orders
+"""Writes the seasonal unit-root table (the modules of ``table_grid.PARTS``): quantiles of the
+seasonal unit-root statistics (seasonal dummies in the regression) under the null on a grid of
+series lengths and lag orders
 (:mod:`~tauscope.engine.seasonal.table_grid`), so that a run's simulated values are read, not
 simulated.
 
@@ -24,15 +25,24 @@ from pathlib import Path
 
 import numpy as np
 
-from tauscope.engine.distributions.exact_grid import PROBABILITIES, decode
+from tauscope.engine.distributions.exact_grid import PROBABILITIES
 from tauscope.engine.distributions.exact_table_make import encode
 from tauscope.engine.seasonal.critical import DEFAULT_SEED, simulate_lags
 from tauscope.engine.seasonal.design import statistics_for
-from tauscope.engine.seasonal.table_grid import DETERMINISTIC, LENGTHS, names, table_lags
+from tauscope.engine.seasonal.table_grid import (
+    DETERMINISTIC,
+    LENGTHS,
+    PARTS,
+    _table,
+    names,
+    table_errors,
+    table_lags,
+    table_reps,
+)
 
 REPS = 200_000
 BATCHES = 10
-OUTPUT = Path(__file__).with_name("table.py")
+FOLDER = Path(__file__).parent  # the modules of table_grid.PARTS are written here
 
 Cells = dict[tuple[int, int], dict[str, np.ndarray]]
 Errors = dict[tuple[int, int], tuple[float, ...]]
@@ -58,49 +68,43 @@ def simulate_length(period: int, length: int, lags: tuple[int, ...], reps: int =
 
 
 def _existing() -> tuple[dict[int, Cells], dict[int, Errors], int | None]:
-    if not OUTPUT.exists():
-        return {4: {}, 12: {}}, {4: {}, 12: {}}, None
-    from tauscope.engine.seasonal import table
-
-    cells = {period: decode(table.CELLS[period], table.DATA[period], names(period))
-             for period in LENGTHS}
-    return cells, {period: dict(table.SE_1[period]) for period in LENGTHS}, table.REPS
+    cells = {period: dict(_table(period)) for period in LENGTHS}
+    errors = {period: table_errors(period) for period in LENGTHS}
+    reps = table_reps()
+    return cells, errors, reps or None
 
 
 def _cells_text(keys: list[tuple[int, int]]) -> str:
-    return "(\n" + "".join("        " + " ".join(f"{k!r}," for k in keys[i:i + 7]) + "\n"
-                           for i in range(0, len(keys), 7)) + "    )"
+    return "(\n" + "".join("    " + " ".join(f"{k!r}," for k in keys[i:i + 7]) + "\n"
+                           for i in range(0, len(keys), 7)) + ")"
 
 
 def write(cells: dict[int, Cells], errors: dict[int, Errors], reps: int) -> None:
-    parts: dict[str, list[str]] = {"CELLS": [], "DATA": [], "SE_1": []}
-    for period in sorted(LENGTHS):
-        keys = sorted(cells[period])
-        data = encode(cells[period], names(period)) if keys else ""
-        lines = [data[i:i + 104] for i in range(0, len(data), 104)]
-        parts["CELLS"].append(f"    {period}: {_cells_text(keys)},\n")
-        parts["DATA"].append(f"    {period}: (\n" + "".join(f'        "{line}"\n' for line in lines)
-                             + "    ),\n" if lines else f'    {period}: "",\n')
+    """One module per entry of ``table_grid.PARTS`` (its period's cells at its lengths)."""
+    for name, (period, lengths) in PARTS.items():
+        keys = sorted(key for key in cells[period] if key[0] in lengths)
+        data = encode({key: cells[period][key] for key in keys}, names(period)) if keys else ""
+        lines = [data[i:i + 108] for i in range(0, len(data), 108)]
         entries = [f"{key}: ({', '.join(f'{v:.4f}' for v in errors[period][key])}),"
                    for key in keys]
-        parts["SE_1"].append(f"    {period}: {{\n" + "".join(f"        {e}\n" for e in entries)
-                             + "    },\n")
-    text = (
-        '"""Written by ``python -m tauscope.engine.seasonal.table_make`` (do not edit).\n\n'
-        f"Quantiles of the seasonal unit-root statistics (seasonal dummies) from {reps:,} seasonal\n"
-        f"random walks per (length, lag) cell, seed {DEFAULT_SEED}, by period; decoded by\n"
-        ":func:`tauscope.engine.distributions.exact_grid.decode` (statistics in the order of\n"
-        "``design.statistics_for``).  SE_1: batch-means standard errors of each statistic's 1%\n"
-        "critical value, same order.\n"
-        '"""\n\n'
-        "# ruff: noqa: E501\n"
-        f"REPS = {reps}\n"
-        "CELLS: dict[int, tuple[tuple[int, int], ...]] = {\n" + "".join(parts["CELLS"]) + "}\n"
-        "DATA: dict[int, str] = {\n" + "".join(parts["DATA"]) + "}\n"
-        "SE_1: dict[int, dict[tuple[int, int], tuple[float, ...]]] = {\n"
-        + "".join(parts["SE_1"]) + "}\n"
-    )
-    OUTPUT.write_text(text, encoding="utf-8")
+        per_line = 2 if period == 4 else 1
+        se = "".join("    " + " ".join(entries[i:i + per_line]) + "\n"
+                     for i in range(0, len(entries), per_line))
+        text = (
+            '"""Written by ``python -m tauscope.engine.seasonal.table_make`` (do not edit).\n\n'
+            f"Quantiles of the seasonal unit-root statistics (seasonal dummies), period {period},\n"
+            f"lengths {', '.join(str(n) for n in lengths)}: {reps:,} seasonal random walks per\n"
+            f"length, seed {DEFAULT_SEED}; decoded by\n"
+            ":func:`tauscope.engine.distributions.exact_grid.decode` (statistics in the order of\n"
+            "``design.statistics_for``).  SE_1: batch-means standard errors of each statistic's 1%\n"
+            "critical value, same order.\n"
+            '"""\n\n'
+            f"REPS = {reps}\n"
+            f"CELLS: tuple[tuple[int, int], ...] = {_cells_text(keys)}\n"
+            "DATA = (\n" + "".join(f'    "{line}"\n' for line in lines) + ")\n"
+            "SE_1: dict[tuple[int, int], tuple[float, ...]] = {\n" + se + "}\n"
+        )
+        FOLDER.joinpath(f"{name}.py").write_text(text, encoding="utf-8")
 
 
 def main() -> None:
