@@ -165,11 +165,22 @@ def null_critical_values(name: str, nobs: int, lags: int, reps: int = EXACT_REPS
     """1%, 5%, 10% critical values of ``name`` (``tau_<spec>``, lower tail; ``phi1``-``phi3``,
     upper tail) for the regression (nobs, lags): read from the table when it holds them,
     else simulated with every lag order of this series length (:func:`lag_null`)."""
-    table = _from_table(name, nobs, lags, reps, seed)
-    if table is not None:
-        upper = name in PHI_SPEC
-        return {level: quantile_at(table, 1.0 - a if upper else a) for level, a in LEVELS.items()}
+    if reps == EXACT_REPS and seed == DEFAULT_SEED:
+        read = _table_critical_values(name, int(nobs), int(lags))
+        if read is not None:
+            return dict(read)
     return dict(lag_null(int(nobs), int(lags), int(reps), int(seed), _p_reps(reps)).quantiles[name].values)
+
+
+@lru_cache(maxsize=1024)
+def _table_critical_values(name: str, nobs: int, lags: int) -> tuple[tuple[str, float], ...] | None:
+    """:func:`null_critical_values` read from the table (None when it does not hold the
+    regression), kept per key: every series of one regression size reads the same values."""
+    table = table_quantiles(name, nobs, lags)
+    if table is None:
+        return None
+    upper = name in PHI_SPEC
+    return tuple((level, quantile_at(table, 1.0 - a if upper else a)) for level, a in LEVELS.items())
 
 
 def null_p_value(statistic: float, name: str, nobs: int, lags: int, reps: int = EXACT_REPS,

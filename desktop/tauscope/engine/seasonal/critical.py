@@ -1,5 +1,7 @@
 """Simulated null distributions of the seasonal unit-root statistics at the
-series' own length.
+series' own length (for seasonal dummies at the default replications a test reads the
+shipped table instead, ``null.seasonal_null``; the table's cells are this simulation's
+quantiles at 200,000 replications, ``table_make``).
 
 Under the null every seasonal and the long-run unit root is present: the series
 is a seasonal random walk

@@ -74,6 +74,7 @@ def reading(
     long_run_root: bool,
     reps: int,
     n: int,
+    tabulated: bool = False,
 ) -> tuple[str, str | None]:
     """(text, suggestion) for one series; suggestion is None when no seasonal
     unit root was found."""
@@ -81,8 +82,9 @@ def reading(
     method = _METHOD[period]
     setup = (
         f"the {method} (with {_TERMS[deterministic]}, {lags or 'no'} lagged seasonal "
-        f"difference{'s' if lags != 1 else ''}, critical values simulated at this length "
-        f"from {reps:,} replications)"
+        f"difference{'s' if lags != 1 else ''}, critical values "
+        + (f"read at this length from a table simulated with {reps:,} replications a length)"
+           if tabulated else f"simulated at this length from {reps:,} replications)")
     )
     by_cycle = [t for t in tests if t.cycles_per_year not in (None, 0)]
     long_run = next(t for t in tests if t.cycles_per_year == 0)

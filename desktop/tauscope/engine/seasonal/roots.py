@@ -9,8 +9,9 @@ Beaulieu & Miron (1993), *Journal of Econometrics* 55: the auxiliary regression
 t_π1 (the long-run, ordinary unit root), t_π2 (frequency π), an F for each
 pair of complex frequencies, and the joint F over all seasonal frequencies and
 over all frequencies (Ghysels, Lee & Noh 1994).  Critical values and p-values
-come from a simulation at the series' own length and lag order
-(``seasonal_critical``).
+come from the null at the series' own length and lag order (``null.seasonal_null``):
+read from the shipped table for seasonal dummies at the default replications, else
+simulated (``critical``).
 
 Lag order p: chosen on the common sample of p_max (Ng & Perron 1995) by
 
@@ -45,11 +46,8 @@ import numpy as np
 from tauscope.engine.seasonal.critical import (
     DEFAULT_REPS,
     DEFAULT_SEED,
-    critical_values,
     default_max_lags,
     minimum_length,
-    p_value_sorted,
-    sorted_draws,
 )
 from tauscope.engine.seasonal.design import (
     BatchFit,
@@ -62,6 +60,7 @@ from tauscope.engine.seasonal.design import (
     statistics,
     statistics_for,
 )
+from tauscope.engine.seasonal.null import SeasonalNull, seasonal_null
 from tauscope.engine.seasonal.reading import reading
 from tauscope.engine.seasonal.results import SeasonalRootsResult, SeasonalTest
 
@@ -224,12 +223,16 @@ def seasonal_unit_roots(
     else:
         chosen = choose_lags(y, period, deterministic, lag_rule, p_max)
     found = seasonal_statistics(y, period, deterministic, chosen)
-    draws = sorted_draws(period, deterministic, n, chosen, reps, seed)
-    table = critical_values(period, deterministic, n, chosen, reps, seed)
+    null = seasonal_null(period, deterministic, n, chosen, reps, seed)
     stats = statistics_for(period)
-    p_values = [p_value_sorted(draws[i], found[stat.name], stat.kind) for i, stat in enumerate(stats)]
+    p_values: list[float | None] = []
+    bounds: list[str | None] = []
+    for i, stat in enumerate(stats):
+        p, bound = null.p_values(i, np.array([found[stat.name]]), stat.kind)
+        p_values.append(p[0])
+        bounds.append(bound[0])
     return roots_result(RootsKey(period, deterministic, lag_rule, p_max, n, alpha, reps, seed),
-                        chosen, [found[stat.name] for stat in stats], table, p_values)
+                        chosen, [found[stat.name] for stat in stats], null, p_values, bounds)
 
 
 @dataclass(frozen=True)
@@ -246,15 +249,17 @@ class RootsKey:
     seed: int
 
 
-def roots_result(key: RootsKey, chosen: int, values: Sequence[float],
-                 table: dict[str, dict[str, float]],
-                 p_values: Sequence[float | None]) -> SeasonalRootsResult:
+def roots_result(key: RootsKey, chosen: int, values: Sequence[float], null: SeasonalNull,
+                 p_values: Sequence[float | None],
+                 bounds: Sequence[str | None]) -> SeasonalRootsResult:
     """The result of one series from its lag order, statistics (``statistics_for``
-    order), the critical values at its key and its p-values."""
-    period, deterministic, alpha, reps, n = key.period, key.deterministic, key.alpha, key.reps, key.n
+    order), the null distribution at its length and lag order (critical values, the
+    replications behind them) and its p-values with their bounds (``SeasonalNull.p_values``)."""
+    period, deterministic, alpha, n = key.period, key.deterministic, key.alpha, key.n
+    reps, table = null.reps, null.critical_values
     label = ALPHAS[alpha]
     tests = []
-    for stat, value, p in zip(statistics_for(period), values, p_values, strict=True):
+    for stat, value, p, bound in zip(statistics_for(period), values, p_values, bounds, strict=True):
         crit = table[stat.name]
         reject = value < crit[label] if stat.kind == "t" else value > crit[label]
         tests.append(
@@ -266,7 +271,7 @@ def roots_result(key: RootsKey, chosen: int, values: Sequence[float],
                 statistic=value,
                 critical_values=dict(crit),
                 p_value=p,
-                p_value_bound="below" if p is None and np.isfinite(value) else None,
+                p_value_bound=bound or ("below" if p is None and np.isfinite(value) else None),
                 reject=bool(reject),
             )
         )
@@ -283,6 +288,7 @@ def roots_result(key: RootsKey, chosen: int, values: Sequence[float],
         long_run_root=long_run,
         reps=reps,
         n=n,
+        tabulated=null.tabulated,
     )
     return SeasonalRootsResult(
         method="hegy" if period == 4 else "beaulieu_miron",

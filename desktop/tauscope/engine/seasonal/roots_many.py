@@ -20,11 +20,8 @@ import numpy as np
 from tauscope.engine.seasonal.critical import (
     DEFAULT_REPS,
     DEFAULT_SEED,
-    critical_values,
     default_max_lags,
     minimum_length,
-    p_values_sorted,
-    sorted_draws,
 )
 from tauscope.engine.seasonal.design import (
     build,
@@ -32,6 +29,7 @@ from tauscope.engine.seasonal.design import (
     n_deterministic,
     statistics_for,
 )
+from tauscope.engine.seasonal.null import seasonal_null
 from tauscope.engine.seasonal.results import SeasonalRootsResult
 from tauscope.engine.seasonal.roots import (
     RootsKey,
@@ -102,15 +100,14 @@ def _batch(values: np.ndarray, period: int, deterministic: str, rule: str, p_max
     for lag in np.unique(chosen):
         members = np.flatnonzero(chosen == lag)
         found, fine = _statistics(y[members], period, deterministic, int(lag))
-        draws = sorted_draws(period, deterministic, n, int(lag), key.reps, key.seed)
-        table = critical_values(period, deterministic, n, int(lag), key.reps, key.seed)
-        p_columns = [p_values_sorted(draws[i], found[:, i], stat.kind) for i, stat in enumerate(stats)]
+        null = seasonal_null(period, deterministic, n, int(lag), key.reps, key.seed)
+        columns = [null.p_values(i, found[:, i], stat.kind) for i, stat in enumerate(stats)]
         for j, member in enumerate(members):
             if not fine[j]:
                 continue  # tested one by one: its error sentence
-            p_values = [column[j] for column in p_columns]
-            out[int(rows[member])] = roots_result(key, int(lag), [float(v) for v in found[j]],
-                                                  table, p_values)
+            out[int(rows[member])] = roots_result(
+                key, int(lag), [float(v) for v in found[j]], null,
+                [p[j] for p, _ in columns], [b[j] for _, b in columns])
 
 
 def choose_lags_many(y: np.ndarray, period: int, deterministic: str, rule: str,

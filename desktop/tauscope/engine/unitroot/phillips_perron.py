@@ -31,6 +31,7 @@ plug-in rule for the Bartlett kernel in the form of Hobijn, Franses & Ooms
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 
 import numpy as np
 
@@ -119,7 +120,13 @@ def phillips_perron(x: np.ndarray, spec: str, bandwidth: int | None = None) -> P
 
 def z_alpha_critical_values(spec: str, nobs: int, reps: int = EXACT_REPS,
                             seed: int = DEFAULT_SEED) -> dict[str, float]:
-    """Simulated lower-tail critical values of Zα (the coefficient statistic n(ρ̂ − 1))."""
+    """Simulated lower-tail critical values of Zα (the coefficient statistic n(ρ̂ − 1)); the
+    quantiles of a key are taken once and kept (a fresh copy each call)."""
+    return dict(_z_alpha_critical_values(spec, int(nobs), int(reps), int(seed)))
+
+
+@lru_cache(maxsize=256)
+def _z_alpha_critical_values(spec: str, nobs: int, reps: int, seed: int) -> dict[str, float]:
     return lower_critical_values(coefficient_null_distribution(spec, nobs, reps, seed))
 
 
