@@ -37,8 +37,10 @@ the scale of y, and the regression stays well conditioned at any scale.
 
 from __future__ import annotations
 
+import math
 from collections.abc import Sequence
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
@@ -53,6 +55,7 @@ from tauscope.engine.seasonal.critical import (
 )
 from tauscope.engine.seasonal.design import (
     BatchFit,
+    Statistic,
     build,
     check_deterministic,
     check_period,
@@ -246,6 +249,12 @@ class RootsKey:
     seed: int
 
 
+@lru_cache(maxsize=4)
+def _statistics_of(period: int) -> tuple[Statistic, ...]:
+    """``statistics_for(period)``, built once per period (the statistics are frozen)."""
+    return statistics_for(period)
+
+
 def roots_result(key: RootsKey, chosen: int, values: Sequence[float],
                  table: dict[str, dict[str, float]],
                  p_values: Sequence[float | None]) -> SeasonalRootsResult:
@@ -254,7 +263,7 @@ def roots_result(key: RootsKey, chosen: int, values: Sequence[float],
     period, deterministic, alpha, reps, n = key.period, key.deterministic, key.alpha, key.reps, key.n
     label = ALPHAS[alpha]
     tests = []
-    for stat, value, p in zip(statistics_for(period), values, p_values, strict=True):
+    for stat, value, p in zip(_statistics_of(period), values, p_values, strict=True):
         crit = table[stat.name]
         reject = value < crit[label] if stat.kind == "t" else value > crit[label]
         tests.append(
@@ -266,7 +275,7 @@ def roots_result(key: RootsKey, chosen: int, values: Sequence[float],
                 statistic=value,
                 critical_values=dict(crit),
                 p_value=p,
-                p_value_bound="below" if p is None and np.isfinite(value) else None,
+                p_value_bound="below" if p is None and math.isfinite(value) else None,
                 reject=bool(reject),
             )
         )
