@@ -77,8 +77,9 @@ class PreparedSeries:
             return str(self.index[position])
         return f"observation {position + 1}"
 
-    @property
+    @cached_property
     def periods_per_year(self) -> float | None:
+        """Observations per year from the index's frequency (None without one); found once."""
         if self.index is None:
             return None
         code: str | None = None

@@ -105,12 +105,12 @@ def _batch(values: np.ndarray, period: int, deterministic: str, rule: str, p_max
         draws = sorted_draws(period, deterministic, n, int(lag), key.reps, key.seed)
         table = critical_values(period, deterministic, n, int(lag), key.reps, key.seed)
         p_columns = [p_values_sorted(draws[i], found[:, i], stat.kind) for i, stat in enumerate(stats)]
-        for j, member in enumerate(members):
-            if not fine[j]:
-                continue  # tested one by one: its error sentence
-            p_values = [column[j] for column in p_columns]
-            out[int(rows[member])] = roots_result(key, int(lag), [float(v) for v in found[j]],
-                                                  table, p_values)
+        p_rows = list(zip(*p_columns, strict=True))  # each member's p-values, in stats order
+        values = found.tolist()  # plain floats, as float(v) gives them
+        origin = rows[members].tolist()
+        lag_order = int(lag)
+        for j in np.flatnonzero(fine).tolist():  # the others are tested one by one
+            out[origin[j]] = roots_result(key, lag_order, values[j], table, p_rows[j])
 
 
 def choose_lags_many(y: np.ndarray, period: int, deterministic: str, rule: str,
