@@ -66,7 +66,6 @@ from tauscope.engine.distributions.break_null import (
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.procedure.prepare import PreparedSeries
 from tauscope.engine.reading.breaks import break_sentence
-from tauscope.engine.reading.notes import find_jump
 from tauscope.engine.reading.verdicts import agreement
 from tauscope.engine.regression.lagchoice import choose_lag, nested_criterion_lag
 from tauscope.engine.results import RecursiveStatistic, TestResult
@@ -93,17 +92,17 @@ _FAILURES = (UntestableSeries, np.linalg.LinAlgError, ValueError, ZeroDivisionEr
 
 
 def break_reasons(x: np.ndarray, order: int | None, kpss: Sequence[tuple[TestResult, bool]],
-                  recursive: RecursiveStatistic | None) -> tuple[tuple[str, ...], int | None]:
-    """(the signs of a break that fire, the jump detector's position or None)."""
+                  recursive: RecursiveStatistic | None, jump: int | None) -> tuple[str, ...]:
+    """The signs of a break that fire; ``jump``: the jump detector's position on ``x``
+    (:func:`tauscope.engine.reading.notes.find_jump`, held as ``PreparedSeries.jump``) or None."""
     reasons: list[str] = []
-    jump = find_jump(x)
     if jump is not None:
         reasons.append("jump")
     if kpss and agreement(order, list(kpss)) == "conflict":
         reasons.append("conflict")
     if recursive is not None and swings(recursive, x.shape[0]):
         reasons.append("swing")
-    return tuple(reasons), jump
+    return tuple(reasons)
 
 
 def swings(recursive: RecursiveStatistic, length: int) -> bool:
@@ -224,7 +223,8 @@ def check_breaks(prepared: PreparedSeries, order: int | None, kpss: Sequence[tup
             else recursive_by(swing_x, spec, lags, difference, alpha))
     except _FAILURES:
         recursive = None
-    reasons, jump = break_reasons(x, order, kpss, recursive)
+    jump = prepared.jump
+    reasons = break_reasons(x, order, kpss, recursive, jump)
     jump_label = None if jump is None else prepared.label(jump)
     if not reasons:
         return BreakCheck(False, (), NOT_SUSPECTED)

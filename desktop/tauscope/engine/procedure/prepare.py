@@ -10,6 +10,7 @@ import numpy as np
 import pandas as pd
 
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.reading.notes import find_jump
 from tauscope.engine.regression.scaling import power_of_two_scale, scaled
 from tauscope.engine.results_seasonal import SeasonalMeans
 from tauscope.engine.seasonal.means import remove_seasonal_means
@@ -44,11 +45,31 @@ class PreparedSeries:
 
     def level(self, difference: int) -> np.ndarray:
         """Δ^d of the standardised series, with its fixed seasonal means removed when the
-        tests allow for them (:mod:`tauscope.engine.seasonal.means`, at each difference)."""
-        x = self.standardised
-        xd = np.diff(x, n=difference) if difference else x
-        period = self.dummies_period
-        return xd if period is None else np.asarray(remove_seasonal_means(xd, period))
+        tests allow for them (:mod:`tauscope.engine.seasonal.means`, at each difference).
+        Computed once per difference (the estimate and the cross-check ask for the same
+        ones) and held read-only, since every caller gets the same array."""
+        found = self._levels.get(difference)
+        if found is None:
+            x = self.standardised
+            found = np.diff(x, n=difference) if difference else x
+            period = self.dummies_period
+            if period is not None:
+                found = np.asarray(remove_seasonal_means(found, period))
+            if found is not x:
+                found.setflags(write=False)
+            self._levels[difference] = found
+        return found
+
+    @cached_property
+    def _levels(self) -> dict[int, np.ndarray]:
+        return {}
+
+    @cached_property
+    def jump(self) -> int | None:
+        """The jump detector's position on the standardised series
+        (:func:`tauscope.engine.reading.notes.find_jump`), asked by the break check and
+        the reading alike."""
+        return find_jump(self.standardised)
 
     def label(self, position: int) -> str:
         """A readable name for observation ``position`` (0-based, after trimming)."""
@@ -56,8 +77,9 @@ class PreparedSeries:
             return str(self.index[position])
         return f"observation {position + 1}"
 
-    @property
+    @cached_property
     def periods_per_year(self) -> float | None:
+        """Observations per year from the index's frequency (None without one); found once."""
         if self.index is None:
             return None
         code: str | None = None

@@ -24,7 +24,7 @@ from tauscope.engine.reading.breaks import (
 )
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
 from tauscope.engine.reading.grade import first_autocorrelation, grade, seasonal_root_reason
-from tauscope.engine.reading.notes import NoteContext, build_notes, find_jump, seasonal_pattern
+from tauscope.engine.reading.notes import NoteContext, build_notes, seasonal_pattern
 from tauscope.engine.reading.seasonal import seasonal_found, seasonal_notes
 from tauscope.engine.reading.strategies import (
     classic_sentence,
@@ -175,7 +175,7 @@ def read_evidence(extra: ExtraEvidence, order: int | None, kpss: Sequence[TestRe
 
 
 def _jump_label(prepared: PreparedSeries) -> str | None:
-    position = find_jump(prepared.standardised)  # scale-free; no overflow near 1e308
+    position = prepared.jump  # on the standardised series: scale-free, no overflow near 1e308
     if position is None:
         return None
     return f"{prepared.label(position)} (from {prepared.label(position - 1)})"

@@ -38,8 +38,10 @@ the scale of y, and the regression stays well conditioned at any scale.
 
 from __future__ import annotations
 
+import math
 from collections.abc import Sequence
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
@@ -51,6 +53,7 @@ from tauscope.engine.seasonal.critical import (
 )
 from tauscope.engine.seasonal.design import (
     BatchFit,
+    Statistic,
     build,
     check_deterministic,
     check_period,
@@ -249,6 +252,12 @@ class RootsKey:
     seed: int
 
 
+@lru_cache(maxsize=4)
+def _statistics_of(period: int) -> tuple[Statistic, ...]:
+    """``statistics_for(period)``, built once per period (the statistics are frozen)."""
+    return statistics_for(period)
+
+
 def roots_result(key: RootsKey, chosen: int, values: Sequence[float], null: SeasonalNull,
                  p_values: Sequence[float | None],
                  bounds: Sequence[str | None]) -> SeasonalRootsResult:
@@ -259,7 +268,7 @@ def roots_result(key: RootsKey, chosen: int, values: Sequence[float], null: Seas
     reps, table = null.reps, null.critical_values
     label = ALPHAS[alpha]
     tests = []
-    for stat, value, p, bound in zip(statistics_for(period), values, p_values, bounds, strict=True):
+    for stat, value, p, bound in zip(_statistics_of(period), values, p_values, bounds, strict=True):
         crit = table[stat.name]
         reject = value < crit[label] if stat.kind == "t" else value > crit[label]
         tests.append(
@@ -271,7 +280,7 @@ def roots_result(key: RootsKey, chosen: int, values: Sequence[float], null: Seas
                 statistic=value,
                 critical_values=dict(crit),
                 p_value=p,
-                p_value_bound=bound or ("below" if p is None and np.isfinite(value) else None),
+                p_value_bound=bound or ("below" if p is None and math.isfinite(value) else None),
                 reject=bool(reject),
             )
         )

@@ -102,12 +102,14 @@ def _batch(values: np.ndarray, period: int, deterministic: str, rule: str, p_max
         found, fine = _statistics(y[members], period, deterministic, int(lag))
         null = seasonal_null(period, deterministic, n, int(lag), key.reps, key.seed)
         columns = [null.p_values(i, found[:, i], stat.kind) for i, stat in enumerate(stats)]
-        for j, member in enumerate(members):
-            if not fine[j]:
-                continue  # tested one by one: its error sentence
-            out[int(rows[member])] = roots_result(
-                key, int(lag), [float(v) for v in found[j]], null,
-                [p[j] for p, _ in columns], [b[j] for _, b in columns])
+        p_rows = list(zip(*(p for p, _ in columns), strict=True))  # each member's, stats order
+        bound_rows = list(zip(*(b for _, b in columns), strict=True))
+        values = found.tolist()  # plain floats, as float(v) gives them
+        origin = rows[members].tolist()
+        lag_order = int(lag)
+        for j in np.flatnonzero(fine).tolist():  # the others are tested one by one
+            out[origin[j]] = roots_result(key, lag_order, values[j], null, p_rows[j],
+                                          bound_rows[j])
 
 
 def choose_lags_many(y: np.ndarray, period: int, deterministic: str, rule: str,

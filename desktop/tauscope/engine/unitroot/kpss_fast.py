@@ -25,6 +25,7 @@ is not finite) goes to the statsmodels version, so errors read the same.
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 
 import numpy as np
 
@@ -45,19 +46,27 @@ _LARGEST = 1e100  # beyond this, squares and cumulated sums could overflow: stat
 def _residuals(x: np.ndarray, spec: str) -> np.ndarray:
     if spec != "trend":
         return np.asarray(x - x.mean())
-    t = np.arange(1, x.shape[0] + 1, dtype=float)
-    t_centred = t - t.mean()
-    slope = float(np.dot(t_centred, x - x.mean()) / np.dot(t_centred, t_centred))
-    return np.asarray(x - x.mean() - slope * t_centred)
+    t_centred = _centred_time(x.shape[0])
+    deviations = x - x.mean()
+    slope = float(np.dot(t_centred, deviations) / np.dot(t_centred, t_centred))
+    return np.asarray(deviations - slope * t_centred)
 
 
-def _bandwidth(resids: np.ndarray, nobs: int) -> int | None:
-    covlags = int(np.power(nobs, 2.0 / 9.0))
-    s0 = np.sum(resids**2) / nobs
+@lru_cache(maxsize=64)
+def _centred_time(nobs: int) -> np.ndarray:
+    """t − t̄ for t = 1 … T, once per length (read-only)."""
+    t = np.arange(1, nobs + 1, dtype=float)
+    out = t - t.mean()
+    out.setflags(write=False)
+    return out
+
+
+def _bandwidth(s0: float, products: list[float], nobs: int) -> int | None:
+    """``s0``: Σ e²; ``products[i − 1]``: Σ_t e_t e_{t−i} for i = 1 … ⌊T^{2/9}⌋."""
+    s0 = s0 / nobs
     s1 = 0.0
-    for i in range(1, covlags + 1):
-        product = np.dot(resids[i:], resids[: nobs - i])
-        product /= nobs / 2.0
+    for i, raw in enumerate(products, start=1):
+        product = raw / (nobs / 2.0)
         s0 += product
         s1 += i * product
     if s0 == 0.0:
@@ -68,10 +77,12 @@ def _bandwidth(resids: np.ndarray, nobs: int) -> int | None:
     return int(gamma_hat * np.power(nobs, power))
 
 
-def _long_run_variance(resids: np.ndarray, nobs: int, lags: int) -> float:
-    s_hat = np.sum(resids**2)
+def _long_run_variance(resids: np.ndarray, nobs: int, lags: int, squares: float,
+                       products: list[float]) -> float:
+    """``squares``: Σ e²; ``products``: the autocovariance sums already taken (reused)."""
+    s_hat = squares
     for i in range(1, lags + 1):
-        product = np.dot(resids[i:], resids[: nobs - i])
+        product = products[i - 1] if i <= len(products) else np.dot(resids[i:], resids[: nobs - i])
         s_hat += 2 * product * (1.0 - (i / (lags + 1.0)))
     return float(s_hat / nobs)
 
@@ -84,12 +95,15 @@ def kpss_statistic(x: np.ndarray, spec: str) -> tuple[float, int] | None:
     resids = _residuals(x, spec)
     if not float(np.dot(resids, resids)) > 0.0:
         return None
-    bandwidth = _bandwidth(resids, nobs)
+    squares = np.sum(resids**2)
+    covlags = int(np.power(nobs, 2.0 / 9.0))
+    products = [np.dot(resids[i:], resids[: nobs - i]) for i in range(1, covlags + 1)]
+    bandwidth = _bandwidth(squares, products, nobs)
     if bandwidth is None:
         return None
     lags = min(bandwidth, nobs - 1)
     eta = float(np.sum(resids.cumsum() ** 2) / (nobs**2))
-    s_hat = _long_run_variance(resids, nobs, lags)
+    s_hat = _long_run_variance(resids, nobs, lags, squares, products)
     if not (s_hat > 0.0 and math.isfinite(eta) and math.isfinite(s_hat)):
         return None
     return eta / s_hat, lags

@@ -94,18 +94,20 @@ def _fit(dx: np.ndarray, s: np.ndarray, e: np.ndarray, positions: np.ndarray,
     c = positions.shape[0]
     n = dx.shape[0] - k
     m = 2 + k
-    design = np.empty((c, n, m))
-    design[:, :, 0] = 1.0
-    design[:, :, 1] = s[:, k:k + n]
+    # held column by column, (candidates, columns, rows): each candidate's Gram is then
+    # one product of a contiguous matrix with its transpose
+    columns = np.empty((c, m, n))
+    columns[:, 0, :] = 1.0
+    columns[:, 1, :] = s[:, k:k + n]
     for i in range(1, k + 1):
-        design[:, :, 1 + i] = e[:, k - i:k - i + n]
+        columns[:, 1 + i, :] = e[:, k - i:k - i + n]
     y = dx[k:]
-    gram = np.matmul(design.transpose(0, 2, 1), design)
-    cross = np.matmul(design.transpose(0, 2, 1), y)
+    gram = np.matmul(columns, columns.transpose(0, 2, 1))
+    cross = np.matmul(columns, y)
     yy = np.full(c, float(y @ y))
     # The impulse's row r = TB leaves the fit: take its products out again.
     inside = np.flatnonzero(positions >= k)
-    dropped = design[inside, positions[inside] - k, :]  # (candidates, m)
+    dropped = columns[inside, :, positions[inside] - k]  # (candidates, m)
     y_dropped = y[positions[inside] - k]
     gram[inside] -= dropped[:, :, None] * dropped[:, None, :]
     cross[inside] -= dropped * y_dropped[:, None]
