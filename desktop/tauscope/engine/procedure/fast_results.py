@@ -5,9 +5,8 @@
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, fields
+from dataclasses import dataclass
 from functools import lru_cache
-from typing import Any, TypeVar
 
 import numpy as np
 
@@ -17,8 +16,6 @@ from tauscope.engine.regression.lagchoice import LagChoice
 from tauscope.engine.regression.nested import Estimates
 from tauscope.engine.results import Coefficient, Regression, TestResult
 from tauscope.engine.unitroot import phi as joint
-
-_T = TypeVar("_T")
 
 
 @dataclass
@@ -38,21 +35,6 @@ class LevelBatch:
 
 
 _column_names = lru_cache(maxsize=512)(column_names)
-_new = object.__new__
-_FIELDS = {cls: frozenset(f.name for f in fields(cls)) for cls in (Coefficient, Regression, TestResult)}
-for _cls in _FIELDS:  # what _frozen relies on: a plain frozen dataclass, nothing run at init
-    assert vars(_cls)["__dataclass_params__"].frozen and not hasattr(_cls, "__post_init__")
-    assert not hasattr(_cls, "__slots__")
-
-
-def _frozen(cls: type[_T], values: dict[str, Any]) -> _T:
-    """An instance of the frozen dataclass ``cls`` with every field given in ``values``,
-    its ``__dict__`` filled at once (the generated ``__init__`` of a frozen dataclass calls
-    ``object.__setattr__`` once per field, which dominated building 9 results per series).
-    The same object as ``cls(**values)``: equal, same hash and repr."""
-    obj = _new(cls)
-    obj.__dict__.update(values)
-    return obj
 _NO_DESIGN = np.empty((0, 0))
 _NO_RESPONSE = np.empty(0)
 _NO_DESIGN.flags.writeable = False
@@ -65,11 +47,14 @@ def _coefficients(spec: str, lags: int, params: list[float], bse: list[float], s
     standard errors × ``scale`` (exact, a power of two), every t ratio as fitted
     (:func:`tauscope.engine.procedure.units.regression_in_units`)."""
     names = _column_names(spec, lags)
-    terms = len(DETERMINISTIC_TERMS[spec]) if scale != 1.0 else 0
+    if scale == 1.0:
+        return tuple(
+            Coefficient(name, params[j], bse[j], params[j] / bse[j]) for j, name in enumerate(names)
+        )
+    terms = len(DETERMINISTIC_TERMS[spec])
     return tuple(
-        _frozen(Coefficient, {"name": name, "estimate": params[j] * scale if j < terms else params[j],
-                              "std_error": bse[j] * scale if j < terms else bse[j],
-                              "t_value": params[j] / bse[j]})
+        Coefficient(name, params[j] * scale, bse[j] * scale, params[j] / bse[j]) if j < terms
+        else Coefficient(name, params[j], bse[j], params[j] / bse[j])
         for j, name in enumerate(names)
     )
 
@@ -99,38 +84,37 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
     rss = float(est.rss[i])
     coefficients = _coefficients(spec, lags, est.params[i].tolist(), est.bse[i].tolist(), scale)
     sigma2 = rss / (nobs - len(coefficients))
-    regression = _frozen(Regression, {
-        "spec": spec,
-        "difference": level.difference,
-        "lags": lags,
-        "lag_rule": choice.rule,
-        "max_lags": choice.max_lags,
-        "nobs": nobs,
-        "first_observation": lags + 1,
-        "coefficients": coefficients,
-        "sigma2": sigma2 if scale == 1.0 else sigma2 * scale * scale,
-        "rss": rss if scale == 1.0 else rss * scale * scale,
-        "lag_criteria": _criteria_in_units(choice, nobs, scale),
-        "design": _NO_DESIGN,  # not kept: the results of many series would hold every design
-        "response": _NO_RESPONSE,
-    })
+    regression = Regression(
+        spec=spec,
+        difference=level.difference,
+        lags=lags,
+        lag_rule=choice.rule,
+        max_lags=choice.max_lags,
+        nobs=nobs,
+        first_observation=lags + 1,
+        coefficients=coefficients,
+        sigma2=sigma2 if scale == 1.0 else sigma2 * scale * scale,
+        rss=rss if scale == 1.0 else rss * scale * scale,
+        lag_criteria=_criteria_in_units(choice, nobs, scale),
+        design=_NO_DESIGN,  # not kept: the results of many series would hold every design
+        response=_NO_RESPONSE,
+    )
     tau = coefficients[len(DETERMINISTIC_TERMS[spec])].t_value
     critical = fast_tables.tau_critical_value(spec, nobs, alpha)
-    return _frozen(TestResult, {
-        "test": "adf",
-        "spec": spec,
-        "difference": level.difference,
-        "statistic": tau,
-        "p_value": fast_tables.tau_p_value(tau, spec),
-        "lags": lags,
-        "nobs": nobs,
-        "critical_values": fast_tables.tau_critical_values(spec, nobs),
-        "reject": bool(tau < critical),
-        "critical_value": critical,
-        "p_value_bound": None,
-        "lag_rule": choice.rule,
-        "regression": regression,
-    })
+    return TestResult(
+        test="adf",
+        spec=spec,
+        difference=level.difference,
+        statistic=tau,
+        p_value=fast_tables.tau_p_value(tau, spec),
+        lags=lags,
+        nobs=nobs,
+        critical_values=fast_tables.tau_critical_values(spec, nobs),
+        reject=bool(tau < critical),
+        critical_value=critical,
+        lag_rule=choice.rule,
+        regression=regression,
+    )
 
 
 def phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:
