@@ -41,6 +41,7 @@ from tauscope.engine.unitroot.union import (
     orders_from_rejections,
     rejections_at,
     union_constants,
+    union_order,
     union_orders,
     union_power,
     union_rule,
@@ -118,8 +119,8 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, period=period)
         at = {a: orders_from_rejections(rejections_at(result.levels, a, period=period), max_difference)
               for a in OTHER_ALPHAS}
-        long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
-                            lag_scale=LONG_LAG_SCALE, known=result, period=period).order
+        long = union_order(xs, rule, alpha, max_difference, max_lags, fixed,
+                           lag_scale=LONG_LAG_SCALE, known=result, period=period)
     boot: dict[int, BootstrapLevel] = {}
     order_all, labels, trend_z = result.order, result.deterministic, result.trend_z
     if bootstrap:
