@@ -15,6 +15,7 @@ once on the fast path (:mod:`tauscope.engine.procedure.union_estimate`).
 from __future__ import annotations
 
 from dataclasses import replace
+from functools import lru_cache
 
 import numpy as np
 
@@ -28,17 +29,23 @@ from tauscope.engine.results import LevelTests
 
 def max_lags_for(n: int, options: EstimateOptions) -> tuple[int, tuple[int, int] | None]:
     """The maximum lag order for a series of n values, and (wanted, used) if reduced."""
+    return _max_lags(int(n), options.lag_rule, options.lags, options.max_lags)
+
+
+@lru_cache(maxsize=1024)
+def _max_lags(n: int, lag_rule: str, lags: int | None, max_lags: int | None) -> tuple[int, tuple[int, int] | None]:
+    """:func:`max_lags_for`, kept per length and lag settings (asked per series and level)."""
     cap = max_lag_cap(n)
     if cap < 0:
         raise UntestableSeries(f"with {n} values there are too few observations for the regressions")
-    if options.lag_rule == "fixed":
-        assert options.lags is not None
-        if options.lags > cap:
+    if lag_rule == "fixed":
+        assert lags is not None
+        if lags > cap:
             raise UntestableSeries(
-                f"a fixed lag order of {options.lags} is too large for {n} values (at most {cap})"
+                f"a fixed lag order of {lags} is too large for {n} values (at most {cap})"
             )
-        return options.lags, None
-    wanted = options.max_lags if options.max_lags is not None else schwert_max_lag(n)
+        return lags, None
+    wanted = max_lags if max_lags is not None else schwert_max_lag(n)
     if wanted > cap:
         return cap, (wanted, cap)
     return wanted, None

@@ -13,6 +13,8 @@ reference's own.
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 import numpy as np
 
 from tauscope.engine.distributions import tables as fast_tables
@@ -116,7 +118,7 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
             continue
         fits = block_fits(common[spec], len(DETERMINISTIC_TERMS[spec]), p, nobs)
         if rule == "maic":
-            values, maic_declined = _maic(xs, spec, p, fits, rows[:, :, Y_LAG] + centres[:, None])
+            values, maic_declined = _maic(xs, spec, p, fits, rows[:, :, Y_LAG] + centres[:, None], a_trend)
             declined |= maic_declined
         elif rule in ("aic", "bic", "hqc"):
             values = criterion_values(fits, rule, nobs)
@@ -146,9 +148,16 @@ def _uncentred_rows(rows: np.ndarray, centres: np.ndarray) -> np.ndarray:
     return out
 
 
-def _maic(xs: np.ndarray, spec: str, p: int, fits: BlockFits,
-          y_lag: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """MAIC on the OLS-detrended series (Perron & Qu 2007) with the no-deterministic design."""
+def _maic(xs: np.ndarray, spec: str, p: int, fits: BlockFits, y_lag: np.ndarray,
+          a_trend: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """MAIC on the OLS-detrended series (Perron & Qu 2007) with the no-deterministic design.
+
+    With x̃_t = x_t − m − β0 − β1 t (β the OLS fit of the centred series on [1, t], t = 1…T;
+    β1 = 0 for "constant"), the design [x̃(t−1), Δx̃(t−1…p), Δx̃(t)] on the common sample is
+    the full design X (centred, :func:`full_design`) times a (K+1)×(p+2) matrix T:
+    x̃(t−1) = y(t−1) − β0·1 − β1·trend and Δx̃ = Δx − β1·1.  With X = QR (``a_trend``) its R
+    factor is that of R·T (Q is orthonormal), so a factorisation of p + 4 rows replaces one
+    of T − 1 − p rows; the column norms of the declined check are those of R·T too."""
     batch = xs.shape[0]
     nobs = xs.shape[1] - 1 - p
     declined = np.zeros(batch, dtype=bool)
@@ -156,15 +165,32 @@ def _maic(xs: np.ndarray, spec: str, p: int, fits: BlockFits,
         none_fits = fits
         lag_column = y_lag
     else:
-        columns = [*range(Y_LAG, Y_LAG + 1 + p), p + 3]
-        rows = full_design(detrended(xs - xs.mean(axis=1)[:, None], spec), p)[:, p:, columns]
-        a = r_factor(rows)
+        centred = xs - xs.mean(axis=1)[:, None]
+        lag_column = detrended(centred, spec)[:, p:-1]
+        beta = centred @ _trend_projection(xs.shape[1], spec)
+        k = p + 3
+        moved = a_trend[:, :, [*range(Y_LAG, Y_LAG + 1 + p), k]]  # a copy: adjusted in place
+        moved[:, :, 0] -= beta[:, 0, None] * a_trend[:, :, 0]
+        if spec == "trend":
+            moved[:, :, 0] -= beta[:, 1, None] * a_trend[:, :, 1]
+            moved[:, :, 1:] -= beta[:, 1, None, None] * a_trend[:, :, 0, None]
+        a = r_factor(moved)
         declined |= ~np.isfinite(a).all(axis=(1, 2))
-        declined |= column_share(a, column_norms(rows[:, :, :p + 1])) < MIN_COLUMN_SHARE
+        declined |= column_share(a, column_norms(moved[:, :, :p + 1])) < MIN_COLUMN_SHARE
         none_fits = block_fits(_sanitise(a, declined), 0, p, nobs)
-        lag_column = rows[:, :, 0]
     lag_sum_sq = np.einsum("bi,bi->b", lag_column, lag_column)
     return maic_values(none_fits, lag_sum_sq, nobs), declined
+
+
+@lru_cache(maxsize=64)
+def _trend_projection(length: int, spec: str) -> np.ndarray:
+    """pinv([1] or [1, t])ᵀ, t = 1…length: series (B, T) @ this = the OLS coefficients (B, 1 or 2)."""
+    columns = [np.ones(length)]
+    if spec == "trend":
+        columns.append(np.arange(1, length + 1, dtype=float))
+    projection = np.linalg.pinv(np.column_stack(columns)).T
+    projection.setflags(write=False)
+    return projection
 
 
 class FastEstimation:

@@ -66,9 +66,9 @@ def _criteria_in_units(choice: LagChoice, nobs: int, scale: float) -> tuple[floa
     log_s2 = 2.0 * math.log(scale)
     if choice.rule in ("aic", "bic", "hqc"):
         shift = (nobs + choice.lag - choice.max_lags) * log_s2
-        return tuple((np.asarray(choice.criteria) + shift).tolist())  # v + shift, as floats do it
+        return tuple(float(v) + shift for v in choice.criteria)  # one IEEE addition each, as in numpy
     if choice.rule == "maic":
-        return tuple((np.asarray(choice.criteria) + log_s2).tolist())
+        return tuple(float(v) + log_s2 for v in choice.criteria)
     return choice.criteria
 
 

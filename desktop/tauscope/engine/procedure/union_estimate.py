@@ -41,6 +41,7 @@ from tauscope.engine.unitroot.union import (
     orders_from_rejections,
     rejections_at,
     union_constants,
+    union_order,
     union_orders,
     union_power,
     union_rule,
@@ -118,8 +119,8 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         result = union_orders(xs, rule, alpha, max_difference, max_lags, fixed, period=period)
         at = {a: orders_from_rejections(rejections_at(result.levels, a, period=period), max_difference)
               for a in OTHER_ALPHAS}
-        long = union_orders(xs, rule, alpha, max_difference, max_lags, fixed,
-                            lag_scale=LONG_LAG_SCALE, known=result, period=period).order
+        long = union_order(xs, rule, alpha, max_difference, max_lags, fixed,
+                           lag_scale=LONG_LAG_SCALE, known=result, period=period)
     boot: dict[int, BootstrapLevel] = {}
     order_all, labels, trend_z = result.order, result.deterministic, result.trend_z
     if bootstrap:
@@ -135,41 +136,53 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
     per_alpha = {d: {a: _constants(level.constants.length, a, period, level.constants.lagged)
                      for a in (0.01, 0.05, 0.10)}
                  for d, level in result.levels.items()}
+    # Everything that is the same for every row of a level, and each array as a list once
+    # (the same Python numbers as indexing element by element).
+    shared = {}
+    for d, level in result.levels.items():
+        c = level.constants
+        comps = c.components
+        n = xs.shape[1] - d
+        values = tuple({f"{round(a * 100)}%": per_alpha[d][a].critical_values[j]
+                        for a in (0.01, 0.05, 0.10)} for j in range(len(comps)))
+        shared[d] = (c, comps, n, values, _level_max_lags(n, d, rule, max_lags, fixed),
+                     [[int(v) for v in level.lags[name.split("-")[1]].tolist()] for name in comps],
+                     [level.tau[name].tolist() for name in comps], level.margin.tolist(),
+                     [bool(v) for v in level.reject.tolist()])
+    trend_values: dict[int, float] = {}
+    orders, z_list, long_list = order_all.tolist(), trend_z.tolist(), long.tolist()
+    at_lists = {a: at[a].tolist() for a in OTHER_ALPHAS}
+    variance_lags = result.levels[0].lags["trend"].tolist()
     rows = []
     for i in range(xs.shape[0]):
-        order = _order(int(order_all[i]))
+        order = _order(int(orders[i]))
         det = labels[i]
         levels = {}
-        for d, level in result.levels.items():
-            c = level.constants
-            comps = c.components
-            values = tuple({f"{round(a * 100)}%": per_alpha[d][a].critical_values[j]
-                            for a in (0.01, 0.05, 0.10)} for j in range(len(comps)))
-            lags = tuple(int(level.lags[name.split("-")[1]][i]) for name in comps)
-            tau = tuple(float(level.tau[name][i]) for name in comps)
-            n = xs.shape[1] - d
-            statistic = float(level.margin[i]) * c.kappa
-            kappa, reject, p_value = c.kappa, bool(level.reject[i]), None
+        for d, (c, comps, n, values, level_max, lag_lists, tau_lists, margin, rejects) in shared.items():
+            statistic = float(margin[i]) * c.kappa
+            kappa, reject, p_value = c.kappa, rejects[i], None
             if d in boot:
                 kappa = float(boot[d].critical[i, BOOT_ALPHAS.index(_alpha_key(alpha))])
                 reject, p_value = bool(statistic > kappa), float(boot[d].p_value[i])
             levels[d] = UnionLevelRow(
-                d, n, comps, tau, lags, _level_max_lags(n, d, rule, max_lags, fixed),
+                d, n, comps, tuple(t[i] for t in tau_lists), tuple(lag[i] for lag in lag_lists), level_max,
                 c.critical_values, values, kappa, statistic, reject, p_value)
         problem = _problem(levels, order, max_difference)
         trend_d = None if order is None else (1 if order == 2 else 0)
         trend_cv = float("nan")
         if trend_d is not None:
-            n = xs.shape[1] - trend_d
-            trend_cv = trend_critical_value(n, alpha, rule, _level_max_lags(n, trend_d, rule, max_lags, fixed),
-                                            difference=trend_d)
+            if trend_d not in trend_values:
+                n = xs.shape[1] - trend_d
+                trend_values[trend_d] = trend_critical_value(
+                    n, alpha, rule, _level_max_lags(n, trend_d, rule, max_lags, fixed), difference=trend_d)
+            trend_cv = trend_values[trend_d]
         power = None
         if order is not None and order >= 1 and problem is None:
             power = union_power(xs.shape[1] - (order - 1), POWER_PHI, rule, alpha)
-        rows.append(UnionRow(order, det, levels, float(trend_z[i]), trend_cv, trend_d,
-                             {a: _order(int(at[a][i])) for a in OTHER_ALPHAS},
-                             _order(int(long[i])), power, problem,
-                             _variance(xs[i], result.levels[0].lags["trend"][i], alpha),
+        rows.append(UnionRow(order, det, levels, float(z_list[i]), trend_cv, trend_d,
+                             {a: _order(int(at_lists[a][i])) for a in OTHER_ALPHAS},
+                             _order(int(long_list[i])), power, problem,
+                             _variance(xs[i], variance_lags[i], alpha),
                              BOOTSTRAP_REPS if bootstrap else None))
     return rows
 

@@ -198,6 +198,38 @@ def union_orders(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_di
     return UnionOrders(order, labels, z, levels)
 
 
+def union_order(xs: np.ndarray, rule: str = "maic", alpha: float = 0.05, max_difference: int = 2,
+                max_lags: int | None = None, fixed: int | None = None, critical: str = "finite",
+                lag_scale: float = UNION_LAG_SCALE, components: str = "four",
+                known: UnionOrders | None = None, period: int | None = None) -> np.ndarray:
+    """``union_orders(...).order`` alone, without the deterministic label: each level is
+    computed only on the rows still open there (those rejected on every level above), as
+    Dickey & Pantula's (1987) order reads no other row; every row's numbers depend on that
+    row alone, so the orders are those of :func:`union_orders`."""
+    xs = np.asarray(xs, dtype=float)
+    reject: dict[int, np.ndarray] = {}
+    open_rows = np.arange(xs.shape[0])
+    for d in range(max_difference, -1, -1):
+        reject[d] = np.zeros(xs.shape[0], dtype=bool)
+        if open_rows.size == 0:
+            continue
+        xd = level_rows(xs[open_rows], d, period)
+        p = fixed if rule == "fixed" else max_lags_schwert(xd.shape[1], max_lags, level_lag_scale(d, lag_scale))
+        before = None if known is None else known.levels.get(d)
+        level = union_level(xd, d, rule, int(p or 0), alpha, fixed, critical, components,
+                            None if before is None else _rows_of_level(before, open_rows), period)
+        reject[d][open_rows] = level.reject
+        open_rows = open_rows[level.reject]
+    return orders_from_rejections(reject, max_difference)
+
+
+def _rows_of_level(level: UnionLevel, rows: np.ndarray) -> UnionLevel:
+    """The union on some rows of a level (every array row-wise)."""
+    return UnionLevel(level.difference, {k: v[rows] for k, v in level.tau.items()},
+                      {k: v[rows] for k, v in level.lags.items()}, level.constants, level.margin[rows],
+                      level.reject[rows], {k: v[rows] for k, v in level.detrended.items()})
+
+
 def deterministic_labels(xs: np.ndarray, order: np.ndarray, levels: dict[int, UnionLevel], rule: str,
                          alpha: float, max_lags: int | None, fixed: int | None, critical: str = "finite",
                          lag_scale: float = UNION_LAG_SCALE, period: int | None = None,

@@ -137,7 +137,15 @@ def union_constants(length: int | None, alpha: float = 0.05, components: str = "
     ``period``, simulated with the seasonal means removed (the table holds none).
     ``lagged``: the null with the lag choice included (the short-sample rule, levels of
     fewer than 100 values); the table holds that null below 100 values and the plain one
-    from 100, and ``union_table_plain`` the plain one below 100."""
+    from 100, and ``union_table_plain`` the plain one below 100.  Kept per key (the
+    same constants are asked for every batch of series of one length)."""
+    return _union_constants(None if length is None else int(length), float(alpha), components, int(reps),
+                            int(seed), source, period, bool(lagged))
+
+
+@lru_cache(maxsize=512)
+def _union_constants(length: int | None, alpha: float, components: str, reps: int, seed: int,
+                     source: str, period: int | None, lagged: bool) -> UnionConstants:
     names = COMPONENTS[components]
     if length is None:
         table = ASYMPTOTIC[components]
