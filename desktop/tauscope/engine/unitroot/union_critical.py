@@ -160,17 +160,9 @@ def _union_constants(length: int | None, alpha: float, components: str, reps: in
                   else plain_constants(int(length), alpha, components))
         if tabled is not None:
             return UnionConstants(alpha, names, tabled[0], tabled[1], int(length), tabled[2], lagged)
-    cvs, kappa = _simulated_constants(int(length), reps, seed, names, period, lagged, alpha)
+    cvs, kappa = constants_from_draws(
+        _simulated(int(length), reps, seed, names, period, lagged), alpha)
     return UnionConstants(alpha, names, cvs, kappa, int(length), reps, lagged)
-
-
-@lru_cache(maxsize=256)
-def _simulated_constants(length: int, reps: int, seed: int, names: tuple[str, ...],
-                         period: int | None, lagged: bool, alpha: float
-                         ) -> tuple[tuple[float, ...], float]:
-    """:func:`constants_from_draws` of the simulated null, kept per key (every series of
-    one length reads the same constants)."""
-    return constants_from_draws(_simulated(length, reps, seed, names, period, lagged), alpha)
 
 
 def level_lag_scale(difference: int, lag_scale: float = UNION_LAG_SCALE) -> float:
