@@ -10,10 +10,9 @@ from __future__ import annotations
 
 import struct
 import zlib
-from itertools import pairwise
 
 import numpy as np
-from PySide6.QtCore import QLineF, QPointF, Qt
+from PySide6.QtCore import QByteArray, QDataStream, QPointF, Qt
 from PySide6.QtGui import QColor, QFont, QFontMetricsF, QImage, QPainter, QPen, QPolygonF
 
 from tauscope.report.chart_plan import ChartPlan, register_png_painter
@@ -44,6 +43,17 @@ def _pen(color: str, width: float, dash: str) -> QPen:
     return pen
 
 
+def polygon(points: np.ndarray) -> QPolygonF:
+    """The k × 2 ``points`` as a QPolygonF, read from the bytes Qt's own serialisation of a
+    polygon has (a big-endian 32-bit count, then x and y of each point as big-endian
+    doubles: ``QDataStream`` in its default byte order): about ten times faster than making a
+    QPointF a point."""
+    data = struct.pack(">I", len(points)) + np.ascontiguousarray(points, ">f8").tobytes()
+    made = QPolygonF()
+    QDataStream(QByteArray(data)) >> made
+    return made
+
+
 def paint_plan(painter: QPainter, plan: ChartPlan, left: float = 0.0, top: float = 0.0,
                picture: bool = False) -> None:
     """Draw ``plan`` with its top-left corner at (``left``, ``top``) in the painter's units.
@@ -63,7 +73,7 @@ def paint_plan(painter: QPainter, plan: ChartPlan, left: float = 0.0, top: float
         else:
             for stroke in plan.strokes:
                 painter.setPen(_pen(stroke.color, stroke.width, stroke.dash))
-                painter.drawPolyline(QPolygonF([QPointF(x, y) for x, y in stroke.points.tolist()]))
+                painter.drawPolyline(polygon(stroke.points))
         for label in plan.labels:
             font, metrics = _font(label.size)
             painter.setFont(font)
@@ -81,7 +91,7 @@ def _paint_segments(painter: QPainter, plan: ChartPlan) -> None:
     """The strokes for a pixel image: solid ones as separate segments with square caps (the
     caps close the seams), consecutive ones of the same pen in one call; dashed ones as one
     polyline each, so the pattern runs on."""
-    pending: list[QLineF] = []
+    pending: list[np.ndarray] = []  # each stroke's segments as point pairs
     current: tuple[str, float] | None = None
 
     def flush() -> None:
@@ -89,21 +99,21 @@ def _paint_segments(painter: QPainter, plan: ChartPlan) -> None:
             pen = _pen(current[0], current[1], "")
             pen.setCapStyle(Qt.PenCapStyle.SquareCap)
             painter.setPen(pen)
-            painter.drawLines(pending)
+            painter.drawLines(polygon(np.concatenate(pending)))  # (p0, p1), (p1, p2), ...
         pending.clear()
 
     for stroke in plan.strokes:
-        points = stroke.points.tolist()
         if stroke.dash:
             flush()
             current = None
             painter.setPen(_pen(stroke.color, stroke.width, stroke.dash))
-            painter.drawPolyline(QPolygonF([QPointF(x, y) for x, y in points]))
+            painter.drawPolyline(polygon(stroke.points))
             continue
         if (stroke.color, stroke.width) != current:
             flush()
             current = (stroke.color, stroke.width)
-        pending.extend(QLineF(*a, *b) for a, b in pairwise(points))
+        if len(stroke.points) > 1:
+            pending.append(np.repeat(stroke.points, 2, axis=0)[1:-1])
     flush()
 
 
