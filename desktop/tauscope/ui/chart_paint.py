@@ -10,9 +10,10 @@ from __future__ import annotations
 
 import struct
 import zlib
+from itertools import pairwise
 
 import numpy as np
-from PySide6.QtCore import QByteArray, QDataStream, QPointF, Qt
+from PySide6.QtCore import QByteArray, QDataStream, QLineF, QPointF, Qt
 from PySide6.QtGui import QColor, QFont, QFontMetricsF, QImage, QPainter, QPen, QPolygonF
 
 from tauscope.report.chart_plan import ChartPlan, register_png_painter
@@ -91,7 +92,7 @@ def _paint_segments(painter: QPainter, plan: ChartPlan) -> None:
     """The strokes for a pixel image: solid ones as separate segments with square caps (the
     caps close the seams), consecutive ones of the same pen in one call; dashed ones as one
     polyline each, so the pattern runs on."""
-    pending: list[np.ndarray] = []  # each stroke's segments as point pairs
+    pending: list[QLineF] = []
     current: tuple[str, float] | None = None
 
     def flush() -> None:
@@ -99,7 +100,7 @@ def _paint_segments(painter: QPainter, plan: ChartPlan) -> None:
             pen = _pen(current[0], current[1], "")
             pen.setCapStyle(Qt.PenCapStyle.SquareCap)
             painter.setPen(pen)
-            painter.drawLines(polygon(np.concatenate(pending)))  # (p0, p1), (p1, p2), ...
+            painter.drawLines(pending)  # a list: PySide6 reads a QPolygonF here point by point
         pending.clear()
 
     for stroke in plan.strokes:
@@ -112,8 +113,7 @@ def _paint_segments(painter: QPainter, plan: ChartPlan) -> None:
         if (stroke.color, stroke.width) != current:
             flush()
             current = (stroke.color, stroke.width)
-        if len(stroke.points) > 1:
-            pending.append(np.repeat(stroke.points, 2, axis=0)[1:-1])
+        pending.extend(QLineF(*a, *b) for a, b in pairwise(stroke.points.tolist()))
     flush()
 
 

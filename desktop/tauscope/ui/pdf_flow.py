@@ -11,7 +11,8 @@ lines, tables row by row, charts.  Each line, table row and chart becomes
 Text is measured with the font's metrics and wrapped with ``QTextLayout`` only where a line is
 too long for its room (at word boundaries, or anywhere in a word longer than the room), which
 keeps the cost to a few QPainter calls per line: far less than laying out and drawing the
-same report as a rich-text document.
+same report as a rich-text document.  Each line is shaped once and drawn from its kept glyph
+runs (:func:`draw_line`).
 """
 
 from __future__ import annotations
@@ -60,6 +61,12 @@ class Style:
     metrics: QFontMetricsF = field(init=False, compare=False)
     key: str = field(init=False, compare=False)
     """Tells fonts apart in the wrapping cache (the font's description)."""
+    shaped: dict[str, tuple[float, tuple[QGlyphRun, ...]]] = field(
+        init=False, compare=False, repr=False, default_factory=dict)
+    """Lines already shaped in this style (:func:`draw_line`), by text.  Kept with the style,
+    which one report's layout makes and drops, never across reports: a glyph run holds the
+    font of the thread that shaped it, and the window writes each export in a thread of its
+    own, whose fonts go when it ends."""
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "metrics", QFontMetricsF(self.font))
@@ -112,29 +119,22 @@ def _wrap(text: str, style: Style, room: float) -> list[Line]:
     return lines
 
 
-_SHAPED: dict[tuple[str, str], tuple[float, tuple[QGlyphRun, ...]]] = {}
-"""Lines already shaped, by text and font: the line's ascent and its glyph runs."""
-
-
 def draw_line(painter: QPainter, x: float, baseline: float, text: str, style: Style) -> None:
     """``text`` (one line) with its baseline starting at (``x``, ``baseline``), in the
     painter's pen.
 
     What ``painter.drawText(QPointF(x, baseline), text)`` draws, but each line is shaped
-    (fonts chosen, glyphs placed: ``QTextLayout``) only once and its glyph runs kept: a report
-    repeats most of its cell texts, and shaping costs about half of what drawing a line of
-    text on the PDF writer does."""
-    key = (text, style.key)
-    shaped = _SHAPED.get(key)
+    (fonts chosen, glyphs placed: ``QTextLayout``) only once per report and its glyph runs kept
+    (``style.shaped``): a report repeats most of its cell texts, and shaping costs about half
+    of what drawing a line of text on the PDF writer does."""
+    shaped = style.shaped.get(text)
     if shaped is None:
-        if len(_SHAPED) > 50_000:
-            _SHAPED.clear()
         layout = QTextLayout(text, style.font)
         layout.beginLayout()
         line = layout.createLine()
         layout.endLayout()
-        shaped = _SHAPED[key] = (line.ascent() if line.isValid() else 0.0,
-                                 tuple(layout.glyphRuns()))
+        shaped = style.shaped[text] = (line.ascent() if line.isValid() else 0.0,
+                                       tuple(layout.glyphRuns()))
     ascent, runs = shaped
     origin = QPointF(x, baseline - ascent)
     for run in runs:
