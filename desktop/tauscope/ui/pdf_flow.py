@@ -63,6 +63,8 @@ class Style:
     """Tells fonts apart in the wrapping cache (the font's description)."""
     shaped: dict[str, tuple[float, tuple[QGlyphRun, ...]]] = field(
         init=False, compare=False, repr=False, default_factory=dict)
+    seen: set[str] = field(init=False, compare=False, repr=False, default_factory=set)
+    """Lines drawn once in this style and not shaped (yet)."""
     """Lines already shaped in this style (:func:`draw_line`), by text.  Kept with the style,
     which one report's layout makes and drops, never across reports: a glyph run holds the
     font of the thread that shaped it, and the window writes each export in a thread of its
@@ -129,6 +131,10 @@ def draw_line(painter: QPainter, x: float, baseline: float, text: str, style: St
     of what drawing a line of text on the PDF writer does."""
     shaped = style.shaped.get(text)
     if shaped is None:
+        if text not in style.seen:  # drawn once so far: shaping to keep would cost more
+            style.seen.add(text)
+            painter.drawText(QPointF(x, baseline), text)
+            return
         layout = QTextLayout(text, style.font)
         layout.beginLayout()
         line = layout.createLine()
