@@ -11,8 +11,8 @@ lines, tables row by row, charts.  Each line, table row and chart becomes
 Text is measured with the font's metrics and wrapped with ``QTextLayout`` only where a line is
 too long for its room (at word boundaries, or anywhere in a word longer than the room), which
 keeps the cost to a few QPainter calls per line: far less than laying out and drawing the
-same report as a rich-text document.  Each line is shaped once and drawn from its kept glyph
-runs (:func:`draw_line`).
+same report as a rich-text document.  A line met again in the report is drawn from the glyph
+runs kept from its first shaping (:func:`draw_line`).
 """
 
 from __future__ import annotations
