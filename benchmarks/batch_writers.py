@@ -15,10 +15,10 @@ alternating, ``--rounds`` times each:
 - writing every format with ``--no-charts``.
 
 and prints the best time of each and their ratios to writing nothing (the target of issue 15
-is at most 2).  Then, on the findings of one analysis, the charts drawn alone (milliseconds
-per series: the plans, then each drawn as SVG and as the .xlsx's PNG) and each format alone
-through ``tauscope.report.export`` with those charts
-(best of ``--rounds``), in milliseconds per series, with the file's size.
+is at most 2), in wall time and in the process's CPU time.  Then, on the findings of one
+analysis, the charts drawn alone (milliseconds per series: the plans, then each drawn as SVG
+and as the .xlsx's PNG) and each format alone through ``tauscope.report.export`` with those
+charts (best of ``--rounds``), in milliseconds per series, with the file's size.
 
 A first small run writing every format (charts included) comes before the timed ones, so that
 imports and Qt's start (the charts and the PDF writer start an offscreen application) are not
@@ -80,13 +80,19 @@ def write_workbook(path: Path, count: int, length: int) -> None:
     book.save(path)
 
 
+CPU: list[float] = []
+"""The process's CPU seconds of each :func:`batch` run, in order (its wall seconds are
+returned): on a machine shared with other work, CPU time moves far less from run to run."""
+
+
 def batch(argv: list[str]) -> float:
     from tauscope.commands.batch import main
 
-    start = time.perf_counter()
+    start, cpu = time.perf_counter(), time.process_time()
     with contextlib.redirect_stdout(io.StringIO()), contextlib.redirect_stderr(io.StringIO()):
         code = main(argv)
     elapsed = time.perf_counter() - start
+    CPU.append(time.process_time() - cpu)
     if code != 0:
         raise SystemExit(f"tauscope batch {' '.join(argv)} ended with exit code {code}")
     return elapsed
@@ -120,10 +126,12 @@ def main() -> int:
         nothing: list[float] = []
         everything: list[float] = []
         bare: list[float] = []
+        CPU.clear()
         for _ in range(args.rounds):
             nothing.append(batch([str(source)]))
             everything.append(batch([str(source), "--replace", *every]))
             bare.append(batch([str(source), "--replace", "--no-charts", *every]))
+        cpu_n, cpu_e, cpu_b = (min(CPU[k::3]) for k in range(3))
         n, e, b = min(nothing), min(everything), min(bare)
         print(f"\ntauscope batch, {args.series} series × {args.length} observations "
               f"(best of {args.rounds})")
@@ -135,6 +143,9 @@ def main() -> int:
         print(f"  ratio every format with charts / nothing: {e / n:.2f}  "
               "(issue 15 target: at most 2)")
         print(f"  ratio every format, --no-charts / nothing: {b / n:.2f}")
+        print(f"  in CPU time (best of {args.rounds}): nothing {cpu_n:.2f} s, every format "
+              f"{cpu_e:.2f} s, --no-charts {cpu_b:.2f} s; ratios {cpu_e / cpu_n:.2f} with "
+              f"charts, {cpu_b / cpu_n:.2f} without")
 
         per_format(source, folder, args.series, args.rounds)
     return 0

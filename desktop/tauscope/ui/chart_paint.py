@@ -13,7 +13,7 @@ import zlib
 from itertools import pairwise
 
 import numpy as np
-from PySide6.QtCore import QLineF, QPointF, Qt
+from PySide6.QtCore import QByteArray, QDataStream, QLineF, QPointF, Qt
 from PySide6.QtGui import QColor, QFont, QFontMetricsF, QImage, QPainter, QPen, QPolygonF
 
 from tauscope.report.chart_plan import ChartPlan, register_png_painter
@@ -44,6 +44,17 @@ def _pen(color: str, width: float, dash: str) -> QPen:
     return pen
 
 
+def polygon(points: np.ndarray) -> QPolygonF:
+    """The k × 2 ``points`` as a QPolygonF, read from the bytes Qt's own serialisation of a
+    polygon has (a big-endian 32-bit count, then x and y of each point as big-endian
+    doubles: ``QDataStream`` in its default byte order): about ten times faster than making a
+    QPointF a point."""
+    data = struct.pack(">I", len(points)) + np.ascontiguousarray(points, ">f8").tobytes()
+    made = QPolygonF()
+    QDataStream(QByteArray(data)) >> made
+    return made
+
+
 def paint_plan(painter: QPainter, plan: ChartPlan, left: float = 0.0, top: float = 0.0,
                picture: bool = False) -> None:
     """Draw ``plan`` with its top-left corner at (``left``, ``top``) in the painter's units.
@@ -63,7 +74,7 @@ def paint_plan(painter: QPainter, plan: ChartPlan, left: float = 0.0, top: float
         else:
             for stroke in plan.strokes:
                 painter.setPen(_pen(stroke.color, stroke.width, stroke.dash))
-                painter.drawPolyline(QPolygonF([QPointF(x, y) for x, y in stroke.points.tolist()]))
+                painter.drawPolyline(polygon(stroke.points))
         for label in plan.labels:
             font, metrics = _font(label.size)
             painter.setFont(font)
@@ -89,21 +100,20 @@ def _paint_segments(painter: QPainter, plan: ChartPlan) -> None:
             pen = _pen(current[0], current[1], "")
             pen.setCapStyle(Qt.PenCapStyle.SquareCap)
             painter.setPen(pen)
-            painter.drawLines(pending)
+            painter.drawLines(pending)  # a list: PySide6 reads a QPolygonF here point by point
         pending.clear()
 
     for stroke in plan.strokes:
-        points = stroke.points.tolist()
         if stroke.dash:
             flush()
             current = None
             painter.setPen(_pen(stroke.color, stroke.width, stroke.dash))
-            painter.drawPolyline(QPolygonF([QPointF(x, y) for x, y in points]))
+            painter.drawPolyline(polygon(stroke.points))
             continue
         if (stroke.color, stroke.width) != current:
             flush()
             current = (stroke.color, stroke.width)
-        pending.extend(QLineF(*a, *b) for a, b in pairwise(points))
+        pending.extend(QLineF(*a, *b) for a, b in pairwise(stroke.points.tolist()))
     flush()
 
 
