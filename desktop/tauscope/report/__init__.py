@@ -8,12 +8,11 @@ that need Qt live in ``tauscope.ui`` and add themselves with
 
 from __future__ import annotations
 
-import contextlib
-import gc
 import importlib
-from collections.abc import Callable, Iterator
+from collections.abc import Callable
 from pathlib import Path
 
+from tauscope.engine.collector import collector_paused
 from tauscope.report.json_export import run_to_json, write_json
 from tauscope.report.ownership import is_own_report, same_file
 from tauscope.report.run import CHART_FORMATS, Charts, Finding, LeftOut, RunRecord, SourceFile
@@ -54,23 +53,6 @@ def register_writer(suffix: str, writer: Writer) -> None:
     WRITERS[suffix] = writer
 
 
-@contextlib.contextmanager
-def _collector_paused() -> Iterator[None]:
-    """Python's cycle collector off while a file is written (on again after, if it was on).
-
-    A writer makes tens of thousands of short-lived objects (rows, cells, strings, Qt
-    wrappers) and almost no reference cycles; each of those allocations counts towards the
-    collector's next pass, and a pass walks every object alive: for a report of a few hundred
-    series, a tenth of the PDF's time went on passes that found nothing to free."""
-    was_on = gc.isenabled()
-    gc.disable()
-    try:
-        yield
-    finally:
-        if was_on:
-            gc.enable()
-
-
 class ExportError(Exception):
     """A findings file could not be written; the message says which and why."""
 
@@ -100,7 +82,7 @@ def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> Ru
                           "exist)")
     record = run.current()
     try:
-        with _collector_paused():
+        with collector_paused():
             writer(target, record, charts)
     except OSError as exc:
         raise ExportError(f"{target}: could not be written ({exc.strerror or exc})") from exc
