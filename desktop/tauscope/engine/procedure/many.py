@@ -18,6 +18,7 @@ from typing import Any
 import numpy as np
 
 from tauscope.engine.blas_threads import single_blas_thread
+from tauscope.engine.collector import collector_paused
 from tauscope.engine.errors import UntestableSeries
 from tauscope.engine.procedure.analyse import (
     FALLBACK_ERRORS,
@@ -85,7 +86,17 @@ def iter_analyse(
             chunk = list(islice(pairs, CHUNK))
             if not chunk:
                 return
-            yield from _analyse_chunk(chunk, settings, plan, stop)
+            # The collector is paused while a chunk is worked on (not across the yields, so
+            # the caller's own work between results is untouched): the stages make many
+            # short-lived objects and no cycles, and its passes cost about a tenth of the run.
+            with collector_paused():
+                results = list(_analyse_chunk(chunk, settings, plan, stop))
+            for result in results:
+                if stop():  # asked before each series handed over, as before each computed
+                    return
+                yield result
+            if len(results) < len(chunk):
+                return  # stopped within the chunk
 
 
 def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
@@ -93,7 +104,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     """The pipeline stage by stage over a chunk: prepare every series; estimate and
     decide every series (each difference level factorised once for all series of one
     length); every lag profile of one kind in one call; then cross-check, read and
-    assemble series by series."""
+    assemble series by series.  Stops early (fewer results) when ``stop()`` says so."""
     prepared: list[PreparedSeries | None] = []
     for _, values in chunk:
         try:
