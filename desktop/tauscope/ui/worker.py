@@ -40,18 +40,31 @@ def analyse_series(values: Any, settings: Settings, name: str) -> SeriesResult:
 
 def iter_analyse(series: Any, settings: Settings, should_stop: Callable[[], bool] | None = None
                  ) -> Iterator[SeriesResult]:
-    from tauscope.engine.procedure.many import iter_analyse as analyse_in_batches
+    """The engine's batched ``iter_analyse``, run in the session's analysis process
+    (:mod:`tauscope.ui.engine_process`), so the engine never holds this process's
+    interpreter lock; in this thread only when no process can be started."""
+    from tauscope.ui.engine_process import shared_engine
 
-    return analyse_in_batches(series, settings, should_stop=should_stop)
+    engine = shared_engine()
+    try:
+        engine.start()
+    except OSError:
+        from tauscope.engine.procedure.many import iter_analyse as analyse_in_batches
+
+        return analyse_in_batches(series, settings, should_stop=should_stop)
+    return engine.iter_analyse(series, settings, should_stop)
 
 
 def warm_up_engine() -> threading.Thread:
-    """Import the statistics in a background thread once the window is up, so neither the
-    start-up nor the first run waits for them."""
+    """Import the statistics in a background thread once the window is up, and start the
+    analysis process, so neither the start-up nor the first run waits for them."""
 
     def load() -> None:
         import tauscope.engine.distributions.simulate
         import tauscope.engine.procedure.many  # noqa: F401
+        from tauscope.ui.engine_process import shared_engine
+
+        shared_engine().start_soon()
 
     thread = threading.Thread(target=load, name="tauscope-warm-up", daemon=True)
     thread.start()
