@@ -20,7 +20,7 @@ from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
 import pandas as pd
-from PySide6.QtCore import QObject, QThread, QTimer, Signal, Slot
+from PySide6.QtCore import QElapsedTimer, QObject, QThread, QTimer, Signal, Slot
 
 from tauscope.engine import SeriesResult, Settings
 from tauscope.engine.results import failed_result
@@ -215,6 +215,7 @@ class AnalysisRunner(QObject):
     finished = Signal(bool, int)  # stopped?, number of results delivered
 
     TICK_MS = 15
+    PROGRESS_MS = 100
     budget_ms = 8.0
 
     def __init__(self, parent: QObject | None = None) -> None:
@@ -229,6 +230,8 @@ class AnalysisRunner(QObject):
         self._timer = QTimer(self)
         self._timer.setInterval(self.TICK_MS)
         self._timer.timeout.connect(self._drain)
+        self._since_progress = QElapsedTimer()
+        self._since_progress.start()
 
     def is_running(self) -> bool:
         return self._worker is not None
@@ -283,7 +286,12 @@ class AnalysisRunner(QObject):
             self._received += 1
             delivered = True
             self.result_ready.emit(outcome.job.key, outcome.result)
-        if delivered or worker.current:
+        # The progress bar and the status line at most every PROGRESS_MS (each update
+        # lays out and paints the status bar), and always once the results are all in.
+        finishing = worker.done and not worker.outbox
+        if (delivered or worker.current) and (
+                finishing or self._since_progress.elapsed() >= self.PROGRESS_MS):
+            self._since_progress.start()
             name = "" if worker.done else worker.current
             self.progress.emit(self._received, self._total, name)
         if worker.done and not worker.outbox and self._thread is not None \
