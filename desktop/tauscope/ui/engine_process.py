@@ -50,6 +50,7 @@ if TYPE_CHECKING:
 POLL_S = 0.02  # how often the waiting stream asks should_stop() (seconds)
 DRAIN_S = 30.0  # the longest wait for the child to end an abandoned run before it is replaced
 QUIT_S = 1.0  # the longest wait for the child to end by itself at shutdown
+ENGINE = "tauscope.engine.procedure.many:iter_analyse"  # what the child runs
 
 
 class EngineProcessLost(RuntimeError):
@@ -81,7 +82,15 @@ def _picklable(exc: BaseException) -> BaseException:
     return exc
 
 
-def serve(conn: Connection, stop: Event) -> None:
+def _engine(name: str) -> Callable[..., Iterator[Any]]:
+    """The function ``"module:function"`` names (imported in the child)."""
+    import importlib
+
+    module, _, function = name.partition(":")
+    return getattr(importlib.import_module(module), function)
+
+
+def serve(conn: Connection, stop: Event, engine: str = ENGINE) -> None:
     """The child's loop: one run per request, until "quit" or the pipe closes.
 
     A request is ``("run", number, settings, count)`` followed by ``count`` messages
@@ -92,8 +101,7 @@ def serve(conn: Connection, stop: Event) -> None:
     import signal
 
     signal.signal(signal.SIGINT, signal.SIG_IGN)  # Ctrl+C in a terminal is the window's
-    from tauscope.engine.procedure.many import iter_analyse
-
+    iter_analyse = _engine(engine)
     while True:
         try:
             request = conn.recv()
@@ -115,9 +123,14 @@ def serve(conn: Connection, stop: Event) -> None:
 
 
 class EngineProcess:
-    """One analysis process for the session, started when first needed."""
+    """One analysis process for the session, started when first needed.
 
-    def __init__(self) -> None:
+    ``engine`` names the function the child runs (``"module:function"``, importable in the
+    child), the engine's batched ``iter_analyse`` unless a test gives its own.
+    """
+
+    def __init__(self, engine: str = ENGINE) -> None:
+        self.engine = engine
         self._lock = threading.Lock()
         self._process: SpawnProcess | None = None
         self._conn: Connection | None = None
@@ -153,8 +166,8 @@ class EngineProcess:
         context = multiprocessing.get_context("spawn")
         here, there = context.Pipe(duplex=True)
         stop = context.Event()
-        process = context.Process(target=serve, args=(there, stop), name="tauscope-engine",
-                                  daemon=True)
+        process = context.Process(target=serve, args=(there, stop, self.engine),
+                                  name="tauscope-engine", daemon=True)
         process.start()
         there.close()
         self._process, self._conn, self._stop = process, here, stop
