@@ -150,7 +150,7 @@ class EngineProcess:
             return
 
         def start() -> None:
-            with suppress(OSError):
+            with suppress(Exception):  # the run itself tries again, and says why it cannot
                 self.start()
 
         threading.Thread(target=start, name="tauscope-engine-start", daemon=True).start()

@@ -48,7 +48,7 @@ def iter_analyse(series: Any, settings: Settings, should_stop: Callable[[], bool
     engine = shared_engine()
     try:
         engine.start()
-    except OSError:
+    except Exception:  # no process can be started here (a rare system): run in this thread
         from tauscope.engine.procedure.many import iter_analyse as analyse_in_batches
 
         return analyse_in_batches(series, settings, should_stop=should_stop)
