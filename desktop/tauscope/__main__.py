@@ -2,4 +2,6 @@
 
 from tauscope.cli import main
 
-raise SystemExit(main())
+# Guarded: the analysis process (spawned) imports this module again under another name.
+if __name__ == "__main__":
+    raise SystemExit(main())

@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import dataclasses
 from dataclasses import dataclass, field
+from functools import cached_property
 from pathlib import Path
 
 import numpy as np
@@ -140,13 +141,15 @@ class SeriesData:
             return ("", "")
         return (period_label(self.values.index[0]), period_label(self.values.index[-1]))
 
-    @property
+    @cached_property
     def key(self) -> str:
         """Stable identity "file name|sheet|column|transform chain" (file name without folder).
 
         The column part is the series' name as read (unique in its sheet: a second "GDP"
         column is "GDP (2)"); the chain lists the transformations, e.g. "log,diff".
-        Views of the same series (longest stretch, interpolated) share the key.
+        Views of the same series (longest stretch, interpolated) share the key.  Made once
+        per series (the fields it is made of are frozen): the window asks for it thousands
+        of times when a run of many series starts.
         """
         return "|".join((Path(self.source.file).name, self.source.sheet,
                          self.column_key or self.source.column, ",".join(self.chain)))

@@ -10,14 +10,21 @@ from __future__ import annotations
 
 from collections.abc import Callable, Collection, Sequence
 
-from PySide6.QtCore import QByteArray, QEvent, QObject, Qt, QTimer
+from PySide6.QtCore import QByteArray, QElapsedTimer, QEvent, QObject, Qt, QTimer
 from PySide6.QtWidgets import QTreeView
 
 PADDING = 16  # the cell's margins around its text
 
 
 class ColumnFitter(QObject):
-    """Keeps ``view``'s columns fitted (see the module's docstring)."""
+    """Keeps ``view``'s columns fitted (see the module's docstring).
+
+    A fit measures many texts (tens of milliseconds with hundreds of findings), so while
+    changes keep coming (results arriving during a run) the view is fitted at most once
+    every :attr:`SPACING_MS`; a change after a quiet spell is fitted at once.
+    """
+
+    SPACING_MS = 250
 
     def __init__(self, view: QTreeView, natural: Callable[[], Sequence[int]],
                  stretch: Sequence[int], optional: Sequence[int] = ()) -> None:
@@ -32,13 +39,17 @@ class ColumnFitter(QObject):
         self._timer.setSingleShot(True)
         self._timer.setInterval(0)
         self._timer.timeout.connect(self.fit)
+        self._since_fit = QElapsedTimer()
         view.header().sectionResized.connect(self._resized)
         view.viewport().installEventFilter(self)
 
     def fit_soon(self) -> None:
-        """Fit once the events in hand are handled (many changes, one fit)."""
-        if not self.by_hand:
-            self._timer.start()
+        """Fit once the events in hand are handled (many changes, one fit), or once
+        :attr:`SPACING_MS` have passed since the last fit."""
+        if self.by_hand or self._timer.isActive():
+            return
+        since = self._since_fit.elapsed() if self._since_fit.isValid() else self.SPACING_MS
+        self._timer.start(max(0, self.SPACING_MS - since))
 
     def pending(self) -> bool:
         """A fit is due once the events in hand are handled."""
@@ -47,6 +58,8 @@ class ColumnFitter(QObject):
     def fit(self) -> None:
         if self.by_hand:
             return
+        self._timer.stop()
+        self._since_fit.start()
         widths = list(self.natural())
         available = self.view.viewport().width()
         hidden: set[int] = set()

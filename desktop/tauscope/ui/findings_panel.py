@@ -17,7 +17,7 @@ from tauscope.ui.findings_model import (
     FindingsModel,
     FindingsSortProxy,
 )
-from tauscope.ui.findings_widths import RowWidths, natural_widths
+from tauscope.ui.findings_widths import MEASURED, RowWidths, natural_widths
 from tauscope.ui.qtcompat import item_value
 from tauscope.ui.roles import GUIDE_ROLE, KEY_ROLE, KIND_ROLE
 
@@ -66,7 +66,7 @@ class FindingsPanel(QWidget):
         # Every column as wide as its text; spare width to the names and the verdicts.
         self.columns = ColumnFitter(self.view, self._natural_widths, stretch=(NAME, VERDICT))
         self.model.rowsInserted.connect(self._rows_inserted)
-        self.model.dataChanged.connect(lambda *_args: self.columns.fit_soon())
+        self.model.dataChanged.connect(lambda first, *_args: self._rows_changed(first))
         self.columns.fit()
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
@@ -76,8 +76,13 @@ class FindingsPanel(QWidget):
     def _current_row_changed(self, current: QModelIndex, _previous: QModelIndex) -> None:
         self.current_changed.emit(str(item_value(current, KEY_ROLE, "")))
 
-    def _rows_inserted(self, parent: QModelIndex, *_rows: int) -> None:
-        if not parent.isValid():  # a series' row (the rows below it are measured with it)
+    def _rows_inserted(self, parent: QModelIndex, first: int, _last: int) -> None:
+        # a series' row (the rows below it are measured with it) among those measured
+        if not parent.isValid() and first < MEASURED:
+            self.columns.fit_soon()
+
+    def _rows_changed(self, first: QModelIndex) -> None:
+        if not first.parent().isValid() and first.row() < MEASURED:
             self.columns.fit_soon()
 
     def _expanded(self, index: QModelIndex) -> None:

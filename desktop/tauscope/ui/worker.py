@@ -20,7 +20,7 @@ from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
 import pandas as pd
-from PySide6.QtCore import QObject, QThread, QTimer, Signal, Slot
+from PySide6.QtCore import QElapsedTimer, QObject, QThread, QTimer, Signal, Slot
 
 from tauscope.engine import SeriesResult, Settings
 from tauscope.engine.results import failed_result
@@ -40,18 +40,31 @@ def analyse_series(values: Any, settings: Settings, name: str) -> SeriesResult:
 
 def iter_analyse(series: Any, settings: Settings, should_stop: Callable[[], bool] | None = None
                  ) -> Iterator[SeriesResult]:
-    from tauscope.engine.procedure.many import iter_analyse as analyse_in_batches
+    """The engine's batched ``iter_analyse``, run in the session's analysis process
+    (:mod:`tauscope.ui.engine_process`), so the engine never holds this process's
+    interpreter lock; in this thread only when no process can be started."""
+    from tauscope.ui.engine_process import shared_engine
 
-    return analyse_in_batches(series, settings, should_stop=should_stop)
+    engine = shared_engine()
+    try:
+        engine.start()
+    except Exception:  # no process can be started here (a rare system): run in this thread
+        from tauscope.engine.procedure.many import iter_analyse as analyse_in_batches
+
+        return analyse_in_batches(series, settings, should_stop=should_stop)
+    return engine.iter_analyse(series, settings, should_stop)
 
 
 def warm_up_engine() -> threading.Thread:
-    """Import the statistics in a background thread once the window is up, so neither the
-    start-up nor the first run waits for them."""
+    """Import the statistics in a background thread once the window is up, and start the
+    analysis process, so neither the start-up nor the first run waits for them."""
 
     def load() -> None:
         import tauscope.engine.distributions.simulate
         import tauscope.engine.procedure.many  # noqa: F401
+        from tauscope.ui.engine_process import shared_engine
+
+        shared_engine().start_soon()
 
     thread = threading.Thread(target=load, name="tauscope-warm-up", daemon=True)
     thread.start()
@@ -202,6 +215,7 @@ class AnalysisRunner(QObject):
     finished = Signal(bool, int)  # stopped?, number of results delivered
 
     TICK_MS = 15
+    PROGRESS_MS = 100
     budget_ms = 8.0
 
     def __init__(self, parent: QObject | None = None) -> None:
@@ -216,6 +230,8 @@ class AnalysisRunner(QObject):
         self._timer = QTimer(self)
         self._timer.setInterval(self.TICK_MS)
         self._timer.timeout.connect(self._drain)
+        self._since_progress = QElapsedTimer()
+        self._since_progress.start()
 
     def is_running(self) -> bool:
         return self._worker is not None
@@ -270,7 +286,12 @@ class AnalysisRunner(QObject):
             self._received += 1
             delivered = True
             self.result_ready.emit(outcome.job.key, outcome.result)
-        if delivered or worker.current:
+        # The progress bar and the status line at most every PROGRESS_MS (each update
+        # lays out and paints the status bar), and always once the results are all in.
+        finishing = worker.done and not worker.outbox
+        if (delivered or worker.current) and (
+                finishing or self._since_progress.elapsed() >= self.PROGRESS_MS):
+            self._since_progress.start()
             name = "" if worker.done else worker.current
             self.progress.emit(self._received, self._total, name)
         if worker.done and not worker.outbox and self._thread is not None \

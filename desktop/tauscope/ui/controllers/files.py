@@ -19,6 +19,7 @@ from tauscope.ui.controllers.current import CurrentSeries
 from tauscope.ui.controllers.edits import AddTransformed, EditContext, MendGaps, RemoveTransformed
 from tauscope.ui.controllers.prompts import Prompts
 from tauscope.ui.controllers.session import Session
+from tauscope.ui.engine_process import shared_engine
 from tauscope.ui.findings_panel import FindingsPanel
 from tauscope.ui.loader import WorkbookLoader
 from tauscope.ui.series_panel import SeriesPanel
@@ -95,6 +96,7 @@ class FilesController(QObject):
                             + (f" — {notes}" if notes else ""))
         self.status.setToolTip(notes)
         self.session.set_modified(True)
+        shared_engine().start_soon()  # the analysis process loads while the user chooses
         if not self.current.key and workbook.series():
             self.series_panel.select_key(workbook.series()[0].key)
 
