@@ -201,10 +201,15 @@ def pdf_curves(path: Path, shortest: int = 20) -> list[bytes]:
     operators (a chart's curves: the table rules and grid lines are single segments)."""
     data = path.read_bytes()
     out = []
-    for header, body in re.findall(rb"<<((?:(?!>>).)*?)>>\s*stream\r?\n(.*?)\r?\nendstream",
+    # The data runs to the end-of-line before "endstream"; a compressed stream may itself end
+    # in a \r byte, so only the \n is taken off here, and the inflater leaves any \r of a
+    # \r\n end-of-line unused (a pattern that also took "\r?" cut such a stream short).
+    for header, body in re.findall(rb"<<((?:(?!>>).)*?)>>\s*stream\r?\n(.*?)\nendstream",
                                    data, re.S):
         if b"/FlateDecode" in header:
-            body = zlib.decompress(body)
+            inflater = zlib.decompressobj()
+            body = inflater.decompress(body)
+            assert inflater.eof and inflater.unused_data in (b"", b"\r"), "a stream cut short"
         out += [m.group(0) for m in PATH_RUN.finditer(body)
                 if m.group(0).count(b" l\n") >= shortest]
     return out
