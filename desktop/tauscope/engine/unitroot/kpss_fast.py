@@ -63,17 +63,20 @@ def _centred_time(nobs: int) -> np.ndarray:
 
 def _bandwidth(s0: float, products: list[float], nobs: int) -> int | None:
     """``s0``: Σ e²; ``products[i − 1]``: Σ_t e_t e_{t−i} for i = 1 … ⌊T^{2/9}⌋."""
-    s0 = s0 / nobs
+    s0 = float(s0) / nobs  # plain floats throughout: an overflow gives inf, not a warning
     s1 = 0.0
     for i, raw in enumerate(products, start=1):
-        product = raw / (nobs / 2.0)
+        product = float(raw) / (nobs / 2.0)
         s0 += product
         s1 += i * product
     if s0 == 0.0:
         return None
     s_hat = s1 / s0
+    squared = s_hat * s_hat
+    if not math.isfinite(squared):
+        return None  # a near-zero variance against huge products: statsmodels' version decides
     power = 1.0 / 3.0
-    gamma_hat = 1.1447 * np.power(s_hat * s_hat, power)
+    gamma_hat = 1.1447 * np.power(squared, power)
     return int(gamma_hat * np.power(nobs, power))
 
 
