@@ -95,3 +95,18 @@ def test_settings_validation() -> None:
     with pytest.raises(ValueError):
         Settings(lag_rule="fixed")
     assert Settings.from_dict(Settings(alpha=0.01).to_dict()) == Settings(alpha=0.01)
+
+
+def test_kpss_with_a_zero_bandwidth_sum_says_so_without_a_warning() -> None:
+    """A series (found by search) whose autocovariance sum in the automatic bandwidth rule
+    (Hobijn, Franses & Ooms 1998) is zero: statsmodels divides by zero there; the test gives
+    one sentence and no numpy warning reaches the user."""
+    import warnings
+
+    from tauscope.engine.unitroot.kpss import kpss_test
+
+    x = np.array([-1, 2, -2, -1, -1, 1, 0, -1, 1, -1, -2, -2, 2, -2, 0, -2, 2, -2], dtype=float)
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        with pytest.raises(ValueError, match="automatic bandwidth is not finite"):
+            kpss_test(x, "constant", 0, 0.05)

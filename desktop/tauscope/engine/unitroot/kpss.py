@@ -22,7 +22,9 @@ def kpss_test(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestRe
     """``spec`` is ``"constant"`` (level null) or ``"trend"`` (trend null).  Raises
     ValueError (one sentence) when the automatic bandwidth is not finite."""
     x = centred(np.asarray(x, dtype=float), spec)  # the level only moves the fitted mean
-    with warnings.catch_warnings():
+    # A zero autocovariance sum in the bandwidth rule divides by zero (numpy warns) and then
+    # overflows (caught below, with our own sentence): the warning would only repeat it.
+    with warnings.catch_warnings(), np.errstate(divide="ignore"):
         warnings.simplefilter("ignore", InterpolationWarning)
         try:
             result = kpss(x, regression="ct" if spec == "trend" else "c", nlags="auto", result_object=True)
