@@ -28,6 +28,7 @@ from types import ModuleType
 import numpy as np
 
 from tauscope.engine.distributions.exact_grid import decode
+from tauscope.engine.regression.design import schwert_max_lag
 from tauscope.engine.seasonal.design import n_deterministic, statistics_for
 
 DETERMINISTIC = "dummies"  # the only design tabulated
@@ -55,17 +56,13 @@ def _df(period: int, length: int, lags: int) -> int:
     return length - 2 * period - 2 * lags - n_deterministic(DETERMINISTIC, period)
 
 
-def _schwert(length: int) -> int:
-    return int(np.floor(12.0 * (length / 100.0) ** 0.25))
-
-
 def table_lags(period: int, length: int) -> tuple[int, ...]:
     """The lags held at grid length ``length``: 0 up to Schwert's (1989) maximum at the next
     grid length (every default search between two lengths is bracketed; at the last length its
     own), within what the regression fits at ``length``."""
     grid = LENGTHS[period]
     i = grid.index(length)
-    reach = _schwert(grid[min(i + 1, len(grid) - 1)])
+    reach = schwert_max_lag(grid[min(i + 1, len(grid) - 1)])
     return tuple(range(min(reach, _room(period, length)) + 1))
 
 
