@@ -14,6 +14,7 @@ from __future__ import annotations
 from collections.abc import Iterable
 
 from tauscope.engine import SeriesResult, Step
+from tauscope.engine import formatting as fmt
 from tauscope.report.table_types import DIFFERENCE_SHORT, Column, Value
 
 UNION_NOTE = (
@@ -78,9 +79,6 @@ def union_cells(result: SeriesResult, differences: Iterable[int]) -> list[Value]
             cells += [None, ""]
         else:
             sign = ">" if step.decision == "reject" else "≤"
-            cells += [step.statistic, f"{sign} {_number(step.critical_value)}"]
+            critical = "—" if step.critical_value is None else fmt.stat(step.critical_value)
+            cells += [step.statistic, f"{sign} {critical}"]
     return cells
-
-
-def _number(value: float | None) -> str:
-    return "—" if value is None else f"{value:.2f}".replace("-", "−")
