@@ -46,3 +46,11 @@ def dying(pairs: list[tuple[str, Any]], settings: Any,
         return
     yield next(lengths(pairs, settings, should_stop))
     os._exit(3)
+
+
+def silent(pairs: list[tuple[str, Any]], _settings: Any,
+           should_stop: Callable[[], bool]) -> Iterator[tuple[str, int, int]]:
+    """Never answers (until told to stop): a child that hangs."""
+    while not should_stop():
+        time.sleep(0.01)
+    yield from ()

@@ -57,7 +57,8 @@ def test_bundled_demo_passes_from_the_command_line() -> None:
     expected = json.loads(DEMO_EXPECTED.read_text(encoding="utf-8"))
     count = sum(len(series) for series in expected.values())
     ok_lines = [line for line in done.stdout.splitlines() if line.startswith("ok ")]
-    assert len(ok_lines) == count
+    assert len(ok_lines) == count + 1  # every series, then the analysis process's check
+    assert ok_lines[-1].startswith("ok   analysis process (3 series): the same results")
     for sheet, series in expected.items():
         for name, want in series.items():
             line = next(line for line in ok_lines if f"{sheet} / {name}:" in line)

@@ -17,7 +17,10 @@ checks that
   statistics the reverse;
 - every p-value lies in [0, 1];
 
-and that every expected series was found.  Prints one line per series, then
+and that every expected series was found.  Then the first few series that gave a verdict
+are analysed again in the analysis process the window uses (a child process:
+``commands/selftest_process.py``), which must give the same results; in a frozen bundle this
+checks that the bundle can start that process.  Prints one line per series, then
 ``self-test passed`` (exit 0) or ``self-test FAILED: ...`` (exit 1).  A workbook
 that cannot be read is a failure with one clear line, never a traceback.
 """
@@ -41,8 +44,10 @@ LEVEL_SPECS = ("trend", "constant", "none")
 # Right-tailed statistics (large values reject): the Φ F tests and KPSS.  Every other
 # test (ADF, PP, DF-GLS, Zivot-Andrews) rejects for small, negative values.
 RIGHT_TAILED = ("phi1", "phi2", "phi3", "kpss")
+PROCESS_SERIES = 3  # series analysed again in the analysis process
 LEVELS = ("1%", "5%", "10%")
 Expected = dict[str, dict[str, dict[str, Any]]]
+Analysed = tuple[str, Any, Any]  # (series name, values, SeriesResult)
 
 
 @dataclass(frozen=True)
@@ -73,10 +78,12 @@ def main(argv: list[str]) -> int:
         workbook_path = args.workbook or demo_folder() / WORKBOOK_NAME
         expected_path = args.expected or demo_folder() / EXPECTED_NAME
         expected = load_expected(expected_path)
-        checks = run_checks(workbook_path, expected)
+        analysed: list[Analysed] = []
+        checks = run_checks(workbook_path, expected, analysed)
     except SelfTestError as exc:
         print(f"self-test FAILED: {exc}")
         return 1
+    checks.append(process_check(analysed[:PROCESS_SERIES]))
     problems = [problem for check in checks for problem in check.problems]
     if not args.quiet:
         for check in checks:
@@ -85,7 +92,7 @@ def main(argv: list[str]) -> int:
     if problems:
         print(f"self-test FAILED: {len(problems)} problem(s): " + "; ".join(problems))
         return 1
-    print(f"self-test passed ({len(checks)} series, {elapsed:.1f} s)")
+    print(f"self-test passed ({len(checks) - 1} series, {elapsed:.1f} s)")
     return 0
 
 
@@ -118,8 +125,10 @@ def load_expected(path: Path) -> Expected:
     return data
 
 
-def run_checks(workbook_path: Path, expected: Expected) -> list[SeriesCheck]:
-    """Analyse every series of the workbook and check it against ``expected``."""
+def run_checks(workbook_path: Path, expected: Expected,
+               analysed: list[Analysed] | None = None) -> list[SeriesCheck]:
+    """Analyse every series of the workbook and check it against ``expected``; each
+    series that gave a verdict is added to ``analysed`` (name, values, result)."""
     from tauscope.data import DataError, read_workbook
     from tauscope.engine import Settings, analyse_series
 
@@ -145,6 +154,8 @@ def run_checks(workbook_path: Path, expected: Expected) -> list[SeriesCheck]:
                 checks.append(SeriesCheck(f"FAIL {label}: {exc}", (f"{label}: {exc}",)))
                 continue
             result = analyse_series(values, settings=settings, name=series.name)
+            if analysed is not None and result.error is None:
+                analysed.append((series.name, values, result))
             checks.append(check_series(label, result.to_dict(), want, gaps=bool(series.gaps)))
     for sheet_name, wanted in expected.items():
         for series_name in wanted:
@@ -153,6 +164,24 @@ def run_checks(workbook_path: Path, expected: Expected) -> list[SeriesCheck]:
                            f"{workbook_path.name}")
                 checks.append(SeriesCheck(f"FAIL {problem}", (problem,)))
     return checks
+
+
+def process_check(analysed: list[Analysed]) -> SeriesCheck:
+    """``analysed``'s series analysed again in the window's analysis process: the same
+    results, or one problem line."""
+    from tauscope.commands.selftest_process import process_problems
+    from tauscope.engine import Settings
+
+    label = f"analysis process ({len(analysed)} series)"
+    if not analysed:
+        return SeriesCheck(f"FAIL {label}: no series gave a verdict to compare",
+                           (f"{label}: no series to compare",))
+    problems = process_problems([(name, values) for name, values, _ in analysed],
+                                [result for _, _, result in analysed], Settings())
+    if problems:
+        return SeriesCheck(f"FAIL {label}: " + "; ".join(problems),
+                           tuple(f"{label}: {p}" for p in problems))
+    return SeriesCheck(f"ok   {label}: the same results as in this process", ())
 
 
 def check_series(label: str, result: dict[str, Any], want: dict[str, Any] | None,
