@@ -27,7 +27,7 @@ from tauscope.engine.procedure.analyse import (
     decide,
     finish,
 )
-from tauscope.engine.procedure.cross_check import recursive_requests
+from tauscope.engine.procedure.cross_check import kpss_requests, recursive_requests
 from tauscope.engine.procedure.fast_path import SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
 from tauscope.engine.procedure.seasonal_means import with_seasonal_many
@@ -126,6 +126,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     wanted: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
     windows: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
     seasonal: dict[SeriesBatch, list[tuple[int, int]]] = {}
+    kpss: dict[SeriesBatch, list[tuple[int, np.ndarray, str, int]]] = {}
     for position, item in enumerate(prepared):
         if stop():
             return
@@ -141,6 +142,9 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
         windows.setdefault(batch, []).extend((slot, *request) for request in recursive_requests(decision))
         if item.seasonal is not None:
             seasonal.setdefault(batch, []).append((slot, item.seasonal.period))
+        with suppress(*FALLBACK_ERRORS):  # a level that fails is met again in the cross-check
+            kpss.setdefault(batch, []).extend(
+                (slot, item.level(d), spec, d) for spec, d in kpss_requests(decision, plan.cross_check))
     for batch, requests in wanted.items():
         # On failure each series asks on its own below, and falls back if it must.
         with suppress(*FALLBACK_ERRORS):
@@ -150,6 +154,9 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
             batch.prefetch_recursive(requests, plan.cross_check.alpha)
     for batch, pairs in seasonal.items():  # errors are kept per series: none escapes here
         batch.seasonal.prefetch(pairs, plan.cross_check.alpha)
+    for batch, tests in kpss.items():
+        with suppress(*FALLBACK_ERRORS):  # likewise: a failing series asks alone below
+            batch.kpss_tests.prefetch(tests, plan.cross_check.alpha)
 
     for position, (name, values) in enumerate(chunk):
         if stop():
