@@ -29,6 +29,8 @@ from tauscope.engine.results import RecursiveStatistic
 
 MIN_WINDOW = 20  # regression observations in the first window (common practice: ≥ 20)
 NEAR_EXACT = 1e-6  # RSS below this share of Σy²: the window is left to the solves (see below)
+SMALL_FACTOR = 5  # Gram matrices up to this size are factorised elementwise (_last_row); the
+# choice depends on the size alone, so a row gets the same numbers alone as in a batch
 
 
 
@@ -167,18 +169,51 @@ def _tau_by_cholesky(design: np.ndarray, y: np.ndarray, g: int, start: int) -> n
     augmented[:, k, :] = y
     rows, cols = _lower_triangle(k + 1)
     sums = np.cumsum(augmented[:, rows, :] * augmented[:, cols, :], axis=2)[:, :, start - 1:]
-    gram = np.zeros((batch, sums.shape[2], k + 1, k + 1))
-    gram[:, :, rows, cols] = sums.transpose(0, 2, 1)
-    try:
-        factor = np.linalg.cholesky(gram)  # reads the lower triangle only
-    except np.linalg.LinAlgError:
-        return None
-    rss = factor[..., k, k] ** 2
-    if not np.all(rss > NEAR_EXACT * gram[..., k, k]):
-        return None
     sizes = np.arange(start, n + 1)
     sign = np.sign(r[:, k - 1, k - 1])[:, None]
-    return np.asarray(sign * factor[..., k, k - 1] * np.sqrt(sizes - k) / np.sqrt(rss))
+    if k + 1 <= SMALL_FACTOR:
+        last = _last_row(sums, k + 1)
+        if last is None:
+            return None
+        yy = sums[:, -1]  # the running Σy², the Gram's last diagonal entry
+        l_gamma, m = last[k - 1], last[k]
+    else:
+        gram = np.zeros((batch, sums.shape[2], k + 1, k + 1))
+        gram[:, :, rows, cols] = sums.transpose(0, 2, 1)
+        try:
+            factor = np.linalg.cholesky(gram)  # reads the lower triangle only
+        except np.linalg.LinAlgError:
+            return None
+        yy = gram[..., k, k]
+        l_gamma, m = factor[..., k, k - 1], factor[..., k, k]
+    rss = m**2
+    if not np.all(rss > NEAR_EXACT * yy):
+        return None
+    return np.asarray(sign * l_gamma * np.sqrt(sizes - k) / np.sqrt(rss))
+
+
+def _last_row(sums: np.ndarray, size: int) -> list[np.ndarray] | None:
+    """The last row of the Cholesky factor L of every window's Gram matrix, from its lower
+    triangle held as running sums (B, size(size+1)/2, W) in ``np.tril_indices`` order; None
+    when a pivot is not positive.  Column by column, G_jj = Σ_l L_jl² and G_ij = Σ_l L_il L_jl
+    (Golub & Van Loan 2013, §4.2), every operation elementwise over the windows, so a row's
+    numbers depend on that row alone.  For small matrices this is much cheaper than a
+    factorisation call per window."""
+    position = _pair_positions(size)
+    factor: dict[tuple[int, int], np.ndarray] = {}
+    for j in range(size):
+        pivot = sums[:, position[(j, j)]]
+        for col in range(j):
+            pivot = pivot - factor[(j, col)] ** 2
+        if not np.all(pivot > 0.0):
+            return None
+        factor[(j, j)] = np.sqrt(pivot)
+        for i in range(j + 1, size):
+            entry = sums[:, position[(i, j)]]
+            for col in range(j):
+                entry = entry - factor[(i, col)] * factor[(j, col)]
+            factor[(i, j)] = entry / factor[(j, j)]
+    return [factor[(size - 1, col)] for col in range(size)]
 
 
 @lru_cache(maxsize=16)
@@ -188,6 +223,13 @@ def _lower_triangle(size: int) -> tuple[np.ndarray, np.ndarray]:
     rows.setflags(write=False)
     cols.setflags(write=False)
     return rows, cols
+
+
+@lru_cache(maxsize=16)
+def _pair_positions(size: int) -> dict[tuple[int, int], int]:
+    """(row, column) → its place in ``np.tril_indices(size)`` order."""
+    rows, cols = _lower_triangle(size)
+    return {pair: p for p, pair in enumerate(zip(rows.tolist(), cols.tolist(), strict=True))}
 
 
 @lru_cache(maxsize=256)
