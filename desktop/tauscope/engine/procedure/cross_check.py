@@ -168,7 +168,10 @@ def _with_alpha(points: tuple[LagPoint, ...], x: np.ndarray, spec: str, alpha: f
     out = []
     for p in points:
         critical = tau_critical_value(spec, x.shape[0] - 1 - p.lag, alpha)
-        out.append(LagPoint(p.lag, p.statistic, critical, bool(p.statistic < critical)))
+        if critical == p.critical_value:  # already judged at this level: the point as it is
+            out.append(p)
+        else:
+            out.append(LagPoint(p.lag, p.statistic, critical, bool(p.statistic < critical)))
     return tuple(out)
 
 
