@@ -10,6 +10,7 @@ name)``; a series the fast path declines is analysed by the reference path.
 
 from __future__ import annotations
 
+import gc
 from collections.abc import Callable, Iterable, Iterator, Sequence
 from contextlib import suppress
 from itertools import islice
@@ -60,10 +61,16 @@ def analyse_many(
     """
     items = series if isinstance(series, Sequence) else list(series)
     results: list[SeriesResult] = []
-    for result in iter_analyse(items, settings, should_stop):
-        results.append(result)
-        if progress is not None:
-            progress(len(results), len(items), result.name)
+    # Every result is kept until the end, so the collector stays paused over the whole run
+    # rather than a chunk at a time: its passes at each chunk's end would walk the results
+    # kept so far again and again, and find nothing to free (see iter_analyse).
+    with collector_paused():
+        for result in iter_analyse(items, settings, should_stop):
+            results.append(result)
+            if progress is not None:
+                progress(len(results), len(items), result.name)
+    if gc.isenabled():
+        gc.collect(0)  # the young generation (this run's objects) once, here, not at every chunk
     return results
 
 
