@@ -140,24 +140,38 @@ def kpss_checks(level: Callable[[int], np.ndarray], order: int | None, determini
     rejection on Δ^(d−1) y and none on Δ^d y.  ``level(d)`` is Δ^d y as the ADF
     regressions saw it (``PreparedSeries.level``: the fixed seasonal means removed when
     the tests allow for them)."""
-    if not options.kpss or order is None:
+    if not options.kpss:
         return []
-    alpha = options.alpha
+    return [(estimation.kpss(level(d), spec, d, options.alpha), expects)
+            for spec, d, expects in _kpss_plan(order, deterministic)]
+
+
+def kpss_requests(decision: Decision, options: CrossCheckOptions) -> list[tuple[str, int]]:
+    """(spec, difference) of every KPSS test the cross-check asks its estimation for (on
+    ``PreparedSeries.level(difference)``), so a batch can compute them together."""
+    if not options.kpss:
+        return []
+    return [(spec, d) for spec, d, _ in _kpss_plan(decision.order, decision.deterministic)]
+
+
+def _kpss_plan(order: int | None, deterministic: str | None) -> list[tuple[str, int, bool]]:
+    """(spec, difference, whether the verdict expects a rejection) of the KPSS tests."""
+    if order is None:
+        return []
     if order == 0:
-        spec = "trend" if deterministic == "trend" else "constant"
-        return [(estimation.kpss(level(0), spec, 0, alpha), False)]
+        return [("trend" if deterministic == "trend" else "constant", 0, False)]
     spec_below = "trend" if deterministic in ("trend", "constant") else "constant"
-    return [
-        (estimation.kpss(level(order - 1), spec_below, order - 1, alpha), True),
-        (estimation.kpss(level(order), "constant", order, alpha), False),
-    ]
+    return [(spec_below, order - 1, True), ("constant", order, False)]
 
 
 def _with_alpha(points: tuple[LagPoint, ...], x: np.ndarray, spec: str, alpha: float) -> tuple[LagPoint, ...]:
     out = []
     for p in points:
         critical = tau_critical_value(spec, x.shape[0] - 1 - p.lag, alpha)
-        out.append(LagPoint(p.lag, p.statistic, critical, bool(p.statistic < critical)))
+        if critical == p.critical_value:  # already judged at this level: the point as it is
+            out.append(p)
+        else:
+            out.append(LagPoint(p.lag, p.statistic, critical, bool(p.statistic < critical)))
     return tuple(out)
 
 

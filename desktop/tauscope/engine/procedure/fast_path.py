@@ -52,7 +52,7 @@ from tauscope.engine.results import (
 )
 from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.seasonal.results import SeasonalRootsResult
-from tauscope.engine.unitroot.kpss_fast import kpss_fast
+from tauscope.engine.unitroot.kpss_fast import KpssBatch
 from tauscope.engine.unitroot.recursive import recursive_tau_many
 
 # Below this share of its length, a column is too close to the span of the earlier
@@ -229,7 +229,7 @@ class FastEstimation:
         return tuple(points)
 
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
-        return kpss_fast(x, spec, difference, alpha)
+        return self._batch.kpss_tests.result(self._index, x, spec, difference, alpha)
 
     def union(self, x: np.ndarray, options: EstimateOptions, period: int | None = None) -> UnionRow:
         if period != self._batch.period:
@@ -258,6 +258,7 @@ class SeriesBatch:
         self._union: list[UnionRow] | None = None
         self._recursive: dict[tuple[int, str, int, int, float], RecursiveStatistic] = {}
         self.seasonal = SeasonalBatch(self._levels_in)  # the seasonal unit-root tests, batched
+        self.kpss_tests = KpssBatch()  # the cross-check's KPSS tests, batched when asked ahead
 
     def __len__(self) -> int:
         return int(self._levels_in.shape[0])

@@ -10,6 +10,7 @@ name)``; a series the fast path declines is analysed by the reference path.
 
 from __future__ import annotations
 
+import gc
 from collections.abc import Callable, Iterable, Iterator, Sequence
 from contextlib import suppress
 from itertools import islice
@@ -27,7 +28,7 @@ from tauscope.engine.procedure.analyse import (
     decide,
     finish,
 )
-from tauscope.engine.procedure.cross_check import recursive_requests
+from tauscope.engine.procedure.cross_check import kpss_requests, recursive_requests
 from tauscope.engine.procedure.fast_path import SeriesBatch
 from tauscope.engine.procedure.prepare import PreparedSeries, prepare
 from tauscope.engine.procedure.seasonal_means import with_seasonal_many
@@ -60,10 +61,16 @@ def analyse_many(
     """
     items = series if isinstance(series, Sequence) else list(series)
     results: list[SeriesResult] = []
-    for result in iter_analyse(items, settings, should_stop):
-        results.append(result)
-        if progress is not None:
-            progress(len(results), len(items), result.name)
+    # Every result is kept until the end, so the collector stays paused over the whole run
+    # rather than a chunk at a time: its passes at each chunk's end would walk the results
+    # kept so far again and again, and find nothing to free (see iter_analyse).
+    with collector_paused():
+        for result in iter_analyse(items, settings, should_stop):
+            results.append(result)
+            if progress is not None:
+                progress(len(results), len(items), result.name)
+    if gc.isenabled():
+        gc.collect(0)  # the young generation (this run's objects) once, here, not at every chunk
     return results
 
 
@@ -126,6 +133,7 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
     wanted: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
     windows: dict[SeriesBatch, list[tuple[int, str, int, int]]] = {}
     seasonal: dict[SeriesBatch, list[tuple[int, int]]] = {}
+    kpss: dict[SeriesBatch, list[tuple[int, np.ndarray, str, int]]] = {}
     for position, item in enumerate(prepared):
         if stop():
             return
@@ -141,6 +149,9 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
         windows.setdefault(batch, []).extend((slot, *request) for request in recursive_requests(decision))
         if item.seasonal is not None:
             seasonal.setdefault(batch, []).append((slot, item.seasonal.period))
+        with suppress(*FALLBACK_ERRORS):  # a level that fails is met again in the cross-check
+            kpss.setdefault(batch, []).extend(
+                (slot, item.level(d), spec, d) for spec, d in kpss_requests(decision, plan.cross_check))
     for batch, requests in wanted.items():
         # On failure each series asks on its own below, and falls back if it must.
         with suppress(*FALLBACK_ERRORS):
@@ -150,6 +161,9 @@ def _analyse_chunk(chunk: list[tuple[str, Any]], settings: Settings, plan: Plan,
             batch.prefetch_recursive(requests, plan.cross_check.alpha)
     for batch, pairs in seasonal.items():  # errors are kept per series: none escapes here
         batch.seasonal.prefetch(pairs, plan.cross_check.alpha)
+    for batch, tests in kpss.items():
+        with suppress(*FALLBACK_ERRORS):  # likewise: a failing series asks alone below
+            batch.kpss_tests.prefetch(tests, plan.cross_check.alpha)
 
     for position, (name, values) in enumerate(chunk):
         if stop():

@@ -125,7 +125,16 @@ def _decided(prepared: PreparedSeries, mode: str, period: int,
         text=_sentence(period, mode, fit is not None, found, used,
                        None if fit is None else fit.statistic, None if fit is None else fit.p_value),
     )
-    return replace(prepared, seasonal=means)
+    decided = replace(prepared, seasonal=means)
+    for name in _KEPT:  # cached already and the same for the new one: kept
+        if name in prepared.__dict__:
+            decided.__dict__[name] = prepared.__dict__[name]
+    return decided
+
+
+# PreparedSeries' cached properties that depend on its values and dates alone, not on the
+# seasonal decision (its levels do: they remove the seasonal means when these are used)
+_KEPT = ("scale", "standardised", "jump", "periods_per_year")
 
 
 def _sentence(period: int, mode: str, tested: bool, found: bool, used: bool,

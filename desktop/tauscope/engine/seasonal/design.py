@@ -193,8 +193,8 @@ def build(
     regressors = (lagged.reshape(-1, period) @ coefficients(period).T).reshape(lagged.shape)
     dependent = y[:, rows] - y[:, rows - period]
     seasonal_diff = y[:, period:] - y[:, :-period]  # index t − S
-    lag_cols = [seasonal_diff[:, rows - i - period] for i in range(1, lags + 1)]
-    lag_block = np.stack(lag_cols, axis=2) if lag_cols else np.empty((*dependent.shape, 0))
+    # Δ_S y_{t−i} for i = 1 … p, one gather: (R, m, p)
+    lag_block = seasonal_diff[:, rows[:, None] - period - np.arange(1, lags + 1)[None, :]]
     return dependent, regressors, lag_block
 
 

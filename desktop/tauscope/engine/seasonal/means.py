@@ -190,11 +190,14 @@ def seasonal_means_tests(xs: np.ndarray, period: int,
     def design(p: int, start: int, rows: np.ndarray) -> np.ndarray:
         """[1, y_{t−1}, contrasts, Δy_{t−1} … Δy_{t−p}, Δy_t] for rows t = start … (B, m, ·)."""
         r = np.arange(start, dy.shape[1])
-        parts = [np.ones((rows.size, r.size)), y[rows][:, r]]
-        parts += [c[r, j][None, :].repeat(rows.size, axis=0) for j in range(period - 1)]
-        parts += [dy[rows][:, r - i] for i in range(1, p + 1)]
-        parts.append(dy[rows][:, r])
-        return np.stack(parts, axis=2)
+        out = np.empty((rows.size, r.size, period + p + 2))  # filled column by column
+        out[:, :, 0] = 1.0
+        out[:, :, 1] = y[rows][:, r]
+        out[:, :, 2:1 + period] = c[r][None, :, :]
+        dy_rows = dy[rows]
+        out[:, :, 1 + period:1 + period + p] = dy_rows[:, r[:, None] - np.arange(1, p + 1)[None, :]]
+        out[:, :, -1] = dy_rows[:, r]
+        return out
 
     every = np.arange(keep.size)
     m = dy.shape[1] - p_max

@@ -14,6 +14,7 @@ here, so they read the same numbers.
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass
 
 import numpy as np
@@ -68,15 +69,17 @@ def _table_p_values(quantiles: np.ndarray, values: np.ndarray, kind: str
             p, beyond, inside = 1.0 - shares, values > quantiles[-1], values < quantiles[0]
     out: list[float | None] = []
     bounds: list[str | None] = []
-    for value, share, far, near in zip(values, p, beyond, inside, strict=True):
-        if not np.isfinite(value):
+    # plain Python values first (tolist gives each float as float(v) does)
+    for value, share, far, near in zip(values.tolist(), np.asarray(p).tolist(), beyond.tolist(),
+                                       inside.tolist(), strict=True):
+        if not math.isfinite(value):
             out.append(None)
             bounds.append(None)
         elif far:
             out.append(_LOWEST)
             bounds.append("below")
         else:
-            out.append(1.0 if near else float(share))
+            out.append(1.0 if near else share)
             bounds.append(None)
     return out, bounds
 

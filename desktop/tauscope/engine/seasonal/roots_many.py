@@ -15,6 +15,8 @@ so it gets the per-series result or error sentence.
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 import numpy as np
 
 from tauscope.engine.seasonal.critical import (
@@ -29,7 +31,7 @@ from tauscope.engine.seasonal.design import (
     n_deterministic,
     statistics_for,
 )
-from tauscope.engine.seasonal.null import seasonal_null
+from tauscope.engine.seasonal.null import SeasonalNull, seasonal_null
 from tauscope.engine.seasonal.results import SeasonalRootsResult
 from tauscope.engine.seasonal.roots import (
     RootsKey,
@@ -100,7 +102,7 @@ def _batch(values: np.ndarray, period: int, deterministic: str, rule: str, p_max
     for lag in np.unique(chosen):
         members = np.flatnonzero(chosen == lag)
         found, fine = _statistics(y[members], period, deterministic, int(lag))
-        null = seasonal_null(period, deterministic, n, int(lag), key.reps, key.seed)
+        null = _null(period, deterministic, n, int(lag), key.reps, key.seed)
         columns = [null.p_values(i, found[:, i], stat.kind) for i, stat in enumerate(stats)]
         p_rows = list(zip(*(p for p, _ in columns), strict=True))  # each member's, stats order
         bound_rows = list(zip(*(b for _, b in columns), strict=True))
@@ -121,10 +123,9 @@ def choose_lags_many(y: np.ndarray, period: int, deterministic: str, rule: str,
     first = period + p_max
     m = y.shape[1] - first
     dependent, regressors, lag_block = build(y, period, p_max, first)
-    det = deterministic_columns(deterministic, np.arange(first, y.shape[1]), period)
+    qd = _deterministic_basis(deterministic, period, first, y.shape[1])
     augmented = np.concatenate([regressors, lag_block, dependent[:, :, None]], axis=2)
-    if det.shape[1]:
-        qd, _ = np.linalg.qr(det)
+    if qd.shape[1]:
         augmented = augmented - qd @ (qd.T @ augmented)
     r = np.asarray(np.linalg.qr(augmented, mode="r"))
     tail = r[:, period:, -1] ** 2
@@ -146,33 +147,40 @@ def _statistics(y: np.ndarray, period: int, deterministic: str,
     over the rows, which sends an exact fit or a non-finite statistic back one by one."""
     n = y.shape[1]
     dependent, regressors, lag_block = build(y, period, lags, period + lags)
-    det = deterministic_columns(deterministic, np.arange(period + lags, n), period)
+    qd = _deterministic_basis(deterministic, period, period + lags, n)
     stats = statistics_for(period)
     try:
-        coef, cov, rss = _fit_rows(dependent[:, :, None], np.concatenate([regressors, lag_block], axis=2), det)
+        coef, cov, rss = _fit_rows(dependent[:, :, None], np.concatenate([regressors, lag_block], axis=2), qd)
     except np.linalg.LinAlgError:
         return np.full((y.shape[0], len(stats)), np.nan), np.zeros(y.shape[0], bool)
-    s2 = rss / (dependent.shape[1] - det.shape[1] - coef.shape[1])
+    s2 = rss / (dependent.shape[1] - qd.shape[1] - coef.shape[1])
     found = np.empty((y.shape[0], len(stats)))
+    f_groups: dict[int, list[int]] = {}
     for i, stat in enumerate(stats):
-        cols = list(stat.columns)
         if stat.kind == "t":
-            found[:, i] = coef[:, cols[0]] / np.sqrt(s2 * cov[:, cols[0], cols[0]])
-        else:  # b_B'V_BB⁻¹b_B / (q s²), as design.statistics
-            b = coef[:, cols]
-            # numpy's own row sums, not a BLAS dot: its result can depend on the alignment
-            solved = np.linalg.solve(cov[:, cols][:, :, cols], b[:, :, None])[:, :, 0]
-            quad = np.sum(b * solved, axis=1)
-            found[:, i] = quad / (len(cols) * s2)
+            j = stat.columns[0]
+            found[:, i] = coef[:, j] / np.sqrt(s2 * cov[:, j, j])
+        else:
+            f_groups.setdefault(len(stat.columns), []).append(i)
+    for size, members in f_groups.items():
+        # b_B'V_BB⁻¹b_B / (q s²), as design.statistics: the statistics of one size solved in
+        # one call (LAPACK solves each matrix on its own, so the same numbers as one by one)
+        cols = np.array([stats[i].columns for i in members])  # (F, q)
+        b = coef[:, cols]  # (B, F, q)
+        blocks = cov[:, cols[:, :, None], cols[:, None, :]]  # (B, F, q, q)
+        solved = np.linalg.solve(blocks, b[..., None])[..., 0]
+        # numpy's own row sums, not a BLAS dot: its result can depend on the alignment
+        quad = np.sum(b * solved, axis=2)
+        found[:, members] = quad / (size * s2[:, None])
     fine = (rss > 1e-20 * (n - period - lags)) & np.isfinite(found).all(axis=1)
     return found, fine
 
 
-def _fit_rows(y: np.ndarray, x: np.ndarray, det: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+def _fit_rows(y: np.ndarray, x: np.ndarray, qd: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """``design.fit`` with every product taken matrix by matrix over the stack (y: B × m × 1),
-    so that a row gets the same bits alone as in a batch of any size: (coef, (X'X)⁻¹, RSS)."""
-    if det.shape[1]:
-        qd, _ = np.linalg.qr(det)
+    so that a row gets the same bits alone as in a batch of any size: (coef, (X'X)⁻¹, RSS).
+    ``qd``: an orthonormal basis of the deterministic columns (:func:`_deterministic_basis`)."""
+    if qd.shape[1]:
         y = y - qd @ (qd.T @ y)
         x = x - qd @ (qd.T @ x)
     q, r = np.linalg.qr(x)
@@ -181,3 +189,19 @@ def _fit_rows(y: np.ndarray, x: np.ndarray, det: np.ndarray) -> tuple[np.ndarray
     resid = y - q @ qy
     rss = (np.swapaxes(resid, 1, 2) @ resid)[:, 0, 0]
     return (r_inv @ qy)[:, :, 0], r_inv @ np.swapaxes(r_inv, 1, 2), rss
+
+
+@lru_cache(maxsize=64)
+def _deterministic_basis(deterministic: str, period: int, first: int, n: int) -> np.ndarray:
+    """Q of the QR of the deterministic columns on rows first … n − 1 (m × d; d = 0: none),
+    once per (terms, period, first row, length): every batch of that shape projects them out."""
+    det = deterministic_columns(deterministic, np.arange(first, n), period)
+    qd = np.linalg.qr(det)[0] if det.shape[1] else det
+    qd.setflags(write=False)
+    return qd
+
+
+@lru_cache(maxsize=64)
+def _null(period: int, deterministic: str, n: int, lags: int, reps: int, seed: int) -> SeasonalNull:
+    """``seasonal_null``, once per request (it is frozen; its draws are cached where simulated)."""
+    return seasonal_null(period, deterministic, n, lags, reps, seed)

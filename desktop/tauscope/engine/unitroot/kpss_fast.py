@@ -125,7 +125,13 @@ def kpss_fast(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestRe
         return kpss_test(x, spec, difference, alpha)
     statistic, lags = computed
     table = _CRITICAL["trend" if spec == "trend" else "constant"]
-    p = float(np.interp(statistic, table, _P_LEVELS))
+    return _result(statistic, float(np.interp(statistic, table, _P_LEVELS)), lags, int(x.shape[0]),
+                   spec, difference, alpha)
+
+
+def _result(statistic: float, p: float, lags: int, nobs: int, spec: str, difference: int,
+            alpha: float) -> TestResult:
+    table = _CRITICAL["trend" if spec == "trend" else "constant"]
     critical_values = {"10%": table[0], "5%": table[1], "1%": table[3]}
     level = next(v for a, v in _LEVEL.items() if abs(a - alpha) < 1e-12)
     return TestResult(
@@ -135,10 +141,106 @@ def kpss_fast(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestRe
         statistic=statistic,
         p_value=p,
         lags=lags,
-        nobs=int(x.shape[0]),
+        nobs=nobs,
         critical_values=critical_values,
         reject=bool(statistic > critical_values[level]),
         critical_value=critical_values[level],
         p_value_bound="below" if p <= 0.01 else "above" if p >= 0.10 else None,
         lag_rule="Hobijn-Franses-Ooms automatic bandwidth",
     )
+
+
+def kpss_many(xs: np.ndarray, spec: str, difference: int, alpha: float) -> list[TestResult]:
+    """:func:`kpss_fast` for every row of ``xs`` (series of one length), the steps of
+    :func:`kpss_statistic` taken for all rows at once in the same order (the sums of
+    products as matrix products, so equal to rounding); a row whose statistic is degenerate
+    or could overflow goes through :func:`kpss_fast` alone, and from there to statsmodels."""
+    xs = np.asarray(xs, dtype=float)
+    return [kpss_fast(x, spec, difference, alpha) if found is None else found
+            for x, found in zip(xs, _kpss_rows(xs, spec, difference, alpha), strict=True)]
+
+
+def _row_sums(values: np.ndarray) -> np.ndarray:
+    """Σ over each row with numpy's own (pairwise) sum along memory, not a BLAS product: a
+    row's sum is then the same whatever the other rows, alone or in a batch."""
+    return np.asarray(np.sum(values, axis=1))
+
+
+def _kpss_rows(xs: np.ndarray, spec: str, difference: int, alpha: float) -> list[TestResult | None]:
+    """:func:`kpss_many`'s batched part: None for the rows it leaves to :func:`kpss_fast`.
+    Each row's numbers depend on that row alone (a row alone gets the same bits)."""
+    count, nobs = xs.shape
+    if nobs < 3 or count == 0:
+        return [None] * count
+    with np.errstate(all="ignore"):
+        x = xs - np.mean(xs, axis=1)[:, None]  # centred, as kpss_fast
+        ok = np.abs(x).max(axis=1) < _LARGEST
+        resids = x - x.mean(axis=1)[:, None]
+        if spec == "trend":
+            t_centred = _centred_time(nobs)
+            slope = _row_sums(resids * t_centred[None, :]) / np.dot(t_centred, t_centred)
+            resids = resids - slope[:, None] * t_centred[None, :]
+        squares = _row_sums(resids**2)
+        ok &= squares > 0.0
+        covlags = int(np.power(nobs, 2.0 / 9.0))
+        products = [_row_sums(resids[:, i:] * resids[:, : nobs - i]) for i in range(1, covlags + 1)]
+        # the bandwidth (_bandwidth), row by row in the same order of operations
+        s0 = squares / nobs
+        s1 = np.zeros(count)
+        for i, raw in enumerate(products, start=1):
+            product = raw / (nobs / 2.0)
+            s0 = s0 + product
+            s1 = s1 + i * product
+        ok &= s0 != 0.0
+        s_hat = s1 / np.where(s0 != 0.0, s0, 1.0)
+        squared = s_hat * s_hat
+        ok &= np.isfinite(squared)
+        power = 1.0 / 3.0
+        gamma_hat = 1.1447 * np.power(np.where(ok, squared, 0.0), power)
+        bandwidth = np.floor(gamma_hat * np.power(nobs, power))
+        lags = np.minimum(bandwidth, nobs - 1).astype(int)
+        eta = _row_sums(np.cumsum(resids, axis=1) ** 2) / (nobs**2)
+        # the long-run variance (_long_run_variance): Σ e² + 2 Σ_s (1 − s/(l+1)) γ_s, in order
+        variance = squares
+        for i in range(1, int(lags[ok].max(initial=0)) + 1):
+            product = products[i - 1] if i <= covlags else _row_sums(resids[:, i:] * resids[:, : nobs - i])
+            term = 2 * product * (1.0 - (i / (lags + 1.0)))
+            variance = variance + np.where(i <= lags, term, 0.0)
+        variance = variance / nobs
+        ok &= (variance > 0.0) & np.isfinite(eta) & np.isfinite(variance)
+        statistic = eta / np.where(ok, variance, 1.0)
+    table = _CRITICAL["trend" if spec == "trend" else "constant"]
+    p_values = np.interp(statistic, table, _P_LEVELS)
+    return [_result(value, p, lag, nobs, spec, difference, alpha) if fine else None
+            for fine, value, p, lag in zip(ok.tolist(), statistic.tolist(), p_values.tolist(),
+                                           lags.tolist(), strict=True)]
+
+
+class KpssBatch:
+    """KPSS of a batch's series, asked for ahead (:meth:`prefetch`) and computed per (spec,
+    difference, length) in one call (:func:`kpss_many`); a test not asked for ahead, or
+    asked on other values, is computed alone, by the same steps."""
+
+    def __init__(self) -> None:
+        self._found: dict[tuple[int, str, int, float], tuple[np.ndarray, TestResult]] = {}
+
+    def prefetch(self, requests: list[tuple[int, np.ndarray, str, int]], alpha: float) -> None:
+        """``requests``: (index, Δ^d y as the test will be asked on, spec, d)."""
+        groups: dict[tuple[str, int, int], list[tuple[int, np.ndarray]]] = {}
+        for index, x, spec, difference in requests:
+            groups.setdefault((spec, difference, x.shape[0]), []).append((index, x))
+        for (spec, difference, _), members in groups.items():
+            found = _kpss_rows(np.vstack([x for _, x in members]), spec, difference, alpha)
+            for (index, x), result in zip(members, found, strict=True):
+                if result is not None:  # the others are computed alone when asked
+                    self._found[(index, spec, difference, alpha)] = (x, result)
+
+    def result(self, index: int, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
+        """Row ``index``'s test on ``x`` (prefetched on the same values, or computed now
+        as a batch of one: the same numbers)."""
+        found = self._found.pop((index, spec, difference, alpha), None)
+        if found is not None and (found[0] is x or np.array_equal(found[0], x)):
+            return found[1]
+        x = np.asarray(x, dtype=float)
+        return kpss_many(x[None, :], spec, difference, alpha)[0] if x.ndim == 1 \
+            else kpss_fast(x, spec, difference, alpha)

@@ -17,6 +17,8 @@ RSS_w = y_w'y_w − c_w'G_w^{-1}c_w and (X_w'X_w)^{-1} = R^{-1}G_w^{-1}R^{-T}.
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 import numpy as np
 from statsmodels.tsa.adfvalues import tau_2010s
 
@@ -27,6 +29,8 @@ from tauscope.engine.results import RecursiveStatistic
 
 MIN_WINDOW = 20  # regression observations in the first window (common practice: ≥ 20)
 NEAR_EXACT = 1e-6  # RSS below this share of Σy²: the window is left to the solves (see below)
+SMALL_FACTOR = 5  # Gram matrices up to this size are factorised elementwise (_last_row); the
+# choice depends on the size alone, so a row gets the same numbers alone as in a batch
 
 
 
@@ -90,9 +94,13 @@ def recursive_tau_many(xs: np.ndarray, spec: str, lags: int, alpha: float = 0.05
     return out
 
 
-def _recursive_rows(xs: np.ndarray, spec: str, lags: int, alpha: float) -> list[RecursiveStatistic]:
-    if xs.shape[0] == 1:  # numpy takes other kernels for a stack of one: computed as a pair
+def _recursive_rows(xs: np.ndarray, spec: str, lags: int, alpha: float,
+                    alone_as_pair: bool = False) -> list[RecursiveStatistic]:
+    # numpy takes other kernels for a stack of one where the solves decide, or where the
+    # design has one column: then a single row is computed as a pair
+    if alone_as_pair or (xs.shape[0] == 1 and spec == "none" and lags == 0):
         return _recursive_rows(np.vstack([xs, xs]), spec, lags, alpha)[:1]
+    given = xs
     if spec != "none":
         xs = xs - xs.mean(axis=1)[:, None]
     dx = np.diff(xs, axis=1)
@@ -118,9 +126,11 @@ def _recursive_rows(xs: np.ndarray, spec: str, lags: int, alpha: float) -> list[
     ends = sizes + lags
     tau_by_factor = _tau_by_cholesky(design / scale[:, None, :], y, g, start)
     if tau_by_factor is not None:
-        critical = tau_critical_values_for_sizes(spec, sizes, alpha)
+        critical = _critical_values(spec, start, n, alpha)
         return [RecursiveStatistic(spec, lags, ends, sizes, tau_by_factor[b], critical, alpha)
                 for b in range(batch)]
+    if batch == 1:
+        return _recursive_rows(given, spec, lags, alpha, alone_as_pair=True)
     q, r = np.linalg.qr(design / scale[:, None, :])
     gram = np.cumsum(q[:, :, :, None] * q[:, :, None, :], axis=1)[:, start - 1:]
     cross = np.cumsum(q * y[:, :, None], axis=1)[:, start - 1:]
@@ -149,18 +159,83 @@ def _tau_by_cholesky(design: np.ndarray, y: np.ndarray, g: int, start: int) -> n
     error without σ̂, is l, and RSS_w = m² (the Cholesky form of least squares: Golub,
     G.H. & Van Loan, C.F. 2013, Matrix Computations, 4th ed., §5.3).  γ̂ = that
     coefficient / R_kk, so τ_w = sign(R_kk) · l · √(w − k) / |m|."""
-    _, n, k = design.shape
+    batch, n, k = design.shape
     order = [j for j in range(k) if j != g] + [g]
     q, r = np.linalg.qr(design[:, :, order])
-    augmented = np.concatenate([q, y[:, :, None]], axis=2)
-    gram = np.cumsum(augmented[:, :, :, None] * augmented[:, :, None, :], axis=1)[:, start - 1:]
-    try:
-        factor = np.linalg.cholesky(gram)
-    except np.linalg.LinAlgError:
-        return None
-    rss = factor[..., k, k] ** 2
-    if not np.all(rss > NEAR_EXACT * gram[..., k, k]):
-        return None
+    # [Q y] held row by row (B, k+1, n): the running sums of the products of each pair of
+    # its columns on the lower triangle (all the factorisation reads) run along memory
+    augmented = np.empty((batch, k + 1, n))
+    augmented[:, :k, :] = q.transpose(0, 2, 1)
+    augmented[:, k, :] = y
+    rows, cols = _lower_triangle(k + 1)
+    sums = np.cumsum(augmented[:, rows, :] * augmented[:, cols, :], axis=2)[:, :, start - 1:]
     sizes = np.arange(start, n + 1)
     sign = np.sign(r[:, k - 1, k - 1])[:, None]
-    return np.asarray(sign * factor[..., k, k - 1] * np.sqrt(sizes - k) / np.sqrt(rss))
+    if k + 1 <= SMALL_FACTOR:
+        last = _last_row(sums, k + 1)
+        if last is None:
+            return None
+        yy = sums[:, -1]  # the running Σy², the Gram's last diagonal entry
+        l_gamma, m = last[k - 1], last[k]
+    else:
+        gram = np.zeros((batch, sums.shape[2], k + 1, k + 1))
+        gram[:, :, rows, cols] = sums.transpose(0, 2, 1)
+        try:
+            factor = np.linalg.cholesky(gram)  # reads the lower triangle only
+        except np.linalg.LinAlgError:
+            return None
+        yy = gram[..., k, k]
+        l_gamma, m = factor[..., k, k - 1], factor[..., k, k]
+    rss = m**2
+    if not np.all(rss > NEAR_EXACT * yy):
+        return None
+    return np.asarray(sign * l_gamma * np.sqrt(sizes - k) / np.sqrt(rss))
+
+
+def _last_row(sums: np.ndarray, size: int) -> list[np.ndarray] | None:
+    """The last row of the Cholesky factor L of every window's Gram matrix, from its lower
+    triangle held as running sums (B, size(size+1)/2, W) in ``np.tril_indices`` order; None
+    when a pivot is not positive.  Column by column, G_jj = Σ_l L_jl² and G_ij = Σ_l L_il L_jl
+    (Golub & Van Loan 2013, §4.2), every operation elementwise over the windows, so a row's
+    numbers depend on that row alone.  For small matrices this is much cheaper than a
+    factorisation call per window."""
+    position = _pair_positions(size)
+    factor: dict[tuple[int, int], np.ndarray] = {}
+    for j in range(size):
+        pivot = sums[:, position[(j, j)]]
+        for col in range(j):
+            pivot = pivot - factor[(j, col)] ** 2
+        if not np.all(pivot > 0.0):
+            return None
+        factor[(j, j)] = np.sqrt(pivot)
+        for i in range(j + 1, size):
+            entry = sums[:, position[(i, j)]]
+            for col in range(j):
+                entry = entry - factor[(i, col)] * factor[(j, col)]
+            factor[(i, j)] = entry / factor[(j, j)]
+    return [factor[(size - 1, col)] for col in range(size)]
+
+
+@lru_cache(maxsize=16)
+def _lower_triangle(size: int) -> tuple[np.ndarray, np.ndarray]:
+    """Row and column indices of the lower triangle of a size × size matrix."""
+    rows, cols = np.tril_indices(size)
+    rows.setflags(write=False)
+    cols.setflags(write=False)
+    return rows, cols
+
+
+@lru_cache(maxsize=16)
+def _pair_positions(size: int) -> dict[tuple[int, int], int]:
+    """(row, column) → its place in ``np.tril_indices(size)`` order."""
+    rows, cols = _lower_triangle(size)
+    return {pair: p for p, pair in enumerate(zip(rows.tolist(), cols.tolist(), strict=True))}
+
+
+@lru_cache(maxsize=256)
+def _critical_values(spec: str, start: int, n: int, alpha: float) -> np.ndarray:
+    """:func:`tau_critical_values_for_sizes` for the windows start … n, once per request
+    (read-only: every series of that spec, length and lag order shares it)."""
+    critical = tau_critical_values_for_sizes(spec, np.arange(start, n + 1), alpha)
+    critical.setflags(write=False)
+    return critical
