@@ -134,7 +134,8 @@ class SeriesPanel(QWidget):
         thread at the start of a run of a thousand series)."""
         last = len(COLUMNS) - 1
         chosen: set[tuple[int, ...]] = set()
-        for block in self.view.selectionModel().selection():  # whole rows, a block per parent
+        selection = self.view.selectionModel().selection()
+        for block in (selection.at(i) for i in range(selection.count())):  # whole rows
             if block.left() != 0 or block.right() != last:
                 continue
             parent = block.parent()
