@@ -61,3 +61,18 @@ def test_the_export_process_writes_the_file_and_its_problems_come_back(
     assert not (tmp_path / "no such folder").exists()
     again = export_elsewhere(tmp_path / "f.xlsx", run, values, with_charts=True)  # same child
     assert again == Written(3, 0, "") and (tmp_path / "f.xlsx").is_file()
+
+
+def test_an_export_process_that_dies_leaves_the_writing_to_the_caller(
+        record, tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:  # type: ignore[no-untyped-def]
+    from tauscope.ui import export_process
+    from tauscope.ui.engine_process import EngineProcess
+
+    dying = EngineProcess("engine_process_engines:ending")  # ends before it answers
+    monkeypatch.setattr(export_process, "_shared", dying)
+    run, values = record
+    try:
+        assert export_process.export_elsewhere(tmp_path / "f.html", run, values, True) is None
+        assert not dying.is_alive() and not (tmp_path / "f.html").exists()
+    finally:
+        dying.shutdown()

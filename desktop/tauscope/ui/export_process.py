@@ -120,15 +120,21 @@ def shared_exporter() -> EngineProcess:
 def export_elsewhere(path: Path, run: RunRecord, values: Mapping[str, Any],
                      with_charts: bool) -> Written | None:
     """Write ``run`` to ``path`` in the export process (from a helper thread: it waits for the
-    answer); None when no process can be started here, for the caller to write it itself.
-    The child's ``ExportError`` is raised again here."""
+    answer); None when no process can be started here or it ended before answering, for the
+    caller to write the file itself (the next export starts another).  The child's
+    ``ExportError`` is raised again here."""
+    from tauscope.ui.engine_process import EngineProcessLost
+
     exporter = shared_exporter()
     try:
         exporter.start()
     except Exception:  # no process can be started on this system
         return None
-    answers: list[Any] = list(exporter.iter_analyse(request(path, run, values, with_charts),
-                                                    run.settings))
+    try:
+        answers: list[Any] = list(exporter.iter_analyse(
+            request(path, run, values, with_charts), run.settings))
+    except EngineProcessLost:
+        return None
     if len(answers) != 1 or not isinstance(answers[0], Written):
         raise RuntimeError("the export process gave no answer")
     return answers[0]
