@@ -54,6 +54,16 @@ def test_results_from_the_process_equal_the_engine_run_here() -> None:
         engine.shutdown()
 
 
+def test_results_can_come_still_pickled_for_the_caller_to_unpickle(engine_for) -> None:  # type: ignore[no-untyped-def]
+    from tauscope.ui.engine_process import Pickled
+
+    engine = engine_for("lengths")
+    packed = list(engine.iter_pickled(pairs(2, 50), None))
+    assert all(isinstance(p, Pickled) for p in packed)
+    assert [p.load()[:2] for p in packed] == [("s0", 50), ("s1", 50)]
+    assert [r[:2] for r in engine.iter_analyse(pairs(2, 50), None)] == [("s0", 50), ("s1", 50)]
+
+
 def test_runs_share_one_process(engine_for) -> None:  # type: ignore[no-untyped-def]
     engine = engine_for("lengths")
     first = list(engine.iter_analyse(pairs(3, 50), None))

@@ -77,6 +77,46 @@ def test_selecting_a_sheet_selects_its_series(main_window, open_in_window, small
         s.name for s in read_workbook(small_workbook).series()]
 
 
+def test_selected_series_in_tree_order_each_once_copies_with_their_sheet(
+        main_window, open_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    from PySide6.QtCore import QItemSelectionModel
+
+    open_in_window(main_window, small_workbook)
+    panel = main_window.series_panel
+    names = [s.name for s in read_workbook(small_workbook).series()]
+    main_window.add_transform(panel.model.all_series()[2].key, "diff")
+    panel.view.expandAll()
+    copy = panel.model.all_series()[3]
+    assert copy.parent and copy.name not in names
+    rows = QItemSelectionModel.SelectionFlag.Select | QItemSelectionModel.SelectionFlag.Rows
+    sheet = panel.proxy.index(0, 0, panel.proxy.index(0, 0))
+    pick = panel.view.selectionModel()
+
+    def select(*indexes):  # type: ignore[no-untyped-def]
+        pick.clearSelection()
+        for index in indexes:
+            pick.select(index, rows)
+        return [s.name for s in panel.selected_series()]
+
+    # rows picked out of order come back in the tree's order
+    assert select(panel.proxy.index(4, 0, sheet), panel.proxy.index(1, 0, sheet)) == [
+        names[1], names[4]]
+    # a series' own row stands for itself, not for its transformed copy
+    assert select(panel.proxy.index(2, 0, sheet)) == [names[2]]
+    copy_index = panel.proxy.index(0, 0, panel.proxy.index(2, 0, sheet))
+    assert select(copy_index) == [copy.name]
+    # the sheet stands for every series below it, copies included, each once
+    everything = [*names[:3], copy.name, *names[3:]]
+    assert select(sheet, panel.proxy.index(0, 0, sheet), copy_index) == everything
+    assert select(panel.proxy.index(0, 0)) == everything
+    # nothing selected: all series; with the filter on, a selected sheet still stands for all
+    assert select() == everything
+    panel.filter_box.setText("walk")
+    sheet = panel.proxy.index(0, 0, panel.proxy.index(0, 0))
+    assert select(sheet) == everything
+    assert select(panel.proxy.index(1, 0, sheet)) == [child_texts(panel.proxy, sheet)[1]]
+
+
 def test_a_transformed_copy_appears_under_its_parent(main_window, open_in_window,
                                                      run_in_window, small_workbook):  # type: ignore[no-untyped-def]
     open_in_window(main_window, small_workbook)

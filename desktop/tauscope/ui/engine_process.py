@@ -14,8 +14,13 @@ One run at a time goes through :meth:`EngineProcess.iter_analyse`, with the same
 signature and results as the engine's ``iter_analyse``:
 
 - the series go to the child one message each (name and values, a few kilobytes), and
-  the results come back one message each, so the calling thread (the analysis worker
-  thread, never the window's) unpickles one result at a time, about a millisecond each;
+  the results come back one message each, each result pickled on its own
+  (:class:`Pickled`): :meth:`EngineProcess.iter_analyse` unpickles it in the calling
+  thread, :meth:`EngineProcess.iter_pickled` leaves that to the caller.  The window's
+  analysis worker thread only receives them, and the window's thread unpickles them a few
+  at a time (about a millisecond each) when it shows them: a thread that unpickles holds
+  the interpreter lock, and on a busy machine it lost its core while holding it, freezing
+  the window for 100–170 ms;
 - ``should_stop()`` is asked while the results are awaited; when it says stop, the
   child's stop flag (a shared ``Event``) is set, which the engine asks before each
   series, and the stream ends with the child's end-of-run message.  A stream left
@@ -36,8 +41,9 @@ import multiprocessing
 import pickle
 import threading
 import traceback
-from collections.abc import Callable, Iterable, Iterator
-from contextlib import suppress
+from collections.abc import Callable, Generator, Iterable, Iterator
+from contextlib import closing, suppress
+from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
 if TYPE_CHECKING:
@@ -51,6 +57,16 @@ POLL_S = 0.02  # how often the waiting stream asks should_stop() (seconds)
 DRAIN_S = 30.0  # the longest wait for the child to end an abandoned run before it is replaced
 QUIT_S = 1.0  # the longest wait for the child to end by itself at shutdown
 ENGINE = "tauscope.engine.procedure.many:iter_analyse"  # what the child runs
+
+
+@dataclass(frozen=True)
+class Pickled:
+    """One result as the child pickled it, unpickled by :meth:`load` where it is wanted."""
+
+    data: bytes
+
+    def load(self) -> Any:
+        return pickle.loads(self.data)
 
 
 class EngineProcessLost(RuntimeError):
@@ -113,7 +129,8 @@ def serve(conn: Connection, stop: Event, engine: str = ENGINE) -> None:
             return
         try:
             for result in iter_analyse(pairs, settings, stop.is_set):
-                if not _send_safely(conn, ("result", number, result)):
+                packed = Pickled(pickle.dumps(result, pickle.HIGHEST_PROTOCOL))
+                if not _send_safely(conn, ("result", number, packed)):
                     return
         except Exception as exc:  # reported to the window, which marks the series concerned
             if not _send_safely(conn, ("error", number, _picklable(exc), traceback.format_exc())):
@@ -232,6 +249,15 @@ class EngineProcess:
     def iter_analyse(self, series: Iterable[tuple[str, Any]], settings: Settings,
                      should_stop: Callable[[], bool] | None = None) -> Iterator[SeriesResult]:
         """The engine's ``iter_analyse`` run in the child: one result per series, in order."""
+        with closing(self.iter_pickled(series, settings, should_stop)) as stream:
+            for packed in stream:
+                yield packed.load()
+
+    def iter_pickled(self, series: Iterable[tuple[str, Any]], settings: Settings,
+                     should_stop: Callable[[], bool] | None = None
+                     ) -> Generator[Pickled, None, None]:
+        """:meth:`iter_analyse` with each result still pickled, for the caller to unpickle
+        where it wants (the window's thread, a few at a time: see ``tauscope.ui.worker``)."""
         pairs = list(series)
         asked_to_stop = should_stop or (lambda: False)
         with self._lock:

@@ -19,16 +19,24 @@ from __future__ import annotations
 import time
 from collections.abc import Callable
 from dataclasses import dataclass
-from typing import TYPE_CHECKING
+from typing import TYPE_CHECKING, Protocol
 
 import tauscope.ui.chart_paint  # noqa: F401  (registers the .xlsx picture painter)
 from tauscope.report.chart_plan import ChartPlan, plan_chart
 from tauscope.report.run import RunRecord
 
 if TYPE_CHECKING:
-    from tauscope.data import SeriesData
+    import pandas as pd
 
-SeriesLookup = Callable[[str], "SeriesData | None"]
+
+class ChartSource(Protocol):
+    """What a chart reads of a series (a ``tauscope.data.SeriesData``): its values."""
+
+    @property
+    def values(self) -> pd.Series: ...
+
+
+SeriesLookup = Callable[[str], "ChartSource | None"]
 
 
 @dataclass(frozen=True)

@@ -6,7 +6,7 @@ from collections.abc import Iterator
 from typing import TYPE_CHECKING, Any
 
 import numpy as np
-from PySide6.QtCore import QModelIndex, Qt
+from PySide6.QtCore import Qt
 from PySide6.QtGui import QStandardItem, QStandardItemModel
 
 from tauscope.ui.qtcompat import item_value
@@ -243,14 +243,27 @@ class SeriesTreeModel(QStandardItemModel):
     def all_series(self) -> list[SeriesData]:
         return [self._series[str(item.data(KEY_ROLE))] for item in self.iter_series_items()]
 
-    def series_under(self, index: QModelIndex) -> list[SeriesData]:
-        """The series an index stands for: itself, or every series of a workbook or sheet."""
-        item = self.itemFromIndex(index.siblingAtColumn(0))
-        if item is None:
-            return []
-        if item.data(KIND_ROLE) == "series":
-            return [self._series[str(item.data(KEY_ROLE))]]
-        return [self._series[str(s.data(KEY_ROLE))] for s in self.iter_series_items(item)]
+    def series_picked(self, chosen: set[tuple[int, ...]]) -> list[SeriesData]:
+        """The series of the rows at the places ``chosen`` (rows from the top down), in
+        display order, each once: a series row stands for itself, a workbook's or sheet's
+        row for every series below it, transformed copies included."""
+        picked: list[SeriesData] = []
+
+        def walk(node: QStandardItem, place: tuple[int, ...], covered: bool) -> None:
+            for r in range(node.rowCount()):
+                child = node.child(r, 0)
+                if child is None:
+                    continue
+                here = (*place, r)
+                if child.data(KIND_ROLE) == "series":
+                    if covered or here in chosen:
+                        picked.append(self._series[str(child.data(KEY_ROLE))])
+                    walk(child, here, covered)
+                else:
+                    walk(child, here, covered or here in chosen)
+
+        walk(self.invisibleRootItem(), (), False)
+        return picked
 
     def workbooks(self) -> list[Workbook]:
         """The open workbooks, in the order shown."""

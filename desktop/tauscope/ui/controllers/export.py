@@ -48,6 +48,7 @@ class ExportController(QObject):
         """Write every finding to ``target`` (asking where when None); charts go into Excel,
         the web page and the PDF."""
         from tauscope.report import ExportError, export
+        from tauscope.ui.export_process import Written, export_elsewhere
         from tauscope.ui.findings_export import suffix_for_filter
         from tauscope.ui.off_thread import wait_off_thread
 
@@ -74,7 +75,12 @@ class ExportController(QObject):
         lookup = self.series_panel.model.series_for_key
         series = {f.key: lookup(f.key) for f in run.findings if f.key is not None}
 
-        def write() -> tuple[RunRecord, str]:
+        def write() -> Written:
+            if with_charts:  # the long writers, in the export process (none: written here)
+                values = {k: s.values for k, s in series.items() if s is not None}
+                done = export_elsewhere(path, run, values, with_charts)
+                if done is not None:
+                    return done
             # imported here, off the window's thread: loading them takes a tenth of a second
             import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
             from tauscope.ui.report_charts import draw_charts, problems_text
@@ -83,22 +89,24 @@ class ExportController(QObject):
             if with_charts:  # the same charts as tauscope batch's
                 drawn = draw_charts(run, series.get)
                 charts, problems = drawn.charts, problems_text(drawn)
-            return export(path, run, charts), problems
+            record = export(path, run, charts)
+            return Written(len(record.findings), len(record.left_out), problems)
 
-        # Charts and writing in a helper thread; the window keeps answering meanwhile.
+        # Charts and writing in a helper thread (which hands the formats with charts to the
+        # export process); the window keeps answering meanwhile.
         self.status.setText(f"Exporting {_count(len(run.findings))} to {path.name}…")
         self.busy = True
         try:
-            written, problems = wait_off_thread(write)
+            written = wait_off_thread(write)
         except ExportError as exc:
             self.status.setText("")
             self.prompts.tell(str(exc), title="The findings were not exported")
             return False
         finally:
             self.busy = False
-        self.status.setText(f"Exported {_count(len(written.findings))} to {path.name}."
-                            + _left_out_text(len(written.left_out))
-                            + (f" Not drawn: {problems}." if problems else ""))
+        self.status.setText(f"Exported {_count(written.findings)} to {path.name}."
+                            + _left_out_text(written.left_out)
+                            + (f" Not drawn: {written.problems}." if written.problems else ""))
         return True
 
     def copy(self) -> None:
