@@ -34,6 +34,11 @@ _LARGE_P = {code: [float(v) for v in adfvalues._tau_largeps[code][0][::-1]] for 
 _LEVELS = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
 
 
+def level_label(alpha: float) -> str:
+    """The key of ``alpha`` in the critical-value dicts: "1%", "5%" or "10%"."""
+    return _level(alpha)
+
+
 def _level(alpha: float) -> str:
     label = _LEVELS.get(alpha)
     if label is not None:

@@ -35,10 +35,24 @@ class LevelBatch:
     # Each spec's numbers as Python lists, made for every series at the first request.
     rows: dict[str, SpecRows] = field(default_factory=dict, repr=False)
 
+    phi_rows: dict[str, list[float]] = field(default_factory=dict, repr=False)
+
     def spec_rows(self, spec: str) -> SpecRows:
         found = self.rows.get(spec)
         if found is None:
             found = self.rows[spec] = SpecRows.of(self.estimates[spec], spec)
+        return found
+
+    def phi_statistics(self, name: str) -> list[float]:
+        """Φ ``name`` of every series, F = ((RSS_r − RSS_u)/q) / (RSS_u/(n − k)) (the formula
+        of :func:`joint.f_statistic`, elementwise: the same IEEE operations as one by one)."""
+        found = self.phi_rows.get(name)
+        if found is None:
+            est = self.estimates[joint.PHI_SPEC[name]]
+            q = len(joint.RESTRICTED_OUT[name])
+            with np.errstate(all="ignore"):
+                statistic = ((self.phi[name] - est.rss) / q) / (est.rss / (est.nobs - est.used))
+            found = self.phi_rows[name] = statistic.tolist()
         return found
 
 
@@ -124,7 +138,8 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
         response=_NO_RESPONSE,
     )
     tau = t[terms]
-    critical = fast_tables.tau_critical_value(spec, nobs, alpha)
+    critical_values = fast_tables.tau_critical_values(spec, nobs)
+    critical = critical_values[fast_tables.level_label(alpha)]
     return TestResult(
         test="adf",
         spec=spec,
@@ -133,7 +148,7 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
         p_value=rows.p_value[i],
         lags=lags,
         nobs=nobs,
-        critical_values=fast_tables.tau_critical_values(spec, nobs),
+        critical_values=critical_values,
         reject=bool(tau < critical),
         critical_value=critical,
         lag_rule=choice.rule,
@@ -142,13 +157,11 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
 
 
 def phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:
-    """Φ from the batch's restricted and unrestricted RSS of the standardised series, the
-    formula of :func:`joint.f_statistic` (F does not depend on the scale); its
-    regression is the ADF test's, in the series' units."""
+    """Φ from the batch's restricted and unrestricted RSS of the standardised series
+    (:meth:`LevelBatch.phi_statistics`; F does not depend on the scale); its regression is
+    the ADF test's, in the series' units."""
     regression = adf.regression
     assert regression is not None
-    rss_u = float(level.estimates[regression.spec].rss[i])
-    q = len(joint.RESTRICTED_OUT[name])
-    k = len(regression.coefficients)
-    statistic = ((float(level.phi[name][i]) - rss_u) / q) / (rss_u / (regression.nobs - k))
-    return joint.phi_result(regression, name, statistic, alpha)
+    if level.spec_rows(regression.spec).rss[i] == 0.0:
+        raise ZeroDivisionError("the unrestricted regression fits perfectly")
+    return joint.phi_result(regression, name, level.phi_statistics(name)[i], alpha)
