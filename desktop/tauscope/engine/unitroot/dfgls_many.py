@@ -148,10 +148,29 @@ def choose_lags_detrended(xs: np.ndarray, ols: np.ndarray | None, spec: str, rul
         return np.full(rows, max_lags, dtype=int)
     if rule in VECTOR_RULES:
         values = lag_criteria_many(ols_detrend_many(xs, spec) if ols is None else ols, rule, max_lags)
-        values = np.where(np.isfinite(values), values, np.inf)
-        values[:, :floor] = np.inf
-        return np.asarray(np.argmin(values, axis=1))
+        return _smallest(values, floor)
     return np.array([max(floor, choose_dfgls_lag(row, spec, rule, max_lags)) for row in xs])
+
+
+def choose_lags_stacked(ols: list[np.ndarray], rule: str, max_lags: int, min_lag: int = 0) -> list[np.ndarray]:
+    """:func:`choose_lags_detrended` with a vector ``rule`` (:data:`VECTOR_RULES`) for several
+    arrays of OLS-detrended rows of one length (one per deterministic case) in one call of
+    :func:`lag_criteria_many`: every row's criteria depend on that row alone, so the lag
+    orders are those of one call per array."""
+    if rule not in VECTOR_RULES:
+        raise ValueError(f"{rule!r} is not a rule computed for many rows at once")
+    floor = min(int(min_lag), max_lags)
+    if max_lags == 0 or floor == max_lags:
+        return [np.full(o.shape[0], max_lags, dtype=int) for o in ols]
+    chosen = _smallest(lag_criteria_many(np.vstack(ols), rule, max_lags), floor)
+    return np.split(chosen, np.cumsum([o.shape[0] for o in ols])[:-1])
+
+
+def _smallest(values: np.ndarray, floor: int) -> np.ndarray:
+    """The lag order of the smallest finite criterion from ``floor`` on (ties: the shorter)."""
+    values = np.where(np.isfinite(values), values, np.inf)
+    values[:, :floor] = np.inf
+    return np.asarray(np.argmin(values, axis=1))
 
 
 def dfgls_tau_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:
