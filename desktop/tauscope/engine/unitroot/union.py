@@ -170,11 +170,11 @@ def _component_taus(parts: list[tuple[np.ndarray, np.ndarray, str]], known: Unio
             where.append((len(out), fresh))
             asked.append((rows[fresh], component, lags[fresh]))
         out.append(tau)
-    for (j, fresh), values in zip(where, components_values(asked), strict=True):
-        if fresh is None:
+    for (j, rows_asked), values in zip(where, components_values(asked), strict=True):
+        if rows_asked is None:
             out[j] = values
         else:
-            out[j][fresh] = values
+            out[j][rows_asked] = values
     return out
 
 
