@@ -58,15 +58,17 @@ class LevelBatch:
 
 @dataclass(frozen=True)
 class SpecRows:
-    """One spec's estimates for every series of a batch as Python numbers (each array
-    turned into lists once, not row by row): t ratios params/bse and τ's MacKinnon (1994)
-    p-value computed elementwise in numpy, the same IEEE operations as one by one."""
+    """One spec's estimates for every series of a batch, made once, not row by row: the t
+    ratios params/bse and τ's MacKinnon (1994) p-value computed elementwise in numpy (the
+    same IEEE operations as one by one), the per-series numbers as Python lists.  The
+    coefficient rows stay arrays (a row's leading entries become Python numbers when its
+    result is built), so the batch holds no list of every coefficient."""
 
     nobs: list[int]
     rss: list[float]
-    params: list[list[float]]
-    bse: list[list[float]]
-    t: list[list[float]]
+    params: np.ndarray
+    bse: np.ndarray
+    t: np.ndarray
     p_value: list[float]
     zero_se: list[bool]  # a coefficient's standard error is 0: its t ratio divides by zero
 
@@ -77,8 +79,8 @@ class SpecRows:
             t = est.params / est.bse
         inside = np.arange(est.bse.shape[1])[None, :] < est.used[:, None]
         zero = ((est.bse == 0.0) & inside).any(axis=1)
-        return cls(est.nobs.tolist(), est.rss.tolist(), est.params.tolist(), est.bse.tolist(),
-                   t.tolist(), fast_tables.tau_p_values(t[:, terms], spec).tolist(), zero.tolist())
+        return cls(est.nobs.tolist(), est.rss.tolist(), est.params, est.bse, t,
+                   fast_tables.tau_p_values(t[:, terms], spec).tolist(), zero.tolist())
 
 
 _column_names = lru_cache(maxsize=512)(column_names)
@@ -115,13 +117,14 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
     nobs = rows.nobs[i]
     rss = rows.rss[i]
     names = _column_names(spec, lags)
-    params, bse, t = rows.params[i], rows.bse[i], rows.t[i]
+    used = len(names)
+    params, bse, t = rows.params[i, :used].tolist(), rows.bse[i, :used].tolist(), rows.t[i, :used].tolist()
     terms = len(DETERMINISTIC_TERMS[spec])
     if scale != 1.0 and terms:
         params = [v * scale for v in params[:terms]] + params[terms:]
         bse = [v * scale for v in bse[:terms]] + bse[terms:]
-    coefficients = tuple(map(Coefficient, names, params, bse, t))  # as many as names
-    sigma2 = rss / (nobs - len(names))
+    coefficients = tuple(map(Coefficient, names, params, bse, t))
+    sigma2 = rss / (nobs - used)
     regression = Regression(
         spec=spec,
         difference=level.difference,
