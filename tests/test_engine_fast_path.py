@@ -307,6 +307,9 @@ def test_cached_tables_equal_critical_module() -> None:
     for spec in ("trend", "constant", "none"):
         for value in statistics.tolist():
             assert fast_tables.tau_p_value(value, spec) == critical.tau_p_value(value, spec)
+        # Elementwise over an array: the same bits as one value at a time.
+        assert fast_tables.tau_p_values(statistics, spec).tolist() == [
+            fast_tables.tau_p_value(value, spec) for value in statistics.tolist()]
         for nobs in (12, 25, 99, 100, 237, 1000):
             assert fast_tables.tau_critical_values(spec, nobs) == critical.tau_critical_values(
                 spec, nobs)

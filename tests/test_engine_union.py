@@ -16,7 +16,12 @@ import numpy as np
 import pytest
 
 from tauscope.engine.unitroot.dfgls import dfgls
-from tauscope.engine.unitroot.dfgls_many import dfgls_many
+from tauscope.engine.unitroot.dfgls_many import (
+    choose_lags_detrended,
+    choose_lags_stacked,
+    dfgls_many,
+    ols_detrend_many,
+)
 from tauscope.engine.unitroot.trend_robust import (
     trend_critical_value,
     trend_found,
@@ -31,6 +36,7 @@ from tauscope.engine.unitroot.union import (
     union_null,
     union_orders,
 )
+from tauscope.engine.unitroot.union_components import component_values, components_values, detrended
 
 arch_unitroot = pytest.importorskip("arch.unitroot")
 sm_datasets = pytest.importorskip("statsmodels.datasets")
@@ -66,6 +72,20 @@ def test_batched_dfgls_equals_one_series_dfgls(rule: str) -> None:
             one = dfgls(x, spec, rule, 10)
             assert lags[i] == one.lags
             assert tau[i] == pytest.approx(one.statistic, abs=1e-10)
+
+
+def test_stacked_lag_choice_and_components_equal_one_call_per_case() -> None:
+    # Each row's numbers depend on that row alone, so stacking the deterministic cases (or
+    # the components of one detrending) into one call must give the same bits.
+    rng = np.random.default_rng(8)
+    xs = np.cumsum(rng.standard_normal((9, 120)), axis=1)
+    ols = [ols_detrend_many(xs, spec) for spec in ("constant", "trend")]
+    stacked = choose_lags_stacked(ols, "maic", 8, 2)
+    for spec, rows, lags in zip(("constant", "trend"), ols, stacked, strict=True):
+        assert lags.tolist() == choose_lags_detrended(xs, rows, spec, "maic", 8, None, 2).tolist()
+    parts = [(detrended(xs, c), c, stacked[c.endswith("trend")]) for c in COMPONENTS["four"]]
+    for (rows, component, lags), values in zip(parts, components_values(parts), strict=True):
+        np.testing.assert_array_equal(values, component_values(rows, component, lags))
 
 
 @pytest.mark.parametrize("kind", ["two", "four"])

@@ -18,6 +18,7 @@ from __future__ import annotations
 
 from functools import lru_cache
 
+import numpy as np
 from scipy.special import ndtr
 from statsmodels.tsa import adfvalues
 
@@ -31,6 +32,11 @@ _STAR = {code: float(adfvalues._tau_stars[code][0]) for code in _CODES}
 _SMALL_P = {code: [float(v) for v in adfvalues._tau_smallps[code][0][::-1]] for code in _CODES}
 _LARGE_P = {code: [float(v) for v in adfvalues._tau_largeps[code][0][::-1]] for code in _CODES}
 _LEVELS = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
+
+
+def level_label(alpha: float) -> str:
+    """The key of ``alpha`` in the critical-value dicts: "1%", "5%" or "10%"."""
+    return _level(alpha)
 
 
 def _level(alpha: float) -> str:
@@ -73,6 +79,22 @@ def tau_p_value(statistic: float, spec: str) -> float:
     for coefficient in coefficients:
         value = value * statistic + coefficient
     return float(ndtr(value))
+
+
+def tau_p_values(statistics: np.ndarray, spec: str) -> np.ndarray:
+    """:func:`tau_p_value` of every element (the same operations elementwise, so the same
+    bits: Horner's rule multiply-then-add, then ``ndtr``)."""
+    code = critical.SPEC_CODES[spec]
+    x = np.asarray(statistics, dtype=float)
+    with np.errstate(all="ignore"):
+        polynomial = {}
+        for name, coefficients in (("small", _SMALL_P[code]), ("large", _LARGE_P[code])):
+            value = np.zeros_like(x)
+            for coefficient in coefficients:
+                value = value * x + coefficient
+            polynomial[name] = value
+        p = ndtr(np.where(x <= _STAR[code], polynomial["small"], polynomial["large"]))
+    return np.asarray(np.where(x > _MAX[code], 1.0, np.where(x < _MIN[code], 0.0, p)))
 
 
 @lru_cache(maxsize=8192)

@@ -193,6 +193,13 @@ def _trend_projection(length: int, spec: str) -> np.ndarray:
     return projection
 
 
+@lru_cache(maxsize=256)
+def _profile_critical_values(spec: str, nobs_by_lag: tuple[int, ...]) -> tuple[float, ...]:
+    """The 5% critical value of τ at each lag's sample size (the same for every series of
+    a batch)."""
+    return tuple(fast_tables.tau_critical_value(spec, nobs, 0.05) for nobs in nobs_by_lag)
+
+
 class FastEstimation:
     """One series' view of a batch: the estimation seam of :mod:`tauscope.engine.procedure.stages`.
 
@@ -221,12 +228,9 @@ class FastEstimation:
         tau, nobs_by_lag = self._batch.profile(self._index, spec, difference, max_lags)
         if not np.isfinite(tau).all():
             raise NeedsReference
-        points = []
-        for lag, (statistic, nobs) in enumerate(zip(tau.tolist(), nobs_by_lag.tolist(),
-                                                    strict=True)):
-            critical = fast_tables.tau_critical_value(spec, nobs, 0.05)
-            points.append(LagPoint(lag, statistic, critical, bool(statistic < critical)))
-        return tuple(points)
+        critical = _profile_critical_values(spec, tuple(nobs_by_lag.tolist()))
+        return tuple([LagPoint(lag, statistic, value, statistic < value)
+                      for lag, (statistic, value) in enumerate(zip(tau.tolist(), critical, strict=True))])
 
     def kpss(self, x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
         return self._batch.kpss_tests.result(self._index, x, spec, difference, alpha)

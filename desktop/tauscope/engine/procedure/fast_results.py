@@ -5,7 +5,7 @@
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from functools import lru_cache
 
 import numpy as np
@@ -32,6 +32,55 @@ class LevelBatch:
     phi: dict[str, np.ndarray]
     declined: np.ndarray  # (B,) bool: the reference path must take these
     centres: np.ndarray  # (B,): y(t−1) is measured from these in the specs with a constant
+    # Each spec's numbers as Python lists, made for every series at the first request.
+    rows: dict[str, SpecRows] = field(default_factory=dict, repr=False)
+
+    phi_rows: dict[str, list[float]] = field(default_factory=dict, repr=False)
+
+    def spec_rows(self, spec: str) -> SpecRows:
+        found = self.rows.get(spec)
+        if found is None:
+            found = self.rows[spec] = SpecRows.of(self.estimates[spec], spec)
+        return found
+
+    def phi_statistics(self, name: str) -> list[float]:
+        """Φ ``name`` of every series, F = ((RSS_r − RSS_u)/q) / (RSS_u/(n − k)) (the formula
+        of :func:`joint.f_statistic`, elementwise: the same IEEE operations as one by one)."""
+        found = self.phi_rows.get(name)
+        if found is None:
+            est = self.estimates[joint.PHI_SPEC[name]]
+            q = len(joint.RESTRICTED_OUT[name])
+            with np.errstate(all="ignore"):
+                statistic = ((self.phi[name] - est.rss) / q) / (est.rss / (est.nobs - est.used))
+            found = self.phi_rows[name] = statistic.tolist()
+        return found
+
+
+@dataclass(frozen=True)
+class SpecRows:
+    """One spec's estimates for every series of a batch, made once, not row by row: the t
+    ratios params/bse and τ's MacKinnon (1994) p-value computed elementwise in numpy (the
+    same IEEE operations as one by one), the per-series numbers as Python lists.  The
+    coefficient rows stay arrays (a row's leading entries become Python numbers when its
+    result is built), so the batch holds no list of every coefficient."""
+
+    nobs: list[int]
+    rss: list[float]
+    params: np.ndarray
+    bse: np.ndarray
+    t: np.ndarray
+    p_value: list[float]
+    zero_se: list[bool]  # a coefficient's standard error is 0: its t ratio divides by zero
+
+    @classmethod
+    def of(cls, est: Estimates, spec: str) -> SpecRows:
+        terms = len(DETERMINISTIC_TERMS[spec])
+        with np.errstate(all="ignore"):
+            t = est.params / est.bse
+        inside = np.arange(est.bse.shape[1])[None, :] < est.used[:, None]
+        zero = ((est.bse == 0.0) & inside).any(axis=1)
+        return cls(est.nobs.tolist(), est.rss.tolist(), est.params, est.bse, t,
+                   fast_tables.tau_p_values(t[:, terms], spec).tolist(), zero.tolist())
 
 
 _column_names = lru_cache(maxsize=512)(column_names)
@@ -41,24 +90,6 @@ _NO_DESIGN.flags.writeable = False
 _NO_RESPONSE.flags.writeable = False
 
 
-def _coefficients(spec: str, lags: int, params: list[float], bse: list[float], scale: float
-                  ) -> tuple[Coefficient, ...]:
-    """The coefficients in the series' units: the deterministic terms' estimates and
-    standard errors × ``scale`` (exact, a power of two), every t ratio as fitted
-    (:func:`tauscope.engine.procedure.units.regression_in_units`)."""
-    names = _column_names(spec, lags)
-    if scale == 1.0:
-        return tuple(
-            Coefficient(name, params[j], bse[j], params[j] / bse[j]) for j, name in enumerate(names)
-        )
-    terms = len(DETERMINISTIC_TERMS[spec])
-    return tuple(
-        Coefficient(name, params[j] * scale, bse[j] * scale, params[j] / bse[j]) if j < terms
-        else Coefficient(name, params[j], bse[j], params[j] / bse[j])
-        for j, name in enumerate(names)
-    )
-
-
 def _criteria_in_units(choice: LagChoice, nobs: int, scale: float) -> tuple[float, ...]:
     """The lag criteria in the series' units, as :func:`regression_in_units` shifts them."""
     if scale == 1.0:
@@ -66,9 +97,9 @@ def _criteria_in_units(choice: LagChoice, nobs: int, scale: float) -> tuple[floa
     log_s2 = 2.0 * math.log(scale)
     if choice.rule in ("aic", "bic", "hqc"):
         shift = (nobs + choice.lag - choice.max_lags) * log_s2
-        return tuple(float(v) + shift for v in choice.criteria)  # one IEEE addition each, as in numpy
+        return tuple([v + shift for v in choice.criteria])  # one IEEE addition each, as in numpy
     if choice.rule == "maic":
-        return tuple(float(v) + log_s2 for v in choice.criteria)
+        return tuple([v + log_s2 for v in choice.criteria])
     return choice.criteria
 
 
@@ -76,14 +107,24 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
     """One series' ADF test on Δ^d y, its regression in the series' units (``scale``: the
     standardising power of two, :mod:`tauscope.engine.procedure.units`): the same numbers
     as :func:`regression_in_units` gives for the standardised regression, without
-    building it first."""
+    building it first.  The coefficients in units: the deterministic terms' estimates and
+    standard errors × ``scale`` (exact, a power of two), every t ratio as fitted."""
+    rows = level.spec_rows(spec)
+    if rows.zero_se[i]:
+        raise ZeroDivisionError("a coefficient's standard error is zero")
     choice = level.choices[spec][i]
-    est = level.estimates[spec]
     lags = choice.lag
-    nobs = int(est.nobs[i])
-    rss = float(est.rss[i])
-    coefficients = _coefficients(spec, lags, est.params[i].tolist(), est.bse[i].tolist(), scale)
-    sigma2 = rss / (nobs - len(coefficients))
+    nobs = rows.nobs[i]
+    rss = rows.rss[i]
+    names = _column_names(spec, lags)
+    used = len(names)
+    params, bse, t = rows.params[i, :used].tolist(), rows.bse[i, :used].tolist(), rows.t[i, :used].tolist()
+    terms = len(DETERMINISTIC_TERMS[spec])
+    if scale != 1.0 and terms:
+        params = [v * scale for v in params[:terms]] + params[terms:]
+        bse = [v * scale for v in bse[:terms]] + bse[terms:]
+    coefficients = tuple(map(Coefficient, names, params, bse, t))
+    sigma2 = rss / (nobs - used)
     regression = Regression(
         spec=spec,
         difference=level.difference,
@@ -99,17 +140,18 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
         design=_NO_DESIGN,  # not kept: the results of many series would hold every design
         response=_NO_RESPONSE,
     )
-    tau = coefficients[len(DETERMINISTIC_TERMS[spec])].t_value
-    critical = fast_tables.tau_critical_value(spec, nobs, alpha)
+    tau = t[terms]
+    critical_values = fast_tables.tau_critical_values(spec, nobs)
+    critical = critical_values[fast_tables.level_label(alpha)]
     return TestResult(
         test="adf",
         spec=spec,
         difference=level.difference,
         statistic=tau,
-        p_value=fast_tables.tau_p_value(tau, spec),
+        p_value=rows.p_value[i],
         lags=lags,
         nobs=nobs,
-        critical_values=fast_tables.tau_critical_values(spec, nobs),
+        critical_values=critical_values,
         reject=bool(tau < critical),
         critical_value=critical,
         lag_rule=choice.rule,
@@ -118,13 +160,11 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
 
 
 def phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:
-    """Φ from the batch's restricted and unrestricted RSS of the standardised series, the
-    formula of :func:`joint.f_statistic` (F does not depend on the scale); its
-    regression is the ADF test's, in the series' units."""
+    """Φ from the batch's restricted and unrestricted RSS of the standardised series
+    (:meth:`LevelBatch.phi_statistics`; F does not depend on the scale); its regression is
+    the ADF test's, in the series' units."""
     regression = adf.regression
     assert regression is not None
-    rss_u = float(level.estimates[regression.spec].rss[i])
-    q = len(joint.RESTRICTED_OUT[name])
-    k = len(regression.coefficients)
-    statistic = ((float(level.phi[name][i]) - rss_u) / q) / (rss_u / (regression.nobs - k))
-    return joint.phi_result(regression, name, statistic, alpha)
+    if level.spec_rows(regression.spec).rss[i] == 0.0:
+        raise ZeroDivisionError("the unrestricted regression fits perfectly")
+    return joint.phi_result(regression, name, level.phi_statistics(name)[i], alpha)

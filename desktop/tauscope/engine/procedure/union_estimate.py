@@ -145,10 +145,12 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         n = xs.shape[1] - d
         values = tuple({f"{round(a * 100)}%": per_alpha[d][a].critical_values[j]
                         for a in (0.01, 0.05, 0.10)} for j in range(len(comps)))
+        # Per row: the tuple of its components' lag orders and statistics (zip transposes).
+        lag_lists = [[int(v) for v in level.lags[name.split("-")[1]].tolist()] for name in comps]
+        tau_lists = [level.tau[name].tolist() for name in comps]
         shared[d] = (c, comps, n, values, _level_max_lags(n, d, rule, max_lags, fixed),
-                     [[int(v) for v in level.lags[name.split("-")[1]].tolist()] for name in comps],
-                     [level.tau[name].tolist() for name in comps], level.margin.tolist(),
-                     [bool(v) for v in level.reject.tolist()])
+                     list(zip(*lag_lists, strict=True)), list(zip(*tau_lists, strict=True)),
+                     level.margin.tolist(), [bool(v) for v in level.reject.tolist()])
     trend_values: dict[int, float] = {}
     orders, z_list, long_list = order_all.tolist(), trend_z.tolist(), long.tolist()
     at_lists = {a: at[a].tolist() for a in OTHER_ALPHAS}
@@ -158,14 +160,14 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         order = _order(int(orders[i]))
         det = labels[i]
         levels = {}
-        for d, (c, comps, n, values, level_max, lag_lists, tau_lists, margin, rejects) in shared.items():
-            statistic = float(margin[i]) * c.kappa
+        for d, (c, comps, n, values, level_max, lag_rows, tau_rows, margin, rejects) in shared.items():
+            statistic = margin[i] * c.kappa
             kappa, reject, p_value = c.kappa, rejects[i], None
             if d in boot:
                 kappa = float(boot[d].critical[i, BOOT_ALPHAS.index(_alpha_key(alpha))])
                 reject, p_value = bool(statistic > kappa), float(boot[d].p_value[i])
             levels[d] = UnionLevelRow(
-                d, n, comps, tuple(t[i] for t in tau_lists), tuple(lag[i] for lag in lag_lists), level_max,
+                d, n, comps, tau_rows[i], lag_rows[i], level_max,
                 c.critical_values, values, kappa, statistic, reject, p_value)
         problem = _problem(levels, order, max_difference)
         trend_d = None if order is None else (1 if order == 2 else 0)

@@ -162,12 +162,19 @@ def maic_values(fits: BlockFits, lag_sum_sq: np.ndarray, nobs: int) -> np.ndarra
 
 def detrended(xs: np.ndarray, spec: str) -> np.ndarray:
     """OLS residuals on [1] or [1, t], t = 1…T, as :func:`lagchoice.detrend`, for a batch."""
-    n = xs.shape[1]
+    q = _trend_basis(xs.shape[1], spec)
+    return np.asarray(xs - (xs @ q) @ q.T)
+
+
+@lru_cache(maxsize=64)
+def _trend_basis(n: int, spec: str) -> np.ndarray:
+    """Q of the QR factorisation of [1] or [1, t], t = 1…n (the same for every batch; read-only)."""
     columns = [np.ones(n)]
     if spec == "trend":
         columns.append(np.arange(1, n + 1, dtype=float))
     q, _ = np.linalg.qr(np.column_stack(columns))
-    return np.asarray(xs - (xs @ q) @ q.T)
+    q.setflags(write=False)
+    return q
 
 
 @dataclass(frozen=True)

@@ -22,6 +22,7 @@ whose regression cannot be solved gets NaN.
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 
 import numpy as np
 
@@ -37,22 +38,40 @@ def gls_detrend_many(xs: np.ndarray, spec: str) -> np.ndarray:
     """ỹ = y − z β̂, β̂ from the regression of y^ᾱ on z^ᾱ, for every row of ``xs``."""
     length = xs.shape[1]
     abar = 1.0 + C_BAR[spec] / length
-    z = deterministic_columns(spec, length)
-    zq = z.copy()
-    zq[1:] = z[1:] - abar * z[:-1]
+    z, projection = _gls_projection(spec, length)
     yq = xs.copy()
     yq[:, 1:] = xs[:, 1:] - abar * xs[:, :-1]
     # einsum, not @: each row's sums must not depend on how many rows share the call, so
     # a series alone gets the same bits as in a batch.
-    beta = np.einsum("rn,kn->rk", yq, np.linalg.pinv(zq))
+    beta = np.einsum("rn,kn->rk", yq, projection)
     return np.asarray(xs - np.einsum("rk,nk->rn", beta, z))
+
+
+@lru_cache(maxsize=64)
+def _gls_projection(spec: str, length: int) -> tuple[np.ndarray, np.ndarray]:
+    """z and pinv(z^ᾱ) at this length (the same for every series; read-only)."""
+    abar = 1.0 + C_BAR[spec] / length
+    z = deterministic_columns(spec, length)
+    zq = z.copy()
+    zq[1:] = z[1:] - abar * z[:-1]
+    projection = np.linalg.pinv(zq)
+    z.setflags(write=False)
+    projection.setflags(write=False)
+    return z, projection
 
 
 def ols_detrend_many(xs: np.ndarray, spec: str) -> np.ndarray:
     """OLS residuals of every row on [1] (constant) or [1, t] (trend)."""
-    z = deterministic_columns(spec, xs.shape[1])
-    q, _ = np.linalg.qr(z)
+    q = _ols_basis(spec, xs.shape[1])
     return np.asarray(xs - np.einsum("rk,nk->rn", np.einsum("rn,nk->rk", xs, q), q))
+
+
+@lru_cache(maxsize=64)
+def _ols_basis(spec: str, length: int) -> np.ndarray:
+    """Q of the QR factorisation of [1] or [1, t] at this length (read-only)."""
+    q, _ = np.linalg.qr(deterministic_columns(spec, length))
+    q.setflags(write=False)
+    return q
 
 
 def _columns(levels: np.ndarray, lags: int, first: int) -> tuple[np.ndarray, list[np.ndarray]]:
@@ -148,10 +167,29 @@ def choose_lags_detrended(xs: np.ndarray, ols: np.ndarray | None, spec: str, rul
         return np.full(rows, max_lags, dtype=int)
     if rule in VECTOR_RULES:
         values = lag_criteria_many(ols_detrend_many(xs, spec) if ols is None else ols, rule, max_lags)
-        values = np.where(np.isfinite(values), values, np.inf)
-        values[:, :floor] = np.inf
-        return np.asarray(np.argmin(values, axis=1))
+        return _smallest(values, floor)
     return np.array([max(floor, choose_dfgls_lag(row, spec, rule, max_lags)) for row in xs])
+
+
+def choose_lags_stacked(ols: list[np.ndarray], rule: str, max_lags: int, min_lag: int = 0) -> list[np.ndarray]:
+    """:func:`choose_lags_detrended` with a vector ``rule`` (:data:`VECTOR_RULES`) for several
+    arrays of OLS-detrended rows of one length (one per deterministic case) in one call of
+    :func:`lag_criteria_many`: every row's criteria depend on that row alone, so the lag
+    orders are those of one call per array."""
+    if rule not in VECTOR_RULES:
+        raise ValueError(f"{rule!r} is not a rule computed for many rows at once")
+    floor = min(int(min_lag), max_lags)
+    if max_lags == 0 or floor == max_lags:
+        return [np.full(o.shape[0], max_lags, dtype=int) for o in ols]
+    chosen = _smallest(lag_criteria_many(np.vstack(ols), rule, max_lags), floor)
+    return np.split(chosen, np.cumsum([o.shape[0] for o in ols])[:-1])
+
+
+def _smallest(values: np.ndarray, floor: int) -> np.ndarray:
+    """The lag order of the smallest finite criterion from ``floor`` on (ties: the shorter)."""
+    values = np.where(np.isfinite(values), values, np.inf)
+    values[:, :floor] = np.inf
+    return np.asarray(np.argmin(values, axis=1))
 
 
 def dfgls_tau_many(detrended: np.ndarray, lags: np.ndarray) -> np.ndarray:

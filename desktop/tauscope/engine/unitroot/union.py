@@ -55,13 +55,17 @@ import numpy as np
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED
 from tauscope.engine.seasonal.means import remove_seasonal_means
-from tauscope.engine.unitroot.dfgls_many import VECTOR_RULES, choose_lags_detrended
+from tauscope.engine.unitroot.dfgls_many import (
+    VECTOR_RULES,
+    choose_lags_detrended,
+    choose_lags_stacked,
+)
 from tauscope.engine.unitroot.trend_robust import (
     trend_critical_value,
     trend_found,
     trend_statistics,
 )
-from tauscope.engine.unitroot.union_components import component_values, detrended, min_lag
+from tauscope.engine.unitroot.union_components import components_values, detrended, min_lag
 from tauscope.engine.unitroot.union_critical import ASYMPTOTIC as ASYMPTOTIC
 from tauscope.engine.unitroot.union_critical import ASYMPTOTIC_LENGTH as ASYMPTOTIC_LENGTH
 from tauscope.engine.unitroot.union_critical import ASYMPTOTIC_REPS as ASYMPTOTIC_REPS
@@ -130,27 +134,48 @@ def union_level(xs: np.ndarray, difference: int, rule: str, max_lags: int, alpha
         return series[component]
 
     floor = min_lag(xs.shape[1], rule, difference)
-    searched = rule in VECTOR_RULES and max_lags > 0
-    lags = {spec: choose_lags_detrended(xs, rows_of(f"ols-{spec}") if searched else None, spec, rule,
-                                        max_lags, fixed, floor) for spec in ("constant", "trend")}
-    tau = {c: _component_tau(rows_of(c), lags[c.split("-")[1]], known, c) for c in COMPONENTS[components]}
+    specs = ("constant", "trend")
+    if rule in VECTOR_RULES and max_lags > 0:  # both cases' criteria in one call
+        chosen = choose_lags_stacked([rows_of(f"ols-{spec}") for spec in specs], rule, max_lags, floor)
+        lags = dict(zip(specs, chosen, strict=True))
+    else:
+        lags = {spec: choose_lags_detrended(xs, None, spec, rule, max_lags, fixed, floor) for spec in specs}
+    names = COMPONENTS[components]
+    tau = dict(zip(names, _component_taus([(rows_of(c), lags[c.split("-")[1]], c) for c in names], known),
+                   strict=True))
     constants = union_constants(None if critical == "asymptotic" else xs.shape[1], alpha, components,
                                 source=_source(critical), period=period, lagged=floor > 0)
     margin = margins(tau, constants)
     return UnionLevel(difference, tau, lags, constants, margin, np.asarray(margin > 1.0), series)
 
 
-def _component_tau(rows: np.ndarray, lags: np.ndarray, known: UnionLevel | None, component: str) -> np.ndarray:
-    """The component's statistic of every row (DF-GLS t, or −1/MSB), taken from ``known``
-    where it used the same lag order."""
-    spec = component.split("-")[1]
-    if known is None or component not in known.tau or spec not in known.lags:
-        return component_values(rows, component, lags)
-    tau = np.array(known.tau[component], dtype=float)
-    fresh = np.flatnonzero(np.asarray(known.lags[spec]) != lags)
-    if fresh.size:
-        tau[fresh] = component_values(rows[fresh], component, lags[fresh])
-    return tau
+def _component_taus(parts: list[tuple[np.ndarray, np.ndarray, str]], known: UnionLevel | None
+                    ) -> list[np.ndarray]:
+    """Each component's statistic of every row (DF-GLS t, or −1/MSB) for (detrended rows,
+    lag orders, component), taken from ``known`` where it used the same lag order; the
+    others computed together (:func:`components_values`)."""
+    out: list[np.ndarray] = []
+    asked: list[tuple[np.ndarray, str, np.ndarray]] = []
+    where: list[tuple[int, np.ndarray | None]] = []
+    for rows, lags, component in parts:
+        spec = component.split("-")[1]
+        if known is None or component not in known.tau or spec not in known.lags:
+            where.append((len(out), None))
+            out.append(np.empty(0))
+            asked.append((rows, component, lags))
+            continue
+        tau = np.array(known.tau[component], dtype=float)
+        fresh = np.flatnonzero(np.asarray(known.lags[spec]) != lags)
+        if fresh.size:
+            where.append((len(out), fresh))
+            asked.append((rows[fresh], component, lags[fresh]))
+        out.append(tau)
+    for (j, rows_asked), values in zip(where, components_values(asked), strict=True):
+        if rows_asked is None:
+            out[j] = values
+        else:
+            out[j][rows_asked] = values
+    return out
 
 
 def _source(critical: str) -> str:

@@ -75,6 +75,27 @@ def component_values(series: np.ndarray, component: str, lags: np.ndarray) -> np
         return np.asarray(-1.0 / m_statistics_many(series, lags)["msb"])
 
 
+def components_values(parts: list[tuple[np.ndarray, str, np.ndarray]]) -> list[np.ndarray]:
+    """:func:`component_values` of several (detrended rows, component, lag orders) of one
+    length: the parts of one detrending (GLS: DF-GLS t; OLS: −1/MSB) share one call, so
+    each lag order is one regression batch for all of them.  Every row's statistic depends
+    on that row and its lag order alone, so the numbers are those of one call per part."""
+    out: list[np.ndarray] = [np.empty(0)] * len(parts)
+    methods: dict[str, list[int]] = {}
+    for j, (_, component, _) in enumerate(parts):
+        methods.setdefault(component.split("-")[0], []).append(j)
+    for members in methods.values():
+        if len(members) == 1:
+            out[members[0]] = component_values(*parts[members[0]])
+            continue
+        values = component_values(np.vstack([parts[j][0] for j in members]), parts[members[0]][1],
+                                  np.concatenate([parts[j][2] for j in members]))
+        for j, part in zip(members, np.split(values, np.cumsum([parts[j][0].shape[0] for j in members])[:-1]),
+                           strict=True):
+            out[j] = part
+    return out
+
+
 def shown(component: str, value: float) -> float:
     """The statistic as shown to users: DF-GLS t as is, MSB = −1/value for "ols-…" (also a
     critical value: −1/(κ·cv) is MSB's critical value scaled for the union)."""
