@@ -9,6 +9,7 @@ one-series and batched tests reading the same numbers.
 
 from __future__ import annotations
 
+import importlib
 import itertools
 import math
 
@@ -109,7 +110,7 @@ def test_read_p_values_and_critical_values_agree() -> None:
     null = seasonal_null(12, "dummies", 240, 2)
     if not null.tabulated:
         pytest.skip("the table does not cover S = 12, n = 240")
-    assert null.reps == table_reps() and null.reps != DEFAULT_REPS
+    assert null.reps == table_reps(12, 240) and null.reps != DEFAULT_REPS
     crit = null.critical_values["t_pi1"]["5%"]
     p, bound = null.p_values(0, np.array([crit, crit - 10.0, crit + 10.0, np.nan]), "t")
     assert p[0] == pytest.approx(0.05, abs=1e-9)
@@ -136,3 +137,23 @@ def test_one_series_and_the_batch_read_the_same_numbers() -> None:
             assert (a.p_value is None) == (b.p_value is None)
             if a.p_value is not None and b.p_value is not None:
                 assert abs(a.p_value - b.p_value) < 1e-8
+
+
+def test_replications_are_those_of_the_cells_read() -> None:
+    """Each generated module states its replications; a value read between two grid lengths
+    counts the fewer of the two cells' (it is no more precise than its less precise cell)."""
+    from tauscope.engine.seasonal import table_grid
+
+    for name, (period, lengths) in table_grid.PARTS.items():
+        module = importlib.import_module(f"tauscope.engine.seasonal.{name}")
+        for length in lengths:
+            assert table_grid.table_reps(period, length) == (module.REPS if module.CELLS else 0)
+    for period, grid in table_grid.LENGTHS.items():
+        for short, long in itertools.pairwise(grid):
+            between = table_grid.table_reps(period, (short + long) // 2)
+            assert between == min(table_grid.table_reps(period, short),
+                                  table_grid.table_reps(period, long))
+        assert table_grid.table_reps(period, grid[-1] + 1) == 0  # beyond the grid
+    generated = [table_grid.table_reps(period, n) for period, grid in table_grid.LENGTHS.items()
+                 for n in grid if table_grid.table_reps(period, n)]
+    assert table_grid.table_reps() == min(generated)

@@ -3,8 +3,8 @@
 For the cross-check's design (seasonal dummies) at the default replications and seed, a
 request the table covers (:func:`tauscope.engine.seasonal.table_grid.seasonal_quantiles`) is
 read from it: critical values are the stored quantiles at 1, 5, 10% (lower tail for t, upper
-for F), interpolated in 1/df between grid lengths, from ``table.REPS`` replications a cell; a
-p-value is the distribution function interpolated between the stored quantiles, linear in the
+for F), interpolated in 1/df between grid lengths, from the ``REPS`` replications of the
+cells read; a p-value is the distribution function interpolated between the stored quantiles, linear in the
 normal score (``exact_grid.distribution_at``), bounded "below 0.001" beyond the outermost
 quantile on the rejecting side.  Any other request simulates at the series' own length
 (:mod:`~tauscope.engine.seasonal.critical`: ``reps`` replications, p-values between order
@@ -100,5 +100,5 @@ def seasonal_null(period: int, deterministic: str, n: int, lags: int,
         table[stat.name] = {
             label: quantile_at(read[stat.name], size if stat.kind == "t" else 1.0 - size)
             for label, size in LEVELS.items()}
-    return SeasonalNull(table, table_reps(), True,
+    return SeasonalNull(table, table_reps(period, int(n)), True,
                         _quantiles=tuple(read[stat.name] for stat in statistics_for(period)))

@@ -93,10 +93,36 @@ def _table(period: int) -> dict[tuple[int, int], dict[str, np.ndarray]]:
     return out
 
 
-def table_reps() -> int:
-    """The replications behind each cell of the table (0 when it is not generated)."""
-    modules = [m for period in LENGTHS for m in _parts(period)]
-    return int(modules[0].REPS) if modules else 0
+def part_of(period: int, length: int) -> str:
+    """The name of the module of :data:`PARTS` that holds grid length ``length``."""
+    return next(name for name, (owner, lengths) in PARTS.items()
+                if owner == period and length in lengths)
+
+
+def _part_reps(name: str) -> int:
+    try:
+        module = importlib.import_module(f"tauscope.engine.seasonal.{name}")
+    except ImportError:  # not generated yet
+        return 0
+    return int(module.REPS) if module.CELLS else 0
+
+
+def table_reps(period: int | None = None, length: int | None = None) -> int:
+    """The replications behind the table's cells (0 where nothing is generated).
+
+    Each module of :data:`PARTS` states its own.  For (``period``, ``length``): the fewer of
+    the two grid lengths that bracket ``length`` (a value read between two lengths is no more
+    precise than its less precise cell; 0 when either is not generated); without them, the
+    fewest over the generated parts."""
+    if period is None:
+        found = [reps for reps in map(_part_reps, PARTS) if reps]
+        return min(found) if found else 0
+    grid = LENGTHS[period]
+    i = bisect.bisect_left(grid, length if length is not None else grid[0])
+    if i == len(grid):
+        return 0
+    around = grid[i:i + 1] if grid[i] == length else grid[max(i - 1, 0):i + 1]
+    return min(_part_reps(part_of(period, n)) for n in around)
 
 
 def table_errors(period: int) -> dict[tuple[int, int], tuple[float, ...]]:

@@ -5,7 +5,8 @@ series lengths and lag orders
 simulated.
 
 Run by hand, one process, politely; resumable (cells already in the table are kept, the table
-is rewritten after every length)::
+is rewritten after every length).  Each module of ``PARTS`` states its own replications, so a
+part can be generated again at more of them (remove its module first)::
 
     nice -n 5 python -m tauscope.engine.seasonal.table_make [--periods 12 4] [--reps 200000]
 
@@ -35,6 +36,7 @@ from tauscope.engine.seasonal.table_grid import (
     PARTS,
     _table,
     names,
+    part_of,
     table_errors,
     table_lags,
     table_reps,
@@ -67,11 +69,14 @@ def simulate_length(period: int, length: int, lags: tuple[int, ...], reps: int =
     return cells, errors
 
 
-def _existing() -> tuple[dict[int, Cells], dict[int, Errors], int | None]:
+def _existing() -> tuple[dict[int, Cells], dict[int, Errors], dict[str, int]]:
+    """The cells, their SEs, and each generated part's replications (parts without cells
+    left out)."""
     cells = {period: dict(_table(period)) for period in LENGTHS}
     errors = {period: table_errors(period) for period in LENGTHS}
-    reps = table_reps()
-    return cells, errors, reps or None
+    reps = {name: table_reps(period, lengths[0]) for name, (period, lengths) in PARTS.items()
+            if any(key[0] in lengths for key in cells[period])}
+    return cells, errors, reps
 
 
 def _cells_text(keys: list[tuple[int, int]]) -> str:
@@ -79,9 +84,12 @@ def _cells_text(keys: list[tuple[int, int]]) -> str:
                            for i in range(0, len(keys), 7)) + ")"
 
 
-def write(cells: dict[int, Cells], errors: dict[int, Errors], reps: int) -> None:
-    """One module per entry of ``table_grid.PARTS`` (its period's cells at its lengths)."""
+def write(cells: dict[int, Cells], errors: dict[int, Errors], reps_of: dict[str, int],
+          default_reps: int) -> None:
+    """One module per entry of ``table_grid.PARTS`` (its period's cells at its lengths), each
+    stating its replications (``reps_of[name]``, else ``default_reps``)."""
     for name, (period, lengths) in PARTS.items():
+        reps = reps_of.get(name, default_reps)
         keys = sorted(key for key in cells[period] if key[0] in lengths)
         data = encode({key: cells[period][key] for key in keys}, names(period)) if keys else ""
         lines = [data[i:i + 108] for i in range(0, len(data), 108)]
@@ -115,9 +123,7 @@ def main() -> None:
                         help="only these grid lengths (default: the whole grid of each period)")
     parser.add_argument("--reps", type=int, default=REPS)
     args = parser.parse_args()
-    cells, errors, reps = _existing()
-    if reps is not None and reps != args.reps:
-        raise SystemExit(f"the table holds {reps:,} replications a cell, not {args.reps:,}")
+    cells, errors, reps_of = _existing()
     for period in args.periods:
         for length in args.lengths or LENGTHS[period]:
             if length not in LENGTHS[period]:
@@ -125,11 +131,15 @@ def main() -> None:
             missing = tuple(p for p in table_lags(period, length) if (length, p) not in cells[period])
             if not missing:
                 continue
+            part = part_of(period, length)
+            if reps_of.setdefault(part, args.reps) != args.reps:
+                raise SystemExit(f"{part} holds {reps_of[part]:,} replications a cell, not "
+                                 f"{args.reps:,} (remove it to generate it again)")
             start = time.process_time()
             found, se = simulate_length(period, length, missing, args.reps)
             cells[period].update(found)
             errors[period].update(se)
-            write(cells, errors, args.reps)
+            write(cells, errors, reps_of, args.reps)
             worst = max(max(v) for v in se.values())
             print(f"S = {period}, n = {length}: lags {missing[0]}…{missing[-1]}, "
                   f"{time.process_time() - start:.0f} s CPU, largest 1% SE {worst:.4f}", flush=True)
