@@ -8,10 +8,12 @@ of their own do not.  :class:`Writers` is made before the analysis: it starts it
 processes then (``multiprocessing``, "spawn": a fresh interpreter on every platform, the
 frozen bundle included, where ``multiprocessing.freeze_support()`` in the entry point
 answers the child's start), so that their imports and Qt's start run while this process
-analyses.  When the findings are ready, :meth:`Writers.write` shares the files out by their
-expected cost (largest first, each to the least loaded writer: Graham, 1969, "Bounds on
-multiprocessing timing anomalies"), sends the run and the charts once to each helper
-(pickled), writes its own share here and then collects what the helpers did.
+analyses.  The files are shared out then by their expected cost (largest first, each to the
+least loaded writer: Graham, 1969, "Bounds on multiprocessing timing anomalies"), so that
+each helper warms up only for its own formats.  When the findings are ready,
+:meth:`Writers.write` pickles the run and the charts once, sends them to each helper from a
+thread (a helper still starting holds nothing up), writes its own share here and then
+collects what the helpers did.
 
 Every file still goes through :func:`~tauscope.report.export` and so through
 ``report.atomic``: a file is written whole or not at all, never half.  A writer that fails
@@ -27,6 +29,7 @@ from __future__ import annotations
 import multiprocessing
 import os
 import pickle
+import threading
 from collections.abc import Sequence
 from contextlib import suppress
 from dataclasses import dataclass, field
@@ -163,31 +166,39 @@ class Writers:
         """Write every target; the sentences of those that could not be written, in the
         order of the targets given (empty when all were)."""
         failed: dict[str, str] = {}
-        busy: list[_Helper] = []
+        sending: list[tuple[_Helper, threading.Thread, list[bool]]] = []
         if self.helpers:
             try:
                 payload: bytes | None = pickle.dumps((run, charts), pickle.HIGHEST_PROTOCOL)
             except Exception:
                 payload = None  # cannot be pickled: everything is written here
             for helper in self.helpers:
-                if payload is not None and self._send(helper, payload):
-                    busy.append(helper)
-                else:
+                if payload is None:
                     self.shares[0].extend(helper.targets)
+                    continue
+                # sent from a thread: a helper still starting does not hold up this share
+                sent: list[bool] = []
+                thread = threading.Thread(target=self._send, args=(helper, payload, sent),
+                                          name="tauscope-writer-send", daemon=True)
+                thread.start()
+                sending.append((helper, thread, sent))
         failed.update(write_here(self.shares[0], run, charts))
-        for helper in busy:
-            failed.update(self._collect(helper, run, charts))
+        for helper, thread, sent in sending:
+            thread.join()
+            failed.update(self._collect(helper, run, charts) if sent
+                          else write_here(helper.targets, run, charts))
         self.close()
         return [failed[t] for t in self.targets if t in failed]
 
     @staticmethod
-    def _send(helper: _Helper, payload: bytes) -> bool:
+    def _send(helper: _Helper, payload: bytes, sent: list[bool]) -> None:
+        """Send the run and the targets to ``helper``; ``sent`` gets True when done."""
         try:
             helper.conn.send_bytes(payload)
             helper.conn.send(helper.targets)
         except Exception:
-            return False
-        return True
+            return
+        sent.append(True)
 
     @staticmethod
     def _collect(helper: _Helper, run: RunRecord, charts: Charts | None) -> dict[str, str]:
