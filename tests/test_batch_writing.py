@@ -10,7 +10,7 @@ import numpy as np
 import pytest
 
 from tauscope.commands.batch import main
-from tauscope.commands.batch_writing import Writers, plan_shares
+from tauscope.commands.batch_writing import Writers, plan_shares, writer_count
 from tauscope.engine import Settings, analyse_series
 from tauscope.report import Finding, RunRecord, SourceFile
 
@@ -40,6 +40,15 @@ def test_shares_put_the_largest_first_each_to_the_least_loaded() -> None:
     assert plan_shares(targets, 1) == [["a.pdf", "a.xlsx", "a.json", "a.html", "a.csv", "a.tex"]]
     assert plan_shares(targets, 2) == [["a.pdf", "a.html", "a.csv", "a.tex"], ["a.xlsx", "a.json"]]
     assert plan_shares(["a.json"], 4) == [["a.json"], [], [], []]
+
+
+def test_writers_one_per_idle_core_from_enough_series_or_as_asked() -> None:
+    assert writer_count(6, 500, None, idle=2.0) == 2
+    assert writer_count(6, 500, None, idle=0.2) == 1  # a busy machine: no helper
+    assert writer_count(6, 99, None, idle=8.0) == 1  # too few series to pay a helper's start
+    assert writer_count(3, 500, None, idle=8.0) == 3  # never more than the files
+    assert writer_count(6, 5, 2) == 2 and writer_count(1, 500, 4) == 1
+    assert writer_count(6, 500, 0) == 1
 
 
 def test_helpers_write_the_same_files_as_one_writer(tmp_path: Path) -> None:

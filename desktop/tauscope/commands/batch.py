@@ -13,8 +13,8 @@ is needed; ``--no-charts`` leaves them out); a chart that cannot be made is left
 note on standard error.  The reader's notes (rows skipped, sheets
 empty, dates guessed) go to standard error on one line.
 
-From 100 series on, the ``--out`` files are written side by side, one process per core
-(``--jobs N`` sets how many; ``--jobs 1`` writes them one after the other here): helper
+From 100 series on, the ``--out`` files are written side by side, one process per idle
+core (``--jobs N`` sets how many; ``--jobs 1`` writes them one after the other here): helper
 processes start while the series are analysed (:mod:`tauscope.commands.batch_writing`).
 The files are the same either way; each is written whole or not at all.
 
@@ -134,7 +134,7 @@ def _parser() -> _Parser:
                              "by default each series' chart is drawn, as in the window)")
     parser.add_argument("--jobs", type=_count, metavar="N",
                         help="write the --out files with up to N processes at once (default: "
-                             "one per core from 100 series on; 1: one after the other)")
+                             "one per idle core from 100 series on; 1: one after the other)")
     parser.add_argument("--replace", action="store_true",
                         help="allow --out to write over an existing file that is not a "
                              "Tauscope report (an input file is never written over)")

@@ -20,8 +20,8 @@ Every file still goes through :func:`~tauscope.report.export` and so through
 gives one sentence naming its file; the other files are still written.  A helper that
 cannot be started, or that ends before saying what it wrote, costs nothing but time: the
 files it did not report are written here.  Fewer than :data:`PARALLEL_FROM` series, a
-single file or a single core: everything is written here, one file after the other, as
-before.
+single file or no idle core (:func:`writer_count`): everything is written here, one file
+after the other, as before.
 """
 
 from __future__ import annotations
@@ -131,15 +131,38 @@ def plan_shares(targets: Sequence[str], writers: int) -> list[list[str]]:
     return shares
 
 
+def idle_cores() -> float:
+    """Cores no process is waiting for: the core count less the load average over the last
+    minute (at least 0); all cores where the system gives no load average."""
+    cores = os.cpu_count() or 1
+    try:
+        return max(0.0, cores - os.getloadavg()[0])
+    except (AttributeError, OSError):  # no load average (Windows)
+        return float(cores)
+
+
+def writer_count(targets: int, series: int, jobs: int | None,
+                 idle: float | None = None) -> int:
+    """How many writers (this process included): ``jobs`` when given (at most one per
+    target); otherwise one per idle core (:func:`idle_cores`, or ``idle``) for
+    :data:`PARALLEL_FROM` series or more, else one.  A helper on a machine with no idle core
+    only adds its start and the run's pickling to the work (measured on 2 cores at load
+    6–10: more wall time and CPU time than one writer)."""
+    if jobs is not None:
+        return max(1, min(jobs, targets))
+    if series < PARALLEL_FROM:
+        return 1
+    free = idle_cores() if idle is None else idle
+    return max(1, min(int(free + 0.5), targets))
+
+
 class Writers:
     """The writers of one batch: this process and, when worth it, helper processes started
     now (see the module's text).  ``jobs``: how many writers at most (None: one per core)."""
 
     def __init__(self, targets: Sequence[str], series: int, jobs: int | None = None) -> None:
         self.targets = list(targets)
-        cores = jobs if jobs is not None else (os.cpu_count() or 1)
-        count = min(cores, len(self.targets)) if series >= PARALLEL_FROM or jobs else 1
-        self.shares = plan_shares(self.targets, count)
+        self.shares = plan_shares(self.targets, writer_count(len(self.targets), series, jobs))
         self.helpers: list[_Helper] = []
         for share in self.shares[1:]:
             helper = self._start(share)
