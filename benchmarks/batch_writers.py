@@ -14,8 +14,9 @@ alternating, ``--rounds`` times each:
   default;
 - writing every format with ``--no-charts``;
 - writing every format, charts drawn, with ``--jobs 1``: every file written in this process,
-  one after the other (batch shares the files out among helper processes, one per core, by
-  default from 100 series on: ``tauscope.commands.batch_writing``).
+  one after the other (by default batch shares the files out among helper processes, one
+  per idle core, from 100 series on: ``tauscope.commands.batch_writing``; on a machine whose
+  load average leaves no core idle it writes as ``--jobs 1`` does, and the two runs agree).
 
 and prints the best time of each and their ratios to writing nothing (the target of issue 15
 is at most 2), in wall time and in CPU time: this process's and its helper processes' (the
