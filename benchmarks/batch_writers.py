@@ -12,10 +12,15 @@ alternating, ``--rounds`` times each:
   series' chart (``ui/report_charts.draw_charts``, as the window's export makes them: plain
   data drawn as SVG in the .html, vectors in the .pdf, a PNG in the .xlsx), as batch does by
   default;
-- writing every format with ``--no-charts``.
+- writing every format with ``--no-charts``;
+- writing every format, charts drawn, with ``--jobs 1``: every file written in this process,
+  one after the other (by default batch shares the files out among helper processes, one
+  per idle core, from 100 series on: ``tauscope.commands.batch_writing``; on a machine whose
+  load average leaves no core idle it writes as ``--jobs 1`` does, and the two runs agree).
 
 and prints the best time of each and their ratios to writing nothing (the target of issue 15
-is at most 2), in wall time and in the process's CPU time.  Then, on the findings of one
+is at most 2), in wall time and in CPU time: this process's and its helper processes' (the
+writers', counted once they have ended), so CPU time shows the work done, not its overlap.  Then, on the findings of one
 analysis, the charts drawn alone (milliseconds per series: the plans, then each drawn as SVG
 and as the .xlsx's PNG) and each format alone through ``tauscope.report.export`` with those
 charts (best of ``--rounds``), in milliseconds per series, with the file's size.
@@ -81,18 +86,25 @@ def write_workbook(path: Path, count: int, length: int) -> None:
 
 
 CPU: list[float] = []
-"""The process's CPU seconds of each :func:`batch` run, in order (its wall seconds are
-returned): on a machine shared with other work, CPU time moves far less from run to run."""
+"""The CPU seconds of each :func:`batch` run (this process and its ended helper processes),
+in order (its wall seconds are returned): on a machine shared with other work, CPU time moves
+far less from run to run."""
+
+
+def cpu_seconds() -> float:
+    """This process's CPU seconds and those of the child processes it has waited for."""
+    times = os.times()
+    return time.process_time() + times.children_user + times.children_system
 
 
 def batch(argv: list[str]) -> float:
     from tauscope.commands.batch import main
 
-    start, cpu = time.perf_counter(), time.process_time()
+    start, cpu = time.perf_counter(), cpu_seconds()
     with contextlib.redirect_stdout(io.StringIO()), contextlib.redirect_stderr(io.StringIO()):
         code = main(argv)
     elapsed = time.perf_counter() - start
-    CPU.append(time.process_time() - cpu)
+    CPU.append(cpu_seconds() - cpu)
     if code != 0:
         raise SystemExit(f"tauscope batch {' '.join(argv)} ended with exit code {code}")
     return elapsed
@@ -126,26 +138,32 @@ def main() -> int:
         nothing: list[float] = []
         everything: list[float] = []
         bare: list[float] = []
+        serial: list[float] = []
         CPU.clear()
         for _ in range(args.rounds):
             nothing.append(batch([str(source)]))
             everything.append(batch([str(source), "--replace", *every]))
             bare.append(batch([str(source), "--replace", "--no-charts", *every]))
-        cpu_n, cpu_e, cpu_b = (min(CPU[k::3]) for k in range(3))
-        n, e, b = min(nothing), min(everything), min(bare)
+            serial.append(batch([str(source), "--replace", "--jobs", "1", *every]))
+        cpu_n, cpu_e, cpu_b, cpu_s = (min(CPU[k::4]) for k in range(4))
+        n, e, b, s = min(nothing), min(everything), min(bare), min(serial)
         print(f"\ntauscope batch, {args.series} series × {args.length} observations "
               f"(best of {args.rounds})")
         for label, times in (("writing nothing:", nothing),
                              ("every format, charts drawn:", everything),
-                             ("every format, --no-charts:", bare)):
+                             ("every format, --no-charts:", bare),
+                             ("every format, --jobs 1:", serial)):
             print(f"  {label:28} {min(times):7.2f} s   (each run: "
                   f"{', '.join(f'{x:.2f}' for x in times)})")
         print(f"  ratio every format with charts / nothing: {e / n:.2f}  "
               "(issue 15 target: at most 2)")
         print(f"  ratio every format, --no-charts / nothing: {b / n:.2f}")
+        print(f"  ratio every format, --jobs 1 / nothing: {s / n:.2f}  "
+              f"(cores: {os.cpu_count()})")
         print(f"  in CPU time (best of {args.rounds}): nothing {cpu_n:.2f} s, every format "
-              f"{cpu_e:.2f} s, --no-charts {cpu_b:.2f} s; ratios {cpu_e / cpu_n:.2f} with "
-              f"charts, {cpu_b / cpu_n:.2f} without")
+              f"{cpu_e:.2f} s, --no-charts {cpu_b:.2f} s, --jobs 1 {cpu_s:.2f} s; ratios "
+              f"{cpu_e / cpu_n:.2f} with charts, {cpu_b / cpu_n:.2f} without, "
+              f"{cpu_s / cpu_n:.2f} with --jobs 1")
 
         per_format(source, folder, args.series, args.rounds)
     return 0

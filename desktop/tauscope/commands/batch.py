@@ -13,12 +13,18 @@ is needed; ``--no-charts`` leaves them out); a chart that cannot be made is left
 note on standard error.  The reader's notes (rows skipped, sheets
 empty, dates guessed) go to standard error on one line.
 
+From 100 series on, the ``--out`` files are written side by side, one process per idle
+core (``--jobs N`` sets how many; ``--jobs 1`` writes them one after the other here): helper
+processes start while the series are analysed (:mod:`tauscope.commands.batch_writing`).
+The files are the same either way; each is written whole or not at all.
+
 ``--out`` never writes over an input file, nor over an existing file that is not one of
 our own reports unless ``--replace`` is given (:mod:`tauscope.report.ownership`).
 
 Exit codes: 0 done (also when some series could not be tested; they carry ``error``),
 2 usage error, 3 the input cannot be read (one line on standard error), 1 a findings file
-could not be written (one line on standard error).
+could not be written (one line on standard error, naming it and any other not written; the
+other files are written).
 """
 
 from __future__ import annotations
@@ -31,6 +37,7 @@ from collections.abc import Mapping, Sequence
 from pathlib import Path
 from typing import NoReturn, TextIO
 
+from tauscope.commands.batch_writing import Writers
 from tauscope.commands.console_summary import summary_table
 from tauscope.data import DataError, SeriesData, Workbook, make_transform, read_workbook
 from tauscope.data.notes import reader_notes
@@ -49,11 +56,9 @@ from tauscope.report import (
     CHART_FORMATS,
     WRITERS,
     Charts,
-    ExportError,
     Finding,
     RunRecord,
     SourceFile,
-    export,
     is_own_report,
 )
 from tauscope.report.ownership import same_file
@@ -127,6 +132,9 @@ def _parser() -> _Parser:
     parser.add_argument("--no-charts", action="store_true",
                         help="leave the charts out of .xlsx, .html and .pdf reports (faster; "
                              "by default each series' chart is drawn, as in the window)")
+    parser.add_argument("--jobs", type=_count, metavar="N",
+                        help="write the --out files with up to N processes at once (default: "
+                             "one per idle core from 100 series on; 1: one after the other)")
     parser.add_argument("--replace", action="store_true",
                         help="allow --out to write over an existing file that is not a "
                              "Tauscope report (an input file is never written over)")
@@ -173,6 +181,12 @@ def main(argv: list[str]) -> int:
     notes = reader_notes(workbook, args.sheet, chosen)
     plan = Plan(None if args.transform == "none" else args.transform, args.gaps,
                 args.sample or (None, None))
+    with Writers(args.out, len(chosen), args.jobs) as writers:  # helpers start meanwhile
+        return _analyse_and_write(args, workbook, chosen, settings, plan, notes, writers)
+
+
+def _analyse_and_write(args: argparse.Namespace, workbook: Workbook, chosen: list[SeriesData],
+                       settings: Settings, plan: Plan, notes: str, writers: Writers) -> int:
     analysed = analyse_with_series(chosen, settings, plan)
     findings = [finding for finding, _series in analysed]
     run = RunRecord(settings, (SourceFile(str(workbook.path), workbook.sha256),), tuple(findings))
@@ -183,12 +197,12 @@ def main(argv: list[str]) -> int:
         charts, chart_notes = draw_report_charts(
             run, {f.key: series for f, series in analysed if f.key is not None})
         notes = "; ".join(n for n in (notes, chart_notes) if n)
-    for target in args.out:
-        try:
-            export(target, run, charts)
-        except ExportError as exc:
-            print(f"tauscope batch: {exc}", file=sys.stderr)
-            return EXIT_OUTPUT
+    failed = writers.write(run, charts)
+    if failed:  # one line: the first file not written, and any other
+        others = "; ".join(failed[1:])
+        print(f"tauscope batch: {failed[0]}" + (f" (also not written: {others})" if others
+                                                 else ""), file=sys.stderr)
+        return EXIT_OUTPUT
     if notes:  # after the writes, so that standard error holds one line in every case
         print(f"tauscope batch: {workbook.path.name}: {notes}", file=sys.stderr)
     return EXIT_DONE

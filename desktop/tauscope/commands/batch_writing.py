@@ -1,0 +1,257 @@
+"""Writing the ``--out`` files of ``tauscope batch``, several at once on a machine with cores
+to spare.
+
+Each findings file is written by one writer (``tauscope.report.export``), start to end, and
+the files do not depend on each other, so they can be written side by side.  Writers are
+Python and Qt code that holds the interpreter lock, so threads would take turns; processes
+of their own do not.  :class:`Writers` is made before the analysis: it starts its helper
+processes then (``multiprocessing``, "spawn": a fresh interpreter on every platform, the
+frozen bundle included, where ``multiprocessing.freeze_support()`` in the entry point
+answers the child's start), so that their imports and Qt's start run while this process
+analyses.  The files are shared out then by their expected cost (largest first, each to the
+least loaded writer: Graham, 1969, "Bounds on multiprocessing timing anomalies"), so that
+each helper warms up only for its own formats.  When the findings are ready,
+:meth:`Writers.write` pickles the run and the charts once, sends them to each helper from a
+thread (a helper still starting holds nothing up), writes its own share here and then
+collects what the helpers did.
+
+Every file still goes through :func:`~tauscope.report.export` and so through
+``report.atomic``: a file is written whole or not at all, never half.  A writer that fails
+gives one sentence naming its file; the other files are still written.  A helper that
+cannot be started, or that ends before saying what it wrote, costs nothing but time: the
+files it did not report are written here.  Fewer than :data:`PARALLEL_FROM` series, a
+single file or no idle core (:func:`writer_count`): everything is written here, one file
+after the other, as before.
+"""
+
+from __future__ import annotations
+
+import multiprocessing
+import os
+import pickle
+import threading
+from collections.abc import Sequence
+from contextlib import suppress
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import TYPE_CHECKING, Any
+
+from tauscope.engine.collector import collector_paused
+from tauscope.report import Charts, ExportError, RunRecord, export
+
+if TYPE_CHECKING:
+    from multiprocessing.connection import Connection
+    from multiprocessing.context import SpawnProcess
+
+PARALLEL_FROM = 100
+"""Fewer series than this: a helper's start (about a second of imports) costs more than
+the writing it would save."""
+
+COST = {".pdf": 5.2, ".xlsx": 4.9, ".json": 1.9, ".html": 0.8, ".csv": 0.4, ".tex": 0.1}
+"""Milliseconds per series each format took on 500 × 240 with charts
+(``benchmarks/batch_writers.py``); only their order and rough size matter here."""
+
+JOIN_S = 5.0  # the longest wait for a helper to end after it has reported every file
+
+
+def _failure(target: str, exc: Exception) -> str:
+    """One sentence naming ``target``: the export's own, or what went wrong in the writer."""
+    if isinstance(exc, ExportError):
+        return str(exc)
+    return f"{target}: could not be written ({type(exc).__name__}: {exc})".replace("\n", " ")
+
+
+def write_here(targets: Sequence[str], run: RunRecord, charts: Charts | None) -> dict[str, str]:
+    """Write ``targets`` one after the other in this process; the failures, by target."""
+    failed: dict[str, str] = {}
+    for target in targets:
+        try:
+            export(target, run, charts)
+        except Exception as exc:  # one writer's failure never stops the other files
+            failed[target] = _failure(target, exc)
+    return failed
+
+
+def _warm(suffixes: Sequence[str]) -> None:
+    """Import what the helper's formats need, and start Qt for those that draw."""
+    if ".pdf" in suffixes or ".xlsx" in suffixes:
+        os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+        import tauscope.ui.chart_paint  # noqa: F401  (the .xlsx picture painter)
+        from tauscope.ui import pdf_report  # noqa: F401  (registers ".pdf")
+        from tauscope.ui.headless import ensure_application
+
+        ensure_application()
+    for suffix in suffixes:
+        module = {".xlsx": "xlsx_export", ".csv": "csv_export", ".tex": "latex_export",
+                  ".html": "html_export"}.get(suffix)
+        if module is not None:
+            __import__(f"tauscope.report.{module}")
+
+
+def serve(conn: Connection, suffixes: Sequence[str]) -> None:
+    """The helper: warm up for ``suffixes``, then receive ``(run, charts)`` pickled in one
+    message and its targets in another, write each target and answer ``(target, None)`` when
+    written or ``(target, sentence)`` when not, one message each."""
+    import signal
+
+    signal.signal(signal.SIGINT, signal.SIG_IGN)  # Ctrl+C is the batch's to handle
+    with suppress(Exception):  # a failed warm-up shows again, with its file, when writing
+        _warm(suffixes)
+    try:
+        payload = conn.recv_bytes()
+        targets = conn.recv()
+    except (OSError, EOFError):
+        return  # the batch needed no help after all
+    with collector_paused():  # many objects, no cycles: the collector's passes cost 3/4 here
+        run, charts = pickle.loads(payload)
+    for target in targets:
+        failed = write_here([target], run, charts)
+        try:
+            conn.send((target, failed.get(target)))
+        except OSError:
+            return
+
+
+@dataclass
+class _Helper:
+    process: SpawnProcess
+    conn: Connection
+    targets: list[str] = field(default_factory=list)
+
+
+def plan_shares(targets: Sequence[str], writers: int) -> list[list[str]]:
+    """``targets`` shared among ``writers`` (the first share is this process's): largest
+    expected cost first, each to the share with the least so far (Graham, 1969)."""
+    shares: list[list[str]] = [[] for _ in range(max(1, writers))]
+    loads = [0.0] * len(shares)
+    for target in sorted(targets, key=lambda t: -COST.get(Path(t).suffix.lower(), 1.0)):
+        least = loads.index(min(loads))
+        shares[least].append(target)
+        loads[least] += COST.get(Path(target).suffix.lower(), 1.0)
+    return shares
+
+
+def idle_cores() -> float:
+    """Cores no process is waiting for: the core count less the load average over the last
+    minute (at least 0); all cores where the system gives no load average."""
+    cores = os.cpu_count() or 1
+    try:
+        return max(0.0, cores - os.getloadavg()[0])
+    except (AttributeError, OSError):  # no load average (Windows)
+        return float(cores)
+
+
+def writer_count(targets: int, series: int, jobs: int | None,
+                 idle: float | None = None) -> int:
+    """How many writers (this process included): ``jobs`` when given (at most one per
+    target); otherwise one per idle core (:func:`idle_cores`, or ``idle``) for
+    :data:`PARALLEL_FROM` series or more, else one.  A helper on a machine with no idle core
+    only adds its start and the run's pickling to the work (measured on 2 cores at load
+    6–10: more wall time and CPU time than one writer)."""
+    if jobs is not None:
+        return max(1, min(jobs, targets))
+    if series < PARALLEL_FROM:
+        return 1
+    free = idle_cores() if idle is None else idle
+    return max(1, min(int(free + 0.5), targets))
+
+
+class Writers:
+    """The writers of one batch: this process and, when worth it, helper processes started
+    now (see the module's text).  ``jobs``: how many writers at most (None: one per core)."""
+
+    def __init__(self, targets: Sequence[str], series: int, jobs: int | None = None) -> None:
+        self.targets = list(targets)
+        self.shares = plan_shares(self.targets, writer_count(len(self.targets), series, jobs))
+        self.helpers: list[_Helper] = []
+        for share in self.shares[1:]:
+            helper = self._start(share)
+            if helper is None:  # cannot start: this process writes that share too
+                self.shares[0].extend(share)
+            else:
+                self.helpers.append(helper)
+
+    @staticmethod
+    def _start(share: list[str]) -> _Helper | None:
+        try:
+            context = multiprocessing.get_context("spawn")
+            here, there = context.Pipe(duplex=True)
+            suffixes = sorted({Path(t).suffix.lower() for t in share})
+            process = context.Process(target=serve, args=(there, suffixes),
+                                      name="tauscope-writer", daemon=True)
+            process.start()
+            there.close()
+        except Exception:
+            return None
+        return _Helper(process, here, list(share))
+
+    def write(self, run: RunRecord, charts: Charts | None) -> list[str]:
+        """Write every target; the sentences of those that could not be written, in the
+        order of the targets given (empty when all were)."""
+        failed: dict[str, str] = {}
+        sending: list[tuple[_Helper, threading.Thread, list[bool]]] = []
+        if self.helpers:
+            try:
+                payload: bytes | None = pickle.dumps((run, charts), pickle.HIGHEST_PROTOCOL)
+            except Exception:
+                payload = None  # cannot be pickled: everything is written here
+            for helper in self.helpers:
+                if payload is None:
+                    self.shares[0].extend(helper.targets)
+                    continue
+                # sent from a thread: a helper still starting does not hold up this share
+                sent: list[bool] = []
+                thread = threading.Thread(target=self._send, args=(helper, payload, sent),
+                                          name="tauscope-writer-send", daemon=True)
+                thread.start()
+                sending.append((helper, thread, sent))
+        failed.update(write_here(self.shares[0], run, charts))
+        for helper, thread, sent in sending:
+            thread.join()
+            failed.update(self._collect(helper, run, charts) if sent
+                          else write_here(helper.targets, run, charts))
+        self.close()
+        return [failed[t] for t in self.targets if t in failed]
+
+    @staticmethod
+    def _send(helper: _Helper, payload: bytes, sent: list[bool]) -> None:
+        """Send the run and the targets to ``helper``; ``sent`` gets True when done."""
+        try:
+            helper.conn.send_bytes(payload)
+            helper.conn.send(helper.targets)
+        except Exception:
+            return
+        sent.append(True)
+
+    @staticmethod
+    def _collect(helper: _Helper, run: RunRecord, charts: Charts | None) -> dict[str, str]:
+        """What ``helper`` reports; the files it did not report (it ended) written here."""
+        failed: dict[str, str] = {}
+        waiting = list(helper.targets)
+        try:
+            while waiting:
+                target, sentence = helper.conn.recv()
+                waiting.remove(target)
+                if sentence is not None:
+                    failed[target] = sentence
+        except (OSError, EOFError, ValueError):
+            failed.update(write_here(waiting, run, charts))
+        return failed
+
+    def close(self) -> None:
+        """End the helpers (after they have reported, or unused)."""
+        for helper in self.helpers:
+            with suppress(OSError):
+                helper.conn.close()
+        for helper in self.helpers:
+            helper.process.join(JOIN_S)
+            if helper.process.is_alive():
+                helper.process.terminate()
+                helper.process.join(JOIN_S)
+        self.helpers = []
+
+    def __enter__(self) -> Writers:
+        return self
+
+    def __exit__(self, *exc: Any) -> None:
+        self.close()

@@ -1,0 +1,96 @@
+"""``tauscope batch`` writing its files in helper processes: the same files, failures named."""
+
+from __future__ import annotations
+
+import json
+import re
+from pathlib import Path
+
+import numpy as np
+import pytest
+
+from tauscope.commands.batch import main
+from tauscope.commands.batch_writing import Writers, plan_shares, writer_count
+from tauscope.engine import Settings, analyse_series
+from tauscope.report import Finding, RunRecord, SourceFile
+
+
+def _workbook(tmp_path: Path) -> Path:
+    rng = np.random.default_rng(11)
+    walk = np.cumsum(rng.normal(size=48)) + 20
+    noise = rng.normal(size=48)
+    lines = ["Year,Walk,Noise"] + [f"{1950 + i},{walk[i]:.4f},{noise[i]:.4f}" for i in range(48)]
+    path = tmp_path / "two.csv"
+    path.write_text("\n".join(lines) + "\n", encoding="utf-8")
+    return path
+
+
+def _without_time(path: Path) -> str:
+    """The file's text, the run's time stamp left out (each run has its own)."""
+    if path.suffix == ".json":
+        data = json.loads(path.read_text(encoding="utf-8"))
+        data.pop("created")
+        return json.dumps(data)
+    return re.sub(r"\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d[+-]\d\d:\d\d", "(time)",
+                  path.read_text(encoding="utf-8"))
+
+
+def test_shares_put_the_largest_first_each_to_the_least_loaded() -> None:
+    targets = ["a.tex", "a.csv", "a.html", "a.json", "a.xlsx", "a.pdf"]
+    assert plan_shares(targets, 1) == [["a.pdf", "a.xlsx", "a.json", "a.html", "a.csv", "a.tex"]]
+    assert plan_shares(targets, 2) == [["a.pdf", "a.html", "a.csv", "a.tex"], ["a.xlsx", "a.json"]]
+    assert plan_shares(["a.json"], 4) == [["a.json"], [], [], []]
+
+
+def test_writers_one_per_idle_core_from_enough_series_or_as_asked() -> None:
+    assert writer_count(6, 500, None, idle=2.0) == 2
+    assert writer_count(6, 500, None, idle=0.2) == 1  # a busy machine: no helper
+    assert writer_count(6, 99, None, idle=8.0) == 1  # too few series to pay a helper's start
+    assert writer_count(3, 500, None, idle=8.0) == 3  # never more than the files
+    assert writer_count(6, 5, 2) == 2 and writer_count(1, 500, 4) == 1
+    assert writer_count(6, 500, 0) == 1
+
+
+def test_helpers_write_the_same_files_as_one_writer(tmp_path: Path) -> None:
+    source = _workbook(tmp_path)
+    texts: dict[str, list[str]] = {}
+    for jobs in ("1", "3"):
+        folder = tmp_path / jobs
+        folder.mkdir()
+        outs = [arg for suffix in (".json", ".csv", ".tex", ".html")
+                for arg in ("--out", str(folder / f"f{suffix}"))]
+        assert main([str(source), "--max-difference", "1", "--jobs", jobs, *outs]) == 0
+        texts[jobs] = [_without_time(folder / f"f{s}") for s in (".json", ".csv", ".tex", ".html")]
+    assert texts["1"] == texts["3"]
+    assert json.loads((tmp_path / "3" / "f.json").read_text(encoding="utf-8"))["series"]
+
+
+def test_a_file_that_cannot_be_written_is_named_and_the_others_are_written(
+    tmp_path: Path, capsys: pytest.CaptureFixture[str]
+) -> None:
+    source = _workbook(tmp_path)
+    good, bad = tmp_path / "good.csv", tmp_path / "no such folder" / "bad.json"
+    assert main([str(source), "--max-difference", "0", "--jobs", "2",
+                 "--out", str(bad), "--out", str(good)]) == 1
+    err = capsys.readouterr().err.strip().splitlines()
+    assert len(err) == 1 and "bad.json" in err[0] and "good.csv" not in err[0]
+    assert good.read_text(encoding="utf-8").lstrip("\ufeff").startswith("series,")
+    assert not bad.parent.exists()
+
+
+def test_files_a_lost_helper_did_not_write_are_written_here(tmp_path: Path) -> None:
+    rng = np.random.default_rng(2)
+    result = analyse_series(rng.normal(size=40), Settings(max_difference=0), "Noise")
+    run = RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
+                    (Finding(result),))
+    targets = [str(tmp_path / "a.json"), str(tmp_path / "b.csv")]
+    writers = Writers(targets, series=1, jobs=2)
+    assert len(writers.helpers) == 1
+    helper = writers.helpers[0]
+    helper.process.kill()
+    helper.process.join(30)
+    assert writers.write(run, None) == []
+    assert writers.helpers == []
+    assert json.loads((tmp_path / "a.json").read_text(encoding="utf-8"))["series"][0]["name"] == (
+        "Noise")
+    assert (tmp_path / "b.csv").read_text(encoding="utf-8").lstrip("\ufeff").startswith("series,")
