@@ -25,15 +25,6 @@ if TYPE_CHECKING:
     from tauscope.report import RunRecord
 
 
-def _path(index: QModelIndex) -> tuple[int, ...]:
-    """Rows from the top down to an index: a hashable identity for a source row."""
-    rows: list[int] = []
-    while index.isValid():
-        rows.append(index.row())
-        index = index.parent()
-    return tuple(reversed(rows))
-
-
 class FindingsPanel(QWidget):
     current_changed = Signal(str)  # key of the series the current row belongs to
     guide_requested = Signal(str)  # guide anchor

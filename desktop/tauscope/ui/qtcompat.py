@@ -21,3 +21,12 @@ def item_value(index: QModelIndex | QPersistentModelIndex, role: int | Qt.ItemDa
     if model is None:
         return default
     return model.itemData(index).get(int(role), default)
+
+
+def tree_path(index: QModelIndex) -> tuple[int, ...]:
+    """Rows from the top down to ``index``: its place in the tree (a hashable identity)."""
+    rows: list[int] = []
+    while index.isValid():
+        rows.append(index.row())
+        index = index.parent()
+    return tuple(reversed(rows))

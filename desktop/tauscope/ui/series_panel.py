@@ -24,7 +24,7 @@ from PySide6.QtWidgets import (
 )
 
 from tauscope.ui.columns import ColumnFitter, header_width
-from tauscope.ui.qtcompat import item_value
+from tauscope.ui.qtcompat import item_value, tree_path
 from tauscope.ui.roles import KEY_ROLE, KIND_ROLE, SORT_ROLE
 from tauscope.ui.series_model import COLUMNS, FREQUENCY, NAME, SHAPE, SeriesTreeModel
 from tauscope.ui.sparkline import SparklineDelegate
@@ -34,15 +34,6 @@ if TYPE_CHECKING:
 
 
 SHAPE_WIDTH = 56  # the small drawing of each series (and "5 series" on a sheet's row)
-
-
-def _path(index: QModelIndex) -> tuple[int, ...]:
-    """Rows from the top down to a source index: its place in the tree."""
-    rows: list[int] = []
-    while index.isValid():
-        rows.append(index.row())
-        index = index.parent()
-    return tuple(reversed(rows))
 
 
 class SeriesPanel(QWidget):
@@ -139,7 +130,7 @@ class SeriesPanel(QWidget):
             if block.left() != 0 or block.right() != last:
                 continue
             parent = block.parent()
-            place = _path(self.proxy.mapToSource(parent))
+            place = tree_path(self.proxy.mapToSource(parent))
             for r in range(block.top(), block.bottom() + 1):
                 chosen.add((*place, self.proxy.mapToSource(self.proxy.index(r, NAME, parent)).row()))
         if not chosen:
