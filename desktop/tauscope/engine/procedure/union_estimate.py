@@ -48,7 +48,7 @@ from tauscope.engine.unitroot.union import (
 )
 from tauscope.engine.unitroot.union_bootstrap import ALPHAS as BOOT_ALPHAS
 from tauscope.engine.unitroot.union_bootstrap import BOOTSTRAP_REPS, BootstrapLevel, bootstrap_level
-from tauscope.engine.unitroot.variance_change import VarianceChange, variance_change
+from tauscope.engine.unitroot.variance_change import VarianceChange, variance_changes
 
 LONG_LAG_SCALE = 12.0  # Schwert's long rule
 POWER_PHI = 0.95
@@ -154,7 +154,7 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
     trend_values: dict[int, float] = {}
     orders, z_list, long_list = order_all.tolist(), trend_z.tolist(), long.tolist()
     at_lists = {a: at[a].tolist() for a in OTHER_ALPHAS}
-    variance_lags = result.levels[0].lags["trend"].tolist()
+    variances = _variances(xs, result.levels[0].lags["trend"], alpha)
     rows = []
     for i in range(xs.shape[0]):
         order = _order(int(orders[i]))
@@ -184,7 +184,7 @@ def union_rows(xs: np.ndarray, rule: str, alpha: float, max_difference: int,
         rows.append(UnionRow(order, det, levels, float(z_list[i]), trend_cv, trend_d,
                              {a: _order(int(at_lists[a][i])) for a in OTHER_ALPHAS},
                              _order(int(long_list[i])), power, problem,
-                             _variance(xs[i], variance_lags[i], alpha),
+                             variances[i],
                              BOOTSTRAP_REPS if bootstrap else None))
     return rows
 
@@ -210,10 +210,10 @@ def _bootstrap(xs: np.ndarray, levels: dict[int, UnionLevel], rule: str, max_lag
     return out
 
 
-def _variance(x: np.ndarray, lags: int, alpha: float) -> VarianceChange | None:
-    """κ2 on the shocks of the levels, with the union's lag order for the trend case."""
+def _variances(xs: np.ndarray, lags: np.ndarray, alpha: float) -> list[VarianceChange | None]:
+    """κ2 on the shocks of every row's levels, with the union's lag order for the trend case."""
     with np.errstate(all="ignore"):
-        return variance_change(x, int(lags), alpha)
+        return variance_changes(xs, np.asarray(lags, dtype=int), alpha)
 
 
 def _level_max_lags(n: int, d: int, rule: str, max_lags: int | None, fixed: int | None) -> int:

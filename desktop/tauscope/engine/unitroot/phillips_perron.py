@@ -69,11 +69,17 @@ def newey_west_bandwidth(resid: np.ndarray) -> int:
 
 def long_run_variance(resid: np.ndarray, bandwidth: int) -> float:
     """Newey & West (1987) estimate with Bartlett weights 1 − j/(ℓ + 1), no demeaning."""
-    n = resid.shape[0]
-    total = float(resid @ resid)
-    for j in range(1, bandwidth + 1):
-        total += 2.0 * (1.0 - j / (bandwidth + 1.0)) * float(resid[j:] @ resid[:-j])
-    return total / n
+    return float(long_run_variance_many(np.asarray(resid, dtype=float)[None, :], bandwidth)[0])
+
+
+def long_run_variance_many(rows: np.ndarray, bandwidth: int) -> np.ndarray:
+    """:func:`long_run_variance` of every row of ``rows`` (R, n): (Σ_t u_t² + 2 Σ_{j≤ℓ}
+    (1 − j/(ℓ + 1)) Σ_t u_t u_{t−j}) / n; lags beyond n − 1 are empty sums."""
+    n = rows.shape[1]
+    total = np.einsum("rn,rn->r", rows, rows)
+    for j in range(1, min(bandwidth, n - 1) + 1):
+        total += 2.0 * (1.0 - j / (bandwidth + 1.0)) * np.einsum("rn,rn->r", rows[:, j:], rows[:, :-j])
+    return np.asarray(total / n)
 
 
 def phillips_perron(x: np.ndarray, spec: str, bandwidth: int | None = None) -> PhillipsPerron:

@@ -39,6 +39,7 @@ from scipy.stats import norm
 
 from tauscope.engine.distributions.simulate import DEFAULT_SEED
 from tauscope.engine.unitroot.dfgls_many import dfgls_many
+from tauscope.engine.unitroot.phillips_perron import long_run_variance_many
 from tauscope.engine.unitroot.union_components import min_lag
 from tauscope.engine.unitroot.union_lookup import table_trend_critical_value
 
@@ -49,17 +50,6 @@ TABLE_LAG_SCALE = 6.0  # the lag maximum the table was simulated with (the union
 def bartlett_bandwidth(length: int) -> int:
     """⌊4 (T/100)^{1/4}⌋ (common practice)."""
     return int(np.floor(4.0 * (length / 100.0) ** 0.25))
-
-
-def long_run_variance_many(resids: np.ndarray, bandwidth: int) -> np.ndarray:
-    """Bartlett-kernel long-run variance of each row (mean-zero residuals):
-    T⁻¹ (Σ e² + 2 Σ_{s=1..l} (1 − s/(l+1)) Σ_t e_t e_{t−s})."""
-    n = resids.shape[1]
-    total = np.einsum("rn,rn->r", resids, resids)
-    for s in range(1, min(bandwidth, n - 1) + 1):
-        total = total + 2.0 * (1.0 - s / (bandwidth + 1.0)) * np.einsum(
-            "rn,rn->r", resids[:, s:], resids[:, :-s])
-    return np.asarray(total / n)
 
 
 def trend_statistics(xs: np.ndarray, dfgls_trend: np.ndarray) -> dict[str, np.ndarray]:
