@@ -26,9 +26,10 @@ no lags).  Those fit a fixed lag order; choosing it candidate by candidate makes
 minimum more negative (measured at T = 100 with k_max = 8: 5% quantile −3.74 against
 −3.49 with no lags), so that variant needs its own critical values.
 
-All candidate breaks are solved as one batch: the regressors are arrays of shape
-(candidates, rows, columns); the impulse B_t takes its row out of the fit, which is done
-by taking that row's products out of the cross products instead of adding a column.
+All candidate breaks are solved as one batch: every candidate's cross products come from
+sums over the sample (:mod:`tauscope.engine.unitroot.lm_break_sums`); the impulse B_t
+takes its row out of the fit, which is done by taking that row's products out of the
+cross products instead of adding a column.
 """
 
 from __future__ import annotations
@@ -38,11 +39,11 @@ from dataclasses import dataclass
 import numpy as np
 
 from tauscope.engine.errors import UntestableSeries
+from tauscope.engine.unitroot.lm_break_sums import candidate_moments
 
 TRIM = 0.10
 MAX_LAGS = 8  # Lee & Strazicich's upper bound for the lag search
 LAG_T = 1.645  # |t| of the last lag kept: 10% two-sided (Ng & Perron 1995)
-_CHUNK_VALUES = 2_000_000
 
 
 @dataclass(frozen=True)
@@ -88,30 +89,13 @@ def _detrending(x: np.ndarray, positions: np.ndarray) -> tuple[np.ndarray, np.nd
     return slope, jump - slope
 
 
-def _fit(dx: np.ndarray, s: np.ndarray, e: np.ndarray, positions: np.ndarray,
-         k: int) -> tuple[np.ndarray, np.ndarray]:
-    """(τ̃, t ratio of the last lag) for every candidate with k lags, rows r = k … T−2 of Δy."""
+def _fit(x: np.ndarray, positions: np.ndarray, k: int) -> tuple[np.ndarray, np.ndarray]:
+    """(τ̃, t ratio of the last lag) for every candidate with k lags, rows r = k … T−2 of Δy
+    less the impulse's row (the cross products from sums: :func:`candidate_moments`)."""
     c = positions.shape[0]
-    n = dx.shape[0] - k
     m = 2 + k
-    # held column by column, (candidates, columns, rows): each candidate's Gram is then
-    # one product of a contiguous matrix with its transpose
-    columns = np.empty((c, m, n))
-    columns[:, 0, :] = 1.0
-    columns[:, 1, :] = s[:, k:k + n]
-    for i in range(1, k + 1):
-        columns[:, 1 + i, :] = e[:, k - i:k - i + n]
-    y = dx[k:]
-    gram = np.matmul(columns, columns.transpose(0, 2, 1))
-    cross = np.matmul(columns, y)
-    yy = np.full(c, float(y @ y))
-    # The impulse's row r = TB leaves the fit: take its products out again.
-    inside = np.flatnonzero(positions >= k)
-    dropped = columns[inside, :, positions[inside] - k]  # (candidates, m)
-    y_dropped = y[positions[inside] - k]
-    gram[inside] -= dropped[:, :, None] * dropped[:, None, :]
-    cross[inside] -= dropped * y_dropped[:, None]
-    yy[inside] -= y_dropped * y_dropped
+    n = x.shape[0] - 1 - k
+    gram, cross, yy = candidate_moments(x, positions, k)
     scale = np.sqrt(np.einsum("cii->ci", gram))
     scale = np.where(scale > 0, scale, 1.0)
     inverse = np.linalg.inv(gram / scale[:, :, None] / scale[:, None, :]) / scale[:, :, None] / scale[:, None, :]
@@ -138,33 +122,20 @@ def lm_profile(x: np.ndarray, positions: np.ndarray, max_lags: int,
     if not np.isfinite(spread) or spread <= 0:
         raise UntestableSeries("the series does not change, so it cannot be tested for a break")
     x = (x - x[0]) / spread  # τ̃ does not depend on the level or the scale
-    dx = np.diff(x)
-    if dx.shape[0] - max_lags - (max_lags + 2) < 4:
+    if x.shape[0] - 1 - max_lags - (max_lags + 2) < 4:
         raise UntestableSeries(f"too few observations ({x.shape[0]}) for the break test with {max_lags} lags")
     stats = np.full(positions.shape[0], np.nan)
     chosen = np.full(positions.shape[0], -1)
-    per_chunk = max(1, _CHUNK_VALUES // (dx.shape[0] * (max_lags + 2)))
-    times = np.arange(x.shape[0])
-    for start in range(0, positions.shape[0], per_chunk):
-        block = positions[start:start + per_chunk]
-        slope, jump = _detrending(x, block)
-        s = x[None, :] - slope[:, None] * times[None, :] - jump[:, None] * (times[None, :] > block[:, None])
-        e = dx[None, :] - slope[:, None]
-        e[np.arange(block.shape[0]), block] = 0.0  # ΔS̃ at the impulse is zero
-        open_ = np.ones(block.shape[0], dtype=bool)
-        out = np.full(block.shape[0], np.nan)
-        used = np.full(block.shape[0], -1)
-        for k in ([max_lags] if fixed else range(max_lags, -1, -1)):
-            tau, last = _fit(dx, s[open_], e[open_], block[open_], k)
-            keep = np.ones(tau.shape[0], dtype=bool) if (fixed or k == 0) else np.abs(last) > LAG_T
-            where = np.flatnonzero(open_)[keep]
-            out[where] = tau[keep]
-            used[where] = k
-            open_[where] = False
-            if not open_.any():
-                break
-        stats[start:start + block.shape[0]] = out
-        chosen[start:start + block.shape[0]] = used
+    open_ = np.ones(positions.shape[0], dtype=bool)
+    for k in ([max_lags] if fixed else range(max_lags, -1, -1)):
+        tau, last = _fit(x, positions[open_], k)
+        keep = np.ones(tau.shape[0], dtype=bool) if (fixed or k == 0) else np.abs(last) > LAG_T
+        where = np.flatnonzero(open_)[keep]
+        stats[where] = tau[keep]
+        chosen[where] = k
+        open_[where] = False
+        if not open_.any():
+            break
     return stats, chosen
 
 
