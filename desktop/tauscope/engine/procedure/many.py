@@ -37,7 +37,10 @@ from tauscope.engine.reference.estimation import REFERENCE
 from tauscope.engine.results import SeriesResult
 from tauscope.engine.settings import Settings
 
-CHUNK = 64
+# Series per chunk: 128 measured fastest (1,000 series × 240, median CPU of five runs
+# each: 64 → 2.60 s, 100 → 2.53 s, 128 → 2.50 s, 160 → 2.54 s); fewer numpy calls per
+# series, at a working memory of about 25 MB at T = 240 (12.8 MB with 64).
+CHUNK = 128
 _PREPARE_ERRORS = (np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
 
 Progress = Callable[[int, int, str], None]
