@@ -24,7 +24,6 @@ is not finite) goes to the statsmodels version, so errors read the same.
 
 from __future__ import annotations
 
-import math
 from functools import lru_cache
 
 import numpy as np
@@ -43,15 +42,6 @@ _LEVEL = {0.01: "1%", 0.05: "5%", 0.10: "10%"}
 _LARGEST = 1e100  # beyond this, squares and cumulated sums could overflow: statsmodels' own way
 
 
-def _residuals(x: np.ndarray, spec: str) -> np.ndarray:
-    if spec != "trend":
-        return np.asarray(x - x.mean())
-    t_centred = _centred_time(x.shape[0])
-    deviations = x - x.mean()
-    slope = float(np.dot(t_centred, deviations) / np.dot(t_centred, t_centred))
-    return np.asarray(deviations - slope * t_centred)
-
-
 @lru_cache(maxsize=64)
 def _centred_time(nobs: int) -> np.ndarray:
     """t − t̄ for t = 1 … T, once per length (read-only)."""
@@ -61,72 +51,12 @@ def _centred_time(nobs: int) -> np.ndarray:
     return out
 
 
-def _bandwidth(s0: float, products: list[float], nobs: int) -> int | None:
-    """``s0``: Σ e²; ``products[i − 1]``: Σ_t e_t e_{t−i} for i = 1 … ⌊T^{2/9}⌋."""
-    s0 = float(s0) / nobs  # plain floats throughout: an overflow gives inf, not a warning
-    s1 = 0.0
-    for i, raw in enumerate(products, start=1):
-        product = float(raw) / (nobs / 2.0)
-        s0 += product
-        s1 += i * product
-    if s0 == 0.0:
-        return None
-    s_hat = s1 / s0
-    squared = s_hat * s_hat
-    if not math.isfinite(squared):
-        return None  # a near-zero variance against huge products: statsmodels' version decides
-    power = 1.0 / 3.0
-    gamma_hat = 1.1447 * np.power(squared, power)
-    return int(gamma_hat * np.power(nobs, power))
-
-
-def _long_run_variance(resids: np.ndarray, nobs: int, lags: int, squares: float,
-                       products: list[float]) -> float:
-    """``squares``: Σ e²; ``products``: the autocovariance sums already taken (reused)."""
-    s_hat = squares
-    for i in range(1, lags + 1):
-        product = products[i - 1] if i <= len(products) else np.dot(resids[i:], resids[: nobs - i])
-        s_hat += 2 * product * (1.0 - (i / (lags + 1.0)))
-    return float(s_hat / nobs)
-
-
-def kpss_statistic(x: np.ndarray, spec: str) -> tuple[float, int] | None:
-    """(η, bandwidth), or None when the statistic is degenerate or could overflow."""
-    nobs = int(x.shape[0])
-    if not float(np.abs(x).max()) < _LARGEST:
-        return None
-    resids = _residuals(x, spec)
-    if not float(np.dot(resids, resids)) > 0.0:
-        return None
-    squares = np.sum(resids**2)
-    covlags = int(np.power(nobs, 2.0 / 9.0))
-    products = [np.dot(resids[i:], resids[: nobs - i]) for i in range(1, covlags + 1)]
-    bandwidth = _bandwidth(squares, products, nobs)
-    if bandwidth is None:
-        return None
-    lags = min(bandwidth, nobs - 1)
-    eta = float(np.sum(resids.cumsum() ** 2) / (nobs**2))
-    s_hat = _long_run_variance(resids, nobs, lags, squares, products)
-    if not (s_hat > 0.0 and math.isfinite(eta) and math.isfinite(s_hat)):
-        return None
-    return eta / s_hat, lags
-
-
 def kpss_fast(x: np.ndarray, spec: str, difference: int, alpha: float) -> TestResult:
-    """Same result as :func:`tauscope.engine.unitroot.kpss.kpss_test`."""
+    """Same result as :func:`tauscope.engine.unitroot.kpss.kpss_test`: the batch's steps
+    (:func:`_kpss_rows`) on this series alone, or statsmodels' version where they decline."""
     x = centred(np.asarray(x, dtype=float), spec)  # as kpss_test: the level only moves the mean
-    if x.shape[0] < 3:
-        return kpss_test(x, spec, difference, alpha)
-    try:
-        computed = kpss_statistic(x, spec)
-    except (ValueError, OverflowError):
-        computed = None
-    if computed is None:
-        return kpss_test(x, spec, difference, alpha)
-    statistic, lags = computed
-    table = _CRITICAL["trend" if spec == "trend" else "constant"]
-    return _result(statistic, float(np.interp(statistic, table, _P_LEVELS)), lags, int(x.shape[0]),
-                   spec, difference, alpha)
+    found = _kpss_rows(x[None, :], spec, difference, alpha)[0]
+    return kpss_test(x, spec, difference, alpha) if found is None else found
 
 
 def _result(statistic: float, p: float, lags: int, nobs: int, spec: str, difference: int,
@@ -151,12 +81,11 @@ def _result(statistic: float, p: float, lags: int, nobs: int, spec: str, differe
 
 
 def kpss_many(xs: np.ndarray, spec: str, difference: int, alpha: float) -> list[TestResult]:
-    """:func:`kpss_fast` for every row of ``xs`` (series of one length), the steps of
-    :func:`kpss_statistic` taken for all rows at once in the same order (the sums of
-    products as matrix products, so equal to rounding); a row whose statistic is degenerate
-    or could overflow goes through :func:`kpss_fast` alone, and from there to statsmodels."""
+    """:func:`kpss_fast` for every row of ``xs`` (series of one length), the steps taken
+    for all rows at once (:func:`_kpss_rows`); a row whose statistic is degenerate or could
+    overflow goes to statsmodels' version."""
     xs = np.asarray(xs, dtype=float)
-    return [kpss_fast(x, spec, difference, alpha) if found is None else found
+    return [kpss_test(centred(x, spec), spec, difference, alpha) if found is None else found
             for x, found in zip(xs, _kpss_rows(xs, spec, difference, alpha), strict=True)]
 
 
@@ -167,13 +96,15 @@ def _row_sums(values: np.ndarray) -> np.ndarray:
 
 
 def _kpss_rows(xs: np.ndarray, spec: str, difference: int, alpha: float) -> list[TestResult | None]:
-    """:func:`kpss_many`'s batched part: None for the rows it leaves to :func:`kpss_fast`.
-    Each row's numbers depend on that row alone (a row alone gets the same bits)."""
+    """η and the bandwidth of every row, in statsmodels' order of operations (so the integer
+    bandwidth is the same); None for a row whose statistic is degenerate or could overflow
+    (statsmodels' version then decides, so its errors read the same).  Each row's numbers
+    depend on that row alone (a row alone gets the same bits)."""
     count, nobs = xs.shape
     if nobs < 3 or count == 0:
         return [None] * count
     with np.errstate(all="ignore"):
-        x = xs - np.mean(xs, axis=1)[:, None]  # centred, as kpss_fast
+        x = xs - np.mean(xs, axis=1)[:, None]  # centred, as kpss_test
         ok = np.abs(x).max(axis=1) < _LARGEST
         resids = x - x.mean(axis=1)[:, None]
         if spec == "trend":
