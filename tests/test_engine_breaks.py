@@ -23,6 +23,7 @@ from tauscope.engine.results_breaks import (
     UNIT_ROOT_WITH_BREAK,
     BreakTest,
 )
+from tauscope.engine.seasonal.means import remove_seasonal_means
 from tauscope.engine.unitroot.lm_break import (
     candidate_positions,
     lm_break,
@@ -295,3 +296,32 @@ def test_break_lag_order_from_one_factorisation_equals_one_regression_per_lag() 
                     assert nested_criterion_lag(x, cap, rule) == choose_lag(x, "trend", rule, cap).lag
     assert nested_criterion_lag(np.arange(80.0), 6) is None  # a straight line: no randomness
     assert nested_criterion_lag(np.tile([1.0, 2.0, 3.0, 4.0], 20), 6) is None  # repeats exactly
+
+
+def test_break_test_reads_the_levels_without_the_seasonal_means_the_tests_remove() -> None:
+    """A monthly AR(0.5) with fixed seasonal means and a 5σ level shift: the unit-root tests
+    remove the seasonal means, and so must the break test, or the seasonal pattern stands in
+    its regression (there it took 8 lags instead of 2).  Its statistic is that of the same
+    series with the means removed beforehand (which then has none left to remove)."""
+    rng = np.random.default_rng(5)
+    n = 240
+    e = rng.standard_normal(n)
+    x = np.empty(n)
+    x[0] = e[0]
+    for t in range(1, n):
+        x[t] = 0.5 * x[t - 1] + e[t]
+    months = np.arange(n) % 12
+    y = 50.0 + x + 5.0 * (np.arange(n) >= 120) + 3.0 * np.sin(months / 12 * 2 * np.pi) + 4.0 * (months == 11)
+    index = pd.period_range("2000-01", periods=n, freq="M")
+    seasonal = analyse_series(pd.Series(y, index=index), Settings(power=False), "with means")
+    assert seasonal.seasonal is not None and seasonal.seasonal.means is not None
+    assert seasonal.seasonal.means.used
+    removed = remove_seasonal_means(y, 12)
+    plain = analyse_series(pd.Series(removed, index=index), Settings(power=False), "means removed")
+    assert plain.seasonal is None or plain.seasonal.means is None or not plain.seasonal.means.used
+    with_means, without = seasonal.breaks, plain.breaks
+    assert with_means is not None and without is not None
+    assert with_means.test is not None and without.test is not None
+    assert with_means.test.lags == without.test.lags == 2
+    assert with_means.test.position == without.test.position == 119
+    assert abs(with_means.test.statistic - without.test.statistic) < 1e-8

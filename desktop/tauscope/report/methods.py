@@ -229,7 +229,8 @@ def _cross_checks(run: RunRecord, a: str, cited: set[str]) -> list[str]:
             "A break in level was looked for (an unusually large one-period change, the verdict "
             "and KPSS at odds, or a large swing of τ over an expanding window); where one was "
             f"suspected, {which}, the minimum LM test with one level shift allowed under both "
-            "hypotheses (Lee & Strazicich 2013) ran on the levels, its lag order chosen by the "
+            "hypotheses (Lee & Strazicich 2013) ran on the levels (without their fixed seasonal "
+            "means where the unit-root tests removed them), its lag order chosen by the "
             "Akaike criterion (Akaike 1974, at most 8) and its critical values simulated at "
             "the series’ own length."
         )

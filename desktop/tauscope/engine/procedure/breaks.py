@@ -147,8 +147,9 @@ def run_break_test(prepared: PreparedSeries, lags: int, alpha: float) -> BreakTe
     """The minimum LM test on the levels, judged against the null simulated at this length."""
     # The statistic depends on neither level nor scale: it is searched on the standardised
     # series (safe from overflow at any magnitude), and the shift and slope are put back
-    # into the series' units.
-    x = prepared.standardised
+    # into the series' units.  Where the unit-root tests allow for fixed seasonal means, the
+    # break test does too: it reads the levels with those means removed, as the tests do.
+    x = prepared.level(0)
     search = lm_break(x, lags=min(max(int(lags), 0), MAX_LAGS))
     length = min(int(x.shape[0]), SIMULATED_LENGTH_CAP)
     critical_values = break_critical_values(length)
@@ -229,7 +230,7 @@ def check_breaks(prepared: PreparedSeries, order: int | None, kpss: Sequence[tup
     if not reasons:
         return BreakCheck(False, (), NOT_SUSPECTED)
     try:
-        test = run_break_test(prepared, break_lags(x), alpha)
+        test = run_break_test(prepared, break_lags(prepared.level(0)), alpha)
     except _FAILURES as exc:
         check = BreakCheck(True, reasons, FAILED, None, jump_label, problem=str(exc))
     else:
