@@ -231,8 +231,7 @@ def _cross_checks(run: RunRecord, a: str, cited: set[str]) -> list[str]:
             f"suspected, {which}, the minimum LM test with one level shift allowed under both "
             "hypotheses (Lee & Strazicich 2013) ran on the levels (without their fixed seasonal "
             "means where the unit-root tests removed them), its lag order chosen by the "
-            "Akaike criterion (Akaike 1974, at most 8) and its critical values simulated at "
-            "the series’ own length."
+            "Akaike criterion (Akaike 1974, at most 8), its critical values simulated at the series’ own length."
         )
     if getattr(run.settings, "break_check", "automatic") == "off":
         more.append("The break check was turned off in the settings: no series was checked for a "
