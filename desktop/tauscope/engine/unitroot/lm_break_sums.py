@@ -15,7 +15,7 @@ candidates) and less the few rows where the zeroed ΔS̃_P enters.  With a₀ th
 steep trend is not carried through the sums and cancelled afterwards.
 
 This costs O(T k² + C k²) for C candidates instead of O(C T k²) for the products of C
-designs; :func:`tests.test_engine_lm_break` checks it against those products.
+designs; tests/test_engine_lm_break_sums.py checks it against those products.
 """
 
 from __future__ import annotations

@@ -81,18 +81,13 @@ def critical_value(alpha: float) -> float:
     return float(kstwobign.ppf(1.0 - alpha))
 
 
-def trend_residuals(y: np.ndarray, lags: int) -> np.ndarray | None:
-    """OLS residuals of Δy_t on [1, t, y_{t−1}, Δy_{t−1}, …, Δy_{t−p}] (p = ``lags``)."""
-    return trend_residuals_many(np.asarray(y, dtype=float)[None, :], np.array([lags]))[0]
-
-
 def trend_residuals_many(ys: np.ndarray, lags: np.ndarray) -> list[np.ndarray | None]:
-    """:func:`trend_residuals` of every row of ``ys`` (series of one length) with its own
-    lag order: the rows of one lag order fitted together, each by its own QR
-    (e = Δy − Q Q'Δy, LAPACK and the products matrix by matrix over the stack, so a row
-    gets the same numbers alone as in a batch).  A design that is not finite, or of
-    deficient rank by lstsq's rule (a singular value of R at or below ε·max(M, N) times
-    the largest), gives None."""
+    """OLS residuals of Δy_t on [1, t, y_{t−1}, Δy_{t−1}, …, Δy_{t−p}] for every row of ``ys``
+    (series of one length), p its own lag order (None where fewer than p + 8 rows remain):
+    the rows of one lag order fitted together, each by its own QR (e = Δy − Q Q'Δy, LAPACK
+    and the products matrix by matrix over the stack, so a row gets the same numbers alone
+    as in a batch).  A design that is not finite, or of deficient rank by lstsq's rule (a
+    singular value of R at or below ε·max(M, N) times the largest), gives None."""
     ys = np.asarray(ys, dtype=float)
     out: list[np.ndarray | None] = [None] * ys.shape[0]
     dys = np.diff(ys, axis=1)
