@@ -37,11 +37,12 @@ from arch.unitroot.unitroot import mackinnoncrit as arch_mackinnoncrit
 
 sys.path.insert(0, str(Path(__file__).resolve().parent))
 
-from engine_vs_statsmodels import benchmark_series, differences
+from engine_vs_statsmodels import benchmark_series
 from every_box import SETTINGS, clear_caches
 from results_unchanged import _plain, _restore
 
 from tauscope.engine import analyse_many
+from tauscope.engine.compare import differences
 from tauscope.engine.distributions.dfgls_grid import (
     DFGLS_LENGTHS,
     DFGLS_SPECS,
@@ -169,7 +170,7 @@ def _compare(before: dict[str, Any], after: dict[str, Any]) -> None:
     largest: dict[str, float] = {}
     other = []
     for name in before:
-        for diff, path in differences(before[name], after[name]):
+        for diff, _, path in differences(before[name], after[name]):
             if diff is None:
                 other.append(f"{name}: {path}")
             elif diff > 0.0:

@@ -29,16 +29,15 @@ chunk of series is factorised at a time.  Nothing here is a pass/fail threshold.
 from __future__ import annotations
 
 import argparse
-import math
 import time
 import tracemalloc
-from collections.abc import Iterator
 from typing import Any
 
 import numpy as np
 import pandas as pd
 
 from tauscope.engine import Settings, analyse_many, analyse_series, iter_analyse
+from tauscope.engine.compare import differences
 
 KINDS = ("I(0)", "I(0) with trend", "I(1)", "I(1) with drift", "I(2)")
 
@@ -79,38 +78,11 @@ def benchmark_series(count: int = 500, length: int = 240, seed: int = 7
     return out
 
 
-def differences(a: Any, b: Any) -> Iterator[tuple[float | None, str]]:
-    """Walk two to_dict() trees: (absolute difference, path) for numbers, (None, path)
-    for anything else that differs."""
-    if isinstance(a, dict) and isinstance(b, dict):
-        if a.keys() != b.keys():
-            yield None, "keys"
-            return
-        for key in a:
-            for diff, path in differences(a[key], b[key]):
-                yield diff, f"{key}.{path}" if path else str(key)
-    elif isinstance(a, list | tuple) and isinstance(b, list | tuple):
-        if len(a) != len(b):
-            yield None, "length"
-            return
-        for i, (x, y) in enumerate(zip(a, b, strict=True)):
-            for diff, path in differences(x, y):
-                yield diff, f"[{i}].{path}" if path else f"[{i}]"
-    elif isinstance(a, float) and isinstance(b, float):
-        if math.isnan(a) or math.isnan(b):
-            if not (math.isnan(a) and math.isnan(b)):
-                yield None, ""
-        else:
-            yield abs(a - b), ""
-    elif a != b:
-        yield None, ""
-
-
 def compare(fast: list[Any], reference: list[Any]) -> tuple[float, str, int]:
     """Largest absolute difference in any number, where, and the count of other differences."""
     largest, where, other = 0.0, "", 0
     for f, r in zip(fast, reference, strict=True):
-        for diff, path in differences(f.to_dict(), r.to_dict()):
+        for diff, _, path in differences(f.to_dict(), r.to_dict()):
             if diff is None:
                 other += 1
             elif diff > largest:

@@ -25,10 +25,11 @@ import numpy as np
 
 sys.path.insert(0, str(Path(__file__).resolve().parent))
 
-from engine_vs_statsmodels import benchmark_series, differences
+from engine_vs_statsmodels import benchmark_series
 
 from tauscope.data import read_workbook
 from tauscope.engine import Settings, analyse_many, analyse_series
+from tauscope.engine.compare import differences
 
 DEMO = Path(__file__).resolve().parent.parent / "resources" / "demo" / "harbourline_demo.xlsx"
 
@@ -90,7 +91,7 @@ def main() -> int:
     if before.keys() != now.keys():
         other.append("the set of series")
     for name in before.keys() & now.keys():
-        for diff, path in differences(before[name], now[name]):
+        for diff, _, path in differences(before[name], now[name]):
             if diff is None:
                 other.append(f"{name}: {path}")
             elif diff > largest:

@@ -6,7 +6,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from tauscope.commands.selftest_process import _first_difference, process_problems
+from tauscope.commands.selftest_process import process_problems
 from tauscope.engine import Settings, analyse_series
 
 
@@ -27,7 +27,7 @@ def test_a_result_that_differs_is_named() -> None:
     here[1] = analyse_series(pairs[1][1] * 0.5 + np.arange(96.0), name=pairs[1][0])
     problems = process_problems(pairs, here, Settings())
     assert len(problems) == 1
-    assert problems[0].startswith("walk 1: the analysis process differs at result.")
+    assert problems[0].startswith("walk 1: the analysis process differs at verdict.")
 
 
 def test_a_failing_child_is_one_line() -> None:
@@ -41,16 +41,3 @@ def test_a_child_that_never_answers_is_one_line() -> None:
     problems = process_problems(walks(1), [], Settings(), answer_s=1.0,
                                 engine_name="engine_process_engines:silent")
     assert problems == ["the analysis process gave no answer within 1 s"]
-
-
-def test_first_difference_reads_nested_data() -> None:
-    a = {"verdict": {"order": 1}, "tests": [{"statistic": -2.5}, {"statistic": float("nan")}]}
-    assert _first_difference(a, {"verdict": {"order": 1},
-                                 "tests": [{"statistic": -2.5 + 1e-12},
-                                           {"statistic": float("nan")}]}) is None
-    assert _first_difference(a, {"verdict": {"order": 1},
-                                 "tests": [{"statistic": -2.4}, {"statistic": float("nan")}]}
-                             ) == "result.tests[0].statistic"
-    assert _first_difference(a, {"verdict": {"order": 0}, "tests": a["tests"]}) == \
-        "result.verdict.order"
-    assert _first_difference(a, {"verdict": {"order": 1}}) == "result (keys)"

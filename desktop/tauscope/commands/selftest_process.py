@@ -8,9 +8,10 @@ in its entry point) instead of starting another program.  Nothing here imports Q
 
 from __future__ import annotations
 
-import math
 import threading
-from typing import TYPE_CHECKING, Any
+from typing import TYPE_CHECKING
+
+from tauscope.engine.compare import first_difference
 
 if TYPE_CHECKING:
     import numpy as np
@@ -56,33 +57,7 @@ def process_problems(pairs: list[tuple[str, np.ndarray]], here: list[SeriesResul
         return [f"the analysis process returned {len(found)} results for {len(pairs)} series"]
     problems: list[str] = []
     for (name, _), mine, theirs in zip(pairs, here, found, strict=True):
-        difference = _first_difference(mine.to_dict(), theirs.to_dict())
+        difference = first_difference(mine.to_dict(), theirs.to_dict(), TOLERANCE)
         if difference is not None:
             problems.append(f"{name}: the analysis process differs at {difference}")
     return problems
-
-
-def _first_difference(a: Any, b: Any, path: str = "result") -> str | None:
-    """The path of the first entry where ``a`` and ``b`` differ (numbers to
-    :data:`TOLERANCE`, relative for large ones), or None."""
-    if isinstance(a, dict) and isinstance(b, dict):
-        if a.keys() != b.keys():
-            return f"{path} (keys)"
-        for key in a:
-            found = _first_difference(a[key], b[key], f"{path}.{key}")
-            if found is not None:
-                return found
-        return None
-    if isinstance(a, list) and isinstance(b, list):
-        if len(a) != len(b):
-            return f"{path} (length)"
-        for i, (x, y) in enumerate(zip(a, b, strict=True)):
-            found = _first_difference(x, y, f"{path}[{i}]")
-            if found is not None:
-                return found
-        return None
-    if isinstance(a, float) and isinstance(b, float):
-        same = (math.isnan(a) and math.isnan(b)) or math.isclose(
-            a, b, rel_tol=TOLERANCE, abs_tol=TOLERANCE)
-        return None if same else path
-    return None if a == b else path
