@@ -293,7 +293,8 @@ class SeriesTreeModel(QStandardItemModel):
                 if child.data(KIND_ROLE) == "series":
                     if covered or here in chosen:
                         picked.append(self._series[str(child.data(KEY_ROLE))])
-                    walk(child, here, covered)
+                    if child.hasChildren():  # transformed copies
+                        walk(child, here, covered)
                 else:
                     walk(child, here, covered or here in chosen)
 

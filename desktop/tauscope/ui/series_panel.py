@@ -118,13 +118,20 @@ class SeriesPanel(QWidget):
         thread at the start of a run of a thousand series)."""
         last = len(COLUMNS) - 1
         chosen: set[tuple[int, ...]] = set()
+        # no filter and no sorting: a row of the view is the same row of the model
+        same_rows = not self.proxy.filterRegularExpression().pattern() \
+            and self.proxy.sortColumn() < 0
         selection = self.view.selectionModel().selection()
         for block in (selection.at(i) for i in range(selection.count())):  # whole rows
             if block.left() != 0 or block.right() != last:
                 continue
             parent = block.parent()
             place = tree_path(self.proxy.mapToSource(parent))
-            for r in range(block.top(), block.bottom() + 1):
+            rows = range(block.top(), block.bottom() + 1)
+            if same_rows:
+                chosen.update((*place, r) for r in rows)
+                continue
+            for r in rows:
                 chosen.add((*place, self.proxy.mapToSource(self.proxy.index(r, NAME, parent)).row()))
         if not chosen:
             return self.model.all_series()
