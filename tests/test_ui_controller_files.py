@@ -33,6 +33,21 @@ def test_a_workbook_is_read_and_its_first_series_shown(parts, qtbot, small_workb
     assert store.recent_files()[0] == str(small_workbook.resolve())
 
 
+def test_an_opened_workbook_is_kept_out_of_full_garbage_collections(
+        parts, qtbot, small_workbook):  # type: ignore[no-untyped-def]
+    """Its series stay while it is open: frozen (``gc.freeze``), a full collection does not
+    walk them again from the window's thread."""
+    import gc
+
+    files = files_controller(parts)
+    open_and_wait(qtbot, files, small_workbook)
+    shown = parts.series_panel.model.all_series()
+    assert shown and all(gc.is_tracked(s) for s in shown)
+    collected = {id(o) for o in gc.get_objects()}  # the generations a collection walks
+    assert not any(id(s) in collected for s in shown)
+    assert not any(id(s.values) in collected for s in shown)
+
+
 def test_choose_files_opens_what_the_dialog_answers(parts, qtbot, small_workbook):  # type: ignore[no-untyped-def]
     files = files_controller(parts)
     asked: list[str] = []

@@ -117,3 +117,22 @@ def test_autosave_is_written_offered_back_and_discarded(saved, qtbot):  # type: 
     assert not written.exists()
     third = studies_controller(build_parts(qtbot))
     assert not third.offer_recovery()
+
+
+def test_the_autosave_after_a_run_comes_in_a_turn_of_its_own(
+        qtbot, qt_settings_dir, small_workbook):  # type: ignore[no-untyped-def]
+    """A run that changes the study asks for an autosave, written a moment after the run's
+    end (not in the same turn of the event loop as the run's last results and its end)."""
+    from tauscope.ui import store
+
+    parts = build_parts(qtbot)
+    studies = studies_controller(parts)
+    open_and_wait(qtbot, studies.files, small_workbook)
+    ended: list[bool] = []
+    studies.runs.ended.connect(lambda: ended.append(studies.autosave_running()))
+    target = autosave_path(None, store.data_folder())
+    assert studies.runs.run_series(parts.series_panel.model.all_series()[:2])
+    qtbot.waitUntil(lambda: not studies.runs.is_running(), timeout=60_000)
+    assert ended == [True] and parts.session.modified  # due at the end, not yet written
+    qtbot.waitUntil(lambda: not studies.autosave_running(), timeout=10_000)
+    assert target.is_file()

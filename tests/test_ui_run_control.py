@@ -88,6 +88,23 @@ def test_the_engine_runs_off_the_window_thread(main_window, open_in_window, run_
     assert threads and threading.main_thread().ident not in threads
 
 
+def test_the_run_ends_in_a_tick_after_the_one_that_shows_its_last_results(
+        main_window, open_in_window, run_in_window, small_workbook):  # type: ignore[no-untyped-def]
+    """Showing results and ending the run (progress bar hidden, status line, the current
+    series shown again) each cost the window's thread: not both in one turn of its loop."""
+    runner = main_window.runner
+    ticks = [0]
+    runner._timer.timeout.connect(lambda: ticks.__setitem__(0, ticks[0] + 1))  # after each drain
+    shown: list[int] = []
+    ended: list[int] = []
+    runner.result_ready.connect(lambda _key, _result: shown.append(ticks[0]))
+    runner.finished.connect(lambda _stopped, _received: ended.append(ticks[0]))
+    open_in_window(main_window, small_workbook)
+    run_in_window(main_window, main_window.series_panel.model.all_series())
+    assert len(shown) == len(main_window.series_panel.model.all_series()) and len(ended) == 1
+    assert ended[0] > shown[-1]
+
+
 def test_an_unexpected_failure_marks_one_series_shows_details_and_the_rest_finish(
         main_window, open_in_window, run_in_window, small_workbook, monkeypatch, qtbot):  # type: ignore[no-untyped-def]
     import tauscope.ui.worker as worker

@@ -72,6 +72,17 @@ class BackgroundWork:
             gc.set_threshold(*cls._saved[1])
 
 
+def freeze_long_lived() -> None:
+    """Move every object alive now out of the way of full garbage collections
+    (``gc.freeze``), once something large and long-lived has been built: a workbook read and
+    shown.  Else the first full collection after it walks it all from the window's thread
+    at whatever comes next, the start of a run say (150 ms with a thousand series of 240
+    values; see benchmarks/ui_latency.py).  As after a run (:class:`BackgroundWork`), frozen
+    objects are still freed by reference counting; only reference cycles among them stay
+    until the program ends."""
+    gc.freeze()
+
+
 def wait_off_thread(work: Callable[[], T]) -> T:
     """``work()`` run in a helper thread while the window's events go on; its value, or its
     exception raised here."""

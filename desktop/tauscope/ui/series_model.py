@@ -66,22 +66,31 @@ def series_tooltip(series: SeriesData) -> str:
     return "\n".join(lines)
 
 
-def series_row(series: SeriesData) -> list[QStandardItem]:
-    """Cells for one series.  Only text and the key go into Qt; the Python objects stay in
-    the model's dictionaries (keeps object lifetimes out of Qt's hands)."""
+def row_texts(series: SeriesData) -> tuple[str, str, str, str, str]:
+    """What one series' row shows in the Series, Obs., Gaps, Span and Frequency columns."""
+    return (series.name, str(series.nobs), gaps_text(series),
+            f"{series.span[0]}–{series.span[1]}", series.frequency or "irregular")
+
+
+def series_row(series: SeriesData, texts: tuple[str, str, str, str, str] | None = None,
+               ) -> list[QStandardItem]:
+    """Cells for one series (``texts``: its :func:`row_texts`, when in hand).  Only text and
+    the key go into Qt; the Python objects stay in the model's dictionaries (keeps object
+    lifetimes out of Qt's hands)."""
     tip = series_tooltip(series)
-    name = _item(series.name, tip)
+    name_text, obs_text, gaps_label, span_text, freq_text = texts or row_texts(series)
+    name = _item(name_text, tip)
     name.setData("series", KIND_ROLE)
     name.setData(series.key, KEY_ROLE)
     name.setData(series.name.lower(), SORT_ROLE)
     shape = _item("", tip)
     shape.setData(f"Drawing of {series.name}", Qt.ItemDataRole.AccessibleTextRole)
-    obs = _item(str(series.nobs), tip)
+    obs = _item(obs_text, tip)
     obs.setData(series.nobs, SORT_ROLE)
     obs.setTextAlignment(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
-    freq = _item(series.frequency or "irregular", tip)
-    span = _item(f"{series.span[0]}–{series.span[1]}", tip)
-    gaps = _item(gaps_text(series), tip)
+    freq = _item(freq_text, tip)
+    span = _item(span_text, tip)
+    gaps = _item(gaps_label, tip)
     row = [name, shape, obs, gaps, span, freq]
     for cell in row[1:]:
         cell.setData("series", KIND_ROLE)
@@ -106,6 +115,8 @@ class SeriesTreeModel(QStandardItemModel):
         super().__init__(0, len(COLUMNS), parent)
         self._series: dict[str, SeriesData] = {}
         self._sparks: dict[str, np.ndarray] = {}
+        # each series' level (the rows above it: 2 under a sheet) and its row's texts
+        self._shown: dict[str, tuple[int, tuple[str, str, str, str, str]]] = {}
         self._workbooks: dict[str, Workbook] = {}
         for column, (title, tip) in enumerate(zip(COLUMNS, COLUMN_TIPS, strict=True)):
             header = QStandardItem(title)
@@ -129,15 +140,21 @@ class SeriesTreeModel(QStandardItemModel):
             sheet_row[SHAPE].setText(f"{len(sheet.series)} series")
             sheet_row[SHAPE].setToolTip("Number of series on this sheet")
             for series in sheet.series:
-                sheet_row[0].appendRow(self._series_row(series))
+                sheet_row[0].appendRow(self._series_row(series, 2))
             row[0].appendRow(sheet_row)
         self.appendRow(row)
         return row[0]
 
-    def _series_row(self, series: SeriesData) -> list[QStandardItem]:
+    def _series_row(self, series: SeriesData, depth: int) -> list[QStandardItem]:
         self._series[series.key] = series
+        texts = row_texts(series)
+        self._shown[series.key] = (depth, texts)
         self._sparks[series.key] = sparkline_points(series.values)
-        return series_row(series)
+        return series_row(series, texts)
+
+    def _depth(self, key: str) -> int:
+        shown = self._shown.get(key)
+        return shown[0] if shown is not None else 2
 
     def remove_workbook(self, path: str) -> bool:
         for r in range(self.rowCount()):
@@ -147,6 +164,7 @@ class SeriesTreeModel(QStandardItemModel):
                     key = str(item_value(child.index(), KEY_ROLE))
                     self._series.pop(key, None)
                     self._sparks.pop(key, None)
+                    self._shown.pop(key, None)
                 self._workbooks.pop(path, None)
                 self.removeRow(r)
                 return True
@@ -156,6 +174,7 @@ class SeriesTreeModel(QStandardItemModel):
         self.removeRows(0, self.rowCount())
         self._series.clear()
         self._sparks.clear()
+        self._shown.clear()
         self._workbooks.clear()
 
     def spark(self, key: str) -> np.ndarray | None:
@@ -171,7 +190,7 @@ class SeriesTreeModel(QStandardItemModel):
         existing = self.item_for_key(series.key)
         if existing is not None and existing.parent() is not None:
             self.remove_transformed(series.key)
-        row = self._series_row(series)
+        row = self._series_row(series, self._depth(parent_key) + 1)
         if position is None or not 0 <= position <= parent.rowCount():
             parent.appendRow(row)
         else:
@@ -200,6 +219,7 @@ class SeriesTreeModel(QStandardItemModel):
         for _parent_key, _row, series in removed:
             self._series.pop(series.key, None)
             self._sparks.pop(series.key, None)
+            self._shown.pop(series.key, None)
         parent.removeRow(item.row())
         return removed
 
@@ -212,7 +232,9 @@ class SeriesTreeModel(QStandardItemModel):
         parent = item.parent() or self.invisibleRootItem()
         self._series[series.key] = series
         self._sparks[series.key] = sparkline_points(series.values)
-        for column, fresh in enumerate(series_row(series)):
+        texts = row_texts(series)
+        self._shown[series.key] = (self._depth(series.key), texts)
+        for column, fresh in enumerate(series_row(series, texts)):
             cell = parent.child(item.row(), column)
             if cell is not None:
                 cell.setText(fresh.text())
@@ -237,6 +259,19 @@ class SeriesTreeModel(QStandardItemModel):
                 return item
         return None
 
+    def series_texts(self) -> Iterator[tuple[str, int, tuple[str, str, str, str, str]]]:
+        """Every series in the tree (in no set order): its key, its level (the rows above
+        it: a workbook's and a sheet's, 2; one more for each transform of a copy) and its
+        row's texts (:func:`row_texts`; a new tuple when they change)."""
+        return ((key, depth, texts) for key, (depth, texts) in self._shown.items())
+
+    def container_names(self) -> Iterator[tuple[str, int]]:
+        """The workbooks' and sheets' rows: their names and levels (0 and 1)."""
+        for workbook in self._workbooks.values():
+            yield workbook.path.name, 0
+            for sheet in workbook.sheets:
+                yield sheet.name, 1
+
     def series_for_key(self, key: str) -> SeriesData | None:
         return self._series.get(key)
 
@@ -258,7 +293,8 @@ class SeriesTreeModel(QStandardItemModel):
                 if child.data(KIND_ROLE) == "series":
                     if covered or here in chosen:
                         picked.append(self._series[str(child.data(KEY_ROLE))])
-                    walk(child, here, covered)
+                    if child.hasChildren():  # transformed copies
+                        walk(child, here, covered)
                 else:
                     walk(child, here, covered or here in chosen)
 

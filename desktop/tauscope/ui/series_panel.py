@@ -23,17 +23,15 @@ from PySide6.QtWidgets import (
     QWidget,
 )
 
-from tauscope.ui.columns import ColumnFitter, header_width
+from tauscope.ui.columns import ColumnFitter
 from tauscope.ui.qtcompat import item_value, tree_path
 from tauscope.ui.roles import KEY_ROLE, KIND_ROLE, SORT_ROLE
 from tauscope.ui.series_model import COLUMNS, FREQUENCY, NAME, SHAPE, SeriesTreeModel
+from tauscope.ui.series_widths import SeriesWidths
 from tauscope.ui.sparkline import SparklineDelegate
 
 if TYPE_CHECKING:
     from tauscope.data import SeriesData
-
-
-SHAPE_WIDTH = 56  # the small drawing of each series (and "5 series" on a sheet's row)
 
 
 class SeriesPanel(QWidget):
@@ -82,11 +80,13 @@ class SeriesPanel(QWidget):
         self.view.setIndentation(14)
         # Every column as wide as its text; the names get the spare width; the frequency
         # (also in each series' tooltip and readable from the span) goes first when short.
-        self.columns = ColumnFitter(self.view, self._natural_widths, stretch=(NAME,),
+        # The widths are those of every row, folded away or not (see SeriesWidths).
+        self.widths = SeriesWidths(self.view, self.model)
+        self.columns = ColumnFitter(self.view, self.widths.natural, stretch=(NAME,),
                                     optional=(FREQUENCY,))
         self.model.rowsInserted.connect(lambda *_args: self.columns.fit_soon())
+        self.model.rowsRemoved.connect(lambda *_args: self.columns.fit_soon())
         self.model.dataChanged.connect(lambda *_args: self.columns.fit_soon())
-        self.view.expanded.connect(lambda _index: self.columns.fit_soon())
         self.columns.fit()
 
         layout = QVBoxLayout(self)
@@ -95,13 +95,6 @@ class SeriesPanel(QWidget):
         layout.addWidget(self.filter_box)
         layout.addWidget(self.view)
         self.setFocusProxy(self.view)
-
-    def _natural_widths(self) -> list[int]:
-        # the drawings' column has a set width: its cells are not measured (every row's
-        # delegate would be asked, a quarter of the fit's time with a thousand series)
-        view = self.view
-        return [max(SHAPE_WIDTH if c == SHAPE else view.sizeHintForColumn(c),
-                    header_width(view, c)) for c in range(len(COLUMNS))]
 
     # selection ----------------------------------------------------------
     def _filter(self, text: str) -> None:
@@ -125,13 +118,20 @@ class SeriesPanel(QWidget):
         thread at the start of a run of a thousand series)."""
         last = len(COLUMNS) - 1
         chosen: set[tuple[int, ...]] = set()
+        # no filter and no sorting: a row of the view is the same row of the model
+        same_rows = not self.proxy.filterRegularExpression().pattern() \
+            and self.proxy.sortColumn() < 0
         selection = self.view.selectionModel().selection()
         for block in (selection.at(i) for i in range(selection.count())):  # whole rows
             if block.left() != 0 or block.right() != last:
                 continue
             parent = block.parent()
             place = tree_path(self.proxy.mapToSource(parent))
-            for r in range(block.top(), block.bottom() + 1):
+            rows = range(block.top(), block.bottom() + 1)
+            if same_rows:
+                chosen.update((*place, r) for r in rows)
+                continue
+            for r in rows:
                 chosen.add((*place, self.proxy.mapToSource(self.proxy.index(r, NAME, parent)).row()))
         if not chosen:
             return self.model.all_series()

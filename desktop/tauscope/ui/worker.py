@@ -315,7 +315,10 @@ class AnalysisRunner(QObject):
             self._since_progress.start()
             name = "" if worker.done else worker.current
             self.progress.emit(self._received, self._total, name)
-        if worker.done and not worker.outbox and self._thread is not None \
+        # The run ends in a tick after the one that showed its last results: the end (the
+        # progress bar hidden, the status line, the current series shown again) costs the
+        # window's thread as much again.
+        if worker.done and not worker.outbox and not delivered and self._thread is not None \
                 and self._thread.isFinished():
             self._finish()
 

@@ -22,6 +22,7 @@ from tauscope.ui.controllers.session import Session
 from tauscope.ui.engine_process import shared_engine
 from tauscope.ui.findings_panel import FindingsPanel
 from tauscope.ui.loader import WorkbookLoader
+from tauscope.ui.off_thread import freeze_long_lived
 from tauscope.ui.series_panel import SeriesPanel
 
 if TYPE_CHECKING:
@@ -99,6 +100,7 @@ class FilesController(QObject):
         shared_engine().start_soon()  # the analysis process loads while the user chooses
         if not self.current.key and workbook.series():
             self.series_panel.select_key(workbook.series()[0].key)
+        freeze_long_lived()  # the workbook and its rows stay while it is open
 
     def _workbook_loaded(self, _path: str, workbook: Any) -> None:
         if not self.session.closing:
