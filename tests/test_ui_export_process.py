@@ -65,11 +65,11 @@ def test_the_export_process_writes_the_file_and_its_problems_come_back(
 
 def test_an_export_process_that_dies_leaves_the_writing_to_the_caller(
         record, tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:  # type: ignore[no-untyped-def]
-    from tauscope.ui import export_process
+    from tauscope.ui import engine_process, export_process
     from tauscope.ui.engine_process import EngineProcess
 
     dying = EngineProcess("engine_process_engines:ending")  # ends before it answers
-    monkeypatch.setattr(export_process, "_shared", dying)
+    monkeypatch.setitem(engine_process._SHARED, export_process.EXPORTER, dying)
     run, values = record
     try:
         assert export_process.export_elsewhere(tmp_path / "f.html", run, values, True) is None

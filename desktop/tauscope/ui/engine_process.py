@@ -299,14 +299,19 @@ class EngineProcess:
                 stop.set()  # the child ends the run; the next run reads what it still sends
 
 
-_shared: EngineProcess | None = None
+_SHARED: dict[str, EngineProcess] = {}  # one child per function it runs, for the session
 _shared_lock = threading.Lock()
+
+
+def shared_process(engine: str = ENGINE) -> EngineProcess:
+    """The session's child running ``engine`` (one per program, made when first asked for)."""
+    with _shared_lock:
+        found = _SHARED.get(engine)
+        if found is None:
+            found = _SHARED[engine] = EngineProcess(engine)
+        return found
 
 
 def shared_engine() -> EngineProcess:
     """The session's analysis process (one per program)."""
-    global _shared
-    with _shared_lock:
-        if _shared is None:
-            _shared = EngineProcess()
-        return _shared
+    return shared_process(ENGINE)

@@ -21,7 +21,6 @@ an ``ExportError`` there is raised again here.
 
 from __future__ import annotations
 
-import threading
 from collections.abc import Iterable, Iterator, Mapping
 from dataclasses import dataclass, replace
 from pathlib import Path
@@ -102,19 +101,11 @@ def iter_export(messages: Iterable[tuple[str, Any]], _settings: Any = None,
     yield Written(len(written.findings), len(written.left_out), problems)
 
 
-_shared: EngineProcess | None = None
-_shared_lock = threading.Lock()
-
-
 def shared_exporter() -> EngineProcess:
     """The session's export process (one per program, started when first used)."""
-    from tauscope.ui.engine_process import EngineProcess
+    from tauscope.ui.engine_process import shared_process
 
-    global _shared
-    with _shared_lock:
-        if _shared is None:
-            _shared = EngineProcess(EXPORTER)
-        return _shared
+    return shared_process(EXPORTER)
 
 
 def export_elsewhere(path: Path, run: RunRecord, values: Mapping[str, Any],
