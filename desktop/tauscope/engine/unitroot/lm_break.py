@@ -39,7 +39,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from tauscope.engine.errors import UntestableSeries
-from tauscope.engine.unitroot.lm_break_sums import candidate_moments
+from tauscope.engine.unitroot.lm_break_sums import candidate_moments, detrending
 
 TRIM = 0.10
 MAX_LAGS = 8  # Lee & Strazicich's upper bound for the lag search
@@ -79,14 +79,6 @@ def candidate_positions(length: int, trim: float = TRIM) -> np.ndarray:
     if length < 10 or last < first:
         raise UntestableSeries("the series is too short to search for a break")
     return np.arange(first, last + 1)
-
-
-def _detrending(x: np.ndarray, positions: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """(δ̃_t, δ̃_D) for every candidate: the slope and the jump from the differences."""
-    dx = np.diff(x)
-    jump = dx[positions]
-    slope = (dx.sum() - jump) / (x.shape[0] - 2)
-    return slope, jump - slope
 
 
 def _fit(x: np.ndarray, positions: np.ndarray, k: int) -> tuple[np.ndarray, np.ndarray]:
@@ -156,7 +148,7 @@ def lm_break(x: np.ndarray, max_lags: int | None = None, lags: int | None = None
     if not np.all(np.isfinite(statistics)):
         raise UntestableSeries("the break regressions could not be computed (terms linearly dependent)")
     best = int(np.argmin(statistics))
-    slope, jump = _detrending(x, positions[best:best + 1])
+    slope, jump = detrending(x, positions[best:best + 1])
     k = int(used[best])
     return LMBreakSearch(
         statistic=float(statistics[best]), position=int(positions[best]), lags=k,

@@ -23,6 +23,14 @@ from __future__ import annotations
 import numpy as np
 
 
+def detrending(x: np.ndarray, positions: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """(δ̃_t, δ̃_D) = (a, b) for every candidate: the slope and the jump from the differences."""
+    dx = np.diff(x)
+    jump = dx[positions]
+    slope = (dx.sum() - jump) / (x.shape[0] - 2)
+    return slope, jump - slope
+
+
 def _after(values: np.ndarray, start: np.ndarray) -> np.ndarray:
     """Σ_{q ≥ start} values_q for every start (start = len: 0); values (..., n)."""
     tail = np.cumsum(values[..., ::-1], axis=-1)[..., ::-1]
@@ -47,8 +55,7 @@ def candidate_moments(x: np.ndarray, positions: np.ndarray, k: int
     times = np.arange(length, dtype=float)
     u = x - a0 * times
     v = dx - a0
-    a = (dx.sum() - dx[p]) / (length - 2)  # the slope of lm_break._detrending, the same operations
-    b = dx[p] - a
+    a, b = detrending(x, p)
     delta = a - a0
 
     rows = times[k:big_n]
