@@ -134,7 +134,7 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
                              len(DETERMINISTIC_TERMS[spec]), lags, n - 1, centres)
         declined |= ~(np.isfinite(est.params).all(axis=1) & np.isfinite(est.bse).all(axis=1))
         estimates[spec] = est
-    phi = {name: restricted_rss(estimates[PHI_SPEC[name]], name, p) for name in PHI_NAMES}
+    phi = {name: restricted_rss(estimates[PHI_SPEC[name]], name) for name in PHI_NAMES}
     for values in phi.values():
         declined |= ~np.isfinite(values)
     return LevelBatch(difference, p, n, design[:, :p, :].copy(), common, choices, estimates, phi,

@@ -28,8 +28,8 @@ factorised on the common sample; the constant-only and no-deterministic
 specifications are the QR of that A with its columns permuted (the dropped terms
 moved last), a (K+1)×(K+1) matrix.  The chosen lag's longest sample adds the rows
 k…p−1: its factorisation is the QR of [A; those rows] (row updating, Golub & Van
-Loan §6.5), about 2K rows instead of T.  Each Φ restricted regression (Dickey &
-Fuller 1981) is the QR of the chosen A with the restricted columns moved last.
+Loan §6.5), about 2K rows instead of T.  Each Φ restricted regression's RSS (Dickey &
+Fuller 1981) follows from that fit by the Wald identity (:func:`restricted_rss`).
 τ for every lag on its own longest sample (the lag profile) comes from one more
 factorisation with row indicators (see :func:`profile_tau`).  Everything works on
 a batch of series of one length at once.
@@ -182,6 +182,7 @@ class Estimates:
     """The chosen lag of each series re-estimated on its longest sample."""
 
     a: np.ndarray  # (B, K+1, K+1) R factor, columns in the spec's order
+    r_inv: np.ndarray  # (B, K, K) the inverse of its leading K×K block
     params: np.ndarray  # (B, K); only the leading ``used`` entries are coefficients
     bse: np.ndarray  # (B, K)
     rss: np.ndarray  # (B,)
@@ -215,7 +216,7 @@ def longest_sample(a_common: np.ndarray, first_rows: np.ndarray, n_terms: int,
         params[:, 0] = params[:, 0] - centres * params[:, n_terms]
         variance = bse[:, 0] ** 2 + centres**2 * bse[:, n_terms] ** 2 - 2.0 * centres * cov
         bse[:, 0] = np.sqrt(np.maximum(variance, 0.0))
-    return Estimates(a, params, bse, rss, nobs, used)
+    return Estimates(a, r_inv, params, bse, rss, nobs, used)
 
 
 @lru_cache(maxsize=64)
@@ -271,21 +272,46 @@ def profile_tau(a_common: np.ndarray, first_rows: np.ndarray, n_terms: int,
     return np.asarray(gamma / np.sqrt(variance)), nobs
 
 
-def restricted_rss(estimates: Estimates, name: str, p: int) -> np.ndarray:
+def restricted_rss(estimates: Estimates, name: str) -> np.ndarray:
     """RSS of the Φ restricted regression on the same sample and lags (Dickey & Fuller
-    1981): the chosen factor with the restricted columns moved last, refactorised."""
+    1981), from the unrestricted fit by the Wald identity for exclusion restrictions
+    β_S = 0 (e.g. Greene, W.H. 2012, Econometric Analysis, 7th ed., §5.3):
+
+        RSS_r = RSS_u + b_S' (W_SS)⁻¹ b_S,  W = (X'X)⁻¹ = R⁻¹R⁻ᵀ over the used columns,
+
+    S the restricted columns (the dropped terms and y(t−1)); q = |S| is 2 or 3, so
+    (W_SS)⁻¹ is written out (:func:`_quadratic_form`).  b is read in the centred
+    parametrisation of the factor (y(t−1) measured from its centre): with γ = 0 in the
+    restriction, a constant of zero means the same there, so S is the same subspace."""
     spec = PHI_SPEC[name]
     n_terms = len(DETERMINISTIC_TERMS[spec])
-    kept = PHI_KEPT_TERMS[name]
-    lag_columns = list(range(n_terms + 1, n_terms + 1 + p))
-    order = [*range(kept), *lag_columns, *range(kept, n_terms + 1)]
-    width = estimates.a.shape[1] - 1
-    order += [j for j in range(width) if j not in order]
-    a = r_factor(estimates.a[:, :, [*order, width]])
-    c = a[:, :width, width]
-    m = kept + estimates.used - n_terms - 1
-    outside = np.where(_leading(width, m), 0.0, c * c)
-    return np.asarray(a[:, width, width] ** 2 + outside.sum(axis=1))
+    restricted = list(range(PHI_KEPT_TERMS[name], n_terms + 1))
+    a = estimates.a
+    width = a.shape[1] - 1
+    inside = _leading(width, estimates.used)
+    rows = estimates.r_inv[:, restricted, :] * inside[:, None, :]  # (B, q, K): rows S of R⁻¹
+    b = np.einsum("bqk,bk->bq", rows, a[:, :width, width])
+    w = np.einsum("bqk,brk->bqr", rows, rows)
+    return np.asarray(estimates.rss + _quadratic_form(w, b))
+
+
+def _quadratic_form(w: np.ndarray, b: np.ndarray) -> np.ndarray:
+    """b' W⁻¹ b for a batch of symmetric 2×2 or 3×3 W (B, q, q) and b (B, q), by the
+    adjugate: W⁻¹ = adj(W) / det(W).  A singular W gives inf or NaN, never an error."""
+    if w.shape[1] == 2:
+        a11, a12, a22 = w[:, 0, 0], w[:, 0, 1], w[:, 1, 1]
+        det = a11 * a22 - a12 * a12
+        x, y = b[:, 0], b[:, 1]
+        return np.asarray((a22 * x * x - 2.0 * a12 * x * y + a11 * y * y) / det)
+    adj = np.empty_like(w)
+    for i in range(3):
+        for j in range(3):
+            r = [k for k in range(3) if k != j]  # the cofactor of (j, i) gives adj[i, j]
+            c = [k for k in range(3) if k != i]
+            minor = w[:, r[0], c[0]] * w[:, r[1], c[1]] - w[:, r[0], c[1]] * w[:, r[1], c[0]]
+            adj[:, i, j] = minor if (i + j) % 2 == 0 else -minor
+    det = np.einsum("bj,bj->b", w[:, 0, :], adj[:, :, 0])
+    return np.asarray(np.einsum("bi,bij,bj->b", b, adj, b) / det)
 
 
 def column_norms(rows: np.ndarray) -> np.ndarray:
