@@ -341,3 +341,39 @@ def test_nested_blocks_equal_separate_regressions() -> None:
             cov = sigma2 * np.linalg.inv(columns.T @ columns)
             t_last = beta[-1] / math.sqrt(cov[-1, -1])
             assert fits.last_t[0, lag] == pytest.approx(t_last, rel=1e-8)
+
+
+@pytest.mark.parametrize("name", nested.PHI_NAMES)
+def test_restricted_rss_equals_the_restricted_fit(name: str) -> None:
+    """Φ's restricted RSS by the Wald identity equals the restricted regression fitted
+    separately (numpy lstsq without the restricted columns), for two lag choices in one
+    batch, with y(t−1) centred as the fast path enters it."""
+    rng = np.random.default_rng(11)
+    xs = np.cumsum(rng.standard_normal((2, 150)), axis=1) + np.array([[3.0], [-40.0]])
+    p = 5
+    spec = nested.PHI_SPEC[name]
+    n_terms = len(nested.DETERMINISTIC_TERMS[spec])
+    centres = xs.mean(axis=1)
+    design = nested.full_design(xs, p, centres)
+    order = [*nested.spec_order(spec, p), p + 3]
+    a_common = nested.r_factor(np.ascontiguousarray(design[:, p:, :][:, :, order]))
+    lags = np.array([1, 4])
+    est = nested.longest_sample(a_common, design[:, :p, :][:, :, order], n_terms, lags,
+                                xs.shape[1] - 1, centres)
+    found = nested.restricted_rss(est, name)
+    kept = nested.PHI_KEPT_TERMS[name]
+    for b, lag in enumerate(lags.tolist()):
+        rows = design[b, lag:, :][:, order]
+        columns = [*range(kept), *range(n_terms + 1, n_terms + 1 + lag)]  # kept terms, the lags
+        _, rss, *_ = np.linalg.lstsq(rows[:, columns], rows[:, -1], rcond=None)
+        assert found[b] == pytest.approx(float(rss[0]), rel=1e-10)
+
+
+def test_quadratic_form_of_the_adjugate_equals_a_solve() -> None:
+    rng = np.random.default_rng(3)
+    for q in (2, 3):
+        m = rng.standard_normal((4, q, q + 2))
+        w = m @ m.transpose(0, 2, 1)
+        b = rng.standard_normal((4, q))
+        expected = np.einsum("bi,bi->b", b, np.linalg.solve(w, b[..., None])[..., 0])
+        assert np.allclose(nested._quadratic_form(w, b), expected, rtol=1e-12, atol=0)
