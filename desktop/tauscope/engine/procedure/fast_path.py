@@ -23,18 +23,19 @@ from tauscope.engine.procedure.seasonal_roots import SeasonalBatch
 from tauscope.engine.procedure.stages import EstimateOptions
 from tauscope.engine.procedure.union_estimate import UnionRow, union_rows
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS, SPECS
-from tauscope.engine.regression.lagchoice import LagChoice
 from tauscope.engine.regression.nested import (
     PHI_NAMES,
     PHI_SPEC,
     Y_LAG,
     BlockFits,
     Estimates,
+    LagChoices,
     block_fits,
     column_norms,
     column_share,
     criterion_values,
     detrended,
+    fixed_lag_choices,
     full_design,
     lag_choices,
     longest_sample,
@@ -110,11 +111,10 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
     common = {spec: _sanitise(a, declined) for spec, a in common.items()}
 
     rule = options.lag_rule
-    choices: dict[str, list[LagChoice]] = {}
+    choices: dict[str, LagChoices] = {}
     for spec in SPECS:
         if rule == "fixed":
-            lag = int(options.lags if options.lags is not None else 0)
-            choices[spec] = [LagChoice(rule, lag, max(lag, p))] * batch
+            choices[spec] = fixed_lag_choices(batch, int(options.lags if options.lags is not None else 0), p)
             continue
         fits = block_fits(common[spec], len(DETERMINISTIC_TERMS[spec]), p, nobs)
         if rule == "maic":
@@ -129,9 +129,8 @@ def _level_batch(xs: np.ndarray, difference: int, options: EstimateOptions, p: i
 
     estimates: dict[str, Estimates] = {}
     for spec in SPECS:
-        lags = np.array([c.lag for c in choices[spec]], dtype=int)
         est = longest_sample(common[spec], first_rows[spec],
-                             len(DETERMINISTIC_TERMS[spec]), lags, n - 1, centres)
+                             len(DETERMINISTIC_TERMS[spec]), choices[spec].lags, n - 1, centres)
         declined |= ~(np.isfinite(est.params).all(axis=1) & np.isfinite(est.bse).all(axis=1))
         estimates[spec] = est
     phi = {name: restricted_rss(estimates[PHI_SPEC[name]], name) for name in PHI_NAMES}

@@ -12,8 +12,7 @@ import numpy as np
 
 from tauscope.engine.distributions import tables as fast_tables
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS, column_names
-from tauscope.engine.regression.lagchoice import LagChoice
-from tauscope.engine.regression.nested import Estimates
+from tauscope.engine.regression.nested import Estimates, LagChoices
 from tauscope.engine.results import Coefficient, Regression, TestResult
 from tauscope.engine.unitroot import phi as joint
 
@@ -27,7 +26,7 @@ class LevelBatch:
     n: int
     first_rows: np.ndarray  # (B, p, K+1): the rows before the common sample (full design)
     common: dict[str, np.ndarray]
-    choices: dict[str, list[LagChoice]]
+    choices: dict[str, LagChoices]
     estimates: dict[str, Estimates]
     phi: dict[str, np.ndarray]
     declined: np.ndarray  # (B,) bool: the reference path must take these
@@ -40,7 +39,7 @@ class LevelBatch:
     def spec_rows(self, spec: str) -> SpecRows:
         found = self.rows.get(spec)
         if found is None:
-            found = self.rows[spec] = SpecRows.of(self.estimates[spec], spec)
+            found = self.rows[spec] = SpecRows.of(self.estimates[spec], self.choices[spec], spec)
         return found
 
     def phi_statistics(self, name: str) -> list[float]:
@@ -71,16 +70,19 @@ class SpecRows:
     t: np.ndarray
     p_value: list[float]
     zero_se: list[bool]  # a coefficient's standard error is 0: its t ratio divides by zero
+    lags: list[int]  # the chosen lag
+    criteria: list[list[float]]  # the lag criteria, by lag
 
     @classmethod
-    def of(cls, est: Estimates, spec: str) -> SpecRows:
+    def of(cls, est: Estimates, choices: LagChoices, spec: str) -> SpecRows:
         terms = len(DETERMINISTIC_TERMS[spec])
         with np.errstate(all="ignore"):
             t = est.params / est.bse
         inside = np.arange(est.bse.shape[1])[None, :] < est.used[:, None]
         zero = ((est.bse == 0.0) & inside).any(axis=1)
         return cls(est.nobs.tolist(), est.rss.tolist(), est.params, est.bse, t,
-                   fast_tables.tau_p_values(t[:, terms], spec).tolist(), zero.tolist())
+                   fast_tables.tau_p_values(t[:, terms], spec).tolist(), zero.tolist(),
+                   choices.lags.tolist(), choices.criteria.tolist())
 
 
 _column_names = lru_cache(maxsize=512)(column_names)
@@ -90,17 +92,18 @@ _NO_DESIGN.flags.writeable = False
 _NO_RESPONSE.flags.writeable = False
 
 
-def _criteria_in_units(choice: LagChoice, nobs: int, scale: float) -> tuple[float, ...]:
+def _criteria_in_units(choices: LagChoices, row: list[float], lag: int, nobs: int,
+                       scale: float) -> tuple[float, ...]:
     """The lag criteria in the series' units, as :func:`regression_in_units` shifts them."""
     if scale == 1.0:
-        return choice.criteria
+        return tuple(row)
     log_s2 = 2.0 * math.log(scale)
-    if choice.rule in ("aic", "bic", "hqc"):
-        shift = (nobs + choice.lag - choice.max_lags) * log_s2
-        return tuple([v + shift for v in choice.criteria])  # one IEEE addition each, as in numpy
-    if choice.rule == "maic":
-        return tuple([v + log_s2 for v in choice.criteria])
-    return choice.criteria
+    if choices.rule in ("aic", "bic", "hqc"):
+        shift = (nobs + lag - choices.max_lags) * log_s2
+        return tuple([v + shift for v in row])  # one IEEE addition each, as in numpy
+    if choices.rule == "maic":
+        return tuple([v + log_s2 for v in row])
+    return tuple(row)
 
 
 def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float) -> TestResult:
@@ -112,8 +115,8 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
     rows = level.spec_rows(spec)
     if rows.zero_se[i]:
         raise ZeroDivisionError("a coefficient's standard error is zero")
-    choice = level.choices[spec][i]
-    lags = choice.lag
+    choices = level.choices[spec]
+    lags = rows.lags[i]
     nobs = rows.nobs[i]
     rss = rows.rss[i]
     names = _column_names(spec, lags)
@@ -129,14 +132,14 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
         spec=spec,
         difference=level.difference,
         lags=lags,
-        lag_rule=choice.rule,
-        max_lags=choice.max_lags,
+        lag_rule=choices.rule,
+        max_lags=choices.max_lags,
         nobs=nobs,
         first_observation=lags + 1,
         coefficients=coefficients,
         sigma2=sigma2 if scale == 1.0 else sigma2 * scale * scale,
         rss=rss if scale == 1.0 else rss * scale * scale,
-        lag_criteria=_criteria_in_units(choice, nobs, scale),
+        lag_criteria=_criteria_in_units(choices, rows.criteria[i], lags, nobs, scale),
         design=_NO_DESIGN,  # not kept: the results of many series would hold every design
         response=_NO_RESPONSE,
     )
@@ -154,7 +157,7 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
         critical_values=critical_values,
         reject=bool(tau < critical),
         critical_value=critical,
-        lag_rule=choice.rule,
+        lag_rule=choices.rule,
         regression=regression,
     )
 

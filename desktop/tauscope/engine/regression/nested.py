@@ -47,7 +47,7 @@ from functools import lru_cache
 import numpy as np
 
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS
-from tauscope.engine.regression.lagchoice import TSIG_CRITICAL, LagChoice
+from tauscope.engine.regression.lagchoice import TSIG_CRITICAL
 
 # Columns of the full design: 0 constant, 1 trend, 2 y(t−1), 3… Δy(t−1…p), then y.
 Y_LAG = 2
@@ -328,19 +328,31 @@ def column_share(a: np.ndarray, norms: np.ndarray) -> np.ndarray:
     return np.asarray(share.min(axis=1))
 
 
-def lag_choices(rule: str, fits: BlockFits, values: np.ndarray, p: int) -> list[LagChoice]:
+@dataclass(frozen=True)
+class LagChoices:
+    """The lag each series of a batch gets by ``rule``, and its criteria by lag 0…p in
+    the rule's own measure (NaN where the rule has none; no columns for a fixed lag), as
+    :class:`tauscope.engine.regression.lagchoice.LagChoice` holds them for one series."""
+
+    rule: str
+    max_lags: int
+    lags: np.ndarray  # (B,) int
+    criteria: np.ndarray  # (B, p+1), or (B, 0) for a fixed lag
+
+
+def fixed_lag_choices(batch: int, lag: int, p: int) -> LagChoices:
+    return LagChoices("fixed", max(lag, p), np.full(batch, lag, dtype=int), np.empty((batch, 0)))
+
+
+def lag_choices(rule: str, fits: BlockFits, values: np.ndarray, p: int) -> LagChoices:
     """The reference's choice: the smallest criterion (ties to the shorter lag), or the
-    longest lag whose last coefficient has |t| ≥ 1.645 (Ng & Perron 1995)."""
-    batch = fits.rss.shape[0]
+    longest lag whose last coefficient has |t| ≥ 1.645 (Ng & Perron 1995), 0 if none;
+    then its criteria are the t's of the lags from max(chosen, 1) on."""
     if rule in ("aic", "bic", "hqc", "maic"):
-        best = np.argmin(values, axis=1).tolist()
-        rows = values.tolist()
-        return [LagChoice(rule, int(best[b]), p, tuple(rows[b])) for b in range(batch)]
-    t = fits.last_t.tolist()
-    choices = []
-    for b in range(batch):
-        chosen = next((lag for lag in range(p, 0, -1) if abs(t[b][lag]) >= TSIG_CRITICAL), 0)
-        low = max(chosen, 1)
-        criteria = tuple(t[b][lag] if lag >= low else math.nan for lag in range(p + 1))
-        choices.append(LagChoice(rule, chosen, p, criteria))
-    return choices
+        return LagChoices(rule, p, np.argmin(values, axis=1), values)
+    t = fits.last_t
+    significant = np.abs(t[:, 1:]) >= TSIG_CRITICAL  # lags 1…p; NaN is never significant
+    chosen = np.where(significant.any(axis=1), p - np.argmax(significant[:, ::-1], axis=1), 0)
+    low = np.maximum(chosen, 1)
+    criteria = np.where(np.arange(p + 1)[None, :] >= low[:, None], t, math.nan)
+    return LagChoices(rule, p, chosen, criteria)
