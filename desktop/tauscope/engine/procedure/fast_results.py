@@ -6,7 +6,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field
-from functools import lru_cache
+from functools import lru_cache, partial
 
 import numpy as np
 
@@ -86,6 +86,8 @@ class SpecRows:
 
 
 _column_names = lru_cache(maxsize=512)(column_names)
+# Coefficient(*row) without the named tuple's own __new__ in Python: about 0.1 µs each less.
+_new_coefficient = partial(tuple.__new__, Coefficient)
 _NO_DESIGN = np.empty((0, 0))
 _NO_RESPONSE = np.empty(0)
 _NO_DESIGN.flags.writeable = False
@@ -126,7 +128,7 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
     if scale != 1.0 and terms:
         params = [v * scale for v in params[:terms]] + params[terms:]
         bse = [v * scale for v in bse[:terms]] + bse[terms:]
-    coefficients = tuple(map(Coefficient, names, params, bse, t))
+    coefficients = tuple(map(_new_coefficient, zip(names, params, bse, t, strict=True)))
     sigma2 = rss / (nobs - used)
     regression = Regression(
         spec=spec,
