@@ -13,7 +13,8 @@ import numpy as np
 from tauscope.engine.distributions import tables as fast_tables
 from tauscope.engine.regression.design import DETERMINISTIC_TERMS, column_names
 from tauscope.engine.regression.nested import Estimates, LagChoices
-from tauscope.engine.results import Coefficient, Regression, TestResult
+from tauscope.engine.results import Coefficient, TestResult
+from tauscope.engine.results_build import new_regression, new_test_result
 from tauscope.engine.unitroot import phi as joint
 
 
@@ -130,38 +131,21 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
         bse = [v * scale for v in bse[:terms]] + bse[terms:]
     coefficients = tuple(map(_new_coefficient, zip(names, params, bse, t, strict=True)))
     sigma2 = rss / (nobs - used)
-    regression = Regression(
-        spec=spec,
-        difference=level.difference,
-        lags=lags,
-        lag_rule=choices.rule,
-        max_lags=choices.max_lags,
-        nobs=nobs,
-        first_observation=lags + 1,
-        coefficients=coefficients,
-        sigma2=sigma2 if scale == 1.0 else sigma2 * scale * scale,
-        rss=rss if scale == 1.0 else rss * scale * scale,
-        lag_criteria=_criteria_in_units(choices, rows.criteria[i], lags, nobs, scale),
-        design=_NO_DESIGN,  # not kept: the results of many series would hold every design
-        response=_NO_RESPONSE,
+    # new_regression and new_test_result: the constructors' objects, faster (results_build).
+    regression = new_regression(
+        spec, level.difference, lags, choices.rule, choices.max_lags, nobs, lags + 1, coefficients,
+        sigma2 if scale == 1.0 else sigma2 * scale * scale,
+        rss if scale == 1.0 else rss * scale * scale,
+        _criteria_in_units(choices, rows.criteria[i], lags, nobs, scale),
+        _NO_DESIGN,  # the design and response are not kept: the results of many series would
+        _NO_RESPONSE,  # hold every design
     )
     tau = t[terms]
     critical_values = fast_tables.tau_critical_values(spec, nobs)
     critical = critical_values[fast_tables.level_label(alpha)]
-    return TestResult(
-        test="adf",
-        spec=spec,
-        difference=level.difference,
-        statistic=tau,
-        p_value=rows.p_value[i],
-        lags=lags,
-        nobs=nobs,
-        critical_values=critical_values,
-        reject=bool(tau < critical),
-        critical_value=critical,
-        lag_rule=choices.rule,
-        regression=regression,
-    )
+    return new_test_result("adf", spec, level.difference, tau, rows.p_value[i], lags, nobs,
+                           critical_values, bool(tau < critical), critical, None, choices.rule,
+                           regression)
 
 
 def phi_result(level: LevelBatch, adf: TestResult, name: str, i: int, alpha: float) -> TestResult:

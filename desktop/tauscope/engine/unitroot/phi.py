@@ -17,6 +17,7 @@ import numpy as np
 from tauscope.engine.distributions import tables as fast_tables
 from tauscope.engine.regression.ols import fit
 from tauscope.engine.results import Regression, TestResult
+from tauscope.engine.results_build import new_test_result
 
 RESTRICTED_OUT = {
     "phi1": ("constant", "y(t-1)"),
@@ -52,20 +53,10 @@ def phi_statistic(regression: Regression, name: str) -> float:
 def phi_result(regression: Regression, name: str, statistic: float, alpha: float) -> TestResult:
     """The Φ test result with its Dickey & Fuller (1981) critical values (cached tables)."""
     critical = fast_tables.phi_critical_value(name, regression.nobs, alpha)
-    return TestResult(
-        test=name,
-        spec=regression.spec,
-        difference=regression.difference,
-        statistic=statistic,
-        p_value=None,
-        lags=regression.lags,
-        nobs=regression.nobs,
-        critical_values=fast_tables.phi_critical_values(name, regression.nobs),
-        reject=bool(statistic > critical),
-        critical_value=critical,
-        lag_rule=regression.lag_rule,
-        regression=regression,
-    )
+    return new_test_result(name, regression.spec, regression.difference, statistic, None,
+                           regression.lags, regression.nobs,
+                           fast_tables.phi_critical_values(name, regression.nobs),
+                           bool(statistic > critical), critical, None, regression.lag_rule, regression)
 
 
 def phi_test(regression: Regression, name: str, alpha: float) -> TestResult:
