@@ -60,15 +60,15 @@ class LevelBatch:
 class SpecRows:
     """One spec's estimates for every series of a batch, made once, not row by row: the t
     ratios params/bse and τ's MacKinnon (1994) p-value computed elementwise in numpy (the
-    same IEEE operations as one by one), the per-series numbers as Python lists.  The
-    coefficient rows stay arrays (a row's leading entries become Python numbers when its
-    result is built), so the batch holds no list of every coefficient."""
+    same IEEE operations as one by one), the per-series numbers as Python lists, made by one
+    ``tolist`` per array (a row's leading entries are the very numbers its coefficients hold;
+    the rest live as long as the chunk's batch)."""
 
     nobs: list[int]
     rss: list[float]
-    params: np.ndarray
-    bse: np.ndarray
-    t: np.ndarray
+    params: list[list[float]]
+    bse: list[list[float]]
+    t: list[list[float]]
     p_value: list[float]
     zero_se: list[bool]  # a coefficient's standard error is 0: its t ratio divides by zero
     lags: list[int]  # the chosen lag
@@ -81,7 +81,7 @@ class SpecRows:
             t = est.params / est.bse
         inside = np.arange(est.bse.shape[1])[None, :] < est.used[:, None]
         zero = ((est.bse == 0.0) & inside).any(axis=1)
-        return cls(est.nobs.tolist(), est.rss.tolist(), est.params, est.bse, t,
+        return cls(est.nobs.tolist(), est.rss.tolist(), est.params.tolist(), est.bse.tolist(), t.tolist(),
                    fast_tables.tau_p_values(t[:, terms], spec).tolist(), zero.tolist(),
                    choices.lags.tolist(), choices.criteria.tolist())
 
@@ -124,7 +124,7 @@ def adf_result(level: LevelBatch, spec: str, i: int, alpha: float, scale: float)
     rss = rows.rss[i]
     names = _column_names(spec, lags)
     used = len(names)
-    params, bse, t = rows.params[i, :used].tolist(), rows.bse[i, :used].tolist(), rows.t[i, :used].tolist()
+    params, bse, t = rows.params[i][:used], rows.bse[i][:used], rows.t[i][:used]
     terms = len(DETERMINISTIC_TERMS[spec])
     if scale != 1.0 and terms:
         params = [v * scale for v in params[:terms]] + params[terms:]
