@@ -61,3 +61,9 @@ def ending(pairs: list[tuple[str, Any]], _settings: Any,
     """The process ends abruptly before answering, whatever it was sent."""
     os._exit(3)
     yield pairs  # never reached: makes this a generator like the others
+
+
+def niceness(pairs: list[tuple[str, Any]], _settings: Any,
+             _should_stop: Callable[[], bool]) -> Iterator[int]:
+    """The child's niceness (Unix only)."""
+    yield os.nice(0)

@@ -127,3 +127,12 @@ def test_shutdown_leaves_no_process(engine_for) -> None:  # type: ignore[no-unty
     pid = next(stream)[2]
     engine.shutdown()  # in the middle of a run
     assert not engine.is_alive() and not alive(pid)
+
+
+@pytest.mark.skipif(not hasattr(os, "nice"), reason="no process niceness on this platform")
+def test_the_child_runs_below_the_windows_priority(engine_for) -> None:  # type: ignore[no-untyped-def]
+    from tauscope.ui.engine_process import HELPER_NICENESS
+
+    engine = engine_for("niceness")
+    found = list(engine.iter_analyse(pairs(1), Settings()))
+    assert found == [min(19, os.nice(0) + HELPER_NICENESS)]

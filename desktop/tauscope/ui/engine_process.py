@@ -38,6 +38,7 @@ from __future__ import annotations
 
 import atexit
 import multiprocessing
+import os
 import pickle
 import threading
 import traceback
@@ -106,6 +107,20 @@ def _engine(name: str) -> Callable[..., Iterator[Any]]:
     return getattr(importlib.import_module(module), function)
 
 
+# How far below the window's own priority its helper processes run (Unix niceness; 0 to 19).
+HELPER_NICENESS = 10
+
+
+def _yield_to_the_window() -> None:
+    """Run this child below the window's priority, so that when both want a core the window's
+    thread gets it first and its event loop does not wait behind the analysis (on a machine
+    with few cores and other work).  Where the platform has no niceness (Windows) it stays
+    as it is."""
+    if HELPER_NICENESS and hasattr(os, "nice"):
+        with suppress(OSError):
+            os.nice(HELPER_NICENESS)
+
+
 def serve(conn: Connection, stop: Event, engine: str = ENGINE) -> None:
     """The child's loop: one run per request, until "quit" or the pipe closes.
 
@@ -117,6 +132,7 @@ def serve(conn: Connection, stop: Event, engine: str = ENGINE) -> None:
     import signal
 
     signal.signal(signal.SIGINT, signal.SIG_IGN)  # Ctrl+C in a terminal is the window's
+    _yield_to_the_window()
     iter_analyse = _engine(engine)
     while True:
         try:
