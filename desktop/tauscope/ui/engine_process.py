@@ -40,6 +40,7 @@ import atexit
 import multiprocessing
 import os
 import pickle
+import sys
 import threading
 import traceback
 from collections.abc import Callable, Generator, Iterable, Iterator
@@ -114,11 +115,21 @@ HELPER_NICENESS = 10
 def _yield_to_the_window() -> None:
     """Run this child below the window's priority, so that when both want a core the window's
     thread gets it first and its event loop does not wait behind the analysis (on a machine
-    with few cores and other work).  Where the platform has no niceness (Windows) it stays
-    as it is."""
-    if HELPER_NICENESS and hasattr(os, "nice"):
+    with few cores and other work): niceness ``HELPER_NICENESS`` on Unix, the "below normal"
+    priority class on Windows (not exercised by the tests, which run on Unix).  A refusal
+    leaves the priority as it is."""
+    if not HELPER_NICENESS:
+        return
+    if hasattr(os, "nice"):
         with suppress(OSError):
             os.nice(HELPER_NICENESS)
+    elif sys.platform == "win32":
+        import ctypes
+
+        below_normal = 0x00004000  # BELOW_NORMAL_PRIORITY_CLASS
+        kernel32 = ctypes.windll.kernel32  # type: ignore[attr-defined]
+        with suppress(OSError, AttributeError):
+            kernel32.SetPriorityClass(kernel32.GetCurrentProcess(), below_normal)
 
 
 def serve(conn: Connection, stop: Event, engine: str = ENGINE) -> None:
