@@ -377,3 +377,21 @@ def test_quadratic_form_of_the_adjugate_equals_a_solve() -> None:
         b = rng.standard_normal((4, q))
         expected = np.einsum("bi,bi->b", b, np.linalg.solve(w, b[..., None])[..., 0])
         assert np.allclose(nested._quadratic_form(w, b), expected, rtol=1e-12, atol=0)
+
+
+@pytest.mark.parametrize("p", [0, 1, 6])
+def test_general_to_specific_choices_equal_the_rule_series_by_series(p: int) -> None:
+    """The batch's t-sig choice (Ng & Perron 1995: the longest lag whose last coefficient has
+    |t| ≥ 1.645, else 0; criteria the t's from max(chosen, 1) on) against the rule written
+    out for one series at a time, NaN t's included, and a maximum lag of 0."""
+    rng = np.random.default_rng(p)
+    t = rng.normal(scale=1.6, size=(40, p + 1))
+    t[::7, -1] = np.nan
+    fits = nested.BlockFits(np.ones_like(t), np.ones_like(t), t, np.arange(p + 1))
+    found = nested.lag_choices("tsig", fits, t[:, 1:], p)
+    for b, row in enumerate(t.tolist()):
+        chosen = next((lag for lag in range(p, 0, -1) if abs(row[lag]) >= 1.645), 0)
+        low = max(chosen, 1)
+        expected = [row[lag] if lag >= low else math.nan for lag in range(p + 1)]
+        assert int(found.lags[b]) == chosen
+        assert np.array_equal(found.criteria[b], expected, equal_nan=True)

@@ -352,7 +352,7 @@ def lag_choices(rule: str, fits: BlockFits, values: np.ndarray, p: int) -> LagCh
         return LagChoices(rule, p, np.argmin(values, axis=1), values)
     t = fits.last_t
     significant = np.abs(t[:, 1:]) >= TSIG_CRITICAL  # lags 1…p; NaN is never significant
-    chosen = np.where(significant.any(axis=1), p - np.argmax(significant[:, ::-1], axis=1), 0)
+    chosen = np.max(np.where(significant, np.arange(1, p + 1)[None, :], 0), axis=1, initial=0)
     low = np.maximum(chosen, 1)
     criteria = np.where(np.arange(p + 1)[None, :] >= low[:, None], t, math.nan)
     return LagChoices(rule, p, chosen, criteria)
