@@ -44,9 +44,9 @@ def test_a_seasonal_unit_root_keeps_the_union_from_confirmed() -> None:
 
 def test_a_seasonal_unit_root_caps_the_classic_badge_too() -> None:
     found = cast(CrossCheck, SimpleNamespace(
-        seasonal=SimpleNamespace(roots=SimpleNamespace(seasonal_roots=("twice a year",)))))
+        seasonal=SimpleNamespace(roots=SimpleNamespace(seasonal_roots=("twice a year",))), variance=None))
     none_found = cast(CrossCheck, SimpleNamespace(
-        seasonal=SimpleNamespace(roots=SimpleNamespace(seasonal_roots=()))))
+        seasonal=SimpleNamespace(roots=SimpleNamespace(seasonal_roots=())), variance=None))
     status, notes = _classic_capped("confirmed", found)
     assert status == "inconclusive" and "twice a year" in notes[0]
     assert _classic_capped("confirmed", none_found) == ("confirmed", [])
@@ -66,7 +66,43 @@ def test_the_variance_change_is_in_to_dict_and_caps_the_badge() -> None:
     assert 0 <= variance["position"] < result.nobs
     assert variance["label"] == f"observation {variance['position'] + 1}"
     assert result.verdict.agreement != "confirmed"
-    # the classic sequence computes no κ2: the field is None, not a stale value
-    assert analyse_series(x, Settings(strategy="classic")).to_dict()["variance"] is None
+    # the classic sequence tests it too (the levels' ADF trend lag), and says what to do
+    classic = analyse_series(x, Settings(strategy="classic"))
+    assert classic.to_dict()["variance"]["found"] is True
+    assert classic.verdict.agreement != "confirmed"
+    assert any("size of the shocks changes" in note and "--strategy bootstrap" in note
+               for note in classic.notes)
     plain = analyse_series(np.cumsum(np.random.default_rng(6).standard_normal(300)), Settings())
     assert plain.to_dict()["variance"] is not None
+
+
+def test_a_variance_change_caps_the_classic_badge() -> None:
+    """Under the classic sequence a κ2 change found turns "confirmed" into "inconclusive",
+    as the union's grade withholds it; with a seasonal root both reasons are named."""
+    changed = SimpleNamespace(found=True)
+    steady = SimpleNamespace(found=False)
+    no_roots = SimpleNamespace(roots=SimpleNamespace(seasonal_roots=()))
+    roots = SimpleNamespace(roots=SimpleNamespace(seasonal_roots=("twice a year",)))
+    status, notes = _classic_capped("confirmed", cast(CrossCheck, SimpleNamespace(
+        seasonal=no_roots, variance=changed)))
+    assert status == "inconclusive" and "size of the shocks changes" in notes[0]
+    assert _classic_capped("confirmed", cast(CrossCheck, SimpleNamespace(
+        seasonal=no_roots, variance=steady))) == ("confirmed", [])
+    status, notes = _classic_capped("confirmed", cast(CrossCheck, SimpleNamespace(
+        seasonal=roots, variance=changed)))
+    assert "twice a year" in notes[0] and "size of the shocks changes" in notes[0]
+
+
+def test_classic_variance_is_the_same_alone_and_in_a_batch() -> None:
+    """The fast path (analyse_many) and one series alone give the classic κ2 the same bits."""
+    from tauscope.engine import analyse_many
+
+    rng = np.random.default_rng(8)
+    series = [(f"s{i}", np.cumsum(rng.standard_normal(200) * (1.0 + (np.arange(200) > 100) * i)))
+              for i in range(4)]
+    settings = Settings(strategy="classic")
+    batch = analyse_many(series, settings)
+    for (name, values), found in zip(series, batch, strict=True):
+        alone = analyse_series(values, settings, name)
+        assert found.to_dict()["variance"] == alone.to_dict()["variance"]
+        assert found.to_dict()["variance"] is not None

@@ -133,3 +133,13 @@ def test_bootstrap_strategy_is_described_and_cited() -> None:
     assert "Econometric Theory 28(2)" in refs and "Econometric Theory 24(1)" in refs
     assert "Sansó, A., Aragó, V. & Carrion-i-Silvestre, J.L. (2004)" in refs
     assert "wild bootstrap" not in methods_for(_with(Settings())).text
+
+
+def test_variance_change_test_is_stated_under_every_strategy_once() -> None:
+    """κ2 (Sansó, Aragó & Carrion-i-Silvestre 2004) runs whatever the strategy, so the methods
+    say so, once, under the classic sequence as under the union, and cite it."""
+    for strategy in ("classic", "union", "bootstrap"):
+        methods = methods_for(_with(Settings(strategy=strategy)))
+        assert methods.text.count("κ2 statistic of Sansó, Aragó & Carrion-i-Silvestre (2004)") == 1, strategy
+        assert any(r.startswith("Sansó, A., Aragó, V. & Carrion-i-Silvestre, J.L. (2004)")
+                   for r in methods.references), strategy

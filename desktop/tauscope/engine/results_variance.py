@@ -1,9 +1,11 @@
 """The variance-change check of one series (``SeriesResult.variance``), plain data.
 
 κ2 of Sansó, Aragó & Carrion (2004) on the shocks of the levels' Dickey-Fuller regression
-with a trend (:mod:`tauscope.engine.unitroot.variance_change`), computed when a
-size-controlled strategy decides.  A change found keeps the grade below "confirmed"
-(:mod:`tauscope.engine.reading.grade`).
+with a trend (:mod:`tauscope.engine.unitroot.variance_change`), computed whatever the
+strategy (with the union's lag order when the union decides, with the levels' ADF trend
+regression's under the classic sequence).  A change found keeps the verdict below
+"confirmed" (:mod:`tauscope.engine.reading.grade`, and the classic sequence's cap in
+:mod:`tauscope.engine.procedure.read`).
 """
 
 from __future__ import annotations

@@ -285,6 +285,9 @@ _ORDER_TERMS = (
     "this program, set on its own simulations). The order was found from the highest difference down, "
     "and the deterministic terms by the trend test of Harvey, Leybourne & Taylor (2007), valid with or "
     "without a unit root. The sequence above was computed as well and is reported beside it.")
+_VOLATILITY = (" A change in the size of the shocks was tested with the κ2 statistic of Sansó, Aragó & "
+               "Carrion-i-Silvestre (2004) on the residuals of the Dickey-Fuller regression with a trend; "
+               "where it was found, the verdict is not graded as confirmed.")
 
 
 def _lags_order_terms(run: RunRecord) -> str:
@@ -306,11 +309,6 @@ def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
         return []
     cited.update({"hlt2007", "hlt2009", "hlt2012", "ers1996", "pq2007", "sac2004", "np2001", "pn1996",
                    "stock1999"})
-    volatility = (
-        " A change in the size of the shocks was tested with the κ2 statistic of Sansó, Aragó & "
-        "Carrion-i-Silvestre (2004) on the residuals of the Dickey-Fuller regression with a trend; where "
-        "it was found, the verdict is not graded as confirmed."
-    )
     if strategy == "bootstrap":
         cited.update({"ct2008", "st2012", "df2008"})
         return [
@@ -324,13 +322,13 @@ def _union_paragraph(run: RunRecord, a: str, cited: set[str]) -> list[str]:
             "autoregression of the differenced series (lag order the larger of the union's two), each "
             "multiplied by a random sign (Rademacher weights, Davidson & Flachaire 2008) and recoloured "
             "with the fitted lag polynomial, with a seed taken from the series' own values; " + _lags_order_terms(run)
-            + volatility
+            + _VOLATILITY
         ]
     return [
         "The verdict was decided by the union of rejections over the deterministic terms (Harvey, "
         "Leybourne & Taylor 2009, 2012): " + _COMPONENTS + ", each "
         "compared with its own critical value scaled by a constant simulated at the series' length, "
-        f"so that the whole decision on each difference has size {a}; " + _lags_order_terms(run) + volatility
+        f"so that the whole decision on each difference has size {a}; " + _lags_order_terms(run) + _VOLATILITY
     ]
 
 
@@ -373,8 +371,7 @@ def methods_for(run: RunRecord) -> Methods:
         cited.add("dp1987")
     n = len(run.findings)
     d = settings.max_difference
-    highest = {0: "the levels only", 1: "the first difference",
-               2: "the second difference"}[d]
+    highest = {0: "the levels only", 1: "the first difference", 2: "the second difference"}[d]
     first = (
         f"Each of the {n} series was tested for a unit root with the augmented Dickey-Fuller "
         "test (Dickey & Fuller 1979; Said & Dickey 1984), in the regression "
@@ -393,6 +390,9 @@ def methods_for(run: RunRecord) -> Methods:
             f"Pantula 1987): testing started on {highest} and moved to the next lower "
             "difference only while the unit root was rejected."
         )
+    if getattr(settings, "strategy", "classic") not in UNION_STRATEGIES:  # else in the union's
+        cited.add("sac2004")
+        first += _VOLATILITY
     second = _lag_sentence(run, cited) + _critical_sentence(run, a)
     paragraphs = [first, second, *_union_paragraph(run, a, cited), *_seasonal_paragraph(run, a, cited),
                   *_cross_checks(run, a, cited)]

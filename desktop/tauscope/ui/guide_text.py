@@ -129,7 +129,7 @@ scorecard the bootstrap called random walks whose shock variance triples, or fal
 halfway stationary 2.4–5.8% of the time (κ: 2.4–6.4%; a change halfway moves κ little), and it
 takes about fifteen times as long per series. Whatever the strategy, the size of the shocks is
 tested for a change (the κ2 test of Sansó, Aragó &amp; Carrion 2004); when one is found, the
-Reading says so, suggests this strategy under the default one, and the verdict is not marked as
+Reading says so, suggests this strategy under the other two, and the verdict is not marked as
 agreed.</p>
 <p>The <b>Cross-check</b> of a size-controlled verdict is "agrees" only when all of this holds:
 KPSS backs it strictly (no rejection even at 10% where none is expected, a rejection at 1% where

@@ -68,9 +68,10 @@ def assemble(reading: Reading, name: str, settings: dict[str, Any]) -> SeriesRes
 
 
 def _variance_check(reading: Reading, label: Callable[[int], str]) -> VarianceCheck | None:
-    """κ2 of the size-controlled strategies as plain data (None when not computed)."""
+    """κ2 as plain data: the union's when it decided, else the cross-check's (None when it
+    could not be computed)."""
     row = reading.cross_check.decision.estimates.union
-    v = None if row is None else row.variance
+    v = reading.cross_check.variance if row is None else row.variance
     if v is None:
         return None
     return VarianceCheck(float(v.statistic), float(v.critical_value), float(v.p_value), float(v.alpha),

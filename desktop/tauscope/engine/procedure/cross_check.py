@@ -61,6 +61,7 @@ from tauscope.engine.results import (
 from tauscope.engine.unitroot.dfgls import DFGLS_P_VALUE_REPS, dfgls_test
 from tauscope.engine.unitroot.phillips_perron import pp_test, z_alpha_critical_values
 from tauscope.engine.unitroot.recursive import recursive_tau
+from tauscope.engine.unitroot.variance_change import variance_change
 from tauscope.engine.unitroot.zivot_andrews import MODEL_LABELS, BreakSearch, za_test
 
 _FAILURES = (UntestableSeries, np.linalg.LinAlgError, ValueError, ZeroDivisionError, FloatingPointError)
@@ -101,8 +102,12 @@ def cross_check(decision: Decision, options: CrossCheckOptions, estimation: Esti
     level_adf = estimates.levels[0].adf
     breaks = check_breaks(prepared, order, checks, level_adf["constant"].lags, options.alpha,
                           estimation.recursive) if options.break_check else None
+    # The union's row has κ2 with its own lag order; the classic sequence's is computed here,
+    # with the levels' trend regression's lag, on the same standardised levels.
+    variance = variance_change(x, level_adf["trend"].lags, options.alpha) \
+        if estimates.union is None else None
     return CrossCheck(decision, tuple(checks), kpss_problem, extra, profile, breaks,
-                      seasonal_check(prepared, options.alpha, estimation.seasonal_roots))
+                      seasonal_check(prepared, options.alpha, estimation.seasonal_roots), variance)
 
 
 def recursive_requests(decision: Decision) -> list[tuple[str, int, int]]:

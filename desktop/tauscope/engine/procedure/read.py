@@ -23,7 +23,12 @@ from tauscope.engine.reading.breaks import (
     verdict_under_break,
 )
 from tauscope.engine.reading.evidence import combined_agreement, evidence_notes, reading
-from tauscope.engine.reading.grade import first_autocorrelation, grade, seasonal_root_reason
+from tauscope.engine.reading.grade import (
+    VARIANCE_CHANGED,
+    first_autocorrelation,
+    grade,
+    seasonal_root_reason,
+)
 from tauscope.engine.reading.notes import NoteContext, build_notes, seasonal_pattern
 from tauscope.engine.reading.seasonal import seasonal_found, seasonal_notes
 from tauscope.engine.reading.strategies import (
@@ -61,6 +66,8 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
         status = capped_agreement(status, breaks)
     else:
         status, strategy_notes = _classic_capped(status, checked)
+        strategy_notes += [n for n in [volatility_note(checked.variance, decision.strategy,
+                                                       prepared.label)] if n]
     sequence_verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
                                      options.max_difference)
     sequence_verdict = replace(sequence_verdict, strategy=decision.strategy)
@@ -136,13 +143,18 @@ def seasonal_roots_found(checked: CrossCheck) -> tuple[str, ...]:
 
 
 def _classic_capped(status: str | None, checked: CrossCheck) -> tuple[str | None, list[str]]:
-    """The classic sequence's KPSS agreement with the grade's seasonal condition
-    (:mod:`tauscope.engine.reading.grade`, condition 10): a seasonal unit root found turns
-    "confirmed" into "inconclusive", with the reason as a note."""
+    """The classic sequence's KPSS agreement with two of the grade's conditions
+    (:mod:`tauscope.engine.reading.grade`): a seasonal unit root found, or a change in the size
+    of the shocks (κ2), turns "confirmed" into "inconclusive", with the reasons as a note."""
+    reasons = []
     roots = seasonal_roots_found(checked)
-    if status != "confirmed" or not roots:
+    if roots:
+        reasons.append(seasonal_root_reason(roots))
+    if checked.variance is not None and checked.variance.found:
+        reasons.append(VARIANCE_CHANGED)
+    if status != "confirmed" or not reasons:
         return status, []
-    return "inconclusive", [f"The cross-checks agree, but the verdict is not confirmed: {seasonal_root_reason(roots)}."]
+    return "inconclusive", [f"The cross-checks agree, but the verdict is not confirmed: {'; '.join(reasons)}."]
 
 
 def _weak(verdict: Verdict, decision: Decision, alpha: float) -> Verdict:

@@ -47,6 +47,7 @@ from tauscope.engine.results_seasonal import SeasonalCheck
 from tauscope.engine.results_strategy import ClassicVerdict
 from tauscope.engine.seasonal.results import SeasonalRootsResult
 from tauscope.engine.settings import UNION_STRATEGIES, Settings
+from tauscope.engine.unitroot.variance_change import VarianceChange
 
 EXTRA_TESTS = ("pp", "dfgls", "za")
 
@@ -211,7 +212,8 @@ class ExtraEvidence:
 @dataclass(frozen=True)
 class CrossCheck:
     """KPSS checks as (result, whether the verdict expects it to reject), the extra
-    evidence, τ of the deciding regression for every lag order, and the break check."""
+    evidence, τ of the deciding regression for every lag order, the break check, the
+    seasonal check and, when the classic sequence decides, the κ2 variance-change test."""
 
     decision: Decision
     kpss: tuple[tuple[TestResult, bool], ...]
@@ -220,6 +222,8 @@ class CrossCheck:
     lag_profile: tuple[LagPoint, ...]
     breaks: BreakCheck | None = None  # the break check (procedure/breaks.py)
     seasonal: SeasonalCheck | None = None  # seasonal means and roots (procedure/seasonal_roots.py)
+    # κ2 on the levels when the classic sequence decides (the union's row carries its own)
+    variance: VarianceChange | None = None
 
 
 @dataclass(frozen=True)

@@ -71,6 +71,9 @@ class Grade:
     missing: tuple[str, ...]  # plain reasons "confirmed" was not granted
 
 
+# The reason a change in the shocks' size (κ2) gives for withholding "confirmed".
+VARIANCE_CHANGED = "the size of the shocks changes over the sample"
+
 def seasonal_root_reason(roots: Sequence[str]) -> str:
     """Why a seasonal unit root keeps the grade down, in plain words."""
     which = ", ".join(roots)
@@ -126,7 +129,7 @@ def grade(order: int | None, deterministic: str | None, checks: Sequence[tuple[T
     if break_found:
         missing.append("a break is suspected")
     if variance_changed:
-        missing.append("the size of the shocks changes over the sample")
+        missing.append(VARIANCE_CHANGED)
     if seasonal_roots:
         missing.append(seasonal_root_reason(seasonal_roots))
     r1 = difference_autocorrelation
