@@ -73,10 +73,9 @@ def write_here(targets: Sequence[str], run: RunRecord, charts: Charts | None) ->
 
 
 def _warm(suffixes: Sequence[str]) -> None:
-    """Import what the helper's formats need, and start Qt for those that draw."""
-    if ".pdf" in suffixes or ".xlsx" in suffixes:
+    """Import what the helper's formats need, and start Qt for the PDF, which draws with it."""
+    if ".pdf" in suffixes:
         os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
-        import tauscope.ui.chart_paint  # noqa: F401  (the .xlsx picture painter)
         from tauscope.ui import pdf_report  # noqa: F401  (registers ".pdf")
         from tauscope.ui.headless import ensure_application
 
