@@ -191,13 +191,13 @@ def per_format(source: Path, folder: Path, count: int, rounds: int) -> None:
     charts = drawn.charts
     print(f"\ncharts made alone, same {count} findings (best of {rounds}): "
           f"{drawn.seconds * 1000 / count:.2f} ms per series, {len(charts)} charts")
-    from itertools import count
+    import itertools
 
     from tauscope.report.chart_svg import chart_svg
     from tauscope.report.xlsx_chart import chart_shapes
 
     def shapes(plan: ChartPlan) -> str:
-        return chart_shapes(plan, 0, count(2))
+        return chart_shapes(plan, 0, itertools.count(2))
 
     for label, draw in (("as SVG", chart_svg), ("as the .xlsx's shapes", shapes)):
         start = time.perf_counter()

@@ -68,6 +68,19 @@ class Strings:
 
     def __init__(self) -> None:
         self.index: dict[str, int] = {}
+        self.cells: dict[str, tuple[str, bool]] = {}
+        """Each text met so far, as written: (its index in the table as text, whether it is
+        marked as text because it looks like a formula)."""
+
+    def cell(self, value: str) -> tuple[str, bool]:
+        """``value``'s entry (made safe for XML: :func:`xml_text`) and whether a spreadsheet
+        could read it as a formula; remembered for the next cell with the same text."""
+        text = xml_text(value)
+        found = self.index.get(text)
+        if found is None:
+            found = self.index[text] = len(self.index)
+        made = self.cells[value] = (str(found), looks_like_formula(text))
+        return made
 
     def xml(self) -> str:
         items = "".join(
@@ -100,38 +113,51 @@ class Sheet:
         ``styles`` (0: none). Text is made safe for XML (:func:`xml_text`) and text that a
         spreadsheet could read as a formula is marked as text (``quotePrefix``)."""
         number = len(self.rows) + 1
-        strings = self.book.strings.index
+        known = self.book.strings.cells
         cells = []
         for j, value in enumerate(values):
             style = styles[j] if styles is not None else 0
-            if value is None or value == "":
-                if style:
-                    cells.append(f'<c r="{_letter(j + 1)}{number}" s="{style}"/>')
-                continue
-            if isinstance(value, str):
-                text = xml_text(value)
-                if looks_like_formula(text):
-                    style = self.book.styles.quoted(style)
-                found = strings.get(text)
+            if type(value) is float and value - value == 0:  # finite (inf - inf, NaN: NaN)
+                kind_attribute, content = "", repr(value)
+            elif type(value) is str and value:
+                found = known.get(value)
                 if found is None:
-                    found = strings[text] = len(strings)
-                kind, content = ' t="s"', str(found)
-            elif isinstance(value, bool):
-                kind, content = ' t="b"', str(int(value))
-            elif isinstance(value, int):
-                kind, content = "", str(value)
-            elif math.isfinite(value):
-                kind, content = "", repr(float(value))
-            else:  # a spreadsheet has no NaN or infinity: an empty cell
-                if style:
-                    cells.append(f'<c r="{_letter(j + 1)}{number}" s="{style}"/>')
-                continue
+                    found = self.book.strings.cell(value)
+                content, quoted = found
+                if quoted:
+                    style = self.book.styles.quoted(style)
+                kind_attribute = ' t="s"'
+            else:
+                cell = self._other(value)
+                if cell is None:
+                    if style:
+                        cells.append(f'<c r="{_letter(j + 1)}{number}" s="{style}"/>')
+                    continue
+                kind_attribute, content, quoted = cell
+                if quoted:
+                    style = self.book.styles.quoted(style)
             s = f' s="{style}"' if style else ""
-            cells.append(f'<c r="{_letter(j + 1)}{number}"{s}{kind}><v>{content}</v></c>')
+            cells.append(f'<c r="{_letter(j + 1)}{number}"{s}{kind_attribute}><v>{content}</v></c>')
         height = self.heights.get(number)
         attributes = f' ht="{height:g}" customHeight="1"' if height is not None else ""
         self.rows.append(f'<row r="{number}"{attributes}>{"".join(cells)}</row>'
                          if cells or attributes else "")
+
+    def _other(self, value: Value) -> tuple[str, str, bool] | None:
+        """A value that is not a plain finite float or non-empty text: (type attribute,
+        content, marked as text), or None for no value (None, "", NaN, infinity)."""
+        if value is None or value == "":
+            return None
+        if isinstance(value, str):
+            content, quoted = self.book.strings.cell(value)
+            return ' t="s"', content, quoted
+        if isinstance(value, bool):
+            return ' t="b"', str(int(value)), False
+        if isinstance(value, int):
+            return "", str(value), False
+        if math.isfinite(value):
+            return "", repr(float(value)), False
+        return None  # a spreadsheet has no NaN or infinity: an empty cell
 
     def skip_to(self, row: int) -> None:
         """Leave rows empty until the next row added is ``row`` (1-based)."""
