@@ -47,7 +47,7 @@ PARALLEL_FROM = 100
 """Fewer series than this: a helper's start (about a second of imports) costs more than
 the writing it would save."""
 
-COST = {".pdf": 5.2, ".xlsx": 4.9, ".json": 1.9, ".html": 0.8, ".csv": 0.4, ".tex": 0.1}
+COST = {".pdf": 6.3, ".json": 2.1, ".xlsx": 2.0, ".html": 1.0, ".csv": 0.4, ".tex": 0.1}
 """Milliseconds per series each format took on 500 × 240 with charts
 (``benchmarks/batch_writers.py``); only their order and rough size matter here."""
 
