@@ -52,10 +52,9 @@ def _frame(left: float, top: float, width: float, height: float) -> str:
 
 
 def _path(points: np.ndarray) -> str:
-    pairs = np.rint(np.asarray(points, dtype=float) * PATH_UNITS).astype(np.int64).tolist()
-    (x0, y0), rest = pairs[0], pairs[1:]
-    return f'<a:moveTo><a:pt x="{x0}" y="{y0}"/></a:moveTo>' + "".join(
-        [f'<a:lnTo><a:pt x="{x}" y="{y}"/></a:lnTo>' for x, y in rest])
+    xs, ys = np.rint(np.asarray(points, dtype=float) * PATH_UNITS).astype(np.int64).T.tolist()
+    return f'<a:moveTo><a:pt x="{xs[0]}" y="{ys[0]}"/></a:moveTo>' + "".join(
+        map('<a:lnTo><a:pt x="{}" y="{}"/></a:lnTo>'.format, xs[1:], ys[1:]))
 
 
 def _line(color: str, width: float, dash: str) -> str:
