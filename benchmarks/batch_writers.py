@@ -10,8 +10,8 @@ alternating, ``--rounds`` times each:
 - writing nothing (no ``--out``: the summary table goes to standard output, here discarded);
 - writing every format: ``--out`` .xlsx, .csv, .json, .tex, .html and .pdf, with each
   series' chart (``ui/report_charts.draw_charts``, as the window's export makes them: plain
-  data drawn as SVG in the .html, vectors in the .pdf, a PNG in the .xlsx), as batch does by
-  default;
+  data drawn as SVG in the .html, vectors in the .pdf, DrawingML shapes in the .xlsx), as
+  batch does by default;
 - writing every format with ``--no-charts``;
 - writing every format, charts drawn, with ``--jobs 1``: every file written in this process,
   one after the other (by default batch shares the files out among helper processes, one
@@ -22,11 +22,11 @@ and prints the best time of each and their ratios to writing nothing (the target
 is at most 2), in wall time and in CPU time: this process's and its helper processes' (the
 writers', counted once they have ended), so CPU time shows the work done, not its overlap.  Then, on the findings of one
 analysis, the charts drawn alone (milliseconds per series: the plans, then each drawn as SVG
-and as the .xlsx's PNG) and each format alone through ``tauscope.report.export`` with those
+and as the .xlsx's shapes) and each format alone through ``tauscope.report.export`` with those
 charts (best of ``--rounds``), in milliseconds per series, with the file's size.
 
 A first small run writing every format (charts included) comes before the timed ones, so that
-imports and Qt's start (the charts and the PDF writer start an offscreen application) are not
+imports and Qt's start (the PDF writer starts an offscreen application) are not
 counted; its time is printed.  Nothing here is a pass/fail threshold.
 """
 
@@ -42,8 +42,12 @@ import tempfile
 import time
 from collections.abc import Callable
 from pathlib import Path
+from typing import TYPE_CHECKING
 
 import numpy as np
+
+if TYPE_CHECKING:
+    from tauscope.report.chart_plan import ChartPlan
 
 FORMATS = (".xlsx", ".csv", ".json", ".tex", ".html", ".pdf")
 KINDS = ("I(0)", "I(0) with trend", "I(1)", "I(1) with drift", "I(2)")
@@ -187,10 +191,15 @@ def per_format(source: Path, folder: Path, count: int, rounds: int) -> None:
     charts = drawn.charts
     print(f"\ncharts made alone, same {count} findings (best of {rounds}): "
           f"{drawn.seconds * 1000 / count:.2f} ms per series, {len(charts)} charts")
-    from tauscope.report.chart_svg import chart_svg
-    from tauscope.ui.chart_paint import plan_to_png
+    import itertools
 
-    for label, draw in (("as SVG", chart_svg), ("as the .xlsx's PNG", plan_to_png)):
+    from tauscope.report.chart_svg import chart_svg
+    from tauscope.report.xlsx_chart import chart_shapes
+
+    def shapes(plan: ChartPlan) -> str:
+        return chart_shapes(plan, 0, itertools.count(2))
+
+    for label, draw in (("as SVG", chart_svg), ("as the .xlsx's shapes", shapes)):
         start = time.perf_counter()
         size = sum(len(draw(plan)) for plan in charts.values())
         seconds = time.perf_counter() - start

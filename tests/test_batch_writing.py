@@ -37,8 +37,9 @@ def _without_time(path: Path) -> str:
 
 def test_shares_put_the_largest_first_each_to_the_least_loaded() -> None:
     targets = ["a.tex", "a.csv", "a.html", "a.json", "a.xlsx", "a.pdf"]
-    assert plan_shares(targets, 1) == [["a.pdf", "a.xlsx", "a.json", "a.html", "a.csv", "a.tex"]]
-    assert plan_shares(targets, 2) == [["a.pdf", "a.html", "a.csv", "a.tex"], ["a.xlsx", "a.json"]]
+    assert plan_shares(targets, 1) == [["a.pdf", "a.json", "a.xlsx", "a.html", "a.csv", "a.tex"]]
+    # the PDF costs more than all the others together: it is a share of its own
+    assert plan_shares(targets, 2) == [["a.pdf"], ["a.json", "a.xlsx", "a.html", "a.csv", "a.tex"]]
     assert plan_shares(["a.json"], 4) == [["a.json"], [], [], []]
 
 

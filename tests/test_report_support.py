@@ -9,8 +9,6 @@ spreadsheet formula, and one too short to test.
 from __future__ import annotations
 
 import functools
-import struct
-import zlib
 
 import numpy as np
 import pandas as pd
@@ -62,16 +60,3 @@ def make_run(alpha: float = 0.05, exact: bool = False,
     )
     return RunRecord(run_settings(alpha, exact, checks, strategy), (SourceFile(SOURCE, SOURCE_SHA),),
                      findings)
-
-
-def tiny_png(width: int = 4, height: int = 3) -> bytes:
-    """A valid PNG (grey pixels) built by hand, so no imaging library is needed."""
-
-    def chunk(kind: bytes, data: bytes) -> bytes:
-        body = kind + data
-        return struct.pack(">I", len(data)) + body + struct.pack(">I", zlib.crc32(body))
-
-    header = struct.pack(">IIBBBBB", width, height, 8, 0, 0, 0, 0)
-    raw = b"".join(b"\x00" + bytes([128]) * width for _ in range(height))
-    return (b"\x89PNG\r\n\x1a\n" + chunk(b"IHDR", header) + chunk(b"IDAT", zlib.compress(raw))
-            + chunk(b"IEND", b""))

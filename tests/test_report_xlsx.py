@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import xml.etree.ElementTree as ElementTree
 import zipfile
 from pathlib import Path
 
@@ -15,7 +16,9 @@ from tauscope.report.deciding import union_steps
 from tauscope.report.table_types import DIFFERENCE_SHORT
 from tauscope.report.tables import marker, tau_steps
 from tauscope.report.xlsx_package import Book
-from test_report_support import FORMULA_NAME, SOURCE_SHA, make_run, tiny_png
+from test_report_support import FORMULA_NAME, SOURCE_SHA, make_run
+
+XDR = "{http://schemas.openxmlformats.org/drawingml/2006/spreadsheetDrawing}"
 
 
 # openpyxl writes floats with 16 significant digits ("%.16g"), Excel keeps 15:
@@ -28,15 +31,8 @@ def same(value: float | None) -> object:
 def written(tmp_path_factory: pytest.TempPathFactory) -> tuple[RunRecord, Path]:
     run = make_run()
     target = tmp_path_factory.mktemp("xlsx") / "findings.xlsx"
-    saved = list(chart_plan._PNG)
-    # the report layer draws no picture itself: it asks the painter registered (Qt's, in the
-    # program); a hand-made PNG here, so the writer's part is checked without Qt
-    chart_plan.register_png_painter(lambda plan: tiny_png(40, 20))
-    try:
-        plan = chart_plan.plan_chart(run.findings[0].result)
-        export(target, run, charts={run.findings[0].name: plan} if plan is not None else {})
-    finally:
-        chart_plan._PNG[:] = saved
+    plan = chart_plan.plan_chart(run.findings[0].result)
+    export(target, run, charts={run.findings[0].name: plan} if plan is not None else {})
     return run, target
 
 
@@ -141,34 +137,30 @@ def test_formula_like_names_are_stored_as_strings(written: tuple[RunRecord, Path
 
 
 def test_requested_chart_is_embedded(written: tuple[RunRecord, Path]) -> None:
+    """The chart is drawn in the workbook as shapes (one group under the series' name), by the
+    report layer itself: no picture, no painter."""
     run, target = written
     book = openpyxl.load_workbook(target)
     assert "Charts" in book.sheetnames
     assert book["Charts"]["A1"].value == run.findings[0].name
     with zipfile.ZipFile(target) as archive:
-        media = [n for n in archive.namelist() if n.startswith("xl/media/")]
-        assert [archive.read(n) for n in media] == [tiny_png(40, 20)]
+        names = archive.namelist()
+        assert not [n for n in names if n.startswith("xl/media/")]
+        drawings = [n for n in names if n.startswith("xl/drawings/drawing")]
+        assert len(drawings) == 1
+        root = ElementTree.fromstring(archive.read(drawings[0]))
+    groups = root.findall(f"{XDR}oneCellAnchor/{XDR}grpSp")
+    assert len(groups) == 1
+    title = groups[0].find(f"{XDR}nvGrpSpPr/{XDR}cNvPr")
+    assert title is not None and title.get("name") == f"Chart of {run.findings[0].result.name}"
+    ids = [int(e.get("id", 0)) for e in root.iter(f"{XDR}cNvPr")]
+    assert len(set(ids)) == len(ids)  # every shape of the drawing part numbered once
 
 
 def test_no_chart_sheet_without_charts(tmp_path: Path) -> None:
     target = tmp_path / "plain.xlsx"
     export(target, make_run())
     assert "Charts" not in openpyxl.load_workbook(target).sheetnames
-
-
-def test_no_chart_sheet_without_a_painter(tmp_path: Path) -> None:
-    """Charts handed over but no painter registered (no Qt): the workbook is written
-    without pictures rather than failing."""
-    run = make_run()
-    plan = chart_plan.plan_chart(run.findings[0].result)
-    assert plan is not None
-    saved = list(chart_plan._PNG)
-    chart_plan._PNG.clear()
-    try:
-        export(tmp_path / "plain.xlsx", run, {run.findings[0].name: plan})
-    finally:
-        chart_plan._PNG[:] = saved
-    assert "Charts" not in openpyxl.load_workbook(tmp_path / "plain.xlsx").sheetnames
 
 
 @pytest.mark.parametrize("text", ["=1+1", "+1", "-1-1", "@A1", "\t=2", "=cmd|' /C calc'!A0"])

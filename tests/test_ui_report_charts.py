@@ -1,10 +1,12 @@
 """Charts in every report: made once per series as plain data (``report/chart_plan``, through
-``ui/report_charts.draw_charts``) and read back from the .xlsx (its PNG pictures), the .html
-(SVG drawings in data: URIs, parsed as XML) and the .pdf (its pages and the paths its content
-streams draw), written by the window and by ``tauscope batch`` alike.
+``ui/report_charts.draw_charts``) and read back from the .xlsx (its drawing part's shapes),
+the .html (SVG drawings in data: URIs, parsed as XML) and the .pdf (its pages and the paths
+its content streams draw), written by the window and by ``tauscope batch`` alike.
 
-PNG sizes are read from the IHDR chunk, the first chunk of every PNG, width and height as
-4-byte big-endian integers (W3C, PNG Specification, 2nd ed., §11.2.2).  SVG drawings are read
+The .xlsx's shapes are read with ElementTree (ECMA-376 Part 1: a group per chart, §20.5.2.17,
+its size in EMU, 9525 a pixel; each line shape's ``custGeom`` path, §20.1.9.15–16, in the path's
+own ``w`` × ``h`` units, and ``ln`` width, colour and dash; each text box's text).  SVG drawings
+are read
 with ElementTree (W3C, SVG 1.1, 2nd ed.: ``svg`` width and height §5.1.2, ``title`` §5.4,
 ``polyline`` points §9.6, ``text`` §10.4).  PDF pages are read from the file's objects: a page
 object has ``/Type /Page`` (ISO 32000-1:2008, §7.7.3.3), an image XObject ``/Subtype /Image``
@@ -20,7 +22,6 @@ import base64
 import posixpath
 import re
 import shutil
-import struct
 import subprocess
 import unicodedata
 import xml.etree.ElementTree as ElementTree
@@ -39,20 +40,25 @@ from conftest import simulated_series, write_workbook
 from tauscope.commands.batch import main
 from tauscope.report import RunRecord, export
 from tauscope.report.chart_plan import ACCENT, CHART_SIZE, LINE, ChartPlan, plan_chart
-from tauscope.ui.chart_paint import plan_to_png
-from tauscope.ui.chart_paint import png_size as plan_png_size
+from tauscope.ui.chart_paint import paint_plan
 from tauscope.ui.report_charts import DrawnCharts, draw_charts
 from test_report_record import _check_methods
 from test_report_support import make_run
 
-PNG_SIGNATURE = b"\x89PNG\r\n\x1a\n"
+EMU = 9525  # EMU in a pixel (a layout unit of the chart)
 
 
-def png_size(png: bytes) -> tuple[int, int]:
-    """Width and height from the IHDR chunk (PNG Specification §11.2.2)."""
-    assert png[:8] == PNG_SIGNATURE and png[12:16] == b"IHDR"
-    width, height = struct.unpack(">II", png[16:24])
-    return int(width), int(height)
+def painted(plan: ChartPlan) -> bytes:
+    """The plan painted by the PDF's painter onto an image of the chart's size: its pixels."""
+    from PySide6.QtGui import QImage, QPainter
+
+    image = QImage(round(plan.width), round(plan.height), QImage.Format.Format_RGB32)
+    painter = QPainter(image)
+    try:
+        paint_plan(painter, plan)
+    finally:
+        painter.end()
+    return bytes(image.constBits())
 
 
 class _Images(HTMLParser):
@@ -136,18 +142,19 @@ def _rels(book: zipfile.ZipFile, part: str) -> dict[str, str]:
 
 
 def xlsx_charts(path: Path) -> list[tuple[str, bytes]]:
-    """(the series name written above it, PNG) for every picture of the Charts sheet.
+    """(the series name written above it, its group shape as XML) for every chart of the
+    Charts sheet.
 
-    openpyxl reads a sheet's cells but drops its pictures unless Pillow is installed, so the
-    pictures are read from the package itself (ECMA-376 Part 1: the sheet's drawing part,
-    §20.5, each anchor's top-left cell and the media part its blip refers to), the name above
-    each with openpyxl."""
+    openpyxl reads a sheet's cells but not its shapes, so the drawing is read from the
+    package itself (ECMA-376 Part 1: the sheet's drawing part, §20.5, each anchor's top-left
+    cell), the name above each with openpyxl."""
     names = openpyxl.load_workbook(path).sheetnames
     if "Charts" not in names:
         return []
     cells = openpyxl.load_workbook(path)["Charts"]
     out = []
     with zipfile.ZipFile(path) as book:
+        assert not [n for n in book.namelist() if n.startswith("xl/media/")]  # no picture
         workbook = ElementTree.fromstring(book.read("xl/workbook.xml"))
         sheet_rid = next(s.get(f"{{{XLSX_NS['r']}}}id") for s in
                          workbook.iterfind("main:sheets/main:sheet", XLSX_NS)
@@ -157,15 +164,65 @@ def xlsx_charts(path: Path) -> list[tuple[str, bytes]]:
         drawing_rid = root.find("main:drawing", XLSX_NS)
         assert drawing_rid is not None
         drawing = _rels(book, sheet)[drawing_rid.get(f"{{{XLSX_NS['r']}}}id") or ""]
-        media = _rels(book, drawing)
         for anchor in ElementTree.fromstring(book.read(drawing)):
             row = anchor.find("xdr:from/xdr:row", XLSX_NS)
-            blip = anchor.find(".//a:blip", XLSX_NS)
-            assert row is not None and blip is not None
-            png = book.read(media[blip.get(f"{{{XLSX_NS['r']}}}embed") or ""])
-            # the anchor's row is 0-based: the 1-based row just above the picture, its title
-            out.append((str(cells.cell(row=int(row.text or 0), column=1).value), png))
+            group = anchor.find("xdr:grpSp", XLSX_NS)
+            assert row is not None and group is not None
+            # the anchor's row is 0-based: the 1-based row just above the chart, its title
+            out.append((str(cells.cell(row=int(row.text or 0), column=1).value),
+                        ElementTree.tostring(group)))
     return out
+
+
+def xlsx_marks(xml: bytes) -> tuple[tuple[float, float],
+                                    list[tuple[str, float, str, np.ndarray]], list[str]]:
+    """A chart's group read back: its size in pixels, every subpath as (colour, width in
+    pixels, dash, k × 2 points in pixels) in drawing order, and its texts in order."""
+    group = ElementTree.fromstring(xml)
+    ext = group.find("xdr:grpSpPr/a:xfrm/a:ext", XLSX_NS)
+    assert ext is not None
+    size = (int(ext.get("cx", 0)) / EMU, int(ext.get("cy", 0)) / EMU)
+    lines: list[tuple[str, float, str, np.ndarray]] = []
+    texts: list[str] = []
+    for shape in group.findall("xdr:sp", XLSX_NS):
+        box = shape.find("xdr:spPr/a:xfrm/a:ext", XLSX_NS)
+        line = shape.find("xdr:spPr/a:ln", XLSX_NS)
+        for path in shape.findall("xdr:spPr/a:custGeom/a:pathLst/a:path", XLSX_NS):
+            assert box is not None and line is not None
+            scale = np.array([int(box.get("cx", 0)) / int(path.get("w", 1)),
+                              int(box.get("cy", 0)) / int(path.get("h", 1))]) / EMU
+            colour = line.find("a:solidFill/a:srgbClr", XLSX_NS)
+            assert colour is not None
+            dash = "dash" if line.find("a:custDash", XLSX_NS) is not None else ""
+            points: list[list[float]] = []
+            for step in path:
+                point = step.find("a:pt", XLSX_NS)
+                assert point is not None
+                if step.tag.endswith("moveTo") and points:
+                    lines.append((f"#{colour.get('val', '').lower()}",
+                                  int(line.get("w", 0)) / EMU, dash, np.array(points) * scale))
+                    points = []
+                points.append([int(point.get("x", 0)), int(point.get("y", 0))])
+            if points:
+                lines.append((f"#{colour.get('val', '').lower()}", int(line.get("w", 0)) / EMU,
+                              dash, np.array(points) * scale))
+        texts += ["".join(t.text or "" for t in shape.iter(f"{{{XLSX_NS['a']}}}t"))
+                  for _body in shape.findall("xdr:txBody", XLSX_NS)]
+    return size, lines, texts
+
+
+def assert_draws(group: bytes, plan: ChartPlan) -> None:
+    """The group draws the plan: its size, each stroke (colour, width, dashed or not, every
+    point to the plan's hundredth of a pixel) in order, each label's text in order."""
+    size, lines, texts = xlsx_marks(group)
+    assert size == (plan.width, plan.height)
+    assert len(lines) == len(plan.strokes)
+    for (colour, width, dash, points), stroke in zip(lines, plan.strokes, strict=True):
+        assert (colour, dash != "") == (stroke.color.lower(), stroke.dash != "")
+        assert width == pytest.approx(stroke.width, abs=1 / EMU)
+        assert points.shape == stroke.points.shape
+        assert np.allclose(points, stroke.points, atol=0.005, rtol=0)
+    assert texts == [label.text for label in plan.labels]
 
 
 def pdf_objects(path: Path) -> tuple[int, list[tuple[int, int]]]:
@@ -253,16 +310,10 @@ def test_each_tested_series_gets_one_chart_of_the_fixed_size(
     with_values = [f for f in run.findings if f.result.values is not None]
     assert set(charts.charts) == {f.key for f in with_values}
     assert len(with_values) == 3  # the series too short to test carries no values: no chart
-    from PySide6.QtGui import QImage
-
     pictures = []
     for plan in charts.charts.values():
         assert (plan.width, plan.height) == CHART_SIZE
-        png = plan_to_png(plan)
-        assert png_size(png) == plan_png_size(plan)
-        decoded = QImage.fromData(png, "PNG")  # Qt's reader (libpng): a valid PNG file
-        assert (decoded.width(), decoded.height()) == plan_png_size(plan)
-        pictures.append(png)
+        pictures.append(painted(plan))
     assert len(set(pictures)) == len(pictures)  # each its own drawing
 
 
@@ -318,12 +369,12 @@ def test_the_drawing_does_not_depend_on_the_window_palette(
     run, charts = drawn
     app = QApplication.instance()
     assert isinstance(app, QApplication)
-    before_pictures = [plan_to_png(p) for p in charts.charts.values()]
+    before_pictures = [painted(p) for p in charts.charts.values()]
     before = app.palette()
     app.setPalette(dark_palette())
     try:
         again = draw_charts(run)
-        pictures = [plan_to_png(p) for p in again.charts.values()]
+        pictures = [painted(p) for p in again.charts.values()]
     finally:
         app.setPalette(before)
     assert list(again.charts) == list(charts.charts)
@@ -358,13 +409,11 @@ def test_xlsx_holds_each_chart_under_its_series_name(
     run, charts = drawn
     export(tmp_path / "f.xlsx", run, charts.charts)
     found = xlsx_charts(tmp_path / "f.xlsx")
-    assert [name for name, _png in found] == [f.name for f in run.findings
-                                             if f.key in charts.charts]
-    for finding, (_name, png) in zip((f for f in run.findings if f.key in charts.charts), found,
-                                     strict=True):
-        plan = charts.charts[finding.key or ""]
-        assert png == plan_to_png(plan)  # the picture itself, not re-encoded
-        assert png_size(png) == plan_png_size(plan)
+    assert [name for name, _group in found] == [f.name for f in run.findings
+                                               if f.key in charts.charts]
+    for finding, (_name, group) in zip((f for f in run.findings if f.key in charts.charts),
+                                       found, strict=True):
+        assert_draws(group, charts.charts[finding.key or ""])
 
 
 def test_html_embeds_each_chart_as_an_svg_data_uri(drawn: tuple[RunRecord, DrawnCharts],
@@ -440,17 +489,16 @@ def test_batch_reports_hold_every_chart_and_say_what_the_run_did(
     assert len(names) == 4
     xlsx = xlsx_charts(folder / "batch.xlsx")
     html = html_charts(folder / "batch.html")
-    assert [n for n, _png in xlsx] == names
+    assert [n for n, _group in xlsx] == names
     assert [h.split(". ", 1)[1] for h, _svg in html] == names
     # every format draws the one chart made for each series
     from tauscope.report.chart_svg import chart_svg
 
     plans = list(BATCH_PLANS[0].values())
     assert [p.name for p in plans] == names
-    assert [png for _n, png in xlsx] == [plan_to_png(p) for p in plans]
+    for (_n, group), plan in zip(xlsx, plans, strict=True):
+        assert_draws(group, plan)
     assert [svg for _h, svg in html] == [chart_svg(p).encode() for p in plans]
-    assert all(png_size(png) == plan_png_size(p) for (_n, png), p in zip(xlsx, plans,
-                                                                         strict=True))
     for item, (_h, svg) in zip(data["series"], html, strict=True):
         assert len(svg_curves(svg, LINE)[0]) == item["nobs"]  # the series, every observation
     pages, images = pdf_objects(folder / "batch.pdf")
@@ -511,7 +559,7 @@ def test_batch_no_charts_leaves_them_out(tmp_path: Path) -> None:
     assert main([str(source), "--no-charts", *[a for o in outs for a in ("--out", o)]]) == 0
     assert xlsx_charts(tmp_path / "bare.xlsx") == []
     with zipfile.ZipFile(tmp_path / "bare.xlsx") as book:
-        assert not [n for n in book.namelist() if n.startswith("xl/media/")]
+        assert not [n for n in book.namelist() if n.startswith(("xl/media/", "xl/drawings/"))]
     assert html_charts(tmp_path / "bare.html") == []
     assert pdf_objects(tmp_path / "bare.pdf")[1] == []
     assert pdf_curves(tmp_path / "bare.pdf") == []
@@ -538,7 +586,7 @@ def test_batch_goes_on_when_a_chart_fails(tmp_path: Path, monkeypatch: pytest.Mo
     assert (f"{failed[0]}: its chart could not be drawn (RuntimeError: no room to draw)"
             f" (left out of the reports)") in err
     assert len(html_charts(tmp_path / "f.html")) == 3
-    assert failed[0] not in [n for n, _png in xlsx_charts(tmp_path / "f.xlsx")]
+    assert failed[0] not in [n for n, _group in xlsx_charts(tmp_path / "f.xlsx")]
     assert len(xlsx_charts(tmp_path / "f.xlsx")) == 3
     assert len(pdf_curves(tmp_path / "f.pdf")) == 6  # two curves for each of three charts
 

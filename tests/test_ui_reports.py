@@ -42,8 +42,10 @@ def test_export_writes_every_format_through_the_report_writers(analysed, tmp_pat
     page = (tmp_path / "findings.html").read_text(encoding="utf-8")
     assert page.count("data:image/svg+xml;base64,") == len(results)  # one chart per series
     with zipfile.ZipFile(tmp_path / "findings.xlsx") as book:
-        images = [n for n in book.namelist() if n.startswith("xl/media/")]
-    assert len(images) == len(results)
+        drawing = ElementTree.fromstring(book.read("xl/drawings/drawing1.xml"))
+    charts = drawing.findall("{http://schemas.openxmlformats.org/drawingml/2006/"
+                             "spreadsheetDrawing}oneCellAnchor")
+    assert len(charts) == len(results)  # one chart (a group of shapes) per series
 
 
 def test_export_to_pdf_from_the_window(analysed, tmp_path):  # type: ignore[no-untyped-def]

@@ -62,7 +62,7 @@ def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> Ru
 
     Findings made with other settings than ``run.settings`` are never written as current:
     they move to the record's ``left_out`` (:meth:`RunRecord.current`), which every report
-    lists with a visible note.  ``charts``: optional PNG bytes per series (keyed by
+    lists with a visible note.  ``charts``: optional chart plans per series (keyed by
     ``Finding.key`` or series name), used by .xlsx, .html and .pdf.  Raises
     :class:`ExportError` with one sentence for an unknown suffix, a file that cannot be
     written, or a target that is one of the run's input files (never written over; see

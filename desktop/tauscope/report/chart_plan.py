@@ -6,8 +6,8 @@ below) or, when the verdict implies no path or the series could not be tested, t
 (the series and, below it, its first difference with a dotted zero line), the two views the
 window's Chart panel shows.  Every mark is already placed in layout units on a box of
 :data:`CHART_SIZE` (the HTML report's chart width), so each format only draws it: SVG in
-the .html (:mod:`.chart_svg`), QPainter vectors in the .pdf and a small PNG in the .xlsx
-(``tauscope.ui.chart_paint``, which registers itself with :func:`register_png_painter`).
+the .html (:mod:`.chart_svg`), QPainter vectors in the .pdf (``tauscope.ui.chart_paint``) and
+DrawingML shapes in the .xlsx (:mod:`.xlsx_chart`).
 
 Axis ticks are "nice" numbers, 1, 2 or 5 times a power of ten, about five per axis
 (Heckbert, 1990, "Nice numbers for graph labels", Graphics Gems); dated series have ticks on
@@ -20,7 +20,6 @@ room for the tick labels.
 from __future__ import annotations
 
 import math
-from collections.abc import Callable
 from dataclasses import dataclass
 
 import numpy as np
@@ -79,21 +78,6 @@ class ChartPlan:
             (a.color, a.width, a.dash) == (b.color, b.width, b.dash)
             and np.array_equal(a.points, b.points) for a, b in zip(self.strokes, other.strokes,
                                                                     strict=True))
-
-
-PngPainter = Callable[[ChartPlan], bytes]
-_PNG: list[PngPainter] = []
-
-
-def register_png_painter(painter: PngPainter) -> None:
-    """The function that turns a plan into PNG bytes (the .xlsx needs a picture); the Qt
-    layer registers it when imported."""
-    _PNG[:] = [painter]
-
-
-def plan_png(plan: ChartPlan) -> bytes | None:
-    """The plan as PNG bytes, or None when no painter is registered."""
-    return _PNG[0](plan) if _PNG else None
 
 
 def text_width(text: str, size: float) -> float:

@@ -7,6 +7,8 @@ from __future__ import annotations
 import base64
 from html import escape
 
+import numpy as np
+
 from tauscope.report.chart_plan import ChartPlan
 from tauscope.report.text_safety import html_text
 
@@ -14,8 +16,11 @@ FONTS = "'DejaVu Sans', 'Segoe UI', Arial, Helvetica, sans-serif"
 DASHES = {"": "", "dash": ' stroke-dasharray="6 3"', "dot": ' stroke-dasharray="1.5 2.5"'}
 
 
-def _points(points: object) -> str:
-    return " ".join(f"{x:g},{y:g}" for x, y in points.tolist())  # type: ignore[attr-defined]
+def _points(points: np.ndarray) -> str:
+    """"x,y x,y …", each number as ``:g`` writes it (a bound ``str.format`` mapped over the two
+    columns: about three times faster than a formatted string a point)."""
+    xs, ys = np.asarray(points, dtype=float).T.tolist()
+    return " ".join(map("{:g},{:g}".format, xs, ys))
 
 
 def chart_svg(plan: ChartPlan) -> str:

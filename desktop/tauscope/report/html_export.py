@@ -68,8 +68,19 @@ def data_uri(_index: int, plan: ChartPlan) -> str:
     return svg_data_uri(plan)
 
 
+_ESCAPED: dict[str, str] = {}
+"""Texts already made safe (a report repeats most of its cell texts: each is escaped once)."""
+
+
 def _esc(text: object) -> str:
-    return html.escape(html_text(str(text)), quote=True)
+    """``text`` safe in HTML: control characters as U+FFFD (:func:`html_text`), then escaped."""
+    key = str(text)
+    found = _ESCAPED.get(key)
+    if found is None:
+        if len(_ESCAPED) > 50_000:
+            _ESCAPED.clear()
+        found = _ESCAPED[key] = html.escape(html_text(key), quote=True)
+    return found
 
 
 def _format(value: Value, kind: str) -> str:

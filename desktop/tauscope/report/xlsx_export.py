@@ -7,8 +7,8 @@ Sheets:
 * "Decision path": each series' steps in order;
 * "About this run": program, version, date, settings, methods paragraph,
   and each source file with its SHA-256;
-* "Charts": each series' chart the caller supplied, drawn as a PNG picture by the painter
-  the Qt layer registers (``report.chart_plan.register_png_painter``), one block per series.
+* "Charts": each series' chart the caller supplied, drawn as vector shapes (lines and text
+  boxes, :mod:`.xlsx_chart`), one block per series under its name.
 
 The package is written by :mod:`.xlsx_package` (SpreadsheetML, ECMA-376), row by row as
 text: several times faster than building the cells as objects.  Every text cell is made
@@ -21,7 +21,7 @@ from __future__ import annotations
 from pathlib import Path
 
 from tauscope.report.atomic import write_bytes_atomic
-from tauscope.report.chart_plan import plan_png
+from tauscope.report.chart_plan import ChartPlan
 from tauscope.report.deciding import union_note
 from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
 from tauscope.report.run import Charts, RunRecord, chart_for
@@ -34,7 +34,8 @@ from tauscope.report.tables import (
     summary_table,
     tests_table,
 )
-from tauscope.report.xlsx_package import Book, Font, Format, Sheet, column_letter, png_size
+from tauscope.report.xlsx_chart import chart_shapes
+from tauscope.report.xlsx_package import Book, Font, Format, Sheet, column_letter
 
 NUMBER_FORMATS = {"stat": "0.000", "p": "0.000", "int": "0"}
 HEADER = Format(Font(bold=True, color="FFFFFF"), fill="2F5D62", bottom_border="1F3D40",
@@ -167,27 +168,23 @@ def _about(sheet: Sheet, run: RunRecord) -> None:
         _styled(sheet, [(None, None), (paragraph, WRAPPED)])
 
 
-def _charts(sheet: Sheet, pictures: list[tuple[str, bytes]]) -> None:
+def _charts(sheet: Sheet, plans: list[tuple[str, ChartPlan]]) -> None:
+    """Each chart below its series' name, on rows of the default 20 pixels."""
     row = 1
-    for name, png in pictures:
+    for name, plan in plans:
         sheet.skip_to(row)
         _styled(sheet, [(name, TITLE)])
-        width, height = png_size(png)
-        if width > 900:
-            width, height = 900, int(height * 900 / width)
-        sheet.picture(row + 1, png, width, height)
-        row += 2 + int(height / 20) + 1
+        sheet.anchor(chart_shapes(plan, row, sheet.shape_ids))
+        row += 2 + int(plan.height / 20) + 1
 
 
-def _pictures(run: RunRecord, charts: Charts | None) -> list[tuple[str, bytes]]:
-    """(series name, PNG) for each finding with a chart, drawn by the registered painter
-    (``tauscope.ui.chart_paint``); none without one."""
+def _plans(run: RunRecord, charts: Charts | None) -> list[tuple[str, ChartPlan]]:
+    """(series name, chart) for each finding with a chart, in the findings' order."""
     out = []
     for finding in run.findings:
         plan = chart_for(finding, charts)
-        png = plan_png(plan) if plan is not None else None
-        if png is not None:
-            out.append((finding.name, png))
+        if plan is not None:
+            out.append((finding.name, plan))
     return out
 
 
@@ -198,9 +195,9 @@ def run_to_xlsx(run: RunRecord, charts: Charts | None = None) -> bytes:
     _all_tests(book.sheet("All tests"), run)
     _paths(book.sheet("Decision path"), run)
     _about(book.sheet("About this run"), run)
-    pictures = _pictures(run, charts)
-    if pictures:
-        _charts(book.sheet("Charts"), pictures)
+    plans = _plans(run, charts)
+    if plans:
+        _charts(book.sheet("Charts"), plans)
     return book.package()
 
 

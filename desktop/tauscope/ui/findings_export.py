@@ -1,5 +1,5 @@
 """What the window hands to the report writers: the run record of the findings on
-screen, and each series' chart as PNG bytes.
+screen, and each series' chart as plain data (a chart plan).
 
 The charts are drawn by :mod:`tauscope.ui.report_charts`.  The writers themselves are
 ``tauscope.report`` 's (``export``): the window and ``tauscope batch --out`` write through

@@ -5,8 +5,8 @@
 (``tauscope.report.chart_plan.plan_chart``: the Fitted path view, or the Data view when the
 verdict implies no deterministic path or the series could not be tested, in the light
 colours of paper whatever the window's palette), which ``tauscope.report.export`` draws per
-format: SVG in the .html, QPainter vectors in the .pdf, a PNG picture in the .xlsx
-(:mod:`tauscope.ui.chart_paint`, imported here so that the .xlsx writer can draw it).  No
+format: SVG in the .html, QPainter vectors in the .pdf (:mod:`tauscope.ui.chart_paint`),
+DrawingML shapes in the .xlsx (``tauscope.report.xlsx_chart``).  No
 widget is made and nothing is drawn until a format asks, so it costs well under a
 millisecond a series and needs no display.
 
@@ -21,7 +21,6 @@ from collections.abc import Callable
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Protocol
 
-import tauscope.ui.chart_paint  # noqa: F401  (registers the .xlsx picture painter)
 from tauscope.report.chart_plan import ChartPlan, plan_chart
 from tauscope.report.run import RunRecord
 
