@@ -313,3 +313,18 @@ def test_findings_handed_over_unclean_are_cleaned_when_saved(tmp_path: Path) -> 
     saved = json.loads(path.read_text(encoding="utf-8"))["findings"][-1]
     assert saved == {"key": "k", "result": {"statistic": None, "values": [1.0, None]}}
     assert load_study(path).findings[:-1] == study.findings
+
+
+def test_compact_text_equals_one_call_and_still_refuses_non_finite_numbers() -> None:
+    """The study's text made finding by finding (so no single call holds the interpreter lock
+    for long), joined, is the very text of one json.dumps call on the whole."""
+    from tauscope.report.study_text import compact_dumps
+
+    data = {"format": "x", "findings": [{"key": "a", "v": [1.5, None, "é"]}, {"key": "b"}],
+            "tail": {"z": 1}}
+    one = json.dumps(data, ensure_ascii=False, allow_nan=False, separators=(",", ":")) + "\n"
+    assert "".join(compact_dumps(data)) == one
+    assert len(compact_dumps(data)) == 4  # the head, each finding, the tail: written in turn
+    assert compact_dumps({"findings": []}) == ['{"findings":[]}\n']
+    with pytest.raises(ValueError):  # save_study then cleans the findings and tries again
+        compact_dumps({"findings": [{"v": float("nan")}]})

@@ -136,3 +136,26 @@ def test_the_autosave_after_a_run_comes_in_a_turn_of_its_own(
     assert ended == [True] and parts.session.modified  # due at the end, not yet written
     qtbot.waitUntil(lambda: not studies.autosave_running(), timeout=10_000)
     assert target.is_file()
+
+
+def test_the_study_is_made_and_written_off_the_windows_thread(saved, monkeypatch):  # type: ignore[no-untyped-def]
+    """Saving makes the findings' JSON in a helper thread (seconds with a thousand findings),
+    the window's event loop running meanwhile; the file is whole when save returns."""
+    import threading
+
+    import tauscope.report.study as study_module
+
+    parts, studies, target = saved
+    threads: list[str] = []
+    original = study_module.save_study
+
+    def recording(path, study):  # type: ignore[no-untyped-def]
+        threads.append(threading.current_thread().name)
+        return original(path, study)
+
+    monkeypatch.setattr(study_module, "save_study", recording)
+    parts.session.set_modified(True)
+    assert studies.save_study()
+    assert threads and threads[0] != threading.main_thread().name
+    assert target.is_file() and not parts.session.modified
+    assert parts.status.text().startswith("Saved the study")

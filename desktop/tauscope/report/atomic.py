@@ -20,6 +20,7 @@ import re
 import stat
 import tempfile
 import time
+from collections.abc import Iterable
 from pathlib import Path
 
 NEW_FILE_MODE = 0o644
@@ -65,7 +66,8 @@ def remove_stale_temporaries(folder: Path | str, now: float | None = None) -> li
     return removed
 
 
-def write_bytes_atomic(path: Path, data: bytes) -> None:
+def write_bytes_atomic(path: Path, data: bytes | Iterable[bytes]) -> None:
+    """``data`` (or its pieces, written one after the other) as ``path``, whole or not at all."""
     path = Path(path)
     remove_stale_temporaries(path.parent)
     try:
@@ -76,7 +78,11 @@ def write_bytes_atomic(path: Path, data: bytes) -> None:
                                dir=path.parent)
     try:
         with os.fdopen(fd, "wb") as handle:
-            handle.write(data)
+            if isinstance(data, bytes):
+                handle.write(data)
+            else:
+                for piece in data:
+                    handle.write(piece)
             handle.flush()
             os.fsync(handle.fileno())
         os.chmod(tmp, mode)
@@ -86,5 +92,9 @@ def write_bytes_atomic(path: Path, data: bytes) -> None:
         raise
 
 
-def write_text_atomic(path: Path, text: str) -> None:
-    write_bytes_atomic(path, text.encode("utf-8"))
+def write_text_atomic(path: Path, text: str | Iterable[str]) -> None:
+    """``text`` (or its pieces, each encoded as it is written) as UTF-8."""
+    if isinstance(text, str):
+        write_bytes_atomic(path, text.encode("utf-8"))
+    else:
+        write_bytes_atomic(path, (piece.encode("utf-8") for piece in text))

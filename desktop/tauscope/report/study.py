@@ -29,6 +29,7 @@ from tauscope.report import study_check as check
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.json_export import json_clean
 from tauscope.report.run import RunRecord, SourceLike
+from tauscope.report.study_text import compact_dumps as _dumps
 from tauscope.report.study_text import ends_before_complete
 
 STUDY_FORMAT = "tauscope-study"
@@ -237,10 +238,6 @@ def save_study(path: Path | str, study: Study) -> Study:
         raise StudyError(f"The study {target.name} could not be saved in {target.parent} "
                          f"({exc.strerror or exc}); the previous version is unchanged.") from exc
     return stamped
-
-
-def _dumps(data: dict[str, Any]) -> str:
-    return json.dumps(data, ensure_ascii=False, allow_nan=False, separators=(",", ":")) + "\n"
 
 
 _CUT_SHORT = "it ends too early, as if it had been cut short"

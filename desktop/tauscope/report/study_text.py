@@ -1,4 +1,5 @@
-"""Telling a study whose text was cut short from one whose text was edited into bad JSON.
+"""A study's text: written compactly without holding the interpreter lock for long
+(:func:`compact_dumps`), and, read back, telling a text cut short from one edited into bad JSON.
 
 A file that stops part-way (a copy interrupted, a disk full) is a *prefix* of a
 valid JSON text: the decoder fails only because the text ran out.  That holds
@@ -11,6 +12,8 @@ from __future__ import annotations
 
 import json
 import re
+import uuid
+from typing import Any
 
 # What may be left at the point where the decoder gave up, when the text was only cut:
 # the start of a number or of one of the three literals.
@@ -40,3 +43,24 @@ def ends_before_complete(text: str, error: json.JSONDecodeError) -> bool:
         # The decoder points at the "u" (or its backslash) of the escape it could not finish.
         return _PARTIAL_ESCAPE.match(text, error.pos) is not None
     return _PARTIAL_TOKEN.match(tail) is not None
+
+
+def compact_dumps(data: dict[str, Any]) -> list[str]:
+    """Compact JSON in pieces, the findings encoded one call each: joined, the very text of one
+    ``json.dumps`` call on the whole (plus a newline).  json's C encoder holds the interpreter
+    lock for the length of a call, and a thousand findings (some 55 MB) in one call held it
+    for over a second, freezing the window while a helper thread saved the study; the pieces
+    are written one after the other, never joined (``atomic.write_text_atomic``)."""
+    findings = data.get("findings")
+    if not isinstance(findings, list) or not findings:
+        return [json.dumps(data, **_COMPACT) + "\n"]
+    marker = f"findings-{uuid.uuid4().hex}"  # a string no study holds
+    head, _, tail = json.dumps({**data, "findings": marker}, **_COMPACT).partition(json.dumps(marker))
+    pieces = [head + "["]
+    for number, finding in enumerate(findings):
+        pieces.append(("," if number else "") + json.dumps(finding, **_COMPACT))
+    pieces.append("]" + tail + "\n")
+    return pieces
+
+
+_COMPACT: dict[str, Any] = {"ensure_ascii": False, "allow_nan": False, "separators": (",", ":")}

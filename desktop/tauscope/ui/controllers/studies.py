@@ -18,6 +18,7 @@ from tauscope.ui.controllers.prompts import Prompts
 from tauscope.ui.controllers.runs import RunsController
 from tauscope.ui.controllers.session import Session
 from tauscope.ui.findings_panel import FindingsPanel
+from tauscope.ui.off_thread import wait_off_thread
 from tauscope.ui.series_panel import SeriesPanel
 from tauscope.ui.study_state import analysed_keys, build_study, check_study_sources
 
@@ -52,6 +53,7 @@ class StudiesController(QObject):
         self.files = files
         self.runs = runs
         self._autosave_thread: threading.Thread | None = None
+        self.saving = False  # a study is being written
         self.autosave_timer = QTimer(self)
         self.autosave_timer.setInterval(AUTOSAVE_MS)
         self.autosave_timer.timeout.connect(self.autosave)
@@ -94,12 +96,24 @@ class StudiesController(QObject):
         from tauscope.report.study import StudyError
         from tauscope.report.study import save_study as write_study
 
+        if self.saving:  # Ctrl+S again while the study is being written: one at a time
+            return False
         target = Path(path).resolve()
+        model = self.series_panel.model
+        parts = (self.session.settings, list(model.workbooks()), list(model.all_series()),
+                 dict(self.findings_panel.model.results()), dict(self.session.gap_handling))
+        # The findings as JSON (seconds with a thousand of them) are made and written in a
+        # helper thread; the window keeps answering meanwhile.
+        self.status.setText(f"Saving the study {target.name}…")
+        self.saving = True
         try:
-            write_study(target, self.current_study())
+            wait_off_thread(lambda: write_study(target, build_study(*parts)))
         except StudyError as exc:
+            self.status.setText("")
             self.prompts.tell(str(exc), title="The study was not saved")
             return False
+        finally:
+            self.saving = False
         self.discard_autosave()  # the autosave of the study as it was called before
         self._set_study_path(target)
         self.discard_autosave()
