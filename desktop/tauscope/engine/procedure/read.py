@@ -66,8 +66,9 @@ def read(checked: CrossCheck, options: ReadOptions) -> Reading:
         status = capped_agreement(status, breaks)
     else:
         status, strategy_notes = _classic_capped(status, checked)
-        strategy_notes += [n for n in [volatility_note(checked.variance, decision.strategy,
-                                                       prepared.label)] if n]
+        volatility = volatility_note(checked.variance, decision.strategy, prepared.label)
+        if volatility:
+            strategy_notes.append(volatility)
     sequence_verdict = build_verdict(order, deterministic, order != 0, status, options.alpha,
                                      options.max_difference)
     sequence_verdict = replace(sequence_verdict, strategy=decision.strategy)

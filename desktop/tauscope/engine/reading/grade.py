@@ -74,6 +74,7 @@ class Grade:
 # The reason a change in the shocks' size (κ2) gives for withholding "confirmed".
 VARIANCE_CHANGED = "the size of the shocks changes over the sample"
 
+
 def seasonal_root_reason(roots: Sequence[str]) -> str:
     """Why a seasonal unit root keeps the grade down, in plain words."""
     which = ", ".join(roots)

@@ -23,7 +23,12 @@ from tauscope.ui.series_panel import SeriesPanel
 from tauscope.ui.study_state import analysed_keys, build_study, check_study_sources
 
 if TYPE_CHECKING:
-    from tauscope.data import SeriesData
+    from tauscope.data import SeriesData, Workbook
+    from tauscope.engine import SeriesResult, Settings
+
+    # settings, workbooks, every series, the findings by key, the gap handling by key
+    _StudyParts = tuple[Settings, list[Workbook], list[SeriesData], dict[str, SeriesResult],
+                        dict[str, str]]
 
 STUDY_FILTER = f"Tauscope studies (*{STUDY_SUFFIX});;All files (*)"
 AUTOSAVE_MS = 120_000
@@ -64,10 +69,12 @@ class StudiesController(QObject):
         files.study_requested.connect(self.open_study)
         runs.ended.connect(self.autosave_soon)
 
-    def current_study(self) -> Study:
+    def _study_parts(self) -> _StudyParts:
+        """What :func:`build_study` makes a study from, taken now on the window's thread (copies,
+        so a helper thread can build and write it while the window goes on)."""
         model = self.series_panel.model
-        return build_study(self.session.settings, model.workbooks(), model.all_series(),
-                           self.findings_panel.model.results(), self.session.gap_handling)
+        return (self.session.settings, list(model.workbooks()), list(model.all_series()),
+                dict(self.findings_panel.model.results()), dict(self.session.gap_handling))
 
     def _set_study_path(self, path: Path | None) -> None:
         store.set_value(store.KEY_LAST_STUDY, str(path) if path is not None else "")
@@ -99,9 +106,7 @@ class StudiesController(QObject):
         if self.saving:  # Ctrl+S again while the study is being written: one at a time
             return False
         target = Path(path).resolve()
-        model = self.series_panel.model
-        parts = (self.session.settings, list(model.workbooks()), list(model.all_series()),
-                 dict(self.findings_panel.model.results()), dict(self.session.gap_handling))
+        parts = self._study_parts()
         # The findings as JSON (seconds with a thousand of them) are made and written in a
         # helper thread; the window keeps answering meanwhile.
         self.status.setText(f"Saving the study {target.name}…")
@@ -215,9 +220,7 @@ class StudiesController(QObject):
             if not wait:
                 return None  # the one under way is recent enough
             self._autosave_thread.join()
-        model = self.series_panel.model
-        parts = (self.session.settings, model.workbooks(), model.all_series(),
-                 self.findings_panel.model.results(), dict(self.session.gap_handling))
+        parts = self._study_parts()
         study_path, folder = self.session.study_path, store.data_folder()
 
         def write() -> None:
