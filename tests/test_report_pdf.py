@@ -16,7 +16,7 @@ from typing import Any
 import pytest
 
 from tauscope.report.html_export import run_to_html
-from tauscope.ui.pdf_pages import Unit, cut_pages
+from tauscope.report.pdf_pages import Unit, cut_pages
 from test_report_support import make_run
 
 DEMO = Path(__file__).resolve().parents[1] / "resources" / "demo" / "harbourline_demo.xlsx"

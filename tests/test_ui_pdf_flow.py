@@ -7,7 +7,7 @@ from typing import Any
 
 import pytest
 
-from tauscope.ui.pdf_pages import cut_pages
+from tauscope.report.pdf_pages import cut_pages
 
 WORDS = ("the null hypothesis of a unit root is not rejected at the five percent level "
          "in the levels, but it is rejected in the first difference ") * 6

@@ -3,9 +3,9 @@
 The report is laid out once as one long column ``WIDTH`` units wide: paragraphs wrapped into
 lines, tables row by row, charts.  Each line, table row and chart becomes
 
-* a :class:`~tauscope.ui.pdf_pages.Unit`, the stretch that must stay on one page (a heading is
+* a :class:`~tauscope.report.pdf_pages.Unit`, the stretch that must stay on one page (a heading is
   one unit with what follows it, a table's header row is marked to be repeated), from which
-  :func:`~tauscope.ui.pdf_pages.cut_pages` chooses the page breaks; and
+  :func:`~tauscope.report.pdf_pages.cut_pages` chooses the page breaks; and
 * a :class:`Piece`, which draws that stretch at its place in the column.
 
 Text is measured with the font's metrics and wrapped with ``QTextLayout`` only where a line is
@@ -35,7 +35,7 @@ from PySide6.QtGui import (
 from tauscope.report.chart_plan import ChartPlan
 from tauscope.report.text_safety import pdf_text
 from tauscope.ui.chart_paint import paint_plan
-from tauscope.ui.pdf_pages import Unit
+from tauscope.report.pdf_pages import Unit
 
 WIDTH = 1000.0
 FAMILIES = ["Segoe UI", "Helvetica Neue", "Arial", "DejaVu Sans", "sans-serif"]

@@ -3,7 +3,7 @@
 The report says what the HTML report says, in the same order (title, run, summary table, one
 section per series with its decision path, chart and reading, methods, references); it is
 laid out by :mod:`tauscope.ui.pdf_flow` (lines, table rows and charts, measured with the
-fonts' metrics) and cut into pages by :func:`tauscope.ui.pdf_pages.cut_pages`, so no table row,
+fonts' metrics) and cut into pages by :func:`tauscope.report.pdf_pages.cut_pages`, so no table row,
 line or chart is split and a table running onto a new page repeats its header.  Laying the
 report out as a rich-text document and drawing that page by page cost about four times as
 much (``benchmarks/batch_writers.py``).
@@ -162,7 +162,7 @@ def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
     from PySide6.QtGui import QPageLayout, QPageSize, QPainter, QPdfWriter
 
     from tauscope.ui.pdf_flow import WIDTH, draw_slice
-    from tauscope.ui.pdf_pages import cut_pages
+    from tauscope.report.pdf_pages import cut_pages
 
     flow = layout_report(run, charts)
     data = QByteArray()
