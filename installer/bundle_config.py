@@ -25,7 +25,7 @@ MAX_BUNDLE_MB = 250.0
 
 # Resource folders copied into the bundle (at <bundle root>/resources/<name>), and the
 # files inside them that are build tools rather than things the program reads.
-RESOURCE_FOLDERS = ("demo", "guide", "icons")
+RESOURCE_FOLDERS = ("demo", "fonts", "guide", "icons")
 RESOURCE_SKIP = ("*.py", "__pycache__", "*.pyc", "README.md")
 
 # Standard-library modules left out although Python imports them when present: every

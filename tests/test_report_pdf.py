@@ -175,3 +175,57 @@ def test_summary_kpss_cell_gives_each_difference_its_own_line() -> None:
         items = cell.split("<br>")
         assert len(items) == len(kpss)
         assert all(" " not in item for item in items)  # no break inside one item
+
+
+# --- the report's own PDF writer ------------------------------------------------------------
+
+def _renamed(name: str) -> Any:
+    import dataclasses
+
+    run = make_run()
+    first = run.findings[0]
+    finding = dataclasses.replace(first, result=dataclasses.replace(first.result, name=name))
+    return dataclasses.replace(run, findings=(finding, *run.findings[1:]))
+
+
+def test_every_cross_reference_points_at_its_object() -> None:
+    """ISO 32000-1, 7.5.4: entry n of the table gives the byte offset of "n 0 obj"."""
+    from tauscope.report.pdf_direct import run_to_pdf_direct
+
+    data = run_to_pdf_direct(make_run())
+    start = int(data.rsplit(b"startxref", 1)[1].split()[0])
+    assert data[start:start + 4] == b"xref"
+    lines = data[start:].split(b"\n")
+    first, count = map(int, lines[1].split())
+    assert first == 0 and count > 10
+    for number, entry in enumerate(lines[2:2 + count]):
+        if number == 0:
+            assert entry.endswith(b"f ")
+            continue
+        offset = int(entry[:10])
+        assert data[offset:offset + len(b"%d 0 obj" % number)] == b"%d 0 obj" % number
+    assert b"/Size %d" % count in data
+
+
+@poppler
+def test_the_fonts_are_embedded_subsets_and_the_text_reads_back(tmp_path: Path) -> None:
+    from tauscope.report.pdf_direct import run_to_pdf_direct
+
+    name = "Índice de precios (Δ² log) – ΦτκΣ"
+    path = tmp_path / "direct.pdf"
+    path.write_bytes(run_to_pdf_direct(_renamed(name)))
+    fonts = subprocess.run(["pdffonts", str(path)], capture_output=True, text=True, check=True,
+                           timeout=60).stdout.splitlines()[2:]
+    assert len(fonts) == 3
+    for line in fonts:  # name, type (two words), encoding, then emb, sub, uni: all "yes"
+        assert "CID TrueType" in line and line.split()[-5:-2] == ["yes", "yes", "yes"]
+    text = subprocess.run(["pdftotext", "-f", "1", "-l", "3", str(path), "-"],
+                          capture_output=True, text=True, check=True, timeout=60).stdout
+    assert name in unicodedata.normalize("NFC", text)
+
+
+def test_a_character_the_bundled_font_lacks_is_reported() -> None:
+    from tauscope.report.pdf_direct import MissingGlyphs, run_to_pdf_direct
+
+    with pytest.raises(MissingGlyphs, match="国"):
+        run_to_pdf_direct(_renamed("国内総生産"))

@@ -57,8 +57,10 @@ def test_bundled_demo_passes_from_the_command_line() -> None:
     expected = json.loads(DEMO_EXPECTED.read_text(encoding="utf-8"))
     count = sum(len(series) for series in expected.values())
     ok_lines = [line for line in done.stdout.splitlines() if line.startswith("ok ")]
-    assert len(ok_lines) == count + 1  # every series, then the analysis process's check
-    assert ok_lines[-1].startswith("ok   analysis process (3 series): the same results")
+    assert len(ok_lines) == count + 2  # every series, the analysis process, the PDF's fonts
+    assert ok_lines[-2].startswith("ok   analysis process (3 series): the same results")
+    assert ok_lines[-1].startswith("ok   PDF report in the bundled font: ")
+    assert f"self-test passed ({count} series," in done.stdout
     for sheet, series in expected.items():
         for name, want in series.items():
             line = next(line for line in ok_lines if f"{sheet} / {name}:" in line)
@@ -225,3 +227,19 @@ def test_an_expected_error_is_accepted_only_when_the_analysis_fails() -> None:
     assert selftest.check_series("S / x", failed, {"error": True}).problems == ()
     assert selftest.check_series("S / x", good_result(), {"error": True}).problems == (
         "S / x: expected the analysis to fail, but it gave a verdict",)
+
+
+def test_the_pdf_check_fails_when_the_bundled_fonts_are_missing(monkeypatch: Any) -> None:
+    """A bundle without resources/fonts would write every PDF through Qt: the self-test says
+    so instead of passing."""
+    from tauscope.commands import selftest
+    from tauscope.report import pdf_direct
+
+    monkeypatch.setattr(pdf_direct, "resource_path", lambda *parts: None)
+    pdf_direct.bundled_fonts.cache_clear()
+    try:
+        check = selftest.report_check([])
+    finally:
+        pdf_direct.bundled_fonts.cache_clear()
+    assert check.line.startswith("FAIL PDF report in the bundled font: ")
+    assert "DejaVuSans.ttf" in check.line and check.problems

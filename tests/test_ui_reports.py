@@ -154,3 +154,23 @@ def test_export_is_written_while_the_window_keeps_answering(analysed, tmp_path, 
     assert analysed.export_findings(tmp_path / "findings.json")
     assert ticked.is_set() and again == [False]
     assert (tmp_path / "findings.json").is_file() and not (tmp_path / "other.json").exists()
+
+
+def test_a_report_the_bundled_font_cannot_write_goes_through_qt(tmp_path):  # type: ignore[no-untyped-def]
+    """A series named in a script DejaVu Sans lacks: the report's own writer refuses it, and
+    the ".pdf" writer draws the same layout through Qt instead (whose fonts fall back)."""
+    import dataclasses
+
+    from tauscope.report import export
+    from tauscope.ui import pdf_report  # noqa: F401  (registers ".pdf")
+    from test_report_support import make_run
+
+    run = make_run()
+    first = run.findings[0]
+    renamed = dataclasses.replace(first, result=dataclasses.replace(first.result, name="国内総生産"))
+    export(tmp_path / "qt.pdf", dataclasses.replace(run, findings=(renamed, *run.findings[1:])))
+    export(tmp_path / "own.pdf", run)
+    qt, own = (tmp_path / "qt.pdf").read_bytes(), (tmp_path / "own.pdf").read_bytes()
+    assert qt.startswith(b"%PDF-") and own.startswith(b"%PDF-")
+    assert b"/Producer (Tauscope" in own and b"/Producer (Tauscope" not in qt
+    assert b"/Producer" in qt

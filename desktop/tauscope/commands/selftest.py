@@ -20,7 +20,8 @@ checks that
 and that every expected series was found.  Then the first few series that gave a verdict
 are analysed again in the analysis process the window uses (a child process:
 ``commands/selftest_process.py``), which must give the same results; in a frozen bundle this
-checks that the bundle can start that process.  Prints one line per series, then
+checks that the bundle can start that process; and the same findings are written as a PDF
+by the report's own writer, which checks that the bundle holds its fonts.  Prints one line per series, then
 ``self-test passed`` (exit 0) or ``self-test FAILED: ...`` (exit 1).  A workbook
 that cannot be read is a failure with one clear line, never a traceback.
 """
@@ -83,7 +84,9 @@ def main(argv: list[str]) -> int:
     except SelfTestError as exc:
         print(f"self-test FAILED: {exc}")
         return 1
+    series_count = len(checks)
     checks.append(process_check(analysed[:PROCESS_SERIES]))
+    checks.append(report_check(analysed[:PROCESS_SERIES]))
     problems = [problem for check in checks for problem in check.problems]
     if not args.quiet:
         for check in checks:
@@ -92,7 +95,7 @@ def main(argv: list[str]) -> int:
     if problems:
         print(f"self-test FAILED: {len(problems)} problem(s): " + "; ".join(problems))
         return 1
-    print(f"self-test passed ({len(checks) - 1} series, {elapsed:.1f} s)")
+    print(f"self-test passed ({series_count} series, {elapsed:.1f} s)")
     return 0
 
 
@@ -182,6 +185,25 @@ def process_check(analysed: list[Analysed]) -> SeriesCheck:
         return SeriesCheck(f"FAIL {label}: " + "; ".join(problems),
                            tuple(f"{label}: {p}" for p in problems))
     return SeriesCheck(f"ok   {label}: the same results as in this process", ())
+
+
+def report_check(analysed: list[Analysed]) -> SeriesCheck:
+    """``analysed``'s findings written as a PDF by the report's own writer: its bundled fonts
+    are found and read (without them every PDF would go through Qt, slowly), or one problem
+    line."""
+    from tauscope.engine import Settings
+    from tauscope.report import Finding, RunRecord
+    from tauscope.report.pdf_direct import MissingGlyphs, run_to_pdf_direct
+
+    label = "PDF report in the bundled font"
+    run = RunRecord(Settings(), (), tuple(Finding(result) for _, _, result in analysed))
+    try:
+        data = run_to_pdf_direct(run)
+    except MissingGlyphs as exc:
+        return SeriesCheck(f"FAIL {label}: {exc}", (f"{label}: {exc}",))
+    if not data.startswith(b"%PDF-") or b"/FontFile2" not in data:
+        return SeriesCheck(f"FAIL {label}: not a PDF with its fonts", (f"{label}: no fonts",))
+    return SeriesCheck(f"ok   {label}: {len(data) // 1024} KB", ())
 
 
 def check_series(label: str, result: dict[str, Any], want: dict[str, Any] | None,

@@ -6,8 +6,9 @@ below) or, when the verdict implies no path or the series could not be tested, t
 (the series and, below it, its first difference with a dotted zero line), the two views the
 window's Chart panel shows.  Every mark is already placed in layout units on a box of
 :data:`CHART_SIZE` (the HTML report's chart width), so each format only draws it: SVG in
-the .html (:mod:`.chart_svg`), QPainter vectors in the .pdf (``tauscope.ui.chart_paint``) and
-DrawingML shapes in the .xlsx (:mod:`.xlsx_chart`).
+the .html (:mod:`.chart_svg`), PDF paths in the .pdf (:mod:`.pdf_direct`; QPainter vectors,
+``tauscope.ui.chart_paint``, when the report goes through Qt) and DrawingML shapes in the
+.xlsx (:mod:`.xlsx_chart`).
 
 Axis ticks are "nice" numbers, 1, 2 or 5 times a power of ten, about five per axis
 (Heckbert, 1990, "Nice numbers for graph labels", Graphics Gems); dated series have ticks on

@@ -1,7 +1,7 @@
 """A :class:`~tauscope.report.chart_plan.ChartPlan` as DrawingML shapes for the .xlsx.
 
 The chart is drawn in the workbook as vectors, mark by mark as the plan places them, the
-way the .html (SVG) and the .pdf (QPainter paths) draw it: one group shape per chart
+way the .html (SVG) and the .pdf (PDF paths) draw it: one group shape per chart
 (ECMA-376, 5th ed., Part 1: §20.5.2.17 ``grpSp`` in a drawing part), holding
 
 * a white rectangle, the chart's box (§20.1.10.56 ``prstGeom`` "rect");

@@ -1,170 +1,163 @@
-"""PDF findings drawn with QPainter straight onto Qt's PDF writer (QPdfWriter).
+"""The ``.pdf`` writer: the report's own PDF writer, or Qt's when the bundled font lacks a
+character of the report.
 
-The report says what the HTML report says, in the same order (title, run, summary table, one
-section per series with its decision path, chart and reading, methods, references); it is
-laid out by :mod:`tauscope.ui.pdf_flow` (lines, table rows and charts, measured with the
-fonts' metrics) and cut into pages by :func:`tauscope.report.pdf_pages.cut_pages`, so no table row,
-line or chart is split and a table running onto a new page repeats its header.  Laying the
-report out as a rich-text document and drawing that page by page cost about four times as
-much (``benchmarks/batch_writers.py``).
+The report is laid out once (:func:`tauscope.report.pdf_layout.layout_report`) and cut into
+pages where nothing is split (:func:`tauscope.report.pdf_pages.cut_pages`).  It is written by
+:func:`tauscope.report.pdf_direct.run_to_pdf_direct` (no Qt, the bundled DejaVu Sans) unless
+that raises :class:`~tauscope.report.pdf_direct.MissingGlyphs` (a series named in a script
+the font does not cover, say); then the same layout is drawn with QPainter on Qt's PDF writer
+(QPdfWriter), whose fonts fall back to any the system has for the character.
 
-Lives in ``ui/`` because it needs Qt ("Qt only in ui/").  Importing this module
+Lives in ``ui/`` because the second route needs Qt ("Qt only in ui/").  Importing this module
 registers the ``.pdf`` writer with :func:`tauscope.report.register_writer`, so
-``tauscope.report.export`` (window and ``tauscope batch``) writes PDF too.
-PySide6 is imported inside the functions: importing the module does not load Qt.
-Without a running Qt application (the command line), an offscreen one is
-started for the fonts and images (:mod:`tauscope.ui.headless`).
+``tauscope.report.export`` (window and ``tauscope batch``) writes PDF too.  PySide6 is
+imported only when Qt's route is taken; without a running Qt application (the command line),
+an offscreen one is started then (:mod:`tauscope.ui.headless`).
 """
 
 from __future__ import annotations
 
+from collections.abc import Sequence
 from pathlib import Path
 from typing import TYPE_CHECKING
 
 from tauscope.report import register_writer
 from tauscope.report.atomic import write_bytes_atomic
-from tauscope.report.html_export import (
-    CHART_WIDTH,
-    ONE_LINE_EACH,
-    PATH_WIDTHS,
-    SUMMARY_WIDTHS,
-    _format,
-    _merge_markers,
-    _origin,
-    meta_line,
-    sources_line,
-    summary_note,
-)
-from tauscope.report.methods import left_out_note, methods_for
-from tauscope.report.run import Charts, RunRecord, chart_for
-from tauscope.report.tables import Table, Value, compact_table, path_table
-from tauscope.report.text_safety import pdf_text
+from tauscope.report.pdf_direct import MissingGlyphs, run_to_pdf_direct
+from tauscope.report.pdf_flow import WIDTH, draw_page, pixels
+from tauscope.report.pdf_layout import layout_report
+from tauscope.report.pdf_pages import cut_pages
+from tauscope.report.run import Charts, RunRecord
 
 if TYPE_CHECKING:
-    from tauscope.ui.pdf_flow import Column, Flow
+    from PySide6.QtGui import QFont, QFontMetricsF, QGlyphRun, QPainter
+
+    from tauscope.report.chart_plan import ChartPlan
+    from tauscope.report.pdf_flow import Style
 
 PAGE_MARGIN_MM = 18.0
 RESOLUTION_DPI = 300
+FAMILIES = ["Segoe UI", "Helvetica Neue", "Arial", "DejaVu Sans", "sans-serif"]
 
 
-class _Styles:
-    """The report's type, as in the HTML report's style sheet (sizes in points)."""
+class QtFace:
+    """A QFont at ``size`` pixels, measured with its metrics."""
 
-    def __init__(self) -> None:
-        from tauscope.ui.pdf_flow import Style, font
+    def __init__(self, size: int, bold: bool, italic: bool) -> None:
+        from PySide6.QtGui import QFont, QFontMetricsF
 
-        teal = "#2f5d62"
-        self.h1 = Style(font(18, bold=True), teal)
-        self.h2 = Style(font(14, bold=True), teal)
-        self.h3 = Style(font(12, bold=True))
-        self.h4 = Style(font(10.5, bold=True))
-        self.body = Style(font(10.5))
-        self.meta = Style(font(10.5), "#55606a")
-        self.left_out = Style(font(10.5, bold=True), "#8a3b12")
-        self.note = Style(font(9, italic=True), "#55606a")
-        self.verdict = Style(font(11.5, bold=True), teal)
-        self.cell = Style(font(9.5), line_height=1.2)
-        self.head = Style(font(9, bold=True), "#ffffff", line_height=1.2)
+        self.font: QFont = QFont()
+        self.font.setFamilies(FAMILIES)
+        self.font.setPixelSize(size)
+        self.font.setBold(bold)
+        self.font.setItalic(italic)
+        self.metrics: QFontMetricsF = QFontMetricsF(self.font)
+        self.key = "qt:" + self.font.key()
+        self.ascent = self.metrics.ascent()
+        self.height = self.metrics.height()
+        self.shaped: dict[str, tuple[float, tuple[QGlyphRun, ...]]] = {}
+        """Lines already shaped in this face, by text; kept with the face, which one report
+        makes and drops, never across reports: a glyph run holds the font of the thread that
+        shaped it, and the window writes each export in a thread of its own."""
+        self.seen: set[str] = set()
+        """Lines drawn once in this face and not shaped (yet)."""
 
-
-def _text(table: Table, index: int, value: Value) -> str:
-    column = table.columns[index]
-    text = pdf_text(_format(value, column.kind))
-    if column.ident in ONE_LINE_EACH:  # one item a line, never broken inside
-        return "\n".join(item.replace(" ", "\u00a0") for item in text.split("; "))
-    return text
+    def advance(self, text: str) -> float:
+        return self.metrics.horizontalAdvance(text)
 
 
-def _table(flow: Flow, styles: _Styles, table: Table, widths: dict[str, int],
-           note_column: str | None = None) -> None:
-    """The table as the HTML report shows it: ``widths`` in percent by column, the others
-    sharing what is left; ``note_column`` shown only where it has text, across the
-    statistics of its row."""
-    from tauscope.ui.pdf_flow import Column
+class QtCanvas:
+    """The layout drawn with ``painter``; a line of text met again in the report is drawn
+    from the glyph runs kept from its first shaping (shaping costs about half of what
+    drawing a line of text on the PDF writer does)."""
 
-    note = next((i for i, c in enumerate(table.columns) if c.ident == note_column), None)
-    shown = [i for i in range(len(table.columns)) if i != note]
-    fixed = sum(widths.get(table.columns[i].ident, 0) for i in shown)
-    free = [i for i in shown if table.columns[i].ident not in widths]
-    rest = max(100 - fixed, 0) / len(free) if free else 0.0
-    columns: list[Column] = [
-        Column(table.columns[i].header, widths.get(table.columns[i].ident, rest) / 100,
-               table.columns[i].kind in ("stat", "p", "int"))
-        for i in shown]
-    first_stat = next((k for k, i in enumerate(shown)
-                       if table.columns[i].kind in ("stat", "p")), len(shown))
-    rows = []
-    for row in table.rows:
-        if note is not None and row[note]:
-            cells = [(_text(table, i, row[i]), 1) for i in shown[:first_stat]]
-            cells.append((pdf_text(str(row[note])), len(shown) - first_stat))
-        else:
-            cells = [(_text(table, i, row[i]), 1) for i in shown]
-        rows.append(cells)
-    flow.table(columns, rows, styles.head, styles.cell, fill="#2f5d62", line="#d5dfe0")
+    def __init__(self, painter: QPainter) -> None:
+        self.painter = painter
 
+    def text(self, x: float, baseline: float, text: str, style: Style) -> None:
+        from PySide6.QtCore import QPointF
+        from PySide6.QtGui import QColor, QTextLayout
 
-def layout_report(run: RunRecord, charts: Charts | None = None) -> Flow:
-    """The whole report laid out in one long column."""
-    from tauscope.ui.pdf_flow import Flow
+        face = style.face
+        assert isinstance(face, QtFace)
+        painter = self.painter
+        painter.setFont(face.font)
+        painter.setPen(QColor(style.color))
+        shaped = face.shaped.get(text)
+        if shaped is None:
+            if text not in face.seen:  # drawn once so far: shaping to keep would cost more
+                face.seen.add(text)
+                painter.drawText(QPointF(x, baseline), text)
+                return
+            layout = QTextLayout(text, face.font)
+            layout.beginLayout()
+            line = layout.createLine()
+            layout.endLayout()
+            shaped = face.shaped[text] = (line.ascent() if line.isValid() else 0.0,
+                                          tuple(layout.glyphRuns()))
+        ascent, runs = shaped
+        origin = QPointF(x, baseline - ascent)
+        for run in runs:
+            painter.drawGlyphRun(origin, run)
 
-    styles = _Styles()
-    flow = Flow()
-    flow.paragraph("Order of integration: findings", styles.h1, after=4)
-    flow.paragraph(meta_line(run), styles.meta, after=2)
-    sources = sources_line(run)
-    if sources:
-        flow.paragraph(f"Data: {sources}", styles.meta, after=2)
-    left = left_out_note(run)
-    if left is not None:
-        flow.paragraph(left, styles.left_out)
-    _heading2(flow, styles, "Summary")
-    _table(flow, styles, _merge_markers(compact_table(run)), SUMMARY_WIDTHS, note_column="error")
-    flow.paragraph(summary_note(run), styles.note)
-    _heading2(flow, styles, "Series")
-    for number, finding in enumerate(run.findings, start=1):
-        result = finding.result
-        flow.paragraph(f"{number}. {finding.name}", styles.h3, before=14, after=2, heading=True)
-        flow.paragraph(_origin(finding), styles.meta, after=2)
-        flow.paragraph(result.verdict.label, styles.verdict, after=4)
-        if not result.ok:
-            flow.paragraph(result.error or "", styles.body)
-            continue
-        flow.paragraph("Decision path", styles.h4, before=4, after=2, heading=True)
-        _table(flow, styles, path_table(result), PATH_WIDTHS)
-        plan = chart_for(finding, charts)
-        if plan is not None:
-            flow.paragraph("Chart", styles.h4, before=4, after=2, heading=True)
-            flow.drawing(plan, CHART_WIDTH)
-        flow.paragraph("Reading", styles.h4, before=4, after=2, heading=True)
-        for note in result.notes:
-            flow.paragraph(note, styles.body)
-    methods = methods_for(run)
-    _heading2(flow, styles, "Methods")
-    for paragraph in methods.paragraphs:
-        flow.paragraph(paragraph, styles.body)
-    flow.paragraph("References", styles.h3, before=10, after=4, heading=True)
-    for number, reference in enumerate(methods.references, start=1):
-        flow.paragraph(f"{number}. {reference}", styles.body, indent=12, after=3)
-    return flow
+    def texts(self, placed: Sequence[tuple[float, float, str]], style: Style) -> None:
+        for x, baseline, text in placed:
+            self.text(x, baseline, text, style)
 
+    def fill_rect(self, x: float, y: float, width: float, height: float, color: str) -> None:
+        from PySide6.QtCore import QRectF
+        from PySide6.QtGui import QColor
 
-def _heading2(flow: Flow, styles: _Styles, text: str) -> None:
-    flow.paragraph(text, styles.h2, before=18, after=8, heading=True, rule="#9fb8ba")
+        self.painter.fillRect(QRectF(x, y, width, height), QColor(color))
+
+    def line(self, x1: float, y1: float, x2: float, y2: float, color: str) -> None:
+        from PySide6.QtCore import QPointF
+        from PySide6.QtGui import QColor
+
+        self.painter.setPen(QColor(color))
+        self.painter.drawLine(QPointF(x1, y1), QPointF(x2, y2))
+
+    def chart(self, plan: ChartPlan, top: float, scale: float) -> None:
+        from tauscope.ui.chart_paint import paint_plan
+
+        self.painter.save()
+        self.painter.translate(0, top)
+        self.painter.scale(scale, scale)
+        paint_plan(self.painter, plan)
+        self.painter.restore()
+
+    def save(self) -> None:
+        self.painter.save()
+
+    def restore(self) -> None:
+        self.painter.restore()
+
+    def translate(self, dx: float, dy: float) -> None:
+        self.painter.translate(dx, dy)
+
+    def clip(self, x: float, y: float, width: float, height: float) -> None:
+        from PySide6.QtCore import QRectF
+
+        self.painter.setClipRect(QRectF(x, y, width, height))
 
 
-def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
-    """The report on A4 pages, as PDF bytes."""
+def run_to_pdf_qt(run: RunRecord, charts: Charts | None = None) -> bytes:
+    """The report on A4 pages drawn through Qt, as PDF bytes."""
     from tauscope.ui.headless import ensure_application
 
     ensure_application()
     from PySide6.QtCore import QBuffer, QByteArray, QIODevice, QMarginsF
     from PySide6.QtGui import QPageLayout, QPageSize, QPainter, QPdfWriter
 
-    from tauscope.ui.pdf_flow import WIDTH, draw_slice
-    from tauscope.report.pdf_pages import cut_pages
+    faces: dict[tuple[int, bool, bool], QtFace] = {}
 
-    flow = layout_report(run, charts)
+    def font(points: float, bold: bool = False, italic: bool = False) -> QtFace:
+        key = (pixels(points), bold, italic)
+        if key not in faces:
+            faces[key] = QtFace(*key)
+        return faces[key]
+
+    flow = layout_report(run, charts, font)
     data = QByteArray()
     buffer = QBuffer(data)
     buffer.open(QIODevice.OpenModeFlag.WriteOnly)
@@ -184,24 +177,28 @@ def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
     pages = cut_pages(flow.units, flow.y, paint.height() / scale)
     tops = [piece.top for piece in flow.pieces]
     painter = QPainter(writer)
+    canvas = QtCanvas(painter)
     try:
         for number, page in enumerate(pages):
             if number:
                 writer.newPage()
             painter.save()
             painter.scale(scale, scale)
-            if page.header_height > 0:
-                painter.save()
-                painter.translate(0, -page.header_top)
-                draw_slice(painter, flow.pieces, tops, page.header_top, page.header_bottom)
-                painter.restore()
-            painter.translate(0, page.header_height - page.top)
-            draw_slice(painter, flow.pieces, tops, page.top, page.bottom)
+            draw_page(canvas, flow, tops, page)
             painter.restore()
     finally:
         painter.end()
     buffer.close()
     return bytes(data.data())
+
+
+def run_to_pdf(run: RunRecord, charts: Charts | None = None) -> bytes:
+    """The report as PDF bytes: the report's own writer, or Qt's when that cannot write a
+    character of it."""
+    try:
+        return run_to_pdf_direct(run, charts)
+    except MissingGlyphs:
+        return run_to_pdf_qt(run, charts)
 
 
 def write_pdf(path: Path, run: RunRecord, charts: Charts | None = None) -> None:

@@ -5,7 +5,8 @@
 (``tauscope.report.chart_plan.plan_chart``: the Fitted path view, or the Data view when the
 verdict implies no deterministic path or the series could not be tested, in the light
 colours of paper whatever the window's palette), which ``tauscope.report.export`` draws per
-format: SVG in the .html, QPainter vectors in the .pdf (:mod:`tauscope.ui.chart_paint`),
+format: SVG in the .html, PDF paths in the .pdf (``tauscope.report.pdf_direct``, or
+QPainter vectors, :mod:`tauscope.ui.chart_paint`, when the report goes through Qt),
 DrawingML shapes in the .xlsx (``tauscope.report.xlsx_chart``).  No
 widget is made and nothing is drawn until a format asks, so it costs well under a
 millisecond a series and needs no display.

@@ -1,5 +1,6 @@
-"""The PDF report's layout (tauscope.ui.pdf_flow): wrapping, headings kept with what follows,
-table rows as units that page cutting never splits, header rows marked for repeating."""
+"""The PDF report's layout (tauscope.report.pdf_flow): wrapping, headings kept with what
+follows, table rows as units that page cutting never splits, header rows marked for
+repeating.  Measured in the bundled font (no Qt)."""
 
 from __future__ import annotations
 
@@ -13,11 +14,25 @@ WORDS = ("the null hypothesis of a unit root is not rejected at the five percent
          "in the levels, but it is rejected in the first difference ") * 6
 
 
-@pytest.fixture
-def flow_module(qapp: Any) -> Any:
-    from tauscope.ui import pdf_flow
+class _Module:
+    """The flow module with a ``font(points, bold=False)`` in the bundled font."""
 
-    return pdf_flow
+    def __init__(self) -> None:
+        from tauscope.report import pdf_flow
+        from tauscope.report.pdf_direct import DirectFace, bundled_fonts
+
+        self.__dict__.update(vars(pdf_flow))
+        fonts = bundled_fonts()
+
+        def font(points: float, bold: bool = False) -> DirectFace:
+            return DirectFace(int(bold), fonts[int(bold)], pdf_flow.pixels(points))
+
+        self.font = font
+
+
+@pytest.fixture
+def flow_module() -> Any:
+    return _Module()
 
 
 def test_wrap_keeps_every_word_in_order_and_each_line_within_its_room(flow_module: Any) -> None:
@@ -33,7 +48,7 @@ def test_wrap_breaks_at_line_feeds_and_never_at_a_no_break_space(flow_module: An
     glued = "0.256***\u00a0(levels)"
     lines = flow_module.wrap(f"{glued}\n0.160\u00a0(Δy)", style, 1000.0)
     assert [line.text for line in lines] == [glued, "0.160\u00a0(Δy)"]
-    narrow = flow_module.wrap("a " + glued, style, style.metrics.horizontalAdvance(glued) + 1)
+    narrow = flow_module.wrap("a " + glued, style, style.face.advance(glued) + 1)
     assert [line.text for line in narrow] == ["a", glued]
 
 
