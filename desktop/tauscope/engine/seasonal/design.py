@@ -190,7 +190,10 @@ def build(
     rows = np.arange(start, n)
     windows = np.lib.stride_tricks.sliding_window_view(y, period, axis=1)
     lagged = windows[:, rows - period, ::-1]  # [y_{t−1}, …, y_{t−S}]
-    regressors = (lagged.reshape(-1, period) @ coefficients(period).T).reshape(lagged.shape)
+    # One product per series (a stack of m × S matrices), not one over all R·m rows: in a
+    # single product a row's bits depend on where BLAS's blocking puts it, so a series would
+    # not get the same regressors alone as in a batch on every processor.
+    regressors = np.ascontiguousarray(lagged) @ coefficients(period).T
     dependent = y[:, rows] - y[:, rows - period]
     seasonal_diff = y[:, period:] - y[:, :-period]  # index t − S
     # Δ_S y_{t−i} for i = 1 … p, one gather: (R, m, p)
