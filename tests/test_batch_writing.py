@@ -52,6 +52,19 @@ def test_writers_one_per_idle_core_from_enough_series_or_as_asked() -> None:
     assert writer_count(6, 500, 0) == 1
 
 
+def test_the_batch_does_not_count_its_own_work_as_load(monkeypatch: pytest.MonkeyPatch) -> None:
+    """On 2 cores, a load average of 1 is the batch itself (measured: 1.06 after a run of
+    its own): both cores write; a load of 3 leaves none for a helper."""
+    from tauscope.commands import batch_writing
+
+    monkeypatch.setattr(batch_writing.os, "cpu_count", lambda: 2)
+    assert batch_writing.idle_cores(1.06) > 1.9
+    assert writer_count(6, 500, None, idle=batch_writing.idle_cores(1.06)) == 2
+    assert batch_writing.idle_cores(3.0) == 0.0
+    assert writer_count(6, 500, None, idle=batch_writing.idle_cores(3.0)) == 1
+    assert batch_writing.idle_cores(0.0) == 2.0
+
+
 def test_helpers_write_the_same_files_as_one_writer(tmp_path: Path) -> None:
     source = _workbook(tmp_path)
     texts: dict[str, list[str]] = {}
