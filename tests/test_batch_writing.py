@@ -38,8 +38,9 @@ def _without_time(path: Path) -> str:
 def test_shares_put_the_largest_first_each_to_the_least_loaded() -> None:
     targets = ["a.tex", "a.csv", "a.html", "a.json", "a.xlsx", "a.pdf"]
     assert plan_shares(targets, 1) == [["a.pdf", "a.json", "a.xlsx", "a.html", "a.csv", "a.tex"]]
-    # the PDF costs more than all the others together: it is a share of its own
-    assert plan_shares(targets, 2) == [["a.pdf"], ["a.json", "a.xlsx", "a.html", "a.csv", "a.tex"]]
+    # the PDF costs most: first, so always in this process's share (Qt, which it may need,
+    # is never started in a forked copy); then each to the least loaded
+    assert plan_shares(targets, 2) == [["a.pdf", "a.html", "a.csv", "a.tex"], ["a.json", "a.xlsx"]]
     assert plan_shares(["a.json"], 4) == [["a.json"], [], [], []]
 
 
@@ -65,7 +66,14 @@ def test_the_batch_does_not_count_its_own_work_as_load(monkeypatch: pytest.Monke
     assert batch_writing.idle_cores(0.0) == 2.0
 
 
-def test_helpers_write_the_same_files_as_one_writer(tmp_path: Path) -> None:
+@pytest.mark.parametrize("start", ["fork", "spawn"])
+def test_helpers_write_the_same_files_as_one_writer(tmp_path: Path, start: str,
+                                                     monkeypatch: pytest.MonkeyPatch) -> None:
+    from tauscope.commands import batch_writing
+
+    if start not in batch_writing.multiprocessing.get_all_start_methods():
+        pytest.skip(f"no {start} here")
+    monkeypatch.setattr(batch_writing, "START", start)
     source = _workbook(tmp_path)
     texts: dict[str, list[str]] = {}
     for jobs in ("1", "3"):
@@ -98,13 +106,34 @@ def test_files_a_lost_helper_did_not_write_are_written_here(tmp_path: Path) -> N
     run = RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
                     (Finding(result),))
     targets = [str(tmp_path / "a.json"), str(tmp_path / "b.csv")]
-    writers = Writers(targets, series=1, jobs=2)
+    writers = Writers(targets, series=1, jobs=2, start="spawn")
     assert len(writers.helpers) == 1
     helper = writers.helpers[0]
     helper.process.kill()
     helper.process.join(30)
     assert writers.write(run, None) == []
     assert writers.helpers == []
+    assert json.loads((tmp_path / "a.json").read_text(encoding="utf-8"))["series"][0]["name"] == (
+        "Noise")
+    assert (tmp_path / "b.csv").read_text(encoding="utf-8").lstrip("\ufeff").startswith("series,")
+
+
+def test_files_a_lost_forked_helper_did_not_write_are_written_here(
+        tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    from tauscope.commands import batch_writing
+
+    if "fork" not in batch_writing.multiprocessing.get_all_start_methods():
+        pytest.skip("no fork here")
+    rng = np.random.default_rng(3)
+    result = analyse_series(rng.normal(size=40), Settings(max_difference=0), "Noise")
+    run = RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
+                    (Finding(result),))
+    targets = [str(tmp_path / "a.json"), str(tmp_path / "b.csv")]
+    # the copy ends before it writes or answers anything (copied with this stand-in)
+    monkeypatch.setattr(batch_writing, "_write_share", lambda *args: batch_writing.os._exit(3))
+    writers = Writers(targets, series=1, jobs=2, start="fork")
+    assert writers.helpers == []  # none until the findings are ready
+    assert writers.write(run, None) == []
     assert json.loads((tmp_path / "a.json").read_text(encoding="utf-8"))["series"][0]["name"] == (
         "Noise")
     assert (tmp_path / "b.csv").read_text(encoding="utf-8").lstrip("\ufeff").startswith("series,")
