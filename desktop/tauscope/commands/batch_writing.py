@@ -108,12 +108,7 @@ def serve(conn: Connection, suffixes: Sequence[str]) -> None:
         return  # the batch needed no help after all
     with collector_paused():  # many objects, no cycles: the collector's passes cost 3/4 here
         run, charts = pickle.loads(payload)
-    for target in targets:
-        failed = write_here([target], run, charts)
-        try:
-            conn.send((target, failed.get(target)))
-        except OSError:
-            return
+    _write_share(conn, targets, run, charts)
 
 
 def _serve_then_end(conn: Connection, suffixes: Sequence[str]) -> None:
@@ -183,9 +178,10 @@ started with the analysis ("spawn": macOS's system libraries and Windows allow n
 
 def _write_share(conn: Connection, targets: Sequence[str], run: RunRecord,
                  charts: Charts | None) -> None:
-    """A forked helper: write ``targets`` from the run it was copied with, answering as
-    :func:`serve` does.  It ends without the interpreter's tidying up (``multiprocessing``
-    ends a forked child so)."""
+    """Write each of ``targets`` and answer ``(target, None)`` when written or ``(target,
+    sentence)`` when not, one message each: a spawned helper once it has the run
+    (:func:`serve`), a forked one (which ends without the interpreter's tidying up:
+    ``multiprocessing`` ends a forked child so) from the run it was copied with."""
     import signal
 
     signal.signal(signal.SIGINT, signal.SIG_IGN)  # Ctrl+C is the batch's to handle
