@@ -15,8 +15,9 @@ alternating, ``--rounds`` times each:
 - writing every format with ``--no-charts``;
 - writing every format, charts drawn, with ``--jobs 1``: every file written in this process,
   one after the other (by default batch shares the files out among helper processes, one
-  per idle core, from 100 series on: ``tauscope.commands.batch_writing``; on a machine whose
-  load average leaves no core idle it writes as ``--jobs 1`` does, and the two runs agree).
+  per idle core, from 100 series on: ``tauscope.commands.batch_writing``, copies of this
+  process on Linux; on a machine whose load average leaves no core idle besides the batch's
+  own it writes as ``--jobs 1`` does, and the two runs agree).
 
 and prints the best time of each and their ratios to writing nothing (the target of issue 15
 is at most 2), in wall time and in CPU time: this process's and its helper processes' (the
@@ -26,8 +27,7 @@ and as the .xlsx's shapes) and each format alone through ``tauscope.report.expor
 charts (best of ``--rounds``), in milliseconds per series, with the file's size.
 
 A first small run writing every format (charts included) comes before the timed ones, so that
-imports and Qt's start (the PDF writer starts an offscreen application) are not
-counted; its time is printed.  Nothing here is a pass/fail threshold.
+imports (and the fonts' first reading) are not counted; its time is printed.  Nothing here is a pass/fail threshold.
 """
 
 from __future__ import annotations
@@ -137,7 +137,7 @@ def main() -> int:
         every = [arg for target in outputs for arg in ("--out", target)]
 
         warm = batch([str(small), *[a.replace("findings", "small-findings") for a in every]])
-        print(f"warm-up: 10 series, every format, imports and Qt's start included: {warm:.2f} s")
+        print(f"warm-up: 10 series, every format, imports included: {warm:.2f} s")
 
         nothing: list[float] = []
         everything: list[float] = []
