@@ -224,8 +224,23 @@ def test_the_fonts_are_embedded_subsets_and_the_text_reads_back(tmp_path: Path) 
     assert name in unicodedata.normalize("NFC", text)
 
 
-def test_a_character_the_bundled_font_lacks_is_reported() -> None:
+@pytest.mark.parametrize("name", ["国内総生産", "שלום עולם", "الناتج المحلي", "मुद्रास्फीति",
+                                  "x\u202ey"])
+def test_text_this_writer_cannot_set_is_reported(name: str) -> None:
+    """A character the bundled font lacks (Chinese), or text that needs shaping: written right
+    to left and joined (Hebrew, Arabic, whose letters DejaVu Sans has), reordered (Devanagari),
+    or a direction override; Qt's route writes such a report."""
     from tauscope.report.pdf_direct import MissingGlyphs, run_to_pdf_direct
 
-    with pytest.raises(MissingGlyphs, match="国"):
-        run_to_pdf_direct(_renamed("国内総生産"))
+    with pytest.raises(MissingGlyphs, match="cannot set"):
+        run_to_pdf_direct(_renamed(name))
+
+
+def test_a_tab_in_a_chart_title_is_written_as_a_space() -> None:
+    from tauscope.report.chart_plan import ChartPlan, Label
+    from tauscope.report.pdf_direct import run_to_pdf_direct
+
+    run = _renamed("Output\tgap")
+    plan = ChartPlan("Output\tgap", 620.0, 300.0, (), (Label(310.0, 20.0, "Output\tgap", 15.0),))
+    data = run_to_pdf_direct(run, {run.findings[0].name: plan})
+    assert data.startswith(b"%PDF-")

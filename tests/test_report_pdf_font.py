@@ -41,6 +41,7 @@ def test_glyphs_and_advances_match_qt(font_pair: tuple[TrueTypeFont, Any]) -> No
     assert advances == [float(ours.advances[g]) for g in glyphs]  # em = units per em
     assert ours.metrics.ascent == round(reference.ascent())
     assert -ours.metrics.descent == round(reference.descent())
+    assert ours.metrics.cap_height == round(reference.capHeight())  # OS/2 v1: the "H"'s top
 
 
 def test_a_subset_keeps_the_used_outlines_and_empties_the_rest(

@@ -35,6 +35,7 @@ import os
 import pickle
 import sys
 import threading
+import time
 from collections.abc import Sequence
 from contextlib import suppress
 from dataclasses import dataclass, field
@@ -140,18 +141,21 @@ def plan_shares(targets: Sequence[str], writers: int) -> list[list[str]]:
     return shares
 
 
-def idle_cores(load: float | None = None) -> float:
+def idle_cores(load: float | None = None, own: float | None = None) -> float:
     """Cores no other process is waiting for: the core count less the load average over the
-    last minute (``load``, else the system's), less this process's own share of it (at most
-    one core: the batch itself has been busy reading, and a core it analyses on becomes a
-    writer's when it writes); all cores where the system gives no load average."""
+    last minute (``load``, else the system's) less this process's own part of it (``own``,
+    else its CPU seconds so far over 60, at most one core: a batch run in a long-lived
+    process, as the benchmarks do, counts itself in the load; a fresh ``tauscope batch`` has
+    hardly started); all cores where the system gives no load average."""
     cores = os.cpu_count() or 1
     try:
         if load is None:
             load = os.getloadavg()[0]
     except (AttributeError, OSError):  # no load average (Windows)
         return float(cores)
-    return max(0.0, cores - max(0.0, load - 1.0))
+    if own is None:
+        own = min(1.0, time.process_time() / 60.0)
+    return max(0.0, cores - max(0.0, load - own))
 
 
 def writer_count(targets: int, series: int, jobs: int | None,
@@ -193,6 +197,16 @@ def _write_share(conn: Connection, targets: Sequence[str], run: RunRecord,
             return
 
 
+def _forked(ours: Sequence[Connection], conn: Connection, targets: Sequence[str],
+            run: RunRecord, charts: Charts | None) -> None:
+    """A forked helper: close the copies of this process's ends of the helpers' pipes first
+    (so that when the batch closes them, on Ctrl+C say, the helper's next answer fails and
+    it stops), then :func:`_write_share`."""
+    for end in ours:
+        end.close()
+    _write_share(conn, targets, run, charts)
+
+
 class Writers:
     """The writers of one batch: this process and, when worth it, helper processes (see the
     module's text and :data:`START`).  ``jobs``: how many writers at most (None: one per
@@ -204,8 +218,12 @@ class Writers:
         self.shares = plan_shares(self.targets, writer_count(len(self.targets), series, jobs))
         self.start = start or START
         self.helpers: list[_Helper] = []
-        if self.start == "fork":
-            return  # copied when the findings are ready (write)
+        if self.start == "fork":  # copied when the findings are ready (write)
+            # every .pdf written here: Qt, which a report may need, never starts in a copy
+            pdfs = [t for share in self.shares[1:] for t in share if t.lower().endswith(".pdf")]
+            self.shares = [self.shares[0] + pdfs,
+                           *([t for t in share if t not in pdfs] for share in self.shares[1:])]
+            return
         for share in self.shares[1:]:
             helper = self._start(share)
             if helper is None:  # cannot start: this process writes that share too
@@ -217,7 +235,8 @@ class Writers:
         try:
             context = multiprocessing.get_context("fork")
             here, there = context.Pipe(duplex=True)
-            process = context.Process(target=_write_share, args=(there, share, run, charts),
+            ours = [here, *(helper.conn for helper in self.helpers)]
+            process = context.Process(target=_forked, args=(ours, there, share, run, charts),
                                       name="tauscope-writer", daemon=True)
             process.start()
             there.close()

@@ -9,13 +9,15 @@ places every glyph on its own; with no shaping and no font look-up the report co
 fraction of what it costs through Qt (``benchmarks/batch_writers.py``).
 
 The bundled font covers Latin, Greek, Cyrillic and the symbols the report uses, not every
-script a series' name may be written in: a report holding a character the font lacks raises
-:class:`MissingGlyphs`, and ``tauscope.ui.pdf_report`` then writes it through Qt, which finds
-a system font for it.
+script a series' name may be written in, and this writer does not shape text: a report holding
+a character the font lacks, or one of a script written right to left or whose letters join
+(:func:`writable`), raises :class:`MissingGlyphs`, and ``tauscope.ui.pdf_report`` then writes
+it through Qt, which shapes it and finds a system font for it.
 """
 
 from __future__ import annotations
 
+import unicodedata
 from collections.abc import Sequence
 from functools import lru_cache
 from typing import NamedTuple
@@ -26,6 +28,7 @@ from tauscope.report.pdf_flow import WIDTH, Style, draw_page, pixels
 from tauscope.report.pdf_layout import layout_report
 from tauscope.report.pdf_pages import cut_pages
 from tauscope.report.run import Charts, RunRecord
+from tauscope.report.text_safety import pdf_text
 from tauscope.report.ttf import FontError, TrueTypeFont
 from tauscope.resources_path import resource_path
 
@@ -63,6 +66,27 @@ def _char_widths(font: TrueTypeFont) -> dict[str, int]:
 
 
 _ESCAPED = {ord("("): "\\(", ord(")"): "\\)", ord("\\"): "\\\\", ord("\r"): "\\r"}
+
+
+_BIDI_NOT_LEFT_TO_RIGHT = {"R", "AL", "AN", "RLE", "RLO", "RLI", "FSI", "LRE", "LRO", "PDF", "LRI",
+                          "PDI"}
+_SHAPED_SCRIPTS = ((0x0590, 0x08FF), (0x0900, 0x0DFF), (0x0E00, 0x0FFF), (0x1000, 0x109F),
+                   (0x1780, 0x18AF), (0xFB1D, 0xFDFF), (0xFE70, 0xFEFF))
+"""Hebrew, Arabic, Syriac, Thaana, N'Ko; the Indic scripts; Thai, Lao, Tibetan; Myanmar;
+Khmer, Mongolian; Hebrew and Arabic presentation forms."""
+
+
+@lru_cache(maxsize=3)
+def writable(font: TrueTypeFont) -> frozenset[str]:
+    """The characters this writer can set in ``font``: those it has a glyph for, less those
+    that need more than one glyph a character at its advance, left to right: right-to-left
+    text and its direction marks (Unicode Standard Annex #9) and scripts whose letters join
+    or reorder (Hebrew and Arabic, the Indic scripts, Thai, Lao, Tibetan, Myanmar, Khmer,
+    Mongolian).  Text with any other character goes through Qt, which shapes it."""
+    return frozenset(
+        char for char in _char_widths(font)
+        if unicodedata.bidirectional(char) not in _BIDI_NOT_LEFT_TO_RIGHT
+        and not any(low <= ord(char) <= high for low, high in _SHAPED_SCRIPTS))
 
 
 @lru_cache(maxsize=3)
@@ -121,7 +145,7 @@ class DirectCanvas:
         self.missing: set[str] = set()
         self._codes: list[dict[str, str]] = [{} for _ in pdf.fonts]
         self._tables = [_glyph_codes(font) for font in pdf.fonts]
-        self._covered = [frozenset(_char_widths(font)) for font in pdf.fonts]
+        self._covered = [writable(font) for font in pdf.fonts]
         self._ops: list[str] = []
         self._state = _NO_STATE
         self._stack: list[_State] = []
@@ -138,7 +162,8 @@ class DirectCanvas:
         font lacks (found at the first such page: the rest is not drawn)."""
         if self.missing:
             shown = "".join(sorted(self.missing))[:20]
-            raise MissingGlyphs(f"the report's font has no glyph for {shown!r}")
+            raise MissingGlyphs(f"this writer cannot set {shown!r} (the font has no glyph for "
+                                "it, or it needs shaping)")
         self.pdf.add_page("".join(self._ops))
 
     def _fill(self, color: str) -> None:
@@ -212,11 +237,12 @@ class DirectCanvas:
             self._ops.append(path.replace(" l\n", " m\n", 1) + "S\n")
         for label in plan.labels:
             face = self._label_face(round(label.size))
+            text = pdf_text(label.text)  # a name typed in the window may hold a tab
             x = label.x
             if label.anchor != "start":
-                advance = face.advance(label.text)
+                advance = face.advance(text)
                 x -= advance if label.anchor == "end" else advance / 2
-            self.text(x, label.y, label.text, Style(face, label.color))
+            self.text(x, label.y, text, Style(face, label.color))
         self.restore()
 
     def _label_face(self, size: int) -> DirectFace:

@@ -11,6 +11,7 @@ read back; a document information dictionary (§14.3.3); a cross-reference table
 
 from __future__ import annotations
 
+import hashlib
 import zlib
 from collections.abc import Sequence
 
@@ -75,11 +76,13 @@ class PdfFile:
                 text_of.setdefault(glyph, char)
         metrics = font.metrics
         scale = 1000 / metrics.units_per_em
-        tag = "".join(chr(65 + (index * 7 + k * 3) % 26) for k in range(6))  # a subset's tag
+        digest = hashlib.sha256(f"{font.name}:{sorted(text_of)}".encode()).digest()
+        tag = "".join(chr(65 + byte % 26) for byte in digest[:6])  # the subset's (§9.6.4)
         name = f"{tag}+{font.name}"
         widths = " ".join(f"{g} [{round(font.advances[g] * scale)}]" for g in sorted(text_of))
         box = " ".join(str(round(v * scale)) for v in metrics.bbox)
-        flags = 32 + (64 if metrics.italic_angle else 0)  # nonsymbolic, italic (§9.8.2)
+        # symbolic (characters beyond the standard Latin set), italic: §9.8.2
+        flags = 4 + (64 if metrics.italic_angle else 0)
         out.put(first, f"<< /Type /Font /Subtype /Type0 /BaseFont /{name} /Encoding /Identity-H "
                        f"/DescendantFonts [{first + 1} 0 R] /ToUnicode {first + 4} 0 R >>")
         out.put(first + 1, f"<< /Type /Font /Subtype /CIDFontType2 /BaseFont /{name} "

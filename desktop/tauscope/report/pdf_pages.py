@@ -3,7 +3,7 @@
 Qt's own paging (``QTextDocument.print_``) moves a table row to the next page
 line by line, so one step of a decision path can start at the foot of a page
 and end at the head of the next.  Here the report is laid out once as one
-long page (:mod:`tauscope.ui.pdf_flow`), and the cuts are chosen by hand:
+long page (:mod:`tauscope.report.pdf_flow`), and the cuts are chosen by hand:
 
 * a *unit* is a stretch of the page that must stay whole: a table row (all its
   cells), a line of text, a line holding a chart; a heading is one unit with

@@ -63,17 +63,28 @@ class TrueTypeFont:
             metric_count = struct.unpack(">H", hhea[34:36])[0]
             self.glyph_count = struct.unpack(">H", self._table(b"maxp")[4:6])[0]
             italic = struct.unpack(">i", self._table(b"post")[4:8])[0] / 65536
-            os2 = self._tables.get(b"OS/2")
-            cap = ascent
-            if os2 is not None and struct.unpack(">H", data[os2[0]:os2[0] + 2])[0] >= 2:
-                cap = struct.unpack(">h", data[os2[0] + 88:os2[0] + 90])[0]
-            self.metrics = Metrics(units, ascent, descent, cap, (box[0], box[1], box[2], box[3]),
-                                   italic)
             self.advances = self._advances(metric_count)
             self.glyphs = self._cmap()
+            self.metrics = Metrics(units, ascent, descent, self._cap_height(ascent),
+                                   (box[0], box[1], box[2], box[3]), italic)
         except (KeyError, struct.error, IndexError) as exc:
             raise FontError(f"{name}: not a TrueType font this reader understands "
                             f"({type(exc).__name__}: {exc})") from exc
+
+    def _cap_height(self, fallback: int) -> int:
+        """The height of capital letters: OS/2's ``sCapHeight`` (version 2 on), else the top
+        of the glyph "H" (its ``yMax`` in ``glyf``), else ``fallback``."""
+        os2 = self._tables.get(b"OS/2")
+        if os2 is not None and struct.unpack(">H", self.data[os2[0]:os2[0] + 2])[0] >= 2:
+            return int(struct.unpack(">h", self.data[os2[0] + 88:os2[0] + 90])[0])
+        glyph = self.glyphs.get(ord("H"))
+        if glyph is None:
+            return fallback
+        locations = self._locations()
+        start = self._tables[b"glyf"][0] + locations[glyph]
+        if locations[glyph + 1] - locations[glyph] < 10:
+            return fallback
+        return int(struct.unpack(">h", self.data[start + 8:start + 10])[0])
 
     @classmethod
     def from_file(cls, path: Path, name: str) -> TrueTypeFont:
