@@ -31,7 +31,6 @@ from __future__ import annotations
 
 import argparse
 import dataclasses
-import os
 import sys
 from collections.abc import Mapping, Sequence
 from pathlib import Path
@@ -210,10 +209,9 @@ def _analyse_and_write(args: argparse.Namespace, workbook: Workbook, chosen: lis
 
 def draw_report_charts(run: RunRecord, series: Mapping[str, SeriesData]) -> tuple[Charts, str]:
     """Each finding's chart, made as the window's export makes it
-    (``tauscope.ui.report_charts``; the formats draw it on Qt's offscreen platform, no display
-    needed), and one sentence on any chart that could not be made ("" when all were): such a
-    chart is left out, the reports are still written."""
-    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    (``tauscope.ui.report_charts``: plain data, which each format draws; no display needed),
+    and one sentence on any chart that could not be made ("" when all were): such a chart is
+    left out, the reports are still written."""
     try:
         from tauscope.ui.report_charts import draw_charts, problems_text
 

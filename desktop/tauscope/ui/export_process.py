@@ -12,10 +12,11 @@ that runs :func:`iter_export` instead of the engine, with the same messages, sto
 handling of a child that fails or dies.  :func:`export_elsewhere` sends the request as one
 message for the record without its findings, then one per finding with the values its chart
 is drawn from, so the sending thread pickles one finding at a time and the window's thread is
-never kept waiting for a long one.  The child starts Qt without a screen (``tauscope.ui.headless``,
-as ``tauscope batch`` does), rebuilds the record, draws the charts
-(:func:`tauscope.ui.report_charts.draw_charts`) and writes the file through
-``tauscope.report.export``: the same files as batch's.  It answers with :class:`Written`;
+never kept waiting for a long one.  The child rebuilds the record, draws the charts
+(:func:`tauscope.ui.report_charts.draw_charts`, plain data) and writes the file through
+``tauscope.report.export``: the same files as batch's.  It needs no Qt, unless a PDF goes
+through Qt's route (``tauscope.ui.pdf_report``), which then starts Qt without a screen
+(``tauscope.ui.headless``).  It answers with :class:`Written`;
 an ``ExportError`` there is raised again here.
 """
 
@@ -75,10 +76,8 @@ def iter_export(messages: Iterable[tuple[str, Any]], _settings: Any = None,
     """The child's side: one export per request (see the module's docstring)."""
     import tauscope.ui.pdf_report  # noqa: F401  (registers the ".pdf" writer)
     from tauscope.report import export
-    from tauscope.ui.headless import ensure_application
     from tauscope.ui.report_charts import draw_charts, problems_text
 
-    ensure_application()
     head: _Head | None = None
     findings: list[Finding] = []
     series: dict[str, _Values] = {}
