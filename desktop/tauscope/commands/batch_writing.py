@@ -36,7 +36,7 @@ import pickle
 import sys
 import threading
 import time
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 from contextlib import suppress
 from dataclasses import dataclass, field
 from pathlib import Path
@@ -207,6 +207,25 @@ def _forked(ours: Sequence[Connection], conn: Connection, targets: Sequence[str]
     _write_share(conn, targets, run, charts)
 
 
+def _started(method: str, share: list[str],
+             job: Callable[[Connection, Connection], tuple[Callable[..., None], tuple[Any, ...]]]
+             ) -> _Helper | None:
+    """A helper process started by ``method`` ("fork" or "spawn") for ``share``, running
+    what ``job(its end, this process's end)`` gives (a function and its arguments), with a
+    pipe to it; None when it cannot be started."""
+    try:
+        context = (multiprocessing.get_context("fork") if method == "fork"
+                   else multiprocessing.get_context("spawn"))
+        here, there = context.Pipe(duplex=True)
+        target, args = job(there, here)
+        process = context.Process(target=target, args=args, name="tauscope-writer", daemon=True)
+        process.start()
+        there.close()
+    except Exception:
+        return None
+    return _Helper(process, here, list(share))
+
+
 class Writers:
     """The writers of one batch: this process and, when worth it, helper processes (see the
     module's text and :data:`START`).  ``jobs``: how many writers at most (None: one per
@@ -232,31 +251,15 @@ class Writers:
                 self.helpers.append(helper)
 
     def _fork(self, share: list[str], run: RunRecord, charts: Charts | None) -> _Helper | None:
-        try:
-            context = multiprocessing.get_context("fork")
-            here, there = context.Pipe(duplex=True)
-            ours = [here, *(helper.conn for helper in self.helpers)]
-            process = context.Process(target=_forked, args=(ours, there, share, run, charts),
-                                      name="tauscope-writer", daemon=True)
-            process.start()
-            there.close()
-        except Exception:
-            return None
-        return _Helper(process, here, list(share))
+        ours = [helper.conn for helper in self.helpers]
+        return _started("fork", share, lambda there, here: (_forked, ([here, *ours], there,
+                                                                      share, run, charts)))
 
     @staticmethod
     def _start(share: list[str]) -> _Helper | None:
-        try:
-            context = multiprocessing.get_context("spawn")
-            here, there = context.Pipe(duplex=True)
-            suffixes = sorted({Path(t).suffix.lower() for t in share})
-            process = context.Process(target=_serve_then_end, args=(there, suffixes),
-                                      name="tauscope-writer", daemon=True)
-            process.start()
-            there.close()
-        except Exception:
-            return None
-        return _Helper(process, here, list(share))
+        suffixes = sorted({Path(t).suffix.lower() for t in share})
+        return _started("spawn", share, lambda there, _here: (_serve_then_end,
+                                                              (there, suffixes)))
 
     def write(self, run: RunRecord, charts: Charts | None) -> list[str]:
         """Write every target; the sentences of those that could not be written, in the
