@@ -220,6 +220,7 @@ class StudiesController(QObject):
             if not wait:
                 return None  # the one under way is recent enough
             self._autosave_thread.join()
+        self._autosave_later.stop()  # this one will do: the one due after a run is not needed
         parts = self._study_parts()
         study_path, folder = self.session.study_path, store.data_folder()
 
