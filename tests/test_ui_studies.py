@@ -167,6 +167,17 @@ def test_autosave_is_offered_back_after_a_crash_and_removed_after_a_clean_close(
     third.close()
 
 
+def test_an_autosave_written_now_stops_the_one_due_after_a_run(
+        main_window, open_in_window, run_in_window, study_folder):  # type: ignore[no-untyped-def]
+    window = main_window
+    analyse_and_save(window, open_in_window, run_in_window, study_folder)
+    window.apply_settings(Settings(alpha=0.01))  # an unsaved change
+    window.studies.autosave_soon()  # as at a run's end
+    assert window.studies.autosave_running()
+    assert window.autosave(wait=True) is not None
+    assert not window.studies.autosave_running()
+
+
 def test_closing_with_unsaved_changes_asks_save_discard_or_cancel(
         main_window, open_in_window, small_workbook, study_folder, qtbot):  # type: ignore[no-untyped-def]
     from tauscope.report.study import load_study
