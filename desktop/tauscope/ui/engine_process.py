@@ -48,6 +48,8 @@ from contextlib import closing, suppress
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any
 
+from tauscope.engine.collector import collector_paused
+
 if TYPE_CHECKING:
     from multiprocessing.connection import Connection
     from multiprocessing.context import SpawnProcess
@@ -151,7 +153,11 @@ def serve(conn: Connection, stop: Event, engine: str = ENGINE) -> None:
             if request[0] != "run":
                 return
             _, number, settings, count = request
-            pairs = [conn.recv() for _ in range(count)]
+            # Unpickling makes many objects and no cycles: with the collector on, its passes
+            # took about two thirds of the time for an export's 500 findings (0.5 against
+            # 0.2 s, measured).
+            with collector_paused():
+                pairs = [conn.recv() for _ in range(count)]
         except (OSError, EOFError):
             return
         try:
