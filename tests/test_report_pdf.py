@@ -20,7 +20,7 @@ from tauscope.report.pdf_pages import Unit, cut_pages
 from test_report_support import make_run
 
 DEMO = Path(__file__).resolve().parents[1] / "resources" / "demo" / "harbourline_demo.xlsx"
-PAGE_MARGIN_PT = 18.0 / 25.4 * 72  # ui.pdf_report.PAGE_MARGIN_MM
+PAGE_MARGIN_PT = 18.0 / 25.4 * 72  # report.pdf_direct.MARGIN_MM
 A4_HEIGHT_PT = 841.89
 
 poppler = pytest.mark.skipif(

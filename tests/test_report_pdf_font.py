@@ -72,9 +72,7 @@ def test_a_composite_glyph_brings_its_parts_into_the_subset(qapp: Any) -> None:
     ours = TrueTypeFont.from_file(path, path.stem)
     reference = QRawFont(str(path), 2048, QFont.HintingPreference.PreferNoHinting)
     glyph = ours.glyphs[ord("é")]  # e and an acute accent, composed
-    locations = ours._locations()
-    start = ours._tables[b"glyf"][0] + locations[glyph]
-    parts = ours._components(ours.data[start:start + locations[glyph + 1] - locations[glyph]])
+    parts = ours._components(ours._outline(glyph, ours._locations()))
     assert len(parts) >= 2 and ours.glyphs[ord("e")] in parts
     subset = QRawFont(ours.subset([glyph]), 2048, QFont.HintingPreference.PreferNoHinting)
     assert subset.pathForGlyph(glyph) == reference.pathForGlyph(glyph)

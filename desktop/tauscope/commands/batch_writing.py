@@ -243,9 +243,14 @@ class Writers:
             self.shares = [self.shares[0] + pdfs,
                            *([t for t in share if t not in pdfs] for share in self.shares[1:])]
             return
+        self._add_helpers(self._start)
+
+    def _add_helpers(self, start: Callable[[list[str]], _Helper | None]) -> None:
+        """A helper for each share but this process's, started by ``start``; a share whose
+        helper cannot be started is written here."""
         for share in self.shares[1:]:
-            helper = self._start(share)
-            if helper is None:  # cannot start: this process writes that share too
+            helper = start(share)
+            if helper is None:
                 self.shares[0].extend(share)
             else:
                 self.helpers.append(helper)
@@ -267,12 +272,7 @@ class Writers:
         failed: dict[str, str] = {}
         sending: list[tuple[_Helper, threading.Thread, list[bool]]] = []
         if self.start == "fork":
-            for share in self.shares[1:]:
-                helper = self._fork(share, run, charts)
-                if helper is None:  # cannot start: this process writes that share too
-                    self.shares[0].extend(share)
-                else:
-                    self.helpers.append(helper)
+            self._add_helpers(lambda share: self._fork(share, run, charts))
             failed.update(write_here(self.shares[0], run, charts))
             for helper in self.helpers:
                 failed.update(self._collect(helper, run, charts))

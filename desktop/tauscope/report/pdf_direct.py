@@ -33,7 +33,8 @@ from tauscope.report.ttf import FontError, TrueTypeFont
 from tauscope.resources_path import resource_path
 
 A4 = (595.276, 841.890)  # points (210 × 297 mm)
-MARGIN = 18 / 25.4 * 72  # 18 mm, in points
+MARGIN_MM = 18.0  # the page's margin on every side (Qt's route too)
+MARGIN = MARGIN_MM / 25.4 * 72  # in points
 FONT_FILES = (("DejaVuSans.ttf", "DejaVuSans"), ("DejaVuSans-Bold.ttf", "DejaVuSans-Bold"),
               ("DejaVuSans-Oblique.ttf", "DejaVuSans-Oblique"))
 """Regular, bold, oblique: the report's three faces (``/F0``, ``/F1``, ``/F2``)."""
@@ -188,20 +189,13 @@ class DirectCanvas:
         return found
 
     def text(self, x: float, baseline: float, text: str, style: Style) -> None:
-        face = style.face
-        assert isinstance(face, DirectFace)
-        self._fill(style.color)
-        if self._state.font != face.key:  # the font is part of the graphics state (§9.3.1)
-            self._ops.append(f"/F{face.index} {face.size} Tf\n")
-            self._state = self._state._replace(font=face.key)
-        self._ops.append(f"BT 1 0 0 -1 {x:.2f} {baseline:.2f} Tm "
-                         f"({self._glyphs(face.index, text)}) Tj ET\n")
+        self.texts(((x, baseline, text),), style)
 
     def texts(self, placed: Sequence[tuple[float, float, str]], style: Style) -> None:
         face = style.face
         assert isinstance(face, DirectFace)
         self._fill(style.color)
-        if self._state.font != face.key:
+        if self._state.font != face.key:  # the font is part of the graphics state (§9.3.1)
             self._ops.append(f"/F{face.index} {face.size} Tf\n")
             self._state = self._state._replace(font=face.key)
         known = self._codes[face.index].get

@@ -175,9 +175,6 @@ class Flow:
         self.units.append(unit)
         self.pieces.append(Piece(unit.top, unit.bottom, draw))
 
-    def space(self, height: float) -> None:
-        self.y += height
-
     def paragraph(self, text: str, style: Style, before: float = 0.0, after: float = 6.0,
                   indent: float = 0.0, heading: bool = False, rule: str | None = None) -> None:
         """Wrapped text (control characters made harmless); ``heading``: kept on a page with

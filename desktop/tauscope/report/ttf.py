@@ -78,13 +78,10 @@ class TrueTypeFont:
         if os2 is not None and struct.unpack(">H", self.data[os2[0]:os2[0] + 2])[0] >= 2:
             return int(struct.unpack(">h", self.data[os2[0] + 88:os2[0] + 90])[0])
         glyph = self.glyphs.get(ord("H"))
-        if glyph is None:
+        outline = self._outline(glyph, self._locations()) if glyph is not None else b""
+        if len(outline) < 10:
             return fallback
-        locations = self._locations()
-        start = self._tables[b"glyf"][0] + locations[glyph]
-        if locations[glyph + 1] - locations[glyph] < 10:
-            return fallback
-        return int(struct.unpack(">h", self.data[start + 8:start + 10])[0])
+        return int(struct.unpack(">h", outline[8:10])[0])
 
     @classmethod
     def from_file(cls, path: Path, name: str) -> TrueTypeFont:
@@ -171,6 +168,11 @@ class TrueTypeFont:
             return list(struct.unpack(f">{n}I", loca[:4 * n]))
         return [2 * v for v in struct.unpack(f">{n}H", loca[:2 * n])]
 
+    def _outline(self, glyph: int, locations: list[int]) -> bytes:
+        """Glyph ``glyph``'s data in ``glyf`` (empty for a glyph with no outline)."""
+        start = self._tables[b"glyf"][0]
+        return self.data[start + locations[glyph]:start + locations[glyph + 1]]
+
     def _components(self, glyph: bytes) -> list[int]:
         """The glyphs a composite glyph is made of (none for a simple one)."""
         if len(glyph) < 10 or struct.unpack(">h", glyph[:2])[0] >= 0:
@@ -194,23 +196,18 @@ class TrueTypeFont:
         """This font with only ``used`` glyphs (and .notdef, and the parts of composite
         glyphs) kept; every other glyph empty, glyph numbers unchanged."""
         locations = self._locations()
-        glyf_at = self._tables[b"glyf"][0]
-
-        def outline(g: int) -> bytes:
-            return self.data[glyf_at + locations[g]:glyf_at + locations[g + 1]]
-
         keep = {0}
         todo = [g for g in used if 0 <= g < self.glyph_count]
         while todo:
             g = todo.pop()
             if g not in keep:
                 keep.add(g)
-                todo.extend(self._components(outline(g)))
+                todo.extend(self._components(self._outline(g, locations)))
         pieces: list[bytes] = []
         offsets = [0]
         for g in range(self.glyph_count):
             if g in keep:
-                piece = outline(g)
+                piece = self._outline(g, locations)
                 piece += b"\0" * (-len(piece) % 4)
                 pieces.append(piece)
                 offsets.append(offsets[-1] + len(piece))

@@ -23,7 +23,7 @@ from typing import TYPE_CHECKING
 
 from tauscope.report import register_writer
 from tauscope.report.atomic import write_bytes_atomic
-from tauscope.report.pdf_direct import MissingGlyphs, run_to_pdf_direct
+from tauscope.report.pdf_direct import MARGIN_MM, MissingGlyphs, run_to_pdf_direct
 from tauscope.report.pdf_flow import WIDTH, draw_page, pixels
 from tauscope.report.pdf_layout import layout_report
 from tauscope.report.pdf_pages import cut_pages
@@ -35,7 +35,6 @@ if TYPE_CHECKING:
     from tauscope.report.chart_plan import ChartPlan
     from tauscope.report.pdf_flow import Style
 
-PAGE_MARGIN_MM = 18.0
 RESOLUTION_DPI = 300
 FAMILIES = ["Segoe UI", "Helvetica Neue", "Arial", "DejaVu Sans", "sans-serif"]
 
@@ -167,7 +166,7 @@ def run_to_pdf_qt(run: RunRecord, charts: Charts | None = None) -> bytes:
     writer.setCreator(f"Tauscope {run.version}")
     writer.setPageLayout(QPageLayout(
         QPageSize(QPageSize.PageSizeId.A4), QPageLayout.Orientation.Portrait,
-        QMarginsF(PAGE_MARGIN_MM, PAGE_MARGIN_MM, PAGE_MARGIN_MM, PAGE_MARGIN_MM),
+        QMarginsF(MARGIN_MM, MARGIN_MM, MARGIN_MM, MARGIN_MM),
         QPageLayout.Unit.Millimeter,
     ))
     # The column is laid out WIDTH units wide and scaled to the paper, so the 10.5 pt body
