@@ -13,7 +13,7 @@ from collections.abc import Callable
 from pathlib import Path
 
 from tauscope.engine.collector import collector_paused
-from tauscope.report.json_export import run_to_json, write_json
+from tauscope.report.json_export import EncodedSeries, run_to_json, write_json
 from tauscope.report.ownership import is_own_report, same_file
 from tauscope.report.run import CHART_FORMATS, Charts, Finding, LeftOut, RunRecord, SourceFile
 
@@ -57,7 +57,8 @@ class ExportError(Exception):
     """A findings file could not be written; the message says which and why."""
 
 
-def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> RunRecord:
+def export(path: Path | str, run: RunRecord, charts: Charts | None = None, *,
+           encoded: EncodedSeries | None = None) -> RunRecord:
     """Write ``run`` to ``path`` in the format its suffix names; return the record written.
 
     Findings made with other settings than ``run.settings`` are never written as current:
@@ -66,7 +67,8 @@ def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> Ru
     ``Finding.key`` or series name), used by .xlsx, .html and .pdf.  Raises
     :class:`ExportError` with one sentence for an unknown suffix, a file that cannot be
     written, or a target that is one of the run's input files (never written over; see
-    :mod:`.ownership`).
+    :mod:`.ownership`).  ``encoded``: a .json file's "series" entries encoded ahead, used when
+    they are those of the findings written (:class:`~.json_export.EncodedSeries`).
     """
     target = Path(path)
     writer = WRITERS.get(target.suffix.lower())
@@ -83,7 +85,10 @@ def export(path: Path | str, run: RunRecord, charts: Charts | None = None) -> Ru
     record = run.current()
     try:
         with collector_paused():
-            writer(target, record, charts)
+            if encoded is not None and target.suffix.lower() == ".json":
+                write_json(target, record, encoded)
+            else:
+                writer(target, record, charts)
     except OSError as exc:
         raise ExportError(f"{target}: could not be written ({exc.strerror or exc})") from exc
     return record
@@ -93,6 +98,7 @@ __all__ = [
     "CHART_FORMATS",
     "WRITERS",
     "Charts",
+    "EncodedSeries",
     "ExportError",
     "Finding",
     "LeftOut",
