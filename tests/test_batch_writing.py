@@ -142,12 +142,47 @@ def test_files_a_lost_forked_helper_did_not_write_are_written_here(
     result = analyse_series(rng.normal(size=40), Settings(max_difference=0), "Noise")
     run = RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
                     (Finding(result),))
-    targets = [str(tmp_path / "a.json"), str(tmp_path / "b.csv")]
+    targets = [str(tmp_path / "a.json"), str(tmp_path / "b.csv"), str(tmp_path / "c.tex")]
     # the copy ends before it writes or answers anything (copied with this stand-in)
     monkeypatch.setattr(batch_writing, "_write_share", lambda *args: batch_writing.os._exit(3))
     writers = Writers(targets, series=1, jobs=2, start="fork")
+    assert len(writers.shares) == 2 and writers.shares[1]  # a share for a helper
     assert writers.helpers == []  # none until the findings are ready
     assert writers.write(run, None) == []
     assert json.loads((tmp_path / "a.json").read_text(encoding="utf-8"))["series"][0]["name"] == (
         "Noise")
     assert (tmp_path / "b.csv").read_text(encoding="utf-8").lstrip("\ufeff").startswith("series,")
+    assert "Noise" in (tmp_path / "c.tex").read_text(encoding="utf-8")
+
+
+def test_json_entries_encoded_during_the_analysis_make_the_same_file(
+        tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    """With a core to spare on Linux, the .json file's entries are encoded by copies of the
+    batch while it analyses (``batch_pieces``), and the file is written by the batch itself;
+    its bytes are those one writer makes."""
+    from tauscope.commands import batch_pieces, batch_writing
+
+    if "fork" not in batch_writing.multiprocessing.get_all_start_methods():
+        pytest.skip("no fork here")
+    monkeypatch.setattr(batch_writing, "START", "fork")
+    writers = Writers(["a.json", "b.xlsx", "c.csv", "d.pdf"], series=500, jobs=2)
+    assert writers.pieces is not None and writers.shares[0][-1] == "a.json"  # written last
+    assert Writers(["a.json", "b.csv"], series=500, jobs=1).pieces is None
+    assert Writers(["a.json"], series=500, jobs=2, start="spawn").pieces is None
+    used: list[bool] = []
+    result = batch_pieces.EncodedPieces.result
+
+    def watched(self: batch_pieces.EncodedPieces, *args: object, **kwargs: object) -> object:
+        found = result(self, *args, **kwargs)  # type: ignore[arg-type]
+        used.append(found is not None)
+        return found
+
+    monkeypatch.setattr(batch_pieces.EncodedPieces, "result", watched)
+    source = _workbook(tmp_path)
+    for jobs in ("1", "2"):
+        assert main([str(source), "--jobs", jobs, "--out", str(tmp_path / f"{jobs}.json"),
+                     "--out", str(tmp_path / f"{jobs}.tex")]) == 0
+    assert used == [True]
+    one, two = ((tmp_path / f"{jobs}.json").read_bytes() for jobs in ("1", "2"))
+    created = re.compile(rb'"created":"[^"]*"')
+    assert created.sub(b"", one) == created.sub(b"", two)

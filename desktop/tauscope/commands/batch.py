@@ -31,8 +31,9 @@ from __future__ import annotations
 
 import argparse
 import dataclasses
+import gc
 import sys
-from collections.abc import Mapping, Sequence
+from collections.abc import Callable, Mapping, Sequence
 from pathlib import Path
 from typing import NoReturn, TextIO
 
@@ -48,8 +49,10 @@ from tauscope.engine import (
     STRATEGIES,
     SeriesResult,
     Settings,
-    analyse_many,
+    iter_analyse,
 )
+from tauscope.engine.collector import collector_paused
+from tauscope.engine.procedure.many import CHUNK
 from tauscope.engine.results import failed_result
 from tauscope.report import (
     CHART_FORMATS,
@@ -186,7 +189,7 @@ def main(argv: list[str]) -> int:
 
 def _analyse_and_write(args: argparse.Namespace, workbook: Workbook, chosen: list[SeriesData],
                        settings: Settings, plan: Plan, notes: str, writers: Writers) -> int:
-    analysed = analyse_with_series(chosen, settings, plan)
+    analysed = analyse_with_series(chosen, settings, plan, ready=writers.ready)
     findings = [finding for finding, _series in analysed]
     run = RunRecord(settings, (SourceFile(str(workbook.path), workbook.sha256),), tuple(findings))
     if not args.out:
@@ -335,27 +338,38 @@ def analyse_all(chosen: Sequence[SeriesData], settings: Settings, plan: Plan | s
 
 
 def analyse_with_series(chosen: Sequence[SeriesData], settings: Settings,
-                        plan: Plan | str | None = None, progress: TextIO | None = None
+                        plan: Plan | str | None = None, progress: TextIO | None = None,
+                        ready: Callable[[list[Finding]], None] | None = None,
                         ) -> list[tuple[Finding, SeriesData]]:
     """:func:`analyse_all`, each finding with the series it was made from (sample cut, gap
-    rule and transformation applied), which its chart draws."""
+    rule and transformation applied), which its chart draws.  ``ready(findings)`` is given
+    the findings in order as they are made, a chunk of the engine's at a time (the last
+    ones when all are made), while the engine works on the next chunk."""
     stream = progress or sys.stderr
     show = progress is not None or stream.isatty()
     prepared = [prepare_one(series, plan) for series in chosen]
     testable = [p for p in prepared if p.problem is None]
-
-    def report(done: int, total: int, name: str) -> None:
-        if show:
-            print(f"[{done}/{total}] {name}", file=stream, flush=True)
-
-    results = iter(analyse_many([(p.name, p.values) for p in testable], settings, progress=report))
+    results = iter_analyse([(p.name, p.values) for p in testable], settings)
     analysed: list[tuple[Finding, SeriesData]] = []
-    for item in prepared:
-        if item.problem is not None:
-            result = _failed(item.name, settings, item.problem)
-        else:
-            result = next(results)
-            if item.notes:
-                result = dataclasses.replace(result, notes=(*item.notes, *result.notes))
-        analysed.append((Finding.from_series(result, item.series), item.series))
+    given = done = 0
+    # The collector paused over the whole run, as analyse_many does: every result is kept.
+    with collector_paused():
+        for item in prepared:
+            if item.problem is not None:
+                result = _failed(item.name, settings, item.problem)
+            else:
+                result = next(results)
+                done += 1
+                if show:
+                    print(f"[{done}/{len(testable)}] {item.name}", file=stream, flush=True)
+                if item.notes:
+                    result = dataclasses.replace(result, notes=(*item.notes, *result.notes))
+            analysed.append((Finding.from_series(result, item.series), item.series))
+            if ready is not None and done % CHUNK == 0 and done and item.problem is None:
+                ready([finding for finding, _ in analysed[given:]])
+                given = len(analysed)
+        if ready is not None and given < len(analysed):
+            ready([finding for finding, _ in analysed[given:]])
+    if gc.isenabled():
+        gc.collect(0)  # the young generation (this run's objects) once, as analyse_many does
     return analysed

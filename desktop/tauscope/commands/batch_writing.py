@@ -42,8 +42,9 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import TYPE_CHECKING, Any
 
+from tauscope.commands.batch_pieces import EncodedPieces
 from tauscope.engine.collector import collector_paused
-from tauscope.report import Charts, ExportError, RunRecord, export
+from tauscope.report import Charts, ExportError, Finding, RunRecord, export
 
 if TYPE_CHECKING:
     from multiprocessing.connection import Connection
@@ -67,12 +68,16 @@ def _failure(target: str, exc: Exception) -> str:
     return f"{target}: could not be written ({type(exc).__name__}: {exc})".replace("\n", " ")
 
 
-def write_here(targets: Sequence[str], run: RunRecord, charts: Charts | None) -> dict[str, str]:
-    """Write ``targets`` one after the other in this process; the failures, by target."""
+def write_here(targets: Sequence[str], run: RunRecord, charts: Charts | None,
+               pieces: EncodedPieces | None = None) -> dict[str, str]:
+    """Write ``targets`` one after the other in this process; the failures, by target.  A
+    .json file takes its entries from ``pieces`` when they are ready and fit the run."""
     failed: dict[str, str] = {}
     for target in targets:
         try:
-            export(target, run, charts)
+            encoded = (pieces.result(run.findings)
+                       if pieces is not None and Path(target).suffix.lower() == ".json" else None)
+            export(target, run, charts, encoded=encoded)
         except Exception as exc:  # one writer's failure never stops the other files
             failed[target] = _failure(target, exc)
     return failed
@@ -237,10 +242,13 @@ class Writers:
         self.shares = plan_shares(self.targets, writer_count(len(self.targets), series, jobs))
         self.start = start or START
         self.helpers: list[_Helper] = []
+        self.pieces: EncodedPieces | None = None
         if self.start == "fork":  # copied when the findings are ready (write)
+            self._encode_json_ahead(series, jobs)
             # every .pdf written here: Qt, which a report may need, never starts in a copy
             pdfs = [t for share in self.shares[1:] for t in share if t.lower().endswith(".pdf")]
-            self.shares = [self.shares[0] + pdfs,
+            self.shares = [[t for t in self.shares[0] if not t.lower().endswith(".json")] + pdfs
+                           + [t for t in self.shares[0] if t.lower().endswith(".json")],
                            *([t for t in share if t not in pdfs] for share in self.shares[1:])]
             return
         self._add_helpers(self._start)
@@ -249,11 +257,31 @@ class Writers:
         """A helper for each share but this process's, started by ``start``; a share whose
         helper cannot be started is written here."""
         for share in self.shares[1:]:
+            if not share:
+                continue
             helper = start(share)
             if helper is None:
                 self.shares[0].extend(share)
             else:
                 self.helpers.append(helper)
+
+    def _encode_json_ahead(self, series: int, jobs: int | None) -> None:
+        """With a core to spare, the .json files' entries are encoded while the analysis goes
+        on (:mod:`.batch_pieces`, fed by :meth:`ready`) and the files written here, last: the
+        copies that encode them are this process's children.  The other files are shared out
+        among the writers as before."""
+        jsons = [t for t in self.targets if Path(t).suffix.lower() == ".json"]
+        if not jsons or writer_count(2, series, jobs) < 2:
+            return
+        self.pieces = EncodedPieces()
+        rest = [t for t in self.targets if t not in jsons]
+        self.shares = plan_shares(rest, writer_count(len(rest), series, jobs)) if rest else [[]]
+        self.shares[0].extend(jsons)
+
+    def ready(self, findings: Sequence[Finding]) -> None:
+        """The next ``findings`` of the run, in order, as the analysis makes them."""
+        if self.pieces is not None:
+            self.pieces.add(findings)
 
     def _fork(self, share: list[str], run: RunRecord, charts: Charts | None) -> _Helper | None:
         ours = [helper.conn for helper in self.helpers]
@@ -273,7 +301,7 @@ class Writers:
         sending: list[tuple[_Helper, threading.Thread, list[bool]]] = []
         if self.start == "fork":
             self._add_helpers(lambda share: self._fork(share, run, charts))
-            failed.update(write_here(self.shares[0], run, charts))
+            failed.update(write_here(self.shares[0], run, charts, self.pieces))
             for helper in self.helpers:
                 failed.update(self._collect(helper, run, charts))
             self.close()
@@ -327,7 +355,10 @@ class Writers:
         return failed
 
     def close(self) -> None:
-        """End the helpers (after they have reported, or unused)."""
+        """End the helpers (after they have reported, or unused) and the copies encoding
+        JSON entries."""
+        if self.pieces is not None:
+            self.pieces.close()
         for helper in self.helpers:
             with suppress(OSError):
                 helper.conn.close()
