@@ -667,3 +667,26 @@ def test_batch_draws_its_charts_without_a_display_or_a_platform_named(tmp_path: 
     assert done.returncode == 0, done.stderr
     assert "Traceback" not in done.stderr and "chart" not in done.stderr
     assert len(html_charts(tmp_path / "f.html")) == 4
+
+
+def test_decimal_years_are_kept_by_the_dates_and_cannot_be_changed() -> None:
+    """A dated index's decimal years are worked out once for the series that share its dates
+    (``chart_plan.x_values``): the same numbers as worked out afresh, read-only, and other
+    dates give their own."""
+    import numpy as np
+    import pandas as pd
+
+    from tauscope.report import chart_plan
+
+    monthly = pd.period_range("1999-11", periods=30, freq="M")
+    first, dated = chart_plan.x_values(monthly)
+    again, _ = chart_plan.x_values(pd.period_range("1999-11", periods=30, freq="M"))
+    fresh, _ = chart_plan._x_values(monthly)
+    assert dated and again is first and np.array_equal(first, fresh)
+    assert first[0] == 1999 + 304 / 365 and first[2] == 2000.0  # 1 November 1999, 1 January 2000
+    assert not first.flags.writeable
+    quarterly, _ = chart_plan.x_values(pd.period_range("1999Q4", periods=30, freq="Q"))
+    assert quarterly[1] == 2000.0 and not np.array_equal(quarterly, first)
+    tz = pd.date_range("2001-03-01", periods=5, freq="D", tz="Europe/Berlin")
+    assert np.array_equal(chart_plan.x_values(tz)[0], chart_plan._x_values(tz)[0])
+    assert chart_plan.x_values(pd.Index([3, 4, 5]))[0].tolist() == [3.0, 4.0, 5.0]

@@ -108,8 +108,29 @@ def number_ticks(low: float, high: float, count: int = 5) -> list[tuple[float, s
     return ticks
 
 
+_DATED_X: dict[tuple[str, bytes], tuple[np.ndarray, bool]] = {}
+_DATED_X_KEPT = 64
+
+
 def x_values(index: pd.Index) -> tuple[np.ndarray, bool]:
-    """Decimal years for dated series, else the index's numbers (or 1, 2, ...)."""
+    """Decimal years for dated series, else the index's numbers (or 1, 2, ...).
+
+    A dated index's decimal years (read-only) are kept by its dates: the series of one
+    sheet share their dates, and pandas' conversion costs more than the rest of a chart."""
+    if not isinstance(index, (pd.PeriodIndex, pd.DatetimeIndex)):
+        return _x_values(index)
+    key = (str(index.dtype), index.asi8.tobytes())
+    found = _DATED_X.get(key)
+    if found is None:
+        found = _x_values(index)
+        found[0].setflags(write=False)
+        if len(_DATED_X) >= _DATED_X_KEPT:
+            _DATED_X.pop(next(iter(_DATED_X)))
+        _DATED_X[key] = found
+    return found
+
+
+def _x_values(index: pd.Index) -> tuple[np.ndarray, bool]:
     stamps = None
     if isinstance(index, pd.PeriodIndex):
         stamps = index.to_timestamp(how="start")

@@ -122,7 +122,10 @@ TEST_ORDER = ("adf", "phi1", "phi2", "phi3", "kpss", "pp", "dfgls", "za")
 def changed_settings(made_with: Mapping[str, Any], settings: Settings) -> tuple[str, ...]:
     """The settings (as ``Settings`` field names) whose value in ``made_with`` (a result's own
     ``settings`` record) differs from ``settings``; a field the record lacks is not counted."""
-    wanted = settings.to_dict()
+    return _changed(made_with, settings.to_dict())
+
+
+def _changed(made_with: Mapping[str, Any], wanted: Mapping[str, Any]) -> tuple[str, ...]:
     return tuple(k for k, v in wanted.items() if k in made_with and made_with[k] != v)
 
 
@@ -175,8 +178,9 @@ class RunRecord:
         this run's.  A finding without a settings record is kept."""
         kept: list[Finding] = []
         left = list(self.left_out)
+        wanted = self.settings.to_dict()
         for finding in self.findings:
-            changed = changed_settings(finding.result.settings or {}, self.settings)
+            changed = _changed(finding.result.settings or {}, wanted)
             if changed:
                 left.append(LeftOut(finding.name, finding.key, changed))
             else:

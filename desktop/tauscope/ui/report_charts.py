@@ -22,6 +22,7 @@ from collections.abc import Callable
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Protocol
 
+from tauscope.engine.collector import collector_paused
 from tauscope.report.chart_plan import ChartPlan, plan_chart
 from tauscope.report.run import RunRecord
 
@@ -61,17 +62,18 @@ def draw_charts(run: RunRecord, series_for_key: SeriesLookup | None = None) -> D
     start = time.perf_counter()
     charts: dict[str, ChartPlan] = {}
     problems: list[str] = []
-    for finding in run.current().findings:
-        series = (series_for_key(finding.key) if series_for_key is not None
-                  and finding.key is not None else None)
-        try:
-            plan = plan_chart(finding.result, series.values if series is not None else None)
-        except Exception as exc:  # one bad series never stops the others
-            reason = f"{type(exc).__name__}: {exc}".replace("\n", " ")
-            problems.append(f"{finding.name}: its chart could not be drawn ({reason})")
-            continue
-        if plan is not None:
-            charts[finding.key if finding.key is not None else finding.name] = plan
+    with collector_paused():  # many short-lived objects, no cycles (as a writer, report.export)
+        for finding in run.current().findings:
+            series = (series_for_key(finding.key) if series_for_key is not None
+                      and finding.key is not None else None)
+            try:
+                plan = plan_chart(finding.result, series.values if series is not None else None)
+            except Exception as exc:  # one bad series never stops the others
+                reason = f"{type(exc).__name__}: {exc}".replace("\n", " ")
+                problems.append(f"{finding.name}: its chart could not be drawn ({reason})")
+                continue
+            if plan is not None:
+                charts[finding.key if finding.key is not None else finding.name] = plan
     return DrawnCharts(charts, tuple(problems), time.perf_counter() - start)
 
 
