@@ -13,6 +13,10 @@ alternating, ``--rounds`` times each:
   data drawn as SVG in the .html, vectors in the .pdf, DrawingML shapes in the .xlsx), as
   batch does by default;
 - writing every format with ``--no-charts``;
+
+(``--jobs N`` passes ``--jobs N`` to those two; by default the batch chooses, by the load
+average at that moment, and the writers it chose are printed: on a machine where the load
+average is still high from the runs before, it may choose one);
 - writing every format, charts drawn, with ``--jobs 1``: every file written in this process,
   one after the other (by default batch shares the files out among helper processes, one
   per idle core, from 100 series on: ``tauscope.commands.batch_writing``, copies of this
@@ -124,7 +128,13 @@ def main() -> int:
     parser.add_argument("--series", type=int, default=500)
     parser.add_argument("--length", type=int, default=240)
     parser.add_argument("--rounds", type=int, default=2)
+    parser.add_argument("--jobs", type=int, default=None,
+                        help="writers for the every-format runs (default: the batch's own "
+                             "choice, one per idle core by the load average)")
     args = parser.parse_args()
+    from tauscope.commands.batch_writing import writer_count
+
+    jobs = [] if args.jobs is None else ["--jobs", str(args.jobs)]
     os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
 
     with tempfile.TemporaryDirectory(prefix="tauscope-writers-") as name:
@@ -144,10 +154,13 @@ def main() -> int:
         bare: list[float] = []
         serial: list[float] = []
         CPU.clear()
+        chosen: list[int] = []  # the writers the batch chose for each every-format run
         for _ in range(args.rounds):
             nothing.append(batch([str(source)]))
-            everything.append(batch([str(source), "--replace", *every]))
-            bare.append(batch([str(source), "--replace", "--no-charts", *every]))
+            chosen.append(writer_count(len(FORMATS), args.series, args.jobs))
+            everything.append(batch([str(source), "--replace", *jobs, *every]))
+            chosen.append(writer_count(len(FORMATS), args.series, args.jobs))
+            bare.append(batch([str(source), "--replace", "--no-charts", *jobs, *every]))
             serial.append(batch([str(source), "--replace", "--jobs", "1", *every]))
         cpu_n, cpu_e, cpu_b, cpu_s = (min(CPU[k::4]) for k in range(4))
         n, e, b, s = min(nothing), min(everything), min(bare), min(serial)
@@ -159,6 +172,8 @@ def main() -> int:
                              ("every format, --jobs 1:", serial)):
             print(f"  {label:28} {min(times):7.2f} s   (each run: "
                   f"{', '.join(f'{x:.2f}' for x in times)})")
+        print(f"  writers in the every-format runs (with charts, --no-charts, by round): "
+              f"{', '.join(map(str, chosen))}" + (" (--jobs)" if jobs else " (load average)"))
         print(f"  ratio every format with charts / nothing: {e / n:.2f}  "
               "(issue 15 target: at most 2)")
         print(f"  ratio every format, --no-charts / nothing: {b / n:.2f}")
