@@ -186,3 +186,28 @@ def test_json_entries_encoded_during_the_analysis_make_the_same_file(
     one, two = ((tmp_path / f"{jobs}.json").read_bytes() for jobs in ("1", "2"))
     created = re.compile(rb'"created":"[^"]*"')
     assert created.sub(b"", one) == created.sub(b"", two)
+
+
+def test_a_stuck_helper_is_ended_and_its_files_written_here(
+        tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+    """A helper that says nothing for longer than the batch allows (here 0.5 s) is ended, and
+    the files it did not report are written by the batch: the batch never hangs on it."""
+    import time
+
+    from tauscope.commands import batch_writing
+
+    if "fork" not in batch_writing.multiprocessing.get_all_start_methods():
+        pytest.skip("no fork here")
+    rng = np.random.default_rng(4)
+    result = analyse_series(rng.normal(size=40), Settings(max_difference=0), "Noise")
+    run = RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
+                    (Finding(result),))
+    targets = [str(tmp_path / "a.csv"), str(tmp_path / "b.tex")]
+    monkeypatch.setattr(batch_writing, "_write_share", lambda *args: time.sleep(600))
+    writers = Writers(targets, series=1, jobs=2, start="fork")
+    writers.quiet_s = 0.5
+    started = time.monotonic()
+    assert writers.write(run, None) == []
+    assert time.monotonic() - started < 30
+    assert (tmp_path / "a.csv").read_text(encoding="utf-8").lstrip("\ufeff").startswith("series,")
+    assert "Noise" in (tmp_path / "b.tex").read_text(encoding="utf-8")

@@ -59,6 +59,11 @@ COST = {".pdf": 2.0, ".json": 1.8, ".xlsx": 1.3, ".html": 0.6, ".csv": 0.3, ".te
 (``benchmarks/batch_writers.py``); only their order and rough size matter here."""
 
 JOIN_S = 5.0  # the longest wait for a helper to end after it has reported every file
+QUIET_S = 60.0
+QUIET_PER_SERIES_S = 0.02
+"""The longest a helper may go without reporting a file: QUIET_S plus QUIET_PER_SERIES_S a
+series (70 s for 500; a file of 500 series takes about a second here).  A helper quiet for
+longer is taken as stuck: it is ended and the files it did not report are written here."""
 
 
 def _failure(target: str, exc: Exception) -> str:
@@ -239,6 +244,7 @@ class Writers:
     def __init__(self, targets: Sequence[str], series: int, jobs: int | None = None,
                  start: str | None = None) -> None:
         self.targets = list(targets)
+        self.quiet_s = QUIET_S + QUIET_PER_SERIES_S * series
         self.shares = plan_shares(self.targets, writer_count(len(self.targets), series, jobs))
         self.start = start or START
         self.helpers: list[_Helper] = []
@@ -303,7 +309,7 @@ class Writers:
             self._add_helpers(lambda share: self._fork(share, run, charts))
             failed.update(write_here(self.shares[0], run, charts, self.pieces))
             for helper in self.helpers:
-                failed.update(self._collect(helper, run, charts))
+                failed.update(self._collect(helper, run, charts, self.quiet_s))
             self.close()
             return [failed[t] for t in self.targets if t in failed]
         if self.helpers:
@@ -324,7 +330,7 @@ class Writers:
         failed.update(write_here(self.shares[0], run, charts))
         for helper, thread, sent in sending:
             thread.join()
-            failed.update(self._collect(helper, run, charts) if sent
+            failed.update(self._collect(helper, run, charts, self.quiet_s) if sent
                           else write_here(helper.targets, run, charts))
         self.close()
         return [failed[t] for t in self.targets if t in failed]
@@ -340,12 +346,17 @@ class Writers:
         sent.append(True)
 
     @staticmethod
-    def _collect(helper: _Helper, run: RunRecord, charts: Charts | None) -> dict[str, str]:
-        """What ``helper`` reports; the files it did not report (it ended) written here."""
+    def _collect(helper: _Helper, run: RunRecord, charts: Charts | None,
+                 quiet_s: float) -> dict[str, str]:
+        """What ``helper`` reports; the files it did not report (it ended, or said nothing for
+        ``quiet_s`` seconds and was ended) written here."""
         failed: dict[str, str] = {}
         waiting = list(helper.targets)
         try:
             while waiting:
+                if not helper.conn.poll(quiet_s):
+                    helper.process.kill()
+                    raise EOFError("the helper was stuck")
                 target, sentence = helper.conn.recv()
                 waiting.remove(target)
                 if sentence is not None:
