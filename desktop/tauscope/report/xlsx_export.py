@@ -82,15 +82,15 @@ def _write_table(sheet: Sheet, table: Table) -> None:
 
 
 def _fit_widths(sheet: Sheet, table: Table) -> None:
-    for j, column in enumerate(table.columns, start=1):
-        lengths = [len(column.header) * 0.9 + 2]
-        for row in table.rows:
-            value = row[j - 1]
-            if isinstance(value, float):
-                lengths.append(8)
-            elif value is not None:
-                lengths.append(len(str(value)) + 2)
-        sheet.widths[j] = min(MAX_WIDTH, max(8, *lengths))
+    """Each column as wide as its header (× 0.9) or its longest text or whole number, plus 2;
+    8 at least (a decimal number's width), MAX_WIDTH at most.  Each distinct value once."""
+    by_column = list(zip(*table.rows, strict=True)) if table.rows else [()] * len(table.columns)
+    for j, (column, values) in enumerate(zip(table.columns, by_column, strict=True), start=1):
+        widest = max(8.0, len(column.header) * 0.9 + 2)
+        for value in set(values):
+            if value is not None and not isinstance(value, float):
+                widest = max(widest, len(str(value)) + 2)
+        sheet.widths[j] = min(MAX_WIDTH, widest)
 
 
 def _summary(sheet: Sheet, run: RunRecord) -> None:

@@ -114,6 +114,8 @@ class Sheet:
         spreadsheet could read as a formula is marked as text (``quotePrefix``)."""
         number = len(self.rows) + 1
         known = self.book.strings.cells
+        letters = _LETTERS if len(values) <= len(_LETTERS) else [
+            column_letter(i) for i in range(1, len(values) + 1)]
         cells = []
         for j, value in enumerate(values):
             style = styles[j] if styles is not None else 0
@@ -131,13 +133,13 @@ class Sheet:
                 cell = self._other(value)
                 if cell is None:
                     if style:
-                        cells.append(f'<c r="{_letter(j + 1)}{number}" s="{style}"/>')
+                        cells.append(f'<c r="{letters[j]}{number}" s="{style}"/>')
                     continue
                 kind_attribute, content, quoted = cell
                 if quoted:
                     style = self.book.styles.quoted(style)
             s = f' s="{style}"' if style else ""
-            cells.append(f'<c r="{_letter(j + 1)}{number}"{s}{kind_attribute}><v>{content}</v></c>')
+            cells.append(f'<c r="{letters[j]}{number}"{s}{kind_attribute}><v>{content}</v></c>')
         height = self.heights.get(number)
         attributes = f' ht="{height:g}" customHeight="1"' if height is not None else ""
         self.rows.append(f'<row r="{number}"{attributes}>{"".join(cells)}</row>'
