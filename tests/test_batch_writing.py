@@ -35,6 +35,21 @@ def _without_time(path: Path) -> str:
                   path.read_text(encoding="utf-8"))
 
 
+def _noise_run(tmp_path: Path, seed: int) -> RunRecord:
+    """A run of one finding ("Noise", white noise of 40 values) said to come from x.csv."""
+    rng = np.random.default_rng(seed)
+    result = analyse_series(rng.normal(size=40), Settings(max_difference=0), "Noise")
+    return RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
+                     (Finding(result),))
+
+
+def _needs_fork() -> None:
+    from tauscope.commands import batch_writing
+
+    if "fork" not in batch_writing.multiprocessing.get_all_start_methods():
+        pytest.skip("no fork here")
+
+
 def test_shares_put_the_largest_first_each_to_the_least_loaded() -> None:
     targets = ["a.tex", "a.csv", "a.html", "a.json", "a.xlsx", "a.pdf"]
     assert plan_shares(targets, 1) == [["a.pdf", "a.json", "a.xlsx", "a.html", "a.csv", "a.tex"]]
@@ -115,10 +130,7 @@ def test_a_file_that_cannot_be_written_is_named_and_the_others_are_written(
 
 
 def test_files_a_lost_helper_did_not_write_are_written_here(tmp_path: Path) -> None:
-    rng = np.random.default_rng(2)
-    result = analyse_series(rng.normal(size=40), Settings(max_difference=0), "Noise")
-    run = RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
-                    (Finding(result),))
+    run = _noise_run(tmp_path, 2)
     targets = [str(tmp_path / "a.json"), str(tmp_path / "b.csv")]
     writers = Writers(targets, series=1, jobs=2, start="spawn")
     assert len(writers.helpers) == 1
@@ -135,13 +147,8 @@ def test_files_a_lost_helper_did_not_write_are_written_here(tmp_path: Path) -> N
 def test_files_a_lost_forked_helper_did_not_write_are_written_here(
         tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
     from tauscope.commands import batch_writing
-
-    if "fork" not in batch_writing.multiprocessing.get_all_start_methods():
-        pytest.skip("no fork here")
-    rng = np.random.default_rng(3)
-    result = analyse_series(rng.normal(size=40), Settings(max_difference=0), "Noise")
-    run = RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
-                    (Finding(result),))
+    _needs_fork()
+    run = _noise_run(tmp_path, 3)
     targets = [str(tmp_path / "a.json"), str(tmp_path / "b.csv"), str(tmp_path / "c.tex")]
     # the copy ends before it writes or answers anything (copied with this stand-in)
     monkeypatch.setattr(batch_writing, "_write_share", lambda *args: batch_writing.os._exit(3))
@@ -161,9 +168,7 @@ def test_json_entries_encoded_during_the_analysis_make_the_same_file(
     batch while it analyses (``batch_pieces``), and the file is written by the batch itself;
     its bytes are those one writer makes."""
     from tauscope.commands import batch_pieces, batch_writing
-
-    if "fork" not in batch_writing.multiprocessing.get_all_start_methods():
-        pytest.skip("no fork here")
+    _needs_fork()
     monkeypatch.setattr(batch_writing, "START", "fork")
     writers = Writers(["a.json", "b.xlsx", "c.csv", "d.pdf"], series=500, jobs=2)
     assert writers.pieces is not None and writers.shares[0][-1] == "a.json"  # written last
@@ -195,13 +200,8 @@ def test_a_stuck_helper_is_ended_and_its_files_written_here(
     import time
 
     from tauscope.commands import batch_writing
-
-    if "fork" not in batch_writing.multiprocessing.get_all_start_methods():
-        pytest.skip("no fork here")
-    rng = np.random.default_rng(4)
-    result = analyse_series(rng.normal(size=40), Settings(max_difference=0), "Noise")
-    run = RunRecord(Settings(max_difference=0), (SourceFile(str(tmp_path / "x.csv"), "0" * 64),),
-                    (Finding(result),))
+    _needs_fork()
+    run = _noise_run(tmp_path, 4)
     targets = [str(tmp_path / "a.csv"), str(tmp_path / "b.tex")]
     monkeypatch.setattr(batch_writing, "_write_share", lambda *args: time.sleep(600))
     writers = Writers(targets, series=1, jobs=2, start="fork")
