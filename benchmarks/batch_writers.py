@@ -1,6 +1,6 @@
 """What writing the findings costs ``tauscope batch``: every format against none, same run.
 
-    python benchmarks/batch_writers.py [--series 500] [--length 240] [--rounds 2]
+    python benchmarks/batch_writers.py [--series 500] [--length 240] [--rounds 2] [--jobs N]
 
 Writes a generated workbook of ``--series`` monthly series of ``--length`` observations (a
 fixed mix of I(0), I(1) and I(2), with and without trend or drift) to a temporary folder,
@@ -13,22 +13,22 @@ alternating, ``--rounds`` times each:
   data drawn as SVG in the .html, vectors in the .pdf, DrawingML shapes in the .xlsx), as
   batch does by default;
 - writing every format with ``--no-charts``;
-
-(``--jobs N`` passes ``--jobs N`` to those two; by default the batch chooses, by the load
-average at that moment, and the writers it chose are printed: on a machine where the load
-average is still high from the runs before, it may choose one);
 - writing every format, charts drawn, with ``--jobs 1``: every file written in this process,
   one after the other (by default batch shares the files out among helper processes, one
   per idle core, from 100 series on: ``tauscope.commands.batch_writing``, copies of this
   process on Linux; on a machine whose load average leaves no core idle besides the batch's
   own it writes as ``--jobs 1`` does, and the two runs agree).
 
-and prints the best time of each and their ratios to writing nothing (the target of issue 15
-is at most 2), in wall time and in CPU time: this process's and its helper processes' (the
-writers', counted once they have ended), so CPU time shows the work done, not its overlap.  Then, on the findings of one
-analysis, the charts drawn alone (milliseconds per series: the plans, then each drawn as SVG
-and as the .xlsx's shapes) and each format alone through ``tauscope.report.export`` with those
-charts (best of ``--rounds``), in milliseconds per series, with the file's size.
+``--jobs N`` passes ``--jobs N`` to the every-format runs with and without charts; by default
+the batch chooses by the load average at that moment, and on a machine where the runs before
+have raised it, it may choose one writer (the count the same rule gives just before each run
+is printed).  It prints the best time of each and their ratios to writing nothing (the target
+of issue 15 is at most 2), in wall time and in CPU time: this process's and its helper
+processes' (the writers', counted once they have ended), so CPU time shows the work done, not
+its overlap.  Then, on the findings of one analysis, the charts drawn alone (milliseconds per
+series: the plans, then each drawn as SVG and as the .xlsx's shapes) and each format alone
+through ``tauscope.report.export`` with those charts (best of ``--rounds``), in milliseconds
+per series, with the file's size.
 
 A first small run writing every format (charts included) comes before the timed ones, so that
 imports (and the fonts' first reading) are not counted; its time is printed.  Nothing here is a pass/fail threshold.
@@ -172,7 +172,8 @@ def main() -> int:
                              ("every format, --jobs 1:", serial)):
             print(f"  {label:28} {min(times):7.2f} s   (each run: "
                   f"{', '.join(f'{x:.2f}' for x in times)})")
-        print(f"  writers in the every-format runs (with charts, --no-charts, by round): "
+        print(f"  writers for the every-format runs by the batch's rule just before each "
+              f"(with charts, --no-charts, by round): "
               f"{', '.join(map(str, chosen))}" + (" (--jobs)" if jobs else " (load average)"))
         print(f"  ratio every format with charts / nothing: {e / n:.2f}  "
               "(issue 15 target: at most 2)")

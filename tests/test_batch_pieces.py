@@ -6,6 +6,7 @@ from __future__ import annotations
 import dataclasses
 import json
 import os
+import sys
 import time
 from pathlib import Path
 
@@ -17,7 +18,8 @@ from tauscope.report import RunRecord, export
 from tauscope.report.json_export import COMPACT, EncodedSeries, encode_series, run_to_json
 from test_report_support import make_run
 
-pytestmark = pytest.mark.skipif(not hasattr(os, "fork"), reason="the copies are forked (Linux)")
+pytestmark = pytest.mark.skipif(not sys.platform.startswith("linux"),
+                                reason="the copies are forked (Linux only)")
 
 
 def _plain_bytes(run: RunRecord) -> bytes:
@@ -81,33 +83,93 @@ def test_copies_encode_each_chunk_and_the_parts_join_to_the_whole(tmp_path: Path
         pieces.close()
 
 
-def test_a_copy_that_fails_gives_no_entries(monkeypatch: pytest.MonkeyPatch) -> None:
-    found = make_run().findings
+def _in_copies_only(replacement: object, monkeypatch: pytest.MonkeyPatch) -> None:
+    """``batch_pieces.encode_series`` replaced in the copies made from now on; this process
+    keeps the real one."""
+    here, real = os.getpid(), encode_series
+
+    def encode(findings: object) -> bytes:
+        if os.getpid() == here:
+            return real(findings)  # type: ignore[arg-type]
+        return replacement(findings)  # type: ignore[operator, no-any-return]
+
+    monkeypatch.setattr(batch_pieces, "encode_series", encode)
+
+
+def test_a_chunk_whose_copy_fails_is_encoded_here(monkeypatch: pytest.MonkeyPatch) -> None:
+    found = _renamed(make_run()).findings
 
     def broken(findings: object) -> bytes:
         raise RuntimeError("cannot encode")
 
-    monkeypatch.setattr(batch_pieces, "encode_series", broken)  # the copy is made with it
     pieces = EncodedPieces()
     try:
-        pieces.add(found)
-        assert pieces.result(found) is None
+        pieces.add(found[:1])  # a copy that works
+        _in_copies_only(broken, monkeypatch)
+        pieces.add(found[1:])  # one that fails
+        encoded = pieces.result(found)
+        assert encoded is not None and b",".join(encoded.parts) == encode_series(found)
     finally:
         pieces.close()
 
 
-def test_a_late_copy_is_ended_and_gives_no_entries(monkeypatch: pytest.MonkeyPatch) -> None:
+def test_a_chunk_no_copy_can_be_made_for_is_encoded_here(monkeypatch: pytest.MonkeyPatch) -> None:
+    found = make_run().findings
+
+    def no_fork() -> int:
+        raise OSError("no more processes")
+
+    monkeypatch.setattr(batch_pieces.os, "fork", no_fork)
+    pieces = EncodedPieces()
+    pieces.add(found)
+    encoded = pieces.result(found)
+    assert encoded is not None and encoded.parts == (encode_series(found),)
+    pieces.close()
+
+
+def test_a_late_copy_is_ended_and_its_chunk_encoded_here(monkeypatch: pytest.MonkeyPatch) -> None:
     found = make_run().findings
 
     def slow(findings: object) -> bytes:
         time.sleep(60)
         return b""
 
-    monkeypatch.setattr(batch_pieces, "encode_series", slow)
+    _in_copies_only(slow, monkeypatch)
     pieces = EncodedPieces()
     pieces.add(found)
     (piece,) = pieces._pieces
-    assert pieces.result(found, wait_s=0.2) is None
-    pieces.close()
+    assert piece.pid is not None
+    pid = piece.pid
+    started = time.monotonic()
+    encoded = pieces.result(found, wait_s=0.2)
+    assert time.monotonic() - started < 30
+    assert encoded is not None and encoded.parts == (encode_series(found),)
     with pytest.raises(ChildProcessError):  # ended and reaped
-        os.waitpid(piece.pid, os.WNOHANG)
+        os.waitpid(pid, os.WNOHANG)
+    pieces.close()
+
+
+def _ended(pid: int) -> bool:
+    """True once process ``pid`` has ended (a zombie, not yet reaped)."""
+    with open(f"/proc/{pid}/stat", encoding="ascii") as stat:
+        return stat.read().rsplit(")", 1)[1].split()[0] == "Z"
+
+
+def test_ended_copies_are_collected_as_more_chunks_come() -> None:
+    """A long run holds a file and a process only for the copies still encoding: each new
+    chunk first collects the copies that have ended (their part read, their file closed)."""
+    found = make_run().findings
+    pieces = EncodedPieces()
+    try:
+        pieces.add(found[:1])
+        (first,) = pieces._pieces
+        assert first.pid is not None and first.file is not None
+        deadline = time.monotonic() + 30
+        while not _ended(first.pid) and time.monotonic() < deadline:
+            time.sleep(0.01)
+        pieces.add(found[1:])
+        assert first.pid is None and first.file is None and first.part == encode_series(found[:1])
+        encoded = pieces.result(found)
+        assert encoded is not None and b",".join(encoded.parts) == encode_series(found)
+    finally:
+        pieces.close()

@@ -6,13 +6,17 @@ the others.  So ``tauscope batch`` need not wait for the last series to encode t
 each time a chunk of findings is ready (:meth:`EncodedPieces.add`), a copy of this process
 ("fork") encodes that chunk into a temporary file on an idle core while this process
 analyses the next chunk, and ends.  When the file is written, :meth:`EncodedPieces.result`
-waits for the copies, reads their parts back and hands them to the JSON writer, which puts
-them between the file's head and tail: the same bytes as encoding them there and then.
+collects the copies' parts and hands them to the JSON writer, which puts them between the
+file's head and tail: the same bytes as encoding them there and then.
 
-Nothing is lost when this fails: a copy that cannot be made, that ends with an error or
-that takes longer than :data:`WAIT_S`, makes :meth:`~EncodedPieces.result` answer None, and
-the file is encoded whole as before.  The copies ignore Ctrl+C (the batch's to handle) and
-are ended by :meth:`~EncodedPieces.close`.
+Nothing is lost when a copy fails: a chunk whose copy cannot be made, ends with an error, or
+has not ended by the deadline (:data:`WAIT_S` plus :data:`WAIT_PER_SERIES_S` a series of the
+run, counted from :meth:`~EncodedPieces.result`) is encoded by the batch itself there.  The
+copies ignore Ctrl+C (the batch's to handle; it is blocked while a copy is made, so none
+can reach a copy before it ignores it) and are ended by :meth:`~EncodedPieces.close`.  A
+copy that has ended is reaped, and its part read and its file closed, at the next
+:meth:`~EncodedPieces.add`, so a long run holds a file and a process only for the copies
+still encoding.
 """
 
 from __future__ import annotations
@@ -30,26 +34,31 @@ from typing import IO
 from tauscope.report import EncodedSeries, Finding
 from tauscope.report.json_export import encode_series
 
-WAIT_S = 120.0
-"""The longest wait for all the copies at writing time; then the entries are encoded here."""
+WAIT_S = 2.0
+WAIT_PER_SERIES_S = 0.004
+"""The wait for the copies at writing time: WAIT_S plus WAIT_PER_SERIES_S a series (4 s for
+500 series, whose entries the batch encodes in about 0.7 s here); a chunk not encoded by
+then is encoded by the batch."""
 _POLL_S = 0.002
 
 
 @dataclass
 class _Piece:
-    pid: int
-    file: IO[bytes]
     findings: tuple[Finding, ...]
-    ended: bool = False
+    pid: int | None = None  # the copy encoding it (None: none, or reaped)
+    file: IO[bytes] | None = None
+    part: bytes | None = None  # the copy's entries once read back
 
 
-def _encode_and_end(fd: int, findings: Sequence[Finding]) -> None:
-    """The copy's whole life: encode ``findings`` into ``fd``, end with status 0 (1 on any
-    error), never returning and without the interpreter's tidying up (which would free
-    every object copied and flush the batch's own buffers a second time)."""
+def _encode_and_end(fd: int, findings: Sequence[Finding], mask: set[int | signal.Signals]) -> None:
+    """The copy's whole life: ignore Ctrl+C, then the signal mask back to ``mask``; encode
+    ``findings`` into ``fd``; end with status 0 (1 on any error), never returning and without
+    the interpreter's tidying up (which would free every object copied and flush the
+    batch's own buffers a second time)."""
     status = 1
     try:
         signal.signal(signal.SIGINT, signal.SIG_IGN)
+        signal.pthread_sigmask(signal.SIG_SETMASK, mask)
         gc.disable()  # short-lived: nothing of its own to collect
         view = memoryview(encode_series(findings))
         while view:
@@ -65,68 +74,86 @@ class EncodedPieces:
 
     def __init__(self) -> None:
         self._pieces: list[_Piece] = []
-        self._broken = False
 
     def add(self, findings: Sequence[Finding]) -> None:
         """Start encoding ``findings`` (the next ones in the run's order) on a copy."""
-        if self._broken or not findings:
+        if not findings:
             return
+        self._reap()
+        piece = _Piece(tuple(findings))
+        self._pieces.append(piece)
         try:
-            file = tempfile.TemporaryFile(prefix="tauscope-json-")  # noqa: SIM115 (closed by close())
+            file = tempfile.TemporaryFile(prefix="tauscope-json-")  # noqa: SIM115 (closed by _reap, close)
         except OSError:
-            self._broken = True
-            return
+            return  # encoded by the batch at writing time
+        # Ctrl+C blocked while the copy is made: the copy ignores it before it can arrive
+        mask = signal.pthread_sigmask(signal.SIG_BLOCK, {signal.SIGINT})
         try:
             pid = os.fork()
         except OSError:
+            signal.pthread_sigmask(signal.SIG_SETMASK, mask)
             file.close()
-            self._broken = True
             return
         if pid == 0:  # the copy
-            _encode_and_end(file.fileno(), findings)
-        self._pieces.append(_Piece(pid, file, tuple(findings)))
+            _encode_and_end(file.fileno(), piece.findings, mask)
+        signal.pthread_sigmask(signal.SIG_SETMASK, mask)
+        piece.pid, piece.file = pid, file
 
-    def result(self, findings: Sequence[Finding], wait_s: float = WAIT_S) -> EncodedSeries | None:
-        """The entries of ``findings`` once every copy has ended well, or None (a copy failed
-        or was late, or the pieces are not those of ``findings``)."""
-        if self._broken:
+    def result(self, findings: Sequence[Finding],
+               wait_s: float | None = None) -> EncodedSeries | None:
+        """The entries of ``findings`` (None when the pieces are not those of ``findings``):
+        each chunk's from its copy when it ended well by the deadline, else encoded here."""
+        covered = tuple(f for piece in self._pieces for f in piece.findings)
+        if not EncodedSeries(covered, ()).fits(findings):
             return None
+        if wait_s is None:
+            wait_s = WAIT_S + WAIT_PER_SERIES_S * len(findings)
         deadline = time.monotonic() + wait_s
-        parts = []
-        for piece in self._pieces:
-            if not self._ended_well(piece, deadline):
-                self._broken = True
-                return None
-            piece.file.seek(0)
-            parts.append(piece.file.read())
-        encoded = EncodedSeries(tuple(f for piece in self._pieces for f in piece.findings),
-                                tuple(parts))
-        return encoded if encoded.fits(findings) else None
+        while any(p.pid is not None for p in self._pieces) and time.monotonic() < deadline:
+            if not self._reap():
+                time.sleep(_POLL_S)
+        self._end_copies()  # any copy still running is late
+        return EncodedSeries(covered, tuple(p.part if p.part is not None
+                                            else encode_series(p.findings)
+                                            for p in self._pieces))
 
-    @staticmethod
-    def _ended_well(piece: _Piece, deadline: float) -> bool:
-        """Wait for ``piece``'s copy until ``deadline``; True when it ended with status 0."""
-        while not piece.ended:
+    def _reap(self) -> bool:
+        """Collect every copy that has ended: its part when it ended well (status 0), its file
+        closed; True when any had ended."""
+        reaped = False
+        for piece in self._pieces:
+            if piece.pid is None:
+                continue
             try:
                 pid, status = os.waitpid(piece.pid, os.WNOHANG)
             except ChildProcessError:
-                return False
-            if pid:
-                piece.ended = True
-                return os.waitstatus_to_exitcode(status) == 0
-            if time.monotonic() > deadline:
-                return False
-            time.sleep(_POLL_S)
-        return True
+                pid, status = piece.pid, -1
+            if not pid:
+                continue
+            reaped = True
+            piece.pid = None
+            assert piece.file is not None
+            if status != -1 and os.waitstatus_to_exitcode(status) == 0:
+                piece.file.seek(0)
+                piece.part = piece.file.read()
+            piece.file.close()
+            piece.file = None
+        return reaped
 
-    def close(self) -> None:
-        """End any copy still running and free the temporary files."""
+    def _end_copies(self) -> None:
+        """End and reap any copy still running; free the temporary files."""
         for piece in self._pieces:
-            if not piece.ended:
+            if piece.pid is not None:
                 with suppress(OSError):
                     os.kill(piece.pid, signal.SIGKILL)
                 with suppress(OSError):
                     os.waitpid(piece.pid, 0)
-                piece.ended = True
-            piece.file.close()
+                piece.pid = None
+            if piece.file is not None:
+                piece.file.close()
+                piece.file = None
+
+    def close(self) -> None:
+        """End any copy still running and free the temporary files."""
+        self._end_copies()
         self._pieces = []

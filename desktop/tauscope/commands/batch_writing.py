@@ -61,9 +61,10 @@ COST = {".pdf": 2.0, ".json": 1.8, ".xlsx": 1.3, ".html": 0.6, ".csv": 0.3, ".te
 JOIN_S = 5.0  # the longest wait for a helper to end after it has reported every file
 QUIET_S = 60.0
 QUIET_PER_SERIES_S = 0.02
-"""The longest a helper may go without reporting a file: QUIET_S plus QUIET_PER_SERIES_S a
-series (70 s for 500; a file of 500 series takes about a second here).  A helper quiet for
-longer is taken as stuck: it is ended and the files it did not report are written here."""
+"""The longest a helper may go without reporting a file, counted from when this process,
+its own share written, starts waiting for it: QUIET_S plus QUIET_PER_SERIES_S a series (70 s
+for 500; a file of 500 series takes about a second here).  A helper quiet for longer is
+taken as stuck: it is ended and the files it did not report are written here."""
 
 
 def _failure(target: str, exc: Exception) -> str:
@@ -356,6 +357,7 @@ class Writers:
             while waiting:
                 if not helper.conn.poll(quiet_s):
                     helper.process.kill()
+                    helper.process.join(JOIN_S)  # reaped: its temporary file is seen as stale
                     raise EOFError("the helper was stuck")
                 target, sentence = helper.conn.recv()
                 waiting.remove(target)

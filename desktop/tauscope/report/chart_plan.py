@@ -21,6 +21,7 @@ room for the tick labels.
 from __future__ import annotations
 
 import math
+import threading
 from dataclasses import dataclass
 
 import numpy as np
@@ -109,7 +110,9 @@ def number_ticks(low: float, high: float, count: int = 5) -> list[tuple[float, s
 
 
 _DATED_X: dict[tuple[str, bytes], tuple[np.ndarray, bool]] = {}
-_DATED_X_KEPT = 64
+_DATED_X_KEPT = 64  # indexes; of at most _DATED_X_LONGEST dates each (20 MB in all at most)
+_DATED_X_LONGEST = 20_000
+_DATED_X_LOCK = threading.Lock()
 
 
 def x_values(index: pd.Index) -> tuple[np.ndarray, bool]:
@@ -117,16 +120,17 @@ def x_values(index: pd.Index) -> tuple[np.ndarray, bool]:
 
     A dated index's decimal years (read-only) are kept by its dates: the series of one
     sheet share their dates, and pandas' conversion costs more than the rest of a chart."""
-    if not isinstance(index, (pd.PeriodIndex, pd.DatetimeIndex)):
+    if not isinstance(index, (pd.PeriodIndex, pd.DatetimeIndex)) or len(index) > _DATED_X_LONGEST:
         return _x_values(index)
     key = (str(index.dtype), index.asi8.tobytes())
     found = _DATED_X.get(key)
     if found is None:
         found = _x_values(index)
         found[0].setflags(write=False)
-        if len(_DATED_X) >= _DATED_X_KEPT:
-            _DATED_X.pop(next(iter(_DATED_X)))
-        _DATED_X[key] = found
+        with _DATED_X_LOCK:
+            if len(_DATED_X) >= _DATED_X_KEPT:
+                _DATED_X.pop(next(iter(_DATED_X)))
+            _DATED_X[key] = found
     return found
 
 

@@ -87,9 +87,8 @@ def _fit_widths(sheet: Sheet, table: Table) -> None:
     by_column = list(zip(*table.rows, strict=True)) if table.rows else [()] * len(table.columns)
     for j, (column, values) in enumerate(zip(table.columns, by_column, strict=True), start=1):
         widest = max(8.0, len(column.header) * 0.9 + 2)
-        for value in set(values):
-            if value is not None and not isinstance(value, float):
-                widest = max(widest, len(str(value)) + 2)
+        for text in {str(v) for v in values if v is not None and not isinstance(v, float)}:
+            widest = max(widest, len(text) + 2)
         sheet.widths[j] = min(MAX_WIDTH, widest)
 
 
