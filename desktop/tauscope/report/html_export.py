@@ -11,37 +11,34 @@ import html
 from collections.abc import Callable
 from pathlib import Path
 
-from tauscope.engine import formatting as fmt
 from tauscope.report.atomic import write_text_atomic
 from tauscope.report.chart_plan import ChartPlan
 from tauscope.report.chart_svg import svg_data_uri
-from tauscope.report.deciding import CLASSIC_IN_PATH, union_note
-from tauscope.report.methods import critical_words, left_out_note, methods_for, tests_words
+from tauscope.report.methods import left_out_note, methods_for
+from tauscope.report.report_text import (
+    CHART_WIDTH,
+    ONE_LINE_EACH,
+    PATH_WIDTHS,
+    SUMMARY_WIDTHS,
+    cell_text,
+    merged_markers,
+    meta_line,
+    origin_line,
+    sources_line,
+    summary_note,
+)
 from tauscope.report.run import Charts, Finding, RunRecord, chart_for
 from tauscope.report.tables import (
-    MARKER_NOTE,
-    NORMAL_NOTE,
     Column,
     Table,
     Value,
     compact_table,
-    lag_rule_label,
-    normal_step,
     path_table,
 )
 from tauscope.report.text_safety import html_text
 
 ImageSource = Callable[[int, ChartPlan], str]
 """Gives the ``src`` of chart number ``i`` (0-based, in series order) from its plan."""
-
-CHART_WIDTH = 620
-PATH_WIDTHS = {"step": 6, "on": 11, "regression": 12, "hypothesis": 24, "symbol": 9, "value": 9,
-               "critical": 9, "p_value": 9, "decision": 11}
-SUMMARY_WIDTHS = {"series": 13, "verdict": 14, "nobs": 6, "span": 11, "kpss": 14,
-                  "agreement": 11}
-ONE_LINE_EACH = {"kpss"}
-"""Columns whose "; "-separated items each get a line of their own that never wraps
-(a KPSS value with the difference it was computed on)."""
 
 STYLE = """
 body { font-family: 'Segoe UI', 'Helvetica Neue', Arial, sans-serif; font-size: 10.5pt;
@@ -83,22 +80,10 @@ def _esc(text: object) -> str:
     return found
 
 
-def _format(value: Value, kind: str) -> str:
-    if value is None:
-        return ""
-    if isinstance(value, str):
-        return value
-    if kind == "stat":
-        return fmt.stat(float(value), 3)
-    if kind == "p":
-        return fmt.p_value(float(value))
-    return str(value)
-
-
 def _cell(column: Column, value: Value) -> str:
     numeric = column.kind in ("stat", "p", "int")
     attr = ' class="num" align="right"' if numeric else ""
-    text = _format(value, column.kind)
+    text = cell_text(value, column.kind)
     if column.ident in ONE_LINE_EACH:
         inner = "<br>".join(_esc(item).replace(" ", "&nbsp;") for item in text.split("; "))
     else:
@@ -135,81 +120,10 @@ def table_html(table: Table, css_class: str, widths: dict[str, int] | None = Non
             f"<thead><tr>{head}</tr></thead><tbody>{''.join(body)}</tbody></table>")
 
 
-def _merge_markers(table: Table) -> Table:
-    """Glue each "…_sig" and "…_spec" column onto the statistic before it: −3.51** (ct, 2)."""
-    glued = ("_sig", "_spec")
-    keep = [i for i, c in enumerate(table.columns) if not c.ident.endswith(glued)]
-    columns = tuple(table.columns[i] for i in keep)
-    rows = []
-    for row in table.rows:
-        out: list[Value] = []
-        for i in keep:
-            value = row[i]
-            column = table.columns[i]
-            if value is None or column.kind not in ("stat", "p"):
-                out.append(value)
-                continue
-            text = _format(value, column.kind)
-            for j in range(i + 1, len(row)):
-                ident = table.columns[j].ident
-                if not ident.endswith(glued):
-                    break
-                if ident.endswith("_sig"):
-                    text += str(row[j] or "")
-                elif row[j]:
-                    text += " (" + str(row[j]).replace(" ", "\u00a0") + ")"  # wraps as one
-            out.append(text)
-        rows.append(tuple(out))
-    return Table(columns, tuple(rows))
-
-
-def summary_note(run: RunRecord) -> str:
-    """The note under the summary: markers, terms, and † when a τ in the summary was judged
-    against the standard normal."""
-    note = (f"{MARKER_NOTE} Terms: ct constant and trend, c constant, n none; then the lag "
-            "order.")
-    if any(normal_step(f.result, d) is not None for f in run.findings for d in range(3)):
-        note += " " + NORMAL_NOTE
-    union = union_note((f.result for f in run.findings), CLASSIC_IN_PATH)
-    return f"{note} {union}" if union else note
-
-
-def meta_line(run: RunRecord) -> str:
-    """Version, date, series, level, lag rule, critical values and tests, in one line."""
-    settings = run.settings
-    return (f"Tauscope {run.version} · {run.created} · {len(run.findings)} series · "
-            f"significance level {fmt.percent(settings.alpha)} · lag rule: "
-            f"{lag_rule_label(settings)} · critical values: {critical_words(run)} · "
-            f"tests that ran: {tests_words(run)}")
-
-
-def sources_line(run: RunRecord) -> str:
-    return "; ".join(f"{s.name} (SHA-256 {s.sha256[:16]}…)" for s in run.sources)
-
-
-def _origin(finding: Finding) -> str:
-    result = finding.result
-    parts = []
-    if finding.file:
-        where = finding.file_name
-        if finding.sheet:
-            where += f", sheet “{finding.sheet}”"
-        if finding.column and finding.column != finding.name:
-            where += f", column “{finding.column}”"
-        parts.append(where)
-    if finding.frequency:
-        parts.append(finding.frequency)
-    if result.span:
-        parts.append(f"{result.span[0]} to {result.span[1]}")
-    if result.ok:
-        parts.append(f"{result.nobs} observations")
-    return " · ".join(parts)
-
-
 def _series_section(number: int, finding: Finding, image: str | None) -> str:
     result = finding.result
     out = [f'<h3 id="series-{number}">{number}. {_esc(finding.name)}</h3>',
-           f'<p class="meta">{_esc(_origin(finding))}</p>',
+           f'<p class="meta">{_esc(origin_line(finding))}</p>',
            f'<p class="verdict">{_esc(result.verdict.label)}</p>']
     if not result.ok:
         out.append(f"<p>{_esc(result.error)}</p>")
@@ -243,7 +157,7 @@ def run_to_html(run: RunRecord, charts: Charts | None = None,
     left = left_out_note(run)
     if left is not None:
         parts.append(f'<p class="left-out"><b>{_esc(left)}</b></p>')
-    parts += ["<h2>Summary</h2>", table_html(_merge_markers(compact_table(run)), "summary",
+    parts += ["<h2>Summary</h2>", table_html(merged_markers(compact_table(run)), "summary",
                                                 SUMMARY_WIDTHS, note_column="error"),
               f'<p class="note">{_esc(summary_note(run))}</p>',
               "<h2>Series</h2>"]

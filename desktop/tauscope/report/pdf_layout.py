@@ -9,20 +9,20 @@ from __future__ import annotations
 
 from collections.abc import Callable
 
-from tauscope.report.html_export import (
+from tauscope.report.methods import left_out_note, methods_for
+from tauscope.report.pdf_flow import Column, Face, Flow, Style
+from tauscope.report.report_text import (
     CHART_WIDTH,
     ONE_LINE_EACH,
     PATH_WIDTHS,
     SUMMARY_WIDTHS,
-    _format,
-    _merge_markers,
-    _origin,
+    cell_text,
+    merged_markers,
     meta_line,
+    origin_line,
     sources_line,
     summary_note,
 )
-from tauscope.report.methods import left_out_note, methods_for
-from tauscope.report.pdf_flow import Column, Face, Flow, Style
 from tauscope.report.run import Charts, RunRecord, chart_for
 from tauscope.report.tables import Table, Value, compact_table, path_table
 from tauscope.report.text_safety import pdf_text
@@ -51,7 +51,7 @@ class _Styles:
 
 def _text(table: Table, index: int, value: Value) -> str:
     column = table.columns[index]
-    text = pdf_text(_format(value, column.kind))
+    text = pdf_text(cell_text(value, column.kind))
     if column.ident in ONE_LINE_EACH:  # one item a line, never broken inside
         return "\n".join(item.replace(" ", "\u00a0") for item in text.split("; "))
     return text
@@ -97,13 +97,13 @@ def layout_report(run: RunRecord, charts: Charts | None, font: FaceMaker) -> Flo
     if left is not None:
         flow.paragraph(left, styles.left_out)
     _heading2(flow, styles, "Summary")
-    _table(flow, styles, _merge_markers(compact_table(run)), SUMMARY_WIDTHS, note_column="error")
+    _table(flow, styles, merged_markers(compact_table(run)), SUMMARY_WIDTHS, note_column="error")
     flow.paragraph(summary_note(run), styles.note)
     _heading2(flow, styles, "Series")
     for number, finding in enumerate(run.findings, start=1):
         result = finding.result
         flow.paragraph(f"{number}. {finding.name}", styles.h3, before=14, after=2, heading=True)
-        flow.paragraph(_origin(finding), styles.meta, after=2)
+        flow.paragraph(origin_line(finding), styles.meta, after=2)
         flow.paragraph(result.verdict.label, styles.verdict, after=4)
         if not result.ok:
             flow.paragraph(result.error or "", styles.body)
